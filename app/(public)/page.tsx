@@ -1,0 +1,35 @@
+import Link from "next/link";
+import { NameMark } from "@/components/brand/name-mark";
+import { currentActor } from "@/lib/auth/session";
+
+export const dynamic = "force-dynamic";
+
+export default async function HomePage() {
+  const actor = await currentActor();
+  return (
+    <main className="mx-auto max-w-3xl px-6 py-16">
+      <NameMark className="mb-10" />
+      <h1 className="mb-4 text-3xl">Keep every reach above its dissolved-oxygen criterion — and show your work.</h1>
+      <p className="mb-4 text-ink-soft">
+        Sagline is a shared workspace for river-basin planners. Import the reach network and the outfalls of the plants
+        that discharge oxygen-demanding waste, run a chained Streeter–Phelps model of dissolved oxygen along the network
+        at critical low-flow conditions, and let a linear program find each discharger&apos;s waste-load allocation so
+        that DO stays above the criterion. Then take the plan through review: dischargers see their proposed allocation
+        and why, stakeholders comment during a formal review period, and the agency lead publishes the final plan.
+      </p>
+      <p className="mb-8 text-sm text-ink-faint">
+        Allocations are planning estimates: they must be confirmed with a calibrated model and by a qualified engineer,
+        and the jurisdiction&apos;s water-quality standards and permitting rules take precedence.
+      </p>
+      {actor ? (
+        <Link href="/basins" className="rounded-md bg-tarn-600 px-4 py-2 font-medium text-white no-underline hover:bg-tarn-700 hover:no-underline">
+          Go to your basins
+        </Link>
+      ) : (
+        <Link href="/signin" className="rounded-md bg-tarn-600 px-4 py-2 font-medium text-white no-underline hover:bg-tarn-700 hover:no-underline">
+          Sign in
+        </Link>
+      )}
+    </main>
+  );
+}

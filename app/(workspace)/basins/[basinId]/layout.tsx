@@ -1,0 +1,38 @@
+import { notFound } from "next/navigation";
+import type { ReactNode } from "react";
+import { BasinTabs } from "@/components/layout/basin-tabs";
+import { Denied } from "@/components/ui/denied";
+import { RoleBadge } from "@/components/ui/role-badge";
+import { basinPageAccess } from "@/lib/auth/page-access";
+
+export default async function BasinLayout({
+  children,
+  params,
+}: {
+  children: ReactNode;
+  params: Promise<{ basinId: string }>;
+}) {
+  const { basinId } = await params;
+  const access = await basinPageAccess(basinId, "basin.read");
+  if (!access.ok) {
+    if (access.status === 404) notFound();
+    return <Denied message={access.message} />;
+  }
+  const { basin, role } = access;
+  const tabs = [
+    { href: `/basins/${basin.id}`, label: "Overview", show: true },
+    { href: `/basins/${basin.id}/members`, label: "Members & facilities", show: await access.can("members.read") },
+    { href: `/basins/${basin.id}/settings`, label: "Settings", show: await access.can("basin.update") },
+  ].filter((t) => t.show);
+  return (
+    <div>
+      <div className="mb-2 flex flex-wrap items-center gap-3">
+        <h1>{basin.name}</h1>
+        {role && <RoleBadge role={role} />}
+        {!role && access.actor.isAdmin && <RoleBadge role="admin" />}
+      </div>
+      <BasinTabs tabs={tabs.map(({ href, label }) => ({ href, label }))} />
+      <div className="mt-6">{children}</div>
+    </div>
+  );
+}

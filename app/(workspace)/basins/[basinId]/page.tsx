@@ -1,0 +1,80 @@
+import { basinPageAccess } from "@/lib/auth/page-access";
+import { getDb } from "@/db/client";
+import { listFacilities } from "@/lib/services/facilities";
+import { Notice } from "@/components/ui/notice";
+
+const ROLE_HELP = {
+  lead: "You lead this basin: you manage its members and settings, open review periods and publish final plans.",
+  planner: "You plan in this basin: you import networks, run scenarios and propose plans.",
+  discharger: "You represent a discharger: you will see your facility's proposed allocation and can comment during review.",
+  stakeholder: "You follow this basin: you can read plans under review and comment while a review period is open.",
+} as const;
+
+export default async function BasinOverviewPage({ params }: { params: Promise<{ basinId: string }> }) {
+  const { basinId } = await params;
+  const access = await basinPageAccess(basinId, "basin.read");
+  if (!access.ok) return null; // the layout already shows why
+  const { basin, role, actor } = access;
+  const facilities = (await access.can("facilities.read")) ? await listFacilities(getDb(), actor, basin.id) : null;
+  const us = basin.unitSystem === "US";
+  return (
+    <div className="grid gap-6 lg:grid-cols-3">
+      <section className="card lg:col-span-2">
+        <h2 className="mb-2">About this basin</h2>
+        <p className="mb-4 whitespace-pre-line text-ink-soft">{basin.description || "No description yet."}</p>
+        <dl className="grid grid-cols-2 gap-4 text-sm">
+          <div>
+            <dt className="text-ink-faint">DO criterion</dt>
+            <dd className="text-lg font-semibold" data-testid="do-criterion">
+              {basin.doCriterionMgL.toFixed(1)} mg/L
+            </dd>
+          </div>
+          <div>
+            <dt className="text-ink-faint">Units</dt>
+            <dd className="text-lg font-semibold">{us ? "US customary (mi, cfs, lb/d)" : "SI (km, m³/s, kg/d)"}</dd>
+          </div>
+        </dl>
+      </section>
+      <section className="card">
+        <h2 className="mb-2">Your part</h2>
+        <p className="text-sm text-ink-soft">
+          {role ? ROLE_HELP[role] : "You are a site administrator: you look after this basin's settings and members."}
+        </p>
+      </section>
+      {facilities && (
+        <section className="card lg:col-span-3">
+          <h2 className="mb-3">{role === "discharger" ? "Your facilities" : "Facilities"}</h2>
+          {facilities.length === 0 ? (
+            <p className="text-sm text-ink-soft">No facilities yet.</p>
+          ) : (
+            <table className="data-table">
+              <thead>
+                <tr>
+                  <th>Facility</th>
+                  <th>Permit id</th>
+                  <th>Discharger contacts</th>
+                </tr>
+              </thead>
+              <tbody>
+                {facilities.map((f) => (
+                  <tr key={f.id}>
+                    <td>{f.name}</td>
+                    <td className="font-mono text-xs">{f.permitId}</td>
+                    <td>{f.users.map((u) => u.name).join(", ") || "—"}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
+        </section>
+      )}
+      <div className="lg:col-span-3">
+        <Notice tone="info">
+          Networks, scenarios and plans for this basin appear here as they are added. Allocations are planning estimates to
+          be confirmed with a calibrated model and by a qualified engineer; the jurisdiction&apos;s standards and
+          permitting rules take precedence.
+        </Notice>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,116 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import type { z } from "zod";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { applyApiError } from "@/components/ui/form-error";
+import { Notice } from "@/components/ui/notice";
+import { basinCreateSchema, type BasinCreateInput } from "@/lib/validation/basin";
+
+const FIELDS = ["name", "slug", "description", "doCriterionMgL", "unitSystem"] as const;
+
+/** Create or edit a basin's settings; validated by the same schema as the API. */
+export function BasinForm({
+  initial,
+  submitLabel,
+  onSubmit,
+}: {
+  initial?: Partial<BasinCreateInput>;
+  submitLabel: string;
+  onSubmit: (values: BasinCreateInput) => Promise<unknown>;
+}) {
+  const [failure, setFailure] = useState<string | null>(null);
+  const [saved, setSaved] = useState(false);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    setValue,
+    getValues,
+    formState: { errors, isSubmitting, dirtyFields },
+  } = useForm<z.input<typeof basinCreateSchema>, unknown, BasinCreateInput>({
+    resolver: zodResolver(basinCreateSchema),
+    defaultValues: {
+      name: "",
+      slug: "",
+      description: "",
+      doCriterionMgL: 5,
+      unitSystem: "SI",
+      ...initial,
+    },
+  });
+
+  const submit = handleSubmit(async (values) => {
+    setFailure(null);
+    setSaved(false);
+    try {
+      await onSubmit(values);
+      setSaved(true);
+    } catch (error) {
+      const message = applyApiError(error, setError as never, FIELDS);
+      if (message) setFailure(message);
+    }
+  });
+
+  // Suggest a short name from the name until the planner types one.
+  const nameField = register("name", {
+    onChange: () => {
+      if (!initial?.slug && !dirtyFields.slug) {
+        const slug = String(getValues("name"))
+          .toLowerCase()
+          .normalize("NFKD")
+          .replace(/[^a-z0-9]+/g, "-")
+          .replace(/^-+|-+$/g, "")
+          .slice(0, 60);
+        setValue("slug", slug);
+      }
+    },
+  });
+
+  return (
+    <form onSubmit={submit} noValidate className="max-w-xl space-y-4">
+      {failure && <Notice tone="error">{failure}</Notice>}
+      {saved && <Notice tone="success">Saved.</Notice>}
+      <Field label="Basin name" error={errors.name?.message} {...nameField} />
+      <Field
+        label="Short name (used in links)"
+        error={errors.slug?.message}
+        hint="Lower-case letters, digits and hyphens."
+        {...register("slug")}
+      />
+      <div>
+        <label htmlFor="description" className="field-label">
+          Description
+        </label>
+        <textarea id="description" rows={3} className="field-input" {...register("description")} />
+        {errors.description && <p className="field-error">{errors.description.message}</p>}
+      </div>
+      <Field
+        label="DO criterion (mg/L)"
+        type="number"
+        step="0.1"
+        inputMode="decimal"
+        error={errors.doCriterionMgL?.message}
+        hint="The dissolved-oxygen level every reach must stay above at critical conditions."
+        {...register("doCriterionMgL")}
+      />
+      <fieldset>
+        <legend className="field-label">Units on screens and exports</legend>
+        <div className="flex gap-6 text-sm">
+          <label className="flex items-center gap-2">
+            <input type="radio" value="SI" {...register("unitSystem")} /> SI (km, m³/s, kg/d)
+          </label>
+          <label className="flex items-center gap-2">
+            <input type="radio" value="US" {...register("unitSystem")} /> US customary (mi, cfs, lb/d)
+          </label>
+        </div>
+        {errors.unitSystem && <p className="field-error">{errors.unitSystem.message}</p>}
+      </fieldset>
+      <Button type="submit" disabled={isSubmitting}>
+        {isSubmitting ? "Saving…" : submitLabel}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,13 @@
+import type { BasinRole } from "@/db/schema";
+
+const STYLE: Record<BasinRole, string> = {
+  lead: "bg-tarn-600 text-white",
+  planner: "bg-tarn-100 text-tarn-900",
+  discharger: "bg-ochre-100 text-ochre-700",
+  stakeholder: "bg-paper-sunk text-ink-soft",
+};
+
+export function RoleBadge({ role }: { role: BasinRole | "admin" }) {
+  const cls = role === "admin" ? "bg-ink text-paper" : STYLE[role];
+  return <span className={`inline-block rounded-full px-2.5 py-0.5 text-xs font-semibold ${cls}`}>{role}</span>;
+}

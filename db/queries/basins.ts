@@ -1,0 +1,52 @@
+import type { Db } from "../client";
+import type { BasinRole, BasinRow, BasinUpdate, NewBasin } from "../schema";
+import { isUuid } from "./users";
+
+export type BasinRecord = BasinRow;
+
+export async function findBasinById(db: Db, id: string): Promise<BasinRecord | undefined> {
+  if (!isUuid(id)) return undefined;
+  return db.selectFrom("basins").selectAll().where("id", "=", id).executeTakeFirst();
+}
+
+export async function findBasinBySlug(db: Db, slug: string): Promise<BasinRecord | undefined> {
+  return db.selectFrom("basins").selectAll().where("slug", "=", slug).executeTakeFirst();
+}
+
+export interface BasinWithRole extends BasinRecord {
+  role: BasinRole | null;
+  member_count: number;
+}
+
+/** Basins a user belongs to (or every basin, for a site admin), with the user's role. */
+export async function listBasinsForUser(db: Db, userId: string, all: boolean): Promise<BasinWithRole[]> {
+  let query = db
+    .selectFrom("basins")
+    .leftJoin("memberships as m", (join) => join.onRef("m.basin_id", "=", "basins.id").on("m.user_id", "=", userId))
+    .selectAll("basins")
+    .select("m.role")
+    .select((eb) =>
+      eb
+        .selectFrom("memberships as mc")
+        .whereRef("mc.basin_id", "=", "basins.id")
+        .select((e) => e.fn.countAll<string>().as("n"))
+        .as("member_count"),
+    )
+    .orderBy("basins.name");
+  if (!all) query = query.where("m.user_id", "is not", null);
+  const rows = await query.execute();
+  return rows.map((r) => ({ ...r, role: r.role ?? null, member_count: Number(r.member_count ?? 0) }));
+}
+
+export async function insertBasin(db: Db, basin: NewBasin): Promise<BasinRecord> {
+  return db.insertInto("basins").values(basin).returningAll().executeTakeFirstOrThrow();
+}
+
+export async function updateBasin(db: Db, id: string, patch: BasinUpdate): Promise<BasinRecord | undefined> {
+  return db
+    .updateTable("basins")
+    .set({ ...patch, updated_at: new Date() })
+    .where("id", "=", id)
+    .returningAll()
+    .executeTakeFirst();
+}

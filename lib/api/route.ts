@@ -1,0 +1,95 @@
+import { NextResponse, type NextRequest } from "next/server";
+import type { z } from "zod";
+import { getDb, type Db } from "@/db/client";
+import { requireActor, requireBasinAction, requireSiteAction, type Actor, type BasinAccess } from "@/lib/auth/guard";
+import type { BasinAction, SiteAction } from "@/lib/auth/permissions";
+import { actorFromRequest } from "@/lib/auth/session";
+import { AppError } from "@/lib/errors";
+import { errorResponse, invalid } from "./respond";
+
+/** What a handler needs before it runs. */
+export type Access =
+  | { public: true }
+  | { signedIn: true }
+  | { site: SiteAction }
+  | { basin: BasinAction };
+
+interface Spec<P extends z.ZodType, B extends z.ZodType> {
+  access: Access;
+  params?: P;
+  body?: B;
+  /** HTTP status of a successful response (default 200). */
+  status?: number;
+}
+
+export interface RouteContext<P, B> {
+  db: Db;
+  req: NextRequest;
+  actor: Actor | null;
+  params: P;
+  body: B;
+  /** Set when access is { basin: … }: the basin and the actor's role in it. */
+  access: BasinAccess | null;
+}
+
+type Handler<P, B> = (ctx: RouteContext<P, B>) => Promise<unknown>;
+
+async function readJson(req: NextRequest): Promise<unknown> {
+  const text = await req.text();
+  if (text.trim() === "") throw new AppError("bad_request", "The request body is empty; send a JSON object");
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new AppError("bad_request", "The request body is not valid JSON");
+  }
+}
+
+/**
+ * The only way to write an API route: session → permission → params/body
+ * validation → service → JSON, with every error mapped in one place.
+ */
+export function route<P extends z.ZodType = z.ZodType<Record<string, string>>, B extends z.ZodType = z.ZodType<undefined>>(
+  spec: Spec<P, B>,
+  handler: Handler<z.infer<P>, z.infer<B>>,
+) {
+  return async (req: NextRequest, ctx: { params: Promise<Record<string, string | string[]>> }): Promise<Response> => {
+    try {
+      const db = getDb();
+      const rawParams = (await ctx?.params) ?? {};
+      const actor = "public" in spec.access ? await actorFromRequest(req).catch(() => null) : await actorFromRequest(req);
+      if (!("public" in spec.access)) requireActor(actor);
+      if ("site" in spec.access) requireSiteAction(actor, spec.access.site);
+
+      let params = rawParams as z.infer<P>;
+      if (spec.params) {
+        const parsed = spec.params.safeParse(rawParams);
+        // A malformed id in the path cannot name anything: 404, naming the parameter.
+        if (!parsed.success) {
+          throw new AppError("not_found", `${parsed.error.issues[0].message}`, invalid(parsed.error, "path").details);
+        }
+        params = parsed.data;
+      }
+
+      let access: BasinAccess | null = null;
+      if ("basin" in spec.access) {
+        const basinId = (params as { basinId?: string }).basinId;
+        if (!basinId) throw new Error("route with basin access needs a basinId parameter");
+        access = await requireBasinAction(db, actor, basinId, spec.access.basin);
+      }
+
+      let body = undefined as z.infer<B>;
+      if (spec.body) {
+        const parsed = spec.body.safeParse(await readJson(req));
+        if (!parsed.success) throw invalid(parsed.error, "request body");
+        body = parsed.data;
+      }
+
+      const result = await handler({ db, req, actor, params, body, access });
+      const status = spec.status ?? 200;
+      if (status === 204 || result === undefined) return new NextResponse(null, { status: 204 });
+      return NextResponse.json(result, { status });
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}

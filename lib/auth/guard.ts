@@ -1,0 +1,82 @@
+import type { Db } from "@/db/client";
+import { findBasinById, type BasinRecord } from "@/db/queries/basins";
+import { findMembershipRole } from "@/db/queries/memberships";
+import { findUserById } from "@/db/queries/users";
+import type { BasinRole } from "@/db/schema";
+import { AppError, forbidden, notFound, unauthenticated } from "@/lib/errors";
+import { roleAllows, type BasinAction, type SiteAction } from "./permissions";
+
+/** The signed-in person, as re-read from the database for every check. */
+export interface Actor {
+  id: string;
+  email: string;
+  name: string;
+  isAdmin: boolean;
+}
+
+/** Site admins may look after every basin's settings, members and facilities. */
+const ADMIN_BASIN_ACTIONS: readonly BasinAction[] = [
+  "basin.read",
+  "basin.update",
+  "members.read",
+  "members.manage",
+  "facilities.read",
+  "facilities.manage",
+  "audit.read",
+];
+
+/** Resolve a session's user id to a live account, or null when it no longer exists. */
+export async function loadActor(db: Db, userId: string | null | undefined): Promise<Actor | null> {
+  if (!userId) return null;
+  const user = await findUserById(db, userId);
+  return user ? { id: user.id, email: user.email, name: user.name, isAdmin: user.is_admin } : null;
+}
+
+export function requireActor(actor: Actor | null): Actor {
+  if (!actor) throw unauthenticated();
+  return actor;
+}
+
+export function requireSiteAction(actor: Actor | null, action: SiteAction): Actor {
+  const a = requireActor(actor);
+  if (!a.isAdmin) throw forbidden(`Only site administrators may do this (${action})`);
+  return a;
+}
+
+export interface BasinAccess {
+  basin: BasinRecord;
+  role: BasinRole | null;
+}
+
+/**
+ * The one guard for basin-scoped work: the basin must exist and the actor's
+ * current role in it (read now, not from the session) must allow `action`.
+ * Throws 401 when signed out, 404 for an unknown basin, 403 otherwise.
+ */
+export async function requireBasinAction(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  action: BasinAction,
+): Promise<BasinAccess> {
+  const a = requireActor(actor);
+  const basin = await findBasinById(db, basinId);
+  if (!basin) throw notFound("Basin");
+  const role = await findMembershipRole(db, basin.id, a.id);
+  if (roleAllows(role, action) || (a.isAdmin && ADMIN_BASIN_ACTIONS.includes(action))) {
+    return { basin, role };
+  }
+  if (!role && !a.isAdmin) throw new AppError("forbidden", "You are not a member of this basin");
+  throw forbidden(`Your role in this basin (${role ?? "none"}) does not allow ${action}`);
+}
+
+/** The same check as a boolean, for deciding what a page shows. */
+export async function canInBasin(db: Db, actor: Actor | null, basinId: string, action: BasinAction): Promise<boolean> {
+  try {
+    await requireBasinAction(db, actor, basinId, action);
+    return true;
+  } catch (error) {
+    if (error instanceof AppError) return false;
+    throw error;
+  }
+}

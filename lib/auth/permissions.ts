@@ -1,0 +1,63 @@
+import type { BasinRole } from "@/db/schema";
+
+export const BASIN_ROLES = ["lead", "planner", "discharger", "stakeholder"] as const satisfies readonly BasinRole[];
+
+/**
+ * Everything a member can do inside one basin. Later features add actions
+ * here and grant them below; a handler names the action it needs and the
+ * guard (lib/auth/guard.ts) is the only place that reads this table.
+ */
+export const BASIN_ACTIONS = [
+  "basin.read",
+  "basin.update",
+  "members.read",
+  "members.manage",
+  "facilities.read",
+  "facilities.manage",
+  "audit.read",
+  "network.import",
+  "scenario.read",
+  "scenario.edit",
+  "scenario.run",
+  "plan.propose",
+  "review.manage",
+  "plan.publish",
+  "comment.create",
+  "comment.answer",
+] as const;
+export type BasinAction = (typeof BASIN_ACTIONS)[number];
+
+/** Site-wide actions, held by site admins only. */
+export const SITE_ACTIONS = ["users.manage", "basins.manage"] as const;
+export type SiteAction = (typeof SITE_ACTIONS)[number];
+
+const PLANNER: readonly BasinAction[] = [
+  "basin.read",
+  "members.read",
+  "facilities.read",
+  "facilities.manage",
+  "network.import",
+  "scenario.read",
+  "scenario.edit",
+  "scenario.run",
+  "plan.propose",
+  "comment.create",
+  "comment.answer",
+];
+
+/** The one role → permission table. */
+export const ROLE_PERMISSIONS: Record<BasinRole, readonly BasinAction[]> = {
+  lead: [...PLANNER, "basin.update", "members.manage", "audit.read", "review.manage", "plan.publish"],
+  planner: PLANNER,
+  discharger: ["basin.read", "facilities.read", "comment.create"],
+  stakeholder: ["basin.read", "comment.create"],
+};
+
+export function roleAllows(role: BasinRole | null | undefined, action: BasinAction): boolean {
+  return role != null && ROLE_PERMISSIONS[role].includes(action);
+}
+
+/** Who may create a basin: site admins, and anyone who already leads a basin. */
+export function mayCreateBasin(user: { isAdmin: boolean; leadsAnyBasin: boolean }): boolean {
+  return user.isAdmin || user.leadsAnyBasin;
+}

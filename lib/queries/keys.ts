@@ -1,0 +1,13 @@
+/** Query keys, scoped by parent id so a mutation can invalidate exactly what it touched. */
+export const queryKeys = {
+  me: () => ["me"] as const,
+  basins: {
+    all: () => ["basins"] as const,
+    list: () => ["basins", "list"] as const,
+    detail: (basinId: string) => ["basins", basinId] as const,
+    members: (basinId: string) => ["basins", basinId, "members"] as const,
+    facilities: (basinId: string) => ["basins", basinId, "facilities"] as const,
+    audit: (basinId: string) => ["basins", basinId, "audit"] as const,
+  },
+  users: () => ["users"] as const,
+};

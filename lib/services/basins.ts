@@ -1,0 +1,91 @@
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import { findBasinBySlug, insertBasin, listBasinsForUser, updateBasin as updateBasinRow } from "@/db/queries/basins";
+import { insertMembership, userLeadsAnyBasin } from "@/db/queries/memberships";
+import type { BasinUpdate } from "@/db/schema";
+import { requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { mayCreateBasin } from "@/lib/auth/permissions";
+import { conflict, forbidden } from "@/lib/errors";
+import type { BasinCreateInput, BasinUpdateInput } from "@/lib/validation/basin";
+import { basinDto, basinListDto, type BasinDto } from "./dto";
+
+/** Basins the actor belongs to; a site admin sees every basin. */
+export async function listMyBasins(db: Db, actor: Actor | null): Promise<BasinDto[]> {
+  const a = requireActor(actor);
+  return (await listBasinsForUser(db, a.id, a.isAdmin)).map(basinListDto);
+}
+
+export async function canCreateBasin(db: Db, actor: Actor | null): Promise<boolean> {
+  if (!actor) return false;
+  return mayCreateBasin({ isAdmin: actor.isAdmin, leadsAnyBasin: await userLeadsAnyBasin(db, actor.id) });
+}
+
+const slugTaken = (slug: string) =>
+  conflict(`The short name "${slug}" is already used by another basin`, [{ path: "slug", message: "Already in use" }]);
+
+/** Create a basin; its creator becomes its lead. Admins and existing leads only. */
+export async function createBasin(db: Db, actor: Actor | null, input: BasinCreateInput): Promise<BasinDto> {
+  const a = requireActor(actor);
+  if (!(await canCreateBasin(db, a))) throw forbidden("Only site administrators and basin leads may create basins");
+  return db.transaction().execute(async (trx) => {
+    if (await findBasinBySlug(trx, input.slug)) throw slugTaken(input.slug);
+    const basin = await insertBasin(trx, {
+      slug: input.slug,
+      name: input.name,
+      description: input.description,
+      do_criterion_mg_l: input.doCriterionMgL,
+      unit_system: input.unitSystem,
+      created_by: a.id,
+    });
+    await insertMembership(trx, basin.id, a.id, "lead");
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: a.id,
+      action: "basin.created",
+      targetType: "basin",
+      targetId: basin.id,
+      details: { name: basin.name, slug: basin.slug },
+    });
+    return basinDto(basin, "lead");
+  });
+}
+
+export async function getBasin(db: Db, actor: Actor | null, basinId: string): Promise<BasinDto> {
+  const { basin, role } = await requireBasinAction(db, actor, basinId, "basin.read");
+  return basinDto(basin, role);
+}
+
+/** Change basin settings (lead or admin); records what changed. */
+export async function updateBasin(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  input: BasinUpdateInput,
+): Promise<BasinDto> {
+  const { basin, role } = await requireBasinAction(db, actor, basinId, "basin.update");
+  const patch: BasinUpdate = {};
+  if (input.name !== undefined) patch.name = input.name;
+  if (input.slug !== undefined) patch.slug = input.slug;
+  if (input.description !== undefined) patch.description = input.description;
+  if (input.doCriterionMgL !== undefined) patch.do_criterion_mg_l = input.doCriterionMgL;
+  if (input.unitSystem !== undefined) patch.unit_system = input.unitSystem;
+  return db.transaction().execute(async (trx) => {
+    if (input.slug !== undefined && input.slug !== basin.slug) {
+      const other = await findBasinBySlug(trx, input.slug);
+      if (other && other.id !== basin.id) throw slugTaken(input.slug);
+    }
+    const updated = await updateBasinRow(trx, basin.id, patch);
+    if (!updated) throw conflict("The basin was removed while you were editing it");
+    const before: Record<string, unknown> = {};
+    for (const key of Object.keys(patch) as (keyof typeof patch)[]) before[key] = basin[key as keyof typeof basin];
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "basin.updated",
+      targetType: "basin",
+      targetId: basin.id,
+      details: { before, after: patch },
+    });
+    return basinDto(updated, role);
+  });
+}

@@ -1,0 +1,102 @@
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import {
+  countLeads,
+  deleteMembership,
+  findMembershipRole,
+  insertMembership,
+  listMembers as listMemberRows,
+  updateMembershipRole,
+} from "@/db/queries/memberships";
+import { unlinkUserFromBasinFacilities } from "@/db/queries/facilities";
+import { findUserByEmail } from "@/db/queries/users";
+import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { AppError, conflict, notFound } from "@/lib/errors";
+import type { MemberAddInput, MemberUpdateInput } from "@/lib/validation/member";
+import { memberDto, type MemberDto } from "./dto";
+
+export async function listMembers(db: Db, actor: Actor | null, basinId: string): Promise<MemberDto[]> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "members.read");
+  return (await listMemberRows(db, basin.id)).map(memberDto);
+}
+
+/** Add an existing account to the basin with a role. */
+export async function addMember(db: Db, actor: Actor | null, basinId: string, input: MemberAddInput): Promise<MemberDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+  return db.transaction().execute(async (trx) => {
+    const user = await findUserByEmail(trx, input.email);
+    if (!user) {
+      throw new AppError("invalid", `No account uses ${input.email}; an administrator must create it first`, [
+        { path: "email", message: "No such account" },
+      ]);
+    }
+    if (await findMembershipRole(trx, basin.id, user.id)) {
+      throw conflict(`${user.name} is already a member of this basin`, [{ path: "email", message: "Already a member" }]);
+    }
+    await insertMembership(trx, basin.id, user.id, input.role);
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "member.added",
+      targetType: "user",
+      targetId: user.id,
+      details: { email: user.email, role: input.role },
+    });
+    const rows = await listMemberRows(trx, basin.id);
+    return memberDto(rows.find((r) => r.user_id === user.id)!);
+  });
+}
+
+async function refuseLastLead(trx: Db, basinId: string, userId: string, verb: string): Promise<void> {
+  const role = await findMembershipRole(trx, basinId, userId);
+  if (!role) throw notFound("Member");
+  if (role === "lead" && (await countLeads(trx, basinId)) <= 1) {
+    throw conflict(`Cannot ${verb} the basin's only lead; make someone else lead first`);
+  }
+}
+
+export async function changeMemberRole(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  userId: string,
+  input: MemberUpdateInput,
+): Promise<MemberDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+  return db.transaction().execute(async (trx) => {
+    const before = await findMembershipRole(trx, basin.id, userId);
+    if (!before) throw notFound("Member");
+    if (before !== input.role) await refuseLastLead(trx, basin.id, userId, "change the role of");
+    await updateMembershipRole(trx, basin.id, userId, input.role);
+    if (before === "discharger" && input.role !== "discharger") {
+      await unlinkUserFromBasinFacilities(trx, basin.id, userId);
+    }
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "member.role_changed",
+      targetType: "user",
+      targetId: userId,
+      details: { from: before, to: input.role },
+    });
+    const rows = await listMemberRows(trx, basin.id);
+    return memberDto(rows.find((r) => r.user_id === userId)!);
+  });
+}
+
+/** Remove a member; takes effect on their next request (roles are read per check). */
+export async function removeMember(db: Db, actor: Actor | null, basinId: string, userId: string): Promise<void> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+  await db.transaction().execute(async (trx) => {
+    await refuseLastLead(trx, basin.id, userId, "remove");
+    await unlinkUserFromBasinFacilities(trx, basin.id, userId);
+    await deleteMembership(trx, basin.id, userId);
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "member.removed",
+      targetType: "user",
+      targetId: userId,
+    });
+  });
+}

@@ -1,0 +1,57 @@
+import bcrypt from "bcryptjs";
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import { findUserByEmail, insertUser, listUsers as listUserRows } from "@/db/queries/users";
+import type { Actor } from "@/lib/auth/guard";
+import { requireSiteAction } from "@/lib/auth/guard";
+import { conflict } from "@/lib/errors";
+import type { UserCreateInput } from "@/lib/validation/user";
+import { userDto, type UserDto } from "./dto";
+
+const BCRYPT_COST = 10;
+
+export async function hashPassword(password: string): Promise<string> {
+  return bcrypt.hash(password, BCRYPT_COST);
+}
+
+// A fixed hash to compare against when the e-mail is unknown, so a wrong
+// e-mail and a wrong password take the same time.
+const DUMMY_HASH = "$2b$10$CwTycUXWue0Thq9StjUM0uJ8.jV1oXh0ZiYy6Yq0Qx1J7o7bqf9cK";
+
+/** Check e-mail and password; returns the user or null (never says which was wrong). */
+export async function verifyCredentials(db: Db, email: string, password: string): Promise<UserDto | null> {
+  const user = await findUserByEmail(db, email);
+  const ok = await bcrypt.compare(password, user?.password_hash ?? DUMMY_HASH);
+  return user && ok ? userDto(user) : null;
+}
+
+/** Admin: create an account. 409 when the e-mail is taken. */
+export async function createUser(db: Db, actor: Actor | null, input: UserCreateInput): Promise<UserDto> {
+  const admin = requireSiteAction(actor, "users.manage");
+  const passwordHash = await hashPassword(input.password);
+  return db.transaction().execute(async (trx) => {
+    if (await findUserByEmail(trx, input.email)) {
+      throw conflict(`A user with e-mail ${input.email} already exists`, [{ path: "email", message: "Already in use" }]);
+    }
+    const user = await insertUser(trx, {
+      email: input.email,
+      name: input.name,
+      password_hash: passwordHash,
+      is_admin: input.isAdmin,
+    });
+    await insertAuditEvent(trx, {
+      basinId: null,
+      actorId: admin.id,
+      action: "user.created",
+      targetType: "user",
+      targetId: user.id,
+      details: { email: user.email, isAdmin: user.is_admin },
+    });
+    return userDto(user);
+  });
+}
+
+export async function listUsers(db: Db, actor: Actor | null): Promise<UserDto[]> {
+  requireSiteAction(actor, "users.manage");
+  return (await listUserRows(db)).map(userDto);
+}

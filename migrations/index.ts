@@ -1,0 +1,17 @@
+import type { Migration, MigrationProvider } from "kysely";
+import * as m2026120100 from "./2026120100_foundation";
+
+/**
+ * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
+ * native import() that breaks under vitest and bundlers). Add new entries at
+ * the end; names sort by their timestamp prefix.
+ */
+export const migrations: Record<string, Migration> = {
+  "2026120100_foundation": m2026120100,
+};
+
+export const migrationProvider: MigrationProvider = {
+  async getMigrations() {
+    return migrations;
+  },
+};

@@ -1,0 +1,33 @@
+#!/usr/bin/env bash
+# One command from a fresh machine to a running Sagline with the demo basin:
+# npm packages, PostgreSQL (Debian's, private cluster on 127.0.0.1), migrations,
+# demo data, production build, server on http://127.0.0.1:3000.
+#   npm start            build and serve
+#   npm start -- --dev   serve with `next dev` instead
+set -euo pipefail
+source "$(dirname "${BASH_SOURCE[0]}")/lib-setup.sh"
+cd "$ROOT"
+
+MODE="${1:-}"
+PORT="${PORT:-3000}"
+
+ensure_node_modules
+say "Starting PostgreSQL"
+bash scripts/db.sh start
+export DATABASE_URL="${DATABASE_URL:-$(bash scripts/db.sh url)}"
+ensure_secret
+export NEXTAUTH_URL="${NEXTAUTH_URL:-http://127.0.0.1:$PORT}"
+
+say "Migrating the database"
+npx tsx scripts/migrate.ts latest
+say "Loading the demo basin"
+npx tsx scripts/seed.ts
+
+if [ "$MODE" = "--dev" ]; then
+  say "Serving (development) on http://127.0.0.1:$PORT"
+  exec npx next dev -H 127.0.0.1 -p "$PORT"
+fi
+say "Building"
+npx next build
+say "Serving on http://127.0.0.1:$PORT  (Ctrl-C stops the web server; 'npm run db -- stop' stops PostgreSQL)"
+exec npx next start -H 127.0.0.1 -p "$PORT"
