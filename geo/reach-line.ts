@@ -1,0 +1,80 @@
+import { distance, kinks, length, lineString } from "@turf/turf";
+import type { Geometry, MultiPoint } from "geojson";
+import { coordinateProblem } from "./coordinates";
+import { error, warning, type Problem } from "./problems";
+import type { LngLat } from "./types";
+
+export interface PreparedLine {
+  /** One line, as digitised (not yet oriented). */
+  coordinates: LngLat[];
+  lengthKm: number;
+  /** Warnings about the line that do not stop it being used (self-crossing). */
+  problems: Problem[];
+}
+
+const close = (a: LngLat, b: LngLat, toleranceM: number) => distance(a, b, { units: "meters" }) <= toleranceM;
+
+/** Joins the parts of a multi-part line end to end (reversing parts as needed), or undefined. */
+function chainParts(parts: LngLat[][], toleranceM: number): LngLat[] | undefined {
+  const rest = parts.slice(1);
+  let chain = [...parts[0]];
+  while (rest.length > 0) {
+    const head = chain[0];
+    const tail = chain[chain.length - 1];
+    const i = rest.findIndex((p) => [p[0], p[p.length - 1]].some((e) => close(e, head, toleranceM) || close(e, tail, toleranceM)));
+    if (i < 0) return undefined;
+    const p = rest.splice(i, 1)[0];
+    const [s, e] = [p[0], p[p.length - 1]];
+    if (close(s, tail, toleranceM)) chain = chain.concat(p.slice(1));
+    else if (close(e, tail, toleranceM)) chain = chain.concat([...p].reverse().slice(1));
+    else if (close(e, head, toleranceM)) chain = p.slice(0, -1).concat(chain);
+    else chain = [...p].reverse().slice(0, -1).concat(chain);
+  }
+  return chain;
+}
+
+const dedupe = (cs: LngLat[]) => cs.filter((c, i) => i === 0 || c[0] !== cs[i - 1][0] || c[1] !== cs[i - 1][1]);
+
+/**
+ * Checks one reach geometry and returns it as a single line with its length (km, on turf's
+ * sphere of radius 6 371 008.8 m), or the blocking problem: missing or wrong geometry type,
+ * missing/NaN or out-of-range coordinates, a multi-part line whose parts do not join within
+ * `toleranceM`, or zero length. A self-crossing line is usable and gets a warning.
+ */
+export function prepareReachLine(geometry: Geometry | null, who: string, toleranceM: number): PreparedLine | Problem {
+  if (!geometry) return error("missing_geometry", `${who} has no geometry`, [who]);
+  if (geometry.type !== "LineString" && geometry.type !== "MultiLineString") {
+    return error("wrong_geometry_type", `${who} is a ${geometry.type}; reaches must be lines (LineString or MultiLineString)`, [who], { geometry });
+  }
+  const bad = coordinateProblem(geometry);
+  if (bad === "invalid") return error("coordinates_invalid", `${who} has a coordinate that is missing or not a number`, [who]);
+  if (bad === "out_of_range") {
+    return error(
+      "coordinates_out_of_range",
+      `${who} has coordinates outside longitude ±180° / latitude ±90°; the coordinate system (.prj or EPSG code) is probably wrong`,
+      [who],
+    );
+  }
+  const parts = (geometry.type === "LineString" ? [geometry.coordinates] : geometry.coordinates)
+    .map((p) => dedupe(p.map((c) => [c[0], c[1]] as LngLat)))
+    .filter((p) => p.length > 0);
+  const chained = parts.length > 0 ? chainParts(parts, toleranceM) : [];
+  if (!chained) {
+    return error("multipart_disconnected", `${who} has ${parts.length} parts that do not join end to end; split it into separate reaches`, [who], {
+      geometry,
+    });
+  }
+  const coordinates = dedupe(chained);
+  const lengthKm = coordinates.length >= 2 ? length(lineString(coordinates)) : 0;
+  if (lengthKm <= 0) {
+    const at = coordinates[0];
+    return error("zero_length", `${who} has zero length`, [who], at ? { geometry: { type: "Point", coordinates: at } } : {});
+  }
+  const problems: Problem[] = [];
+  const crossings = coordinates.length >= 4 ? kinks(lineString(coordinates)).features : [];
+  if (crossings.length > 0) {
+    const at: MultiPoint = { type: "MultiPoint", coordinates: crossings.map((f) => f.geometry.coordinates) };
+    problems.push(warning("self_crossing", `${who} crosses itself at ${crossings.length} point(s); check the digitising`, [who], { geometry: at }));
+  }
+  return { coordinates, lengthKm, problems };
+}

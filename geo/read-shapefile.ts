@@ -1,0 +1,153 @@
+import { iter } from "but-unzip";
+import { parseDbf, parseShp } from "shpjs";
+import { crsFromEpsg, crsFromPrj, type Reprojector } from "./crs";
+import { GeoError, wrapUnknown } from "./errors";
+import { detectFields } from "./fields";
+import { reprojectGeometry } from "./reproject";
+import type { SourceFeature, SourceLayer } from "./types";
+
+export interface ShapefileOptions {
+  /** EPSG code of the coordinates; overrides the .prj (and replaces a missing one). */
+  epsg?: number;
+  /** Base name of the layer to read when the zip holds several shapefiles. */
+  layer?: string;
+}
+
+type Bytes = ArrayBuffer | Uint8Array;
+
+const toUint8 = (b: Bytes): Uint8Array => (b instanceof Uint8Array ? b : new Uint8Array(b));
+const view = (b: Uint8Array) => new DataView(b.buffer, b.byteOffset, b.byteLength);
+
+/** Local file header "PK\3\4" or, for an empty archive, end of central directory "PK\5\6". */
+function looksLikeZip(b: Uint8Array): boolean {
+  return b.length >= 22 && b[0] === 0x50 && b[1] === 0x4b && (b[2] === 3 || b[2] === 5) && b[3] === b[2] + 1;
+}
+
+interface ShapefileParts {
+  shp?: Uint8Array;
+  dbf?: Uint8Array;
+  prj?: Uint8Array;
+  cpg?: Uint8Array;
+}
+
+async function unzipParts(bytes: Uint8Array): Promise<{ layers: Map<string, ShapefileParts>; names: string[] }> {
+  const layers = new Map<string, ShapefileParts>();
+  const names: string[] = [];
+  try {
+    for (const entry of iter(bytes)) {
+      const name = entry.filename;
+      if (name.endsWith("/") || name.includes("__MACOSX")) continue;
+      names.push(name);
+      const m = /^(.*)\.(shp|dbf|prj|cpg)$/i.exec(name);
+      if (!m) continue;
+      const ext = m[2].toLowerCase() as keyof ShapefileParts;
+      const parts = layers.get(m[1]) ?? {};
+      parts[ext] = await entry.read();
+      layers.set(m[1], parts);
+    }
+  } catch (e) {
+    throw wrapUnknown(e, "zip_corrupt", "The zip file is damaged and cannot be opened");
+  }
+  return { layers, names };
+}
+
+function pickLayer(layers: Map<string, ShapefileParts>, names: string[], wanted?: string) {
+  const withShp = [...layers].filter(([, p]) => p.shp);
+  if (withShp.length === 0) {
+    const dbfOnly = [...layers].find(([, p]) => p.dbf)?.[0];
+    throw new GeoError(
+      "shp_missing",
+      dbfOnly
+        ? `The zip has ${dbfOnly}.dbf but no ${dbfOnly}.shp; add the .shp file that holds the geometry`
+        : `The zip holds no shapefile (.shp); found: ${names.join(", ") || "nothing"}`,
+      { files: names },
+    );
+  }
+  if (wanted !== undefined) {
+    const hit = withShp.find(([base]) => base === wanted || base.split("/").pop() === wanted);
+    if (!hit) {
+      throw new GeoError("multiple_layers", `The zip has no shapefile named "${wanted}"`, {
+        layers: withShp.map(([b]) => b),
+      });
+    }
+    return hit;
+  }
+  if (withShp.length > 1) {
+    throw new GeoError(
+      "multiple_layers",
+      `The zip holds ${withShp.length} shapefiles (${withShp.map(([b]) => b).join(", ")}); choose one`,
+      { layers: withShp.map(([b]) => b) },
+    );
+  }
+  return withShp[0];
+}
+
+/** Checks the .shp file code (9994) and the .dbf record count before the parsers trust them. */
+function checkHeaders(base: string, shp: Uint8Array, dbf: Uint8Array) {
+  if (shp.length < 100 || view(shp).getInt32(0, false) !== 9994) {
+    throw new GeoError("shapefile_corrupt", `${base}.shp is not a valid shapefile (bad header)`);
+  }
+  const d = view(dbf);
+  const ok =
+    dbf.length >= 33 &&
+    d.getUint16(8, true) >= 33 &&
+    d.getUint16(8, true) + d.getUint32(4, true) * d.getUint16(10, true) <= dbf.length + 1;
+  if (!ok) throw new GeoError("shapefile_corrupt", `${base}.dbf is damaged (its header does not match its size)`);
+}
+
+function resolveCrs(base: string, prj: Uint8Array | undefined, epsg: number | undefined): Reprojector {
+  if (epsg !== undefined) return crsFromEpsg(epsg, "override");
+  if (!prj) {
+    throw new GeoError(
+      "prj_missing",
+      `The zip has no ${base}.prj, so the coordinate system is unknown; give the EPSG code of the coordinates`,
+    );
+  }
+  return crsFromPrj(new TextDecoder().decode(prj));
+}
+
+/**
+ * Reads a zipped ESRI shapefile (.shp + .dbf, with .prj; .cpg optional) into WGS84 features.
+ * Throws `GeoError`: not_a_zip, zip_corrupt, shp_missing, dbf_missing, multiple_layers,
+ * prj_missing, prj_unknown, epsg_unknown, shapefile_corrupt.
+ */
+export async function readShapefileZip(bytes: Bytes, options: ShapefileOptions = {}): Promise<SourceLayer> {
+  const u8 = toUint8(bytes);
+  if (!looksLikeZip(u8)) {
+    throw new GeoError("not_a_zip", "The file is not a zip archive; upload the shapefile's files zipped together");
+  }
+  const { layers, names } = await unzipParts(u8);
+  const [base, parts] = pickLayer(layers, names, options.layer);
+  if (!parts.dbf) {
+    throw new GeoError("dbf_missing", `The zip has ${base}.shp but no ${base}.dbf; add the attribute table`);
+  }
+  const shp = parts.shp as Uint8Array;
+  checkHeaders(base, shp, parts.dbf);
+  const reprojector = resolveCrs(base, parts.prj, options.epsg);
+
+  let geometries: ReturnType<typeof parseShp>;
+  let records: ReturnType<typeof parseDbf>;
+  try {
+    geometries = parseShp(view(shp));
+  } catch (e) {
+    throw wrapUnknown(e, "shapefile_corrupt", `${base}.shp is damaged and cannot be read`);
+  }
+  try {
+    records = parseDbf(view(parts.dbf), parts.cpg ? new TextDecoder().decode(parts.cpg).trim() : undefined);
+  } catch (e) {
+    throw wrapUnknown(e, "shapefile_corrupt", `${base}.dbf is damaged and cannot be read`);
+  }
+  if (records.length !== geometries.length) {
+    throw new GeoError(
+      "shapefile_corrupt",
+      `${base}.shp has ${geometries.length} shapes but ${base}.dbf has ${records.length} records`,
+    );
+  }
+  const features: SourceFeature[] = geometries.map((g, i) => ({
+    index: i,
+    label: `feature ${i + 1}`,
+    geometry: g ? reprojectGeometry(g, reprojector) : null,
+    properties: records[i] ?? {},
+  }));
+  return { format: "shapefile", name: base.split("/").pop() ?? base, crs: reprojector.crs, features, fields: detectFields(features) };
+}

@@ -1,0 +1,56 @@
+/**
+ * Unit conversions for imported attributes, to SI. One table; exact definitions:
+ * 1 ft = 0.3048 m and 1 mi = 1609.344 m (international foot and mile, 1959),
+ * 1 US gallon = 231 in³ = 3.785411784 L, 1 MGD = 10⁶ US gal/d.
+ * Kept in geo/ so the importer never depends on the model's own unit module.
+ */
+export const METRES_PER_FOOT = 0.3048;
+export const KILOMETRES_PER_MILE = 1.609344;
+export const CUBIC_METRES_PER_US_GALLON = 0.003785411784;
+export const SECONDS_PER_DAY = 86_400;
+/** 1 ft³/s in m³/s: 0.3048³ = 0.028316846592 (exact). */
+export const CUBIC_METRES_PER_SECOND_PER_CFS = METRES_PER_FOOT ** 3;
+/** 1 MGD in m³/s: 10⁶ × 0.003785411784 / 86 400 ≈ 0.0438126364. */
+export const CUBIC_METRES_PER_SECOND_PER_MGD = (1e6 * CUBIC_METRES_PER_US_GALLON) / SECONDS_PER_DAY;
+
+export const FLOW_UNITS = ["m3/s", "cfs", "MGD"] as const;
+export const DEPTH_UNITS = ["m", "ft"] as const;
+export const DISTANCE_UNITS = ["km", "mi", "m", "ft"] as const;
+export const VELOCITY_UNITS = ["m/s", "ft/s"] as const;
+export const TEMPERATURE_UNITS = ["degC", "degF"] as const;
+
+export type FlowUnit = (typeof FLOW_UNITS)[number];
+export type DepthUnit = (typeof DEPTH_UNITS)[number];
+export type DistanceUnit = (typeof DISTANCE_UNITS)[number];
+export type VelocityUnit = (typeof VELOCITY_UNITS)[number];
+export type TemperatureUnit = (typeof TEMPERATURE_UNITS)[number];
+
+const FLOW_TO_M3S: Record<FlowUnit, number> = {
+  "m3/s": 1,
+  cfs: CUBIC_METRES_PER_SECOND_PER_CFS,
+  MGD: CUBIC_METRES_PER_SECOND_PER_MGD,
+};
+const DEPTH_TO_M: Record<DepthUnit, number> = { m: 1, ft: METRES_PER_FOOT };
+const DISTANCE_TO_KM: Record<DistanceUnit, number> = {
+  km: 1,
+  mi: KILOMETRES_PER_MILE,
+  m: 1e-3,
+  ft: METRES_PER_FOOT / 1000,
+};
+const VELOCITY_TO_MPS: Record<VelocityUnit, number> = { "m/s": 1, "ft/s": METRES_PER_FOOT };
+
+/** Flow to m³/s. Example: `flowToM3s(1, "cfs")` → 0.028316846592. */
+export const flowToM3s = (value: number, unit: FlowUnit): number => value * FLOW_TO_M3S[unit];
+
+/** Depth or elevation to metres. Example: `depthToM(10, "ft")` → 3.048. */
+export const depthToM = (value: number, unit: DepthUnit): number => value * DEPTH_TO_M[unit];
+
+/** Distance to kilometres. Example: `distanceToKm(1, "mi")` → 1.609344. */
+export const distanceToKm = (value: number, unit: DistanceUnit): number => value * DISTANCE_TO_KM[unit];
+
+/** Velocity to m/s. Example: `velocityToMps(1, "ft/s")` → 0.3048. */
+export const velocityToMps = (value: number, unit: VelocityUnit): number => value * VELOCITY_TO_MPS[unit];
+
+/** Temperature to °C. Example: `temperatureToC(68, "degF")` → 20. */
+export const temperatureToC = (value: number, unit: TemperatureUnit): number =>
+  unit === "degC" ? value : ((value - 32) * 5) / 9;

@@ -1,0 +1,26 @@
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+import { readGeoJson, type SourceLayer } from "@/geo";
+
+const FIXTURES = join(process.cwd(), "tests/fixtures");
+
+/** Kilometres per degree of arc on turf's sphere (earthRadius 6 371 008.8 m in @turf/helpers). */
+export const KM_PER_DEGREE = (6371008.8 * Math.PI) / 180 / 1000;
+
+export const fixtureBytes = (path: string): Buffer => readFileSync(join(FIXTURES, path));
+export const fixtureText = (path: string): string => readFileSync(join(FIXTURES, path), "utf8");
+
+/** One of the hand-built networks in tests/fixtures/geo. */
+export const network = (name: string): SourceLayer => readGeoJson(fixtureText(`geo/${name}.geojson`));
+
+/** A layer of lines built in the test, properties `id` and optional `down`. */
+export function lines(items: Array<{ id?: string; down?: string; coordinates: number[][] | number[][][]; type?: string }>): SourceLayer {
+  const features = items.map((l) => ({
+    type: "Feature",
+    properties: { id: l.id ?? null, down: l.down ?? null },
+    geometry: { type: l.type ?? "LineString", coordinates: l.coordinates },
+  }));
+  return readGeoJson(JSON.stringify({ type: "FeatureCollection", features }));
+}
+
+export const reachMapping = { reachId: "id", downstreamId: "down" };
