@@ -1,0 +1,48 @@
+/** A path into the model file, as zod reports it: `["dischargers", 2, "km"]`. */
+export type FieldPath = ReadonlyArray<string | number>;
+
+/**
+ * Bad model input that the schema alone cannot catch (a cycle, a discharger beyond its
+ * reach, a reach without flow). Carries the field path so the CLI and the API can name the
+ * offending field exactly as a zod error would.
+ */
+export class ModelInputError extends Error {
+  readonly path: FieldPath;
+
+  constructor(path: FieldPath, message: string) {
+    super(`${formatPath(path)}: ${message}`);
+    this.name = "ModelInputError";
+    this.path = path;
+  }
+}
+
+/** `["dischargers", 2, "km"]` → `dischargers[2].km` (empty path → `(model)`). */
+export function formatPath(path: FieldPath): string {
+  if (path.length === 0) return "(model)";
+  let out = "";
+  for (const part of path) {
+    if (typeof part === "number") out += `[${part}]`;
+    else out += out === "" ? part : `.${part}`;
+  }
+  return out;
+}
+
+/** Throws a ModelInputError unless `value` is a finite number. */
+export function requireFinite(value: number, path: FieldPath): number {
+  if (!Number.isFinite(value)) throw new ModelInputError(path, `must be a finite number (got ${value})`);
+  return value;
+}
+
+/** Throws a ModelInputError unless `value` is finite and > 0. */
+export function requirePositive(value: number, path: FieldPath): number {
+  requireFinite(value, path);
+  if (value <= 0) throw new ModelInputError(path, `must be greater than zero (got ${value})`);
+  return value;
+}
+
+/** Throws a ModelInputError unless `value` is finite and ≥ 0. */
+export function requireNonNegative(value: number, path: FieldPath): number {
+  requireFinite(value, path);
+  if (value < 0) throw new ModelInputError(path, `must not be negative (got ${value})`);
+  return value;
+}

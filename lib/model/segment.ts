@@ -1,0 +1,134 @@
+/**
+ * One segment of river with constant parameters: plug flow, steady state, travel time t.
+ *   dL/dt = −k_r·L + L_rd,  dN/dt = −k_n·N,  dD/dt = k_d·L + k_n·N − k_a·D + S
+ * with k_r = k_d + k_s and S = S_B/H (mg/L/d). Closed forms after Streeter & Phelps (1925),
+ * Thomas (1948), Dobbins (1964) and O'Connor (1967); see MODEL.md §4.
+ */
+import { bracketedRoot } from "./root";
+
+/** Rates (1/d, already at the segment's temperature) and zero-order sources (mg/L/d). */
+export interface SegmentRates {
+  kd: number;
+  kr: number;
+  ka: number;
+  kn: number;
+  /** S_B/H: sediment oxygen demand as mg/L/d. */
+  sod: number;
+  /** Distributed CBOD load L_rd, mg/L/d. */
+  lrd: number;
+}
+
+/** L, N, D (mg/L) at one instant. */
+export interface SegmentState {
+  L: number;
+  N: number;
+  D: number;
+}
+
+/**
+ * g(k) = (e^(−k t) − e^(−k_a t))/(k_a − k), evaluated without dividing by a tiny difference:
+ * with δ = k_a − k, g = −e^(−k t)·expm1(−δ t)/δ (δ > 0) or e^(−k_a t)·expm1(δ t)/δ (δ < 0),
+ * and the limit t·e^(−k_a t) at δ = 0. Relative accuracy ~1e-15 for all δ.
+ * Example: `sagKernel(0.2, 0.8, 1)` → 0.5071… ; `sagKernel(0.5, 0.5, 2)` → 0.7357…
+ */
+export function sagKernel(k: number, ka: number, t: number): number {
+  const delta = ka - k;
+  if (delta > 0) return (-Math.exp(-k * t) * Math.expm1(-delta * t)) / delta;
+  if (delta < 0) return (Math.exp(-ka * t) * Math.expm1(delta * t)) / delta;
+  return t * Math.exp(-ka * t);
+}
+
+/** h(k) = (1 − e^(−k t))/k with the limit t at k = 0. Example: `growthKernel(0.5, 2)` → 1.2642… */
+export function growthKernel(k: number, t: number): number {
+  return k === 0 ? t : -Math.expm1(-k * t) / k;
+}
+
+/**
+ * State after travel time `t_day` from head state `head` (closed form, MODEL.md §4):
+ *   L(t) = L0·e^(−k_r t) + L_rd·h(k_r)
+ *   D(t) = D0·e^(−k_a t) + k_d·L0·g(k_r) + k_n·N0·g(k_n) + k_d·L_rd/k_r·[h(k_a) − g(k_r)] + S·h(k_a)
+ * Valid for any non-negative rates with k_a > 0 (k_r > 0 whenever L_rd > 0).
+ * Example: rates {kd .2, kr .26, ka .8, kn 0, sod 1, lrd 0}, head {50, 0, 0}, t = 1 → D = 9.10…
+ */
+export function segmentState(r: SegmentRates, head: SegmentState, t_day: number): SegmentState {
+  const eKr = Math.exp(-r.kr * t_day);
+  const eKn = Math.exp(-r.kn * t_day);
+  const hKa = growthKernel(r.ka, t_day);
+  const gKr = sagKernel(r.kr, r.ka, t_day);
+  let L = head.L * eKr;
+  let D = head.D * Math.exp(-r.ka * t_day) + r.kd * head.L * gKr + r.sod * hKa;
+  if (r.kn !== 0 && head.N !== 0) D += r.kn * head.N * sagKernel(r.kn, r.ka, t_day);
+  if (r.lrd !== 0) {
+    L += r.lrd * growthKernel(r.kr, t_day);
+    if (r.kd !== 0) D += ((r.kd * r.lrd) / r.kr) * (hKa - gKr);
+  }
+  return { L, N: head.N * eKn, D };
+}
+
+/** dD/dt at `t_day` (mg/L/d), from the ODE itself applied to the closed-form state. */
+export function deficitRate(r: SegmentRates, head: SegmentState, t_day: number): number {
+  const s = segmentState(r, head, t_day);
+  return r.kd * s.L + r.kn * s.N - r.ka * s.D + r.sod;
+}
+
+/** Where the deficit is greatest on [0, T] and how large it is. */
+export interface CriticalPoint {
+  t_day: number;
+  D: number;
+  /** `closed-form` (CBOD-only formula), `root` (bracketed root of dD/dt), or `end` (a segment end). */
+  how: "closed-form" | "root" | "end";
+}
+
+/** Sub-intervals searched for sign changes of dD/dt when no closed form applies. */
+export const CRITICAL_SEARCH_INTERVALS = 16;
+
+/**
+ * The exact maximum deficit (= minimum DO at constant C_s) on the segment [0, T].
+ * CBOD only (no NBOD, SOD or distributed load): the closed form
+ *   t_c = ln{(k_a/k_r)[1 − D0(k_a − k_r)/(k_d·L0)]}/(k_a − k_r),  D_c = (k_d/k_a)·L0·e^(−k_r t_c)
+ * (Streeter & Phelps 1925, with settling after Dobbins 1964), evaluated with log1p so that
+ * k_a → k_r is stable, and its limit t_c = 1/k − D0/(k_d L0) at k_a = k_r. Otherwise dD/dt
+ * is sampled on CRITICAL_SEARCH_INTERVALS sub-intervals and every + → − change is refined
+ * by a bracketed root (tolerance 1e-14·T). End values are always candidates.
+ * Example: rates {kd .2, kr .2, ka .8, kn 0, sod 0, lrd 0}, head {L 50, N 0, D 0}, T 10
+ * → t 2.3105 d, D 7.875 mg/L (D_c/L0 = (k_d/k_a)^(k_a/(k_a−k_d))).
+ */
+export function criticalPoint(r: SegmentRates, head: SegmentState, T_day: number): CriticalPoint {
+  const endD = segmentState(r, head, T_day).D;
+  let best: CriticalPoint = head.D >= endD ? { t_day: 0, D: head.D, how: "end" } : { t_day: T_day, D: endD, how: "end" };
+  if (T_day <= 0) return best;
+  const cbodOnly = (r.kn === 0 || head.N === 0) && r.sod === 0 && r.lrd === 0;
+  if (cbodOnly) {
+    const kdL0 = r.kd * head.L;
+    if (kdL0 <= 0) return best;
+    const delta = r.ka - r.kr;
+    let tc: number;
+    if (delta === 0) tc = 1 / r.ka - head.D / kdL0;
+    else {
+      const second = -(head.D * delta) / kdL0;
+      if (second <= -1) return best; // log argument ≤ 0: no interior maximum
+      tc = (Math.log1p(delta / r.kr) + Math.log1p(second)) / delta;
+    }
+    if (tc > 0 && tc < T_day) {
+      const D = (r.kd / r.ka) * head.L * Math.exp(-r.kr * tc);
+      if (D > best.D) best = { t_day: tc, D, how: "closed-form" };
+    }
+    return best;
+  }
+  const rate = (t: number) => deficitRate(r, head, t);
+  const n = CRITICAL_SEARCH_INTERVALS;
+  let t0 = 0;
+  let f0 = rate(0);
+  for (let i = 1; i <= n; i++) {
+    const t1 = (T_day * i) / n;
+    const f1 = rate(t1);
+    if (f0 > 0 && f1 <= 0) {
+      const tc = f1 === 0 ? t1 : bracketedRoot(rate, t0, t1, 1e-14 * T_day);
+      const D = segmentState(r, head, tc).D;
+      if (D > best.D) best = { t_day: tc, D, how: "root" };
+    }
+    t0 = t1;
+    f0 = f1;
+  }
+  return best;
+}
