@@ -2,7 +2,7 @@ import { fileURLToPath } from "node:url";
 import { defineConfig } from "vitest/config";
 
 const root = fileURLToPath(new URL(".", import.meta.url));
-const alias = { "@": root };
+const alias = { "@": root, "server-only": `${root}tests/support/empty-module.ts` };
 
 // Three projects: pure unit/reference tests, tests against a real PostgreSQL
 // (a throwaway database per run, created in globalSetup), and browser tests
@@ -26,6 +26,7 @@ export default defineConfig({
           include: ["tests/db/**/*.test.ts"],
           environment: "node",
           globalSetup: ["tests/db/global-setup.ts"],
+          setupFiles: ["tests/db/setup-env.ts"],
           fileParallelism: false,
           testTimeout: 30_000,
           hookTimeout: 60_000,

@@ -1,0 +1,205 @@
+import { readdirSync, statSync } from "node:fs";
+import { join, relative } from "node:path";
+import { fileURLToPath } from "node:url";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createDb, getDb, type Db } from "@/db/client";
+import { callRoute } from "../support/call-route";
+import { buildWorld, type World } from "../support/world";
+
+/**
+ * Every API route × every kind of caller → the expected status. The first
+ * test fails when a route file or an exported method has no entry here, so a
+ * new route cannot ship without its access rules being written down.
+ */
+type Caller = "anon" | "admin" | "lead" | "planner" | "discharger" | "stakeholder" | "outsider";
+const CALLERS: Caller[] = ["anon", "admin", "lead", "planner", "discharger", "stakeholder", "outsider"];
+
+type Expect = Record<Caller, number>;
+const all = (status: number, overrides: Partial<Expect> = {}): Expect => ({
+  anon: status,
+  admin: status,
+  lead: status,
+  planner: status,
+  discharger: status,
+  stakeholder: status,
+  outsider: status,
+  ...overrides,
+});
+/** Signed-in only: anon gets 401, the rest as given. */
+const signedIn = (status: number, overrides: Partial<Expect> = {}) => all(status, { anon: 401, ...overrides });
+const denied = (overrides: Partial<Expect>) => signedIn(403, overrides);
+
+interface Case {
+  expect: Expect;
+  params?: (w: World) => Record<string, string>;
+  body?: (w: World, caller: Caller) => unknown;
+}
+type RouteModule = Record<string, unknown>;
+interface Entry {
+  load: () => Promise<RouteModule>;
+  methods: Record<string, Case>;
+  /** Routes not built with lib/api/route (third-party handlers) say why they are skipped. */
+  skip?: string;
+}
+
+const basin = (w: World) => ({ basinId: w.basinId });
+const uniq = () => Math.random().toString(36).slice(2, 8);
+
+const TABLE: Record<string, Entry> = {
+  "app/api/auth/[...nextauth]/route.ts": {
+    load: () => import("@/app/api/auth/[...nextauth]/route"),
+    methods: {},
+    skip: "next-auth's own sign-in handler; covered by the sign-in tests",
+  },
+  "app/api/health/route.ts": {
+    load: () => import("@/app/api/health/route"),
+    methods: { GET: { expect: all(200) } },
+  },
+  "app/api/me/route.ts": {
+    load: () => import("@/app/api/me/route"),
+    methods: { GET: { expect: signedIn(200) } },
+  },
+  "app/api/basins/route.ts": {
+    load: () => import("@/app/api/basins/route"),
+    methods: {
+      GET: { expect: signedIn(200) },
+      POST: {
+        // outsider leads another basin, so may create one
+        expect: denied({ admin: 201, lead: 201, outsider: 201 }),
+        body: () => ({ name: "New basin", slug: `new-${uniq()}`, description: "", doCriterionMgL: 5, unitSystem: "SI" }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/route"),
+    methods: {
+      GET: { expect: signedIn(200, { outsider: 403 }), params: basin },
+      PATCH: { expect: denied({ admin: 200, lead: 200 }), params: basin, body: () => ({ doCriterionMgL: 4.5 }) },
+    },
+  },
+  "app/api/basins/[basinId]/members/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/members/route"),
+    methods: {
+      GET: { expect: denied({ admin: 200, lead: 200, planner: 200 }), params: basin },
+      POST: {
+        expect: denied({ admin: 201, lead: 201 }),
+        params: basin,
+        body: (w) => ({ email: w.users.spare.email, role: "stakeholder" }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/members/[userId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/members/[userId]/route"),
+    methods: {
+      PATCH: {
+        expect: denied({ admin: 200, lead: 200 }),
+        params: (w) => ({ basinId: w.basinId, userId: w.users.target.id }),
+        body: () => ({ role: "planner" }),
+      },
+      DELETE: {
+        expect: denied({ admin: 204, lead: 204 }),
+        params: (w) => ({ basinId: w.basinId, userId: w.users.target.id }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/facilities/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/facilities/route"),
+    methods: {
+      GET: { expect: denied({ admin: 200, lead: 200, planner: 200, discharger: 200 }), params: basin },
+      POST: {
+        expect: denied({ admin: 201, lead: 201, planner: 201 }),
+        params: basin,
+        body: () => ({ name: "Another plant", permitId: `X-${uniq()}` }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/facilities/[facilityId]/users/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/facilities/[facilityId]/users/route"),
+    methods: {
+      POST: {
+        expect: denied({ admin: 201, lead: 201 }),
+        params: (w) => ({ basinId: w.basinId, facilityId: w.facilityId }),
+        body: (w) => ({ userId: w.users.spareDischarger.id }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/facilities/[facilityId]/users/[userId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/facilities/[facilityId]/users/[userId]/route"),
+    methods: {
+      DELETE: {
+        expect: denied({ admin: 204, lead: 204 }),
+        params: (w) => ({ basinId: w.basinId, facilityId: w.facilityId, userId: w.users.discharger.id }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/audit/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/audit/route"),
+    methods: { GET: { expect: denied({ admin: 200, lead: 200 }), params: basin } },
+  },
+  "app/api/users/route.ts": {
+    load: () => import("@/app/api/users/route"),
+    methods: {
+      GET: { expect: denied({ admin: 200 }) },
+      POST: {
+        expect: denied({ admin: 201 }),
+        body: () => ({ name: "New Person", email: `new-${uniq()}@world.test`, password: "long-enough-pw", isAdmin: false }),
+      },
+    },
+  },
+};
+
+const ROOT = fileURLToPath(new URL("../..", import.meta.url));
+function routeFiles(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const path = join(dir, name);
+    if (statSync(path).isDirectory()) return routeFiles(path);
+    return name === "route.ts" ? [relative(ROOT, path)] : [];
+  });
+}
+const HTTP_METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"];
+
+let db: Db;
+beforeAll(() => {
+  db = createDb(process.env.DATABASE_URL, 3);
+});
+afterAll(async () => {
+  await db.destroy();
+  await getDb().destroy();
+});
+
+describe("API access matrix", () => {
+  it("has an entry for every route file and every exported method", async () => {
+    const files = routeFiles(join(ROOT, "app/api")).sort();
+    expect(files).toEqual(Object.keys(TABLE).sort());
+    for (const [file, entry] of Object.entries(TABLE)) {
+      if (entry.skip) continue;
+      const mod = await entry.load();
+      const exported = HTTP_METHODS.filter((m) => typeof mod[m] === "function").sort();
+      expect(exported, file).toEqual(Object.keys(entry.methods).sort());
+    }
+  });
+
+  for (const [file, entry] of Object.entries(TABLE)) {
+    for (const [method, c] of Object.entries(entry.methods)) {
+      it(`${method} ${file.replace(/^app|\/route\.ts$/g, "")}`, async () => {
+        const mod = await entry.load();
+        const handler = mod[method] as Parameters<typeof callRoute>[0];
+        const got: Partial<Expect> = {};
+        for (const caller of CALLERS) {
+          // a fresh world per caller: mutations by one caller never change what the next one sees
+          const w = await buildWorld(db);
+          const res = await callRoute(handler, method, {
+            userId: caller === "anon" ? undefined : w.users[caller].id,
+            params: c.params?.(w),
+            body: c.body?.(w, caller),
+          });
+          got[caller] = res.status;
+          if (res.status >= 400) {
+            expect(res.json, `${caller}: error body`).toMatchObject({ error: { code: expect.any(String), message: expect.any(String) } });
+          }
+        }
+        expect(got).toEqual(c.expect);
+      });
+    }
+  }
+});

@@ -1,0 +1,93 @@
+import { spawn, execFileSync, type ChildProcess } from "node:child_process";
+import { existsSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import type { TestProject } from "vitest/node";
+import { createDb } from "@/db/client";
+import { migrateToLatest } from "@/db/migrate";
+import { seedDemo } from "@/db/seed/demo";
+import { hashPassword } from "@/lib/services/users";
+import { createThrowawayDatabase, dropDatabase, ensureTestCluster } from "../support/test-db";
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    baseUrl: string;
+    e2eDatabaseUrl: string;
+  }
+}
+
+const ROOT = fileURLToPath(new URL("../..", import.meta.url));
+
+async function waitForHealth(url: string, server: ChildProcess, timeoutMs: number): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    if (server.exitCode !== null) throw new Error(`next start exited with code ${server.exitCode}`);
+    try {
+      const res = await fetch(`${url}/api/health`);
+      if (res.ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`server at ${url} did not become healthy in ${timeoutMs} ms`);
+}
+
+/**
+ * Browser tests run against the real production server (`next start`) on a
+ * throwaway database loaded with the demo basin. Builds first when no build
+ * exists (scripts/test.sh always builds before running the tests).
+ */
+export default async function setup(project: TestProject) {
+  if (!existsSync("/usr/bin/chromium") && !process.env.CHROMIUM_PATH) {
+    throw new Error("Chromium is missing: run `npm test` (it installs Debian's chromium) or apt-get install chromium");
+  }
+  ensureTestCluster();
+  const { url, name } = await createThrowawayDatabase("sagline_e2e");
+  const db = createDb(url, 2);
+  await migrateToLatest(db);
+  await seedDemo(db, hashPassword);
+  await db.destroy();
+
+  if (!existsSync(`${ROOT}.next/BUILD_ID`)) {
+    execFileSync("npx", ["next", "build"], { cwd: ROOT, stdio: "inherit", env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1" } });
+  }
+  const port = Number(process.env.SAGLINE_E2E_PORT ?? 3210);
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const server = spawn("npx", ["next", "start", "-H", "127.0.0.1", "-p", String(port)], {
+    cwd: ROOT,
+    env: {
+      ...process.env,
+      NODE_ENV: "production",
+      NEXT_TELEMETRY_DISABLED: "1",
+      DATABASE_URL: url,
+      NEXTAUTH_URL: baseUrl,
+      NEXTAUTH_SECRET: "e2e-secret-for-sagline-browser-tests",
+    },
+    stdio: ["ignore", "pipe", "pipe"],
+    detached: true,
+  });
+  let log = "";
+  server.stdout?.on("data", (d) => (log += d));
+  server.stderr?.on("data", (d) => (log += d));
+  try {
+    await waitForHealth(baseUrl, server, 60_000);
+  } catch (error) {
+    console.error(log);
+    throw error;
+  }
+  project.provide("baseUrl", baseUrl);
+  project.provide("e2eDatabaseUrl", url);
+
+  return async () => {
+    // stop the server we started, by its process group id
+    if (server.pid) {
+      try {
+        process.kill(-server.pid, "SIGTERM");
+      } catch {
+        // already gone
+      }
+    }
+    await new Promise((r) => setTimeout(r, 500));
+    if (!process.env.SAGLINE_KEEP_TEST_DB) await dropDatabase(name);
+  };
+}

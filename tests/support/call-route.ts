@@ -1,0 +1,37 @@
+import { encode } from "next-auth/jwt";
+import { NextRequest } from "next/server";
+
+type Handler = (req: NextRequest, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+
+export interface CallOptions {
+  /** Signed-in user id; omit for a signed-out request. */
+  userId?: string;
+  params?: Record<string, string>;
+  /** A value to send as JSON, or a raw string sent as is. */
+  body?: unknown;
+}
+
+/**
+ * Call a route handler in-process the way Next.js would: a real NextRequest
+ * with a real next-auth session cookie (a JWT signed with NEXTAUTH_SECRET).
+ */
+export async function callRoute(
+  handler: Handler,
+  method: string,
+  { userId, params = {}, body }: CallOptions = {},
+): Promise<{ status: number; json: unknown }> {
+  const headers = new Headers();
+  if (userId) {
+    const token = await encode({ token: { sub: userId }, secret: process.env.NEXTAUTH_SECRET! });
+    headers.set("cookie", `next-auth.session-token=${token}`);
+  }
+  let payload: string | undefined;
+  if (body !== undefined) {
+    payload = typeof body === "string" ? body : JSON.stringify(body);
+    headers.set("content-type", "application/json");
+  }
+  const req = new NextRequest("http://127.0.0.1/api/test", { method, headers, body: payload });
+  const res = await handler(req, { params: Promise.resolve(params) });
+  const text = await res.text();
+  return { status: res.status, json: text ? JSON.parse(text) : null };
+}
