@@ -17,6 +17,8 @@ export interface AllocateOptions {
   tolerance_mg_l?: number;
   /** Most rounds of constraint generation. Default 50. */
   max_iterations?: number;
+  /** Called with every LP handed to the solver (scaled variables; the last call is the final LP). For checks and tests. */
+  inspect_lp?: (lp: Lp, solution: number[]) => void;
 }
 
 export interface AllocationEntry extends PermitTerms {
@@ -254,7 +256,7 @@ function checkpointRows(rows: Checkpoint[], scale: number[], required: number): 
 }
 
 /** max-total, min-removal (cost-weighted) and max-min-share as LPs (javascript-lp-solver). */
-function solveAsLp(s: Setup, objective: AllocationObjective, rows: Checkpoint[]): Solved | null {
+function solveAsLp(s: Setup, objective: AllocationObjective, rows: Checkpoint[], inspect?: AllocateOptions["inspect_lp"]): Solved | null {
   const K = s.ids.length;
   const scale = s.hi.map((h) => Math.max(h, 1));
   const base = checkpointRows(rows, scale, s.required);
@@ -265,6 +267,7 @@ function solveAsLp(s: Setup, objective: AllocationObjective, rows: Checkpoint[])
     const lp: Lp = { c: weights.map((w, k) => w * scale[k]), rows: base, lo, hi };
     const sol = solveLp(lp);
     if (!sol.feasible) return null;
+    inspect?.(lp, sol.x);
     const W = sol.x.map((x, k) => x * scale[k]);
     const duals = lpDuals(lp).y;
     const value = objective === "min-removal" ? W.reduce((t, w, k) => t + s.cost[k] * (s.today[k] - w), 0) : W.reduce((t, w) => t + w, 0);
@@ -277,6 +280,7 @@ function solveAsLp(s: Setup, objective: AllocationObjective, rows: Checkpoint[])
   const stage1: Lp = { c: [...s.ids.map(() => 0), 1], rows: [...base, ...share], lo: [...lo, 0], hi: [...hi, zMax] };
   const first = solveLp(stage1);
   if (!first.feasible) return null;
+  inspect?.(stage1, first.x);
   const z = first.x[K];
   const duals = lpDuals(stage1).y.slice(0, rows.length);
   const stage2: Lp = { c: [...scale, 0], rows: stage1.rows, lo: [...lo, Math.max(0, z * (1 - 1e-9))], hi: [...hi, zMax] };
@@ -407,7 +411,7 @@ export function allocate(file: ModelFile, options: AllocateOptions = {}): Alloca
   let solved: Solved | null = null;
   let iterations = 0;
   for (; iterations < maxIterations; iterations++) {
-    solved = objective === "equal-percent" || objective === "equal-concentration" ? solveOneRule(s, objective, rows) : solveAsLp(s, objective, rows);
+    solved = objective === "equal-percent" || objective === "equal-concentration" ? solveOneRule(s, objective, rows) : solveAsLp(s, objective, rows, options.inspect_lp);
     if (!solved) throw new RangeError("the allocation LP is infeasible although every discharger at its floor meets the criterion (numerical trouble)");
     const v = violations(s, solved.W, tol);
     if (v.length === 0) break;

@@ -22,6 +22,16 @@ function waterCbodu(w: WaterInput, path: FieldPath): number {
   return ultimateFromBodT(w.bod5_mg_l, k1, 5);
 }
 
+/** Runs `f`, re-throwing its ModelInputError with `prefix` in front of the field path. */
+function withPrefix<T>(prefix: FieldPath, f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    if (e instanceof ModelInputError) throw new ModelInputError([...prefix, ...e.path], e.message.slice(e.message.indexOf(": ") + 2));
+    throw e;
+  }
+}
+
 interface PendingSource {
   kind: SourceKind;
   index: number;
@@ -172,7 +182,9 @@ export function compilePlan(file: ModelFile): Plan {
       const mixedT = qT / q;
       const T = heldT ?? mixedT;
       const { u, h } = reachHydraulics(r, q, path);
-      const ka = reaeration({ method, velocity_m_s: u, depth_m: h, ka20_per_day: r.ka20_per_day, slope_m_m: r.slope_m_m, flow_m3_s: q, floor: r.ka_floor ?? false });
+      const ka = withPrefix(path, () =>
+        reaeration({ method, velocity_m_s: u, depth_m: h, ka20_per_day: r.ka20_per_day, slope_m_m: r.slope_m_m, flow_m3_s: q, floor: r.ka_floor ?? false }),
+      );
       const kd = kd20 * Math.pow(deoxygenationTheta(T, rule, theta.kd), T - 20);
       const ks = rateAtTemperature(ks20, theta.ks, T);
       const tDay = ((kmEnd - kmStart) * 1000) / (u * 86_400);
