@@ -101,6 +101,7 @@ function reachHydraulics(r: ReachInput, q: number, path: FieldPath): { u: number
  * without inflow at its head, or an unusable k_a method.
  */
 export function compilePlan(file: ModelFile): Plan {
+  if (file.reaches.length === 0) throw new ModelInputError(["reaches"], "must list at least one reach");
   const topo = orderReaches(file.reaches);
   const kin = file.kinetics ?? {};
   const theta = {

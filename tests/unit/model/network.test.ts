@@ -58,6 +58,7 @@ describe("network run: clear errors naming the field", () => {
   it("a bad step", () => expectError((f) => (f.step_km = 0), ["step_km"], /greater than zero/));
   it("Tsivoglou–Neal outside its flow range", () =>
     expectError((f) => ((f.reaches[1].ka_method = "tsivoglou-neal"), (f.reaches[1].slope_m_m = 0.001), (f.headwaters[1].flow_m3_s = 0.01)), ["reaches", 1, "flow_m3_s"], /0\.0283/));
+  it("no reaches", () => expectError((f) => f.reaches.splice(0), ["reaches"], /at least one/));
   it("a bad θ", () => expectError((f) => (f.kinetics = { theta_kd: -1 }), ["kinetics", "theta_kd"], /greater than zero/));
 
   it("orders a forest upstream → downstream", () => {
