@@ -51,24 +51,43 @@ export function growthKernel(k: number, t: number): number {
  * Example: rates {kd .2, kr .26, ka .8, kn 0, sod 1, lrd 0}, head {50, 0, 0}, t = 1 → D = 9.10…
  */
 export function segmentState(r: SegmentRates, head: SegmentState, t_day: number): SegmentState {
-  const eKr = Math.exp(-r.kr * t_day);
-  const eKn = Math.exp(-r.kn * t_day);
+  return {
+    L: cbodAt(r, head.L, t_day),
+    N: head.N * Math.exp(-r.kn * t_day),
+    D: deficitAt(r, head.L, head.N, head.D, t_day),
+  };
+}
+
+/** L(t) (mg/L) of segmentState without allocating: L0·e^(−k_r t) + L_rd·h(k_r). */
+export function cbodAt(r: SegmentRates, L0: number, t_day: number): number {
+  const L = L0 * Math.exp(-r.kr * t_day);
+  return r.lrd === 0 ? L : L + r.lrd * growthKernel(r.kr, t_day);
+}
+
+/** D(t) (mg/L) of segmentState without allocating (the hot path of runs and allocation). */
+export function deficitAt(r: SegmentRates, L0: number, N0: number, D0: number, t_day: number): number {
+  if (t_day === 0) return D0;
   const hKa = growthKernel(r.ka, t_day);
   const gKr = sagKernel(r.kr, r.ka, t_day);
-  let L = head.L * eKr;
-  let D = head.D * Math.exp(-r.ka * t_day) + r.kd * head.L * gKr + r.sod * hKa;
-  if (r.kn !== 0 && head.N !== 0) D += r.kn * head.N * sagKernel(r.kn, r.ka, t_day);
-  if (r.lrd !== 0) {
-    L += r.lrd * growthKernel(r.kr, t_day);
-    if (r.kd !== 0) D += ((r.kd * r.lrd) / r.kr) * (hKa - gKr);
-  }
-  return { L, N: head.N * eKn, D };
+  let D = D0 * Math.exp(-r.ka * t_day) + r.kd * L0 * gKr + r.sod * hKa;
+  if (r.kn !== 0 && N0 !== 0) D += r.kn * N0 * sagKernel(r.kn, r.ka, t_day);
+  if (r.lrd !== 0 && r.kd !== 0) D += ((r.kd * r.lrd) / r.kr) * (hKa - gKr);
+  return D;
+}
+
+/**
+ * The part of D(t) driven by the head state alone, D0·e^(−k_a t) + k_d·L0·g(k_r): how a load
+ * increment [ΔL0, ΔD0] travels (no SOD, NBOD or distributed load, which do not depend on it).
+ */
+export function incrementDeficitAt(r: SegmentRates, L0: number, D0: number, t_day: number): number {
+  return D0 * Math.exp(-r.ka * t_day) + r.kd * L0 * sagKernel(r.kr, r.ka, t_day);
 }
 
 /** dD/dt at `t_day` (mg/L/d), from the ODE itself applied to the closed-form state. */
 export function deficitRate(r: SegmentRates, head: SegmentState, t_day: number): number {
-  const s = segmentState(r, head, t_day);
-  return r.kd * s.L + r.kn * s.N - r.ka * s.D + r.sod;
+  return (
+    r.kd * cbodAt(r, head.L, t_day) + r.kn * head.N * Math.exp(-r.kn * t_day) - r.ka * deficitAt(r, head.L, head.N, head.D, t_day) + r.sod
+  );
 }
 
 /** Where the deficit is greatest on [0, T] and how large it is. */
@@ -94,7 +113,7 @@ export const CRITICAL_SEARCH_INTERVALS = 16;
  * → t 2.3105 d, D 7.875 mg/L (D_c/L0 = (k_d/k_a)^(k_a/(k_a−k_d))).
  */
 export function criticalPoint(r: SegmentRates, head: SegmentState, T_day: number): CriticalPoint {
-  const endD = segmentState(r, head, T_day).D;
+  const endD = deficitAt(r, head.L, head.N, head.D, T_day);
   let best: CriticalPoint = head.D >= endD ? { t_day: 0, D: head.D, how: "end" } : { t_day: T_day, D: endD, how: "end" };
   if (T_day <= 0) return best;
   const cbodOnly = (r.kn === 0 || head.N === 0) && r.sod === 0 && r.lrd === 0;
@@ -124,7 +143,7 @@ export function criticalPoint(r: SegmentRates, head: SegmentState, T_day: number
     const f1 = rate(t1);
     if (f0 > 0 && f1 <= 0) {
       const tc = f1 === 0 ? t1 : bracketedRoot(rate, t0, t1, 1e-14 * T_day);
-      const D = segmentState(r, head, tc).D;
+      const D = deficitAt(r, head.L, head.N, head.D, tc);
       if (D > best.D) best = { t_day: tc, D, how: "root" };
     }
     t0 = t1;

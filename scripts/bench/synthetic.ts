@@ -2,6 +2,7 @@
  * Seeded synthetic dendritic networks for benchmarks and tests. Invented data only: never
  * an expected value, only a shape to compute on.
  */
+import { runModel } from "@/lib/model/network/run";
 import type { DischargerInput, HeadwaterInput, InflowInput, ModelFile, ReachInput } from "@/lib/model/types";
 
 /** mulberry32: a small seeded PRNG (public-domain algorithm by Tommy Ettinger). */
@@ -99,4 +100,16 @@ export function syntheticNetwork(o: SyntheticOptions): ModelFile {
     inflows.push({ id: `T${k}`, reach: r.id, km: Math.round(rnd() * r.length_km * 100) / 100, flow_m3_s: between(0.05, 1), ...water() });
   }
   return { reaches, headwaters, dischargers, inflows, criterion_do_mg_l: 5, step_km: o.step_km ?? 0.5 };
+}
+
+/**
+ * Sets the criterion between the lowest DO with no discharger load and with today's load
+ * (at `fraction` of the way to the clean value), so that an allocation has something to do.
+ */
+export function withBindingCriterion(file: ModelFile, fraction = 0.6): ModelFile {
+  const today = runModel(file).minimum.do_mg_l;
+  const clean = structuredClone(file);
+  for (const d of clean.dischargers) d.cbodu_mg_l = 0;
+  const none = runModel(clean).minimum.do_mg_l;
+  return { ...file, criterion_do_mg_l: today + fraction * (none - today) };
 }

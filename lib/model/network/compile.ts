@@ -14,11 +14,11 @@ export const DEFAULT_STEP_KM = 0.5;
 function waterCbodu(w: WaterInput, path: FieldPath): number {
   if (w.cbodu_mg_l !== undefined) {
     if (w.bod5_mg_l !== undefined) throw new ModelInputError([...path, "bod5_mg_l"], "give cbodu_mg_l or bod5_mg_l, not both");
-    return requireNonNegative(w.cbodu_mg_l, [...path, "cbodu_mg_l"]);
+    return requireNonNegative(w.cbodu_mg_l, path, "cbodu_mg_l");
   }
   if (w.bod5_mg_l === undefined) throw new ModelInputError([...path, "cbodu_mg_l"], "is required (or bod5_mg_l with bottle_k_per_day)");
-  requireNonNegative(w.bod5_mg_l, [...path, "bod5_mg_l"]);
-  const k1 = requirePositive(w.bottle_k_per_day ?? DEFAULT_BOTTLE_K_PER_DAY, [...path, "bottle_k_per_day"]);
+  requireNonNegative(w.bod5_mg_l, path, "bod5_mg_l");
+  const k1 = requirePositive(w.bottle_k_per_day ?? DEFAULT_BOTTLE_K_PER_DAY, path, "bottle_k_per_day");
   return ultimateFromBodT(w.bod5_mg_l, k1, 5);
 }
 
@@ -51,7 +51,7 @@ function collectSources(file: ModelFile, index: Map<string, number>): PendingSou
     return r;
   };
   const kmOf = (km: number, reach: number, path: FieldPath): number => {
-    requireNonNegative(km, [...path, "km"]);
+    requireNonNegative(km, path, "km");
     const length = file.reaches[reach].length_km;
     if (km > length) {
       throw new ModelInputError([...path, "km"], `${km} km lies beyond the end of reach "${file.reaches[reach].id}" (${length} km long)`);
@@ -82,13 +82,13 @@ function reachHydraulics(r: ReachInput, q: number, path: FieldPath): { u: number
   if (r.hydraulic_geometry) {
     const g = r.hydraulic_geometry;
     const gp = [...path, "hydraulic_geometry"];
-    const u = requirePositive(g.a, [...gp, "a"]) * Math.pow(q, requireFinite(g.b, [...gp, "b"]));
-    const h = requirePositive(g.c, [...gp, "c"]) * Math.pow(q, requireFinite(g.f, [...gp, "f"]));
-    return { u: requirePositive(u, [...path, "velocity_m_s"]), h: requirePositive(h, [...path, "depth_m"]) };
+    const u = requirePositive(g.a, gp, "a") * Math.pow(q, requireFinite(g.b, gp, "b"));
+    const h = requirePositive(g.c, gp, "c") * Math.pow(q, requireFinite(g.f, gp, "f"));
+    return { u: requirePositive(u, path, "velocity_m_s"), h: requirePositive(h, path, "depth_m") };
   }
   if (r.velocity_m_s === undefined) throw new ModelInputError([...path, "velocity_m_s"], "is required (or hydraulic_geometry)");
   if (r.depth_m === undefined) throw new ModelInputError([...path, "depth_m"], "is required (or hydraulic_geometry)");
-  return { u: requirePositive(r.velocity_m_s, [...path, "velocity_m_s"]), h: requirePositive(r.depth_m, [...path, "depth_m"]) };
+  return { u: requirePositive(r.velocity_m_s, path, "velocity_m_s"), h: requirePositive(r.depth_m, path, "depth_m") };
 }
 
 /**
@@ -123,12 +123,12 @@ export function compilePlan(file: ModelFile): Plan {
       index: p.index,
       id: p.id,
       segment: -1,
-      flow_m3_s: requirePositive(w.flow_m3_s, [...p.path, "flow_m3_s"]),
+      flow_m3_s: requirePositive(w.flow_m3_s, p.path, "flow_m3_s"),
       L: waterCbodu(w, p.path),
-      N: requireNonNegative(w.nbodu_mg_l ?? 0, [...p.path, "nbodu_mg_l"]),
-      DO: requireNonNegative(w.do_mg_l, [...p.path, "do_mg_l"]),
-      temperature_c: requireFinite(w.temperature_c, [...p.path, "temperature_c"]),
-      bottle_k_per_day: requirePositive(w.bottle_k_per_day ?? DEFAULT_BOTTLE_K_PER_DAY, [...p.path, "bottle_k_per_day"]),
+      N: requireNonNegative(w.nbodu_mg_l ?? 0, p.path, "nbodu_mg_l"),
+      DO: requireNonNegative(w.do_mg_l, p.path, "do_mg_l"),
+      temperature_c: requireFinite(w.temperature_c, p.path, "temperature_c"),
+      bottle_k_per_day: requirePositive(w.bottle_k_per_day ?? DEFAULT_BOTTLE_K_PER_DAY, p.path, "bottle_k_per_day"),
       future: p.future,
     };
   });
@@ -142,15 +142,15 @@ export function compilePlan(file: ModelFile): Plan {
   for (const ri of topo.order) {
     const r = file.reaches[ri];
     const path = ["reaches", ri];
-    const length = requirePositive(r.length_km, [...path, "length_km"]);
-    const kd20 = requireNonNegative(r.kd20_per_day, [...path, "kd20_per_day"]);
-    const ks20 = requireNonNegative(r.ks20_per_day ?? 0, [...path, "ks20_per_day"]);
-    const kn20 = requireNonNegative(r.kn20_per_day ?? 0, [...path, "kn20_per_day"]);
-    const sod20 = requireNonNegative(r.sod20_g_m2_day ?? 0, [...path, "sod20_g_m2_day"]);
-    const lrd = requireNonNegative(r.distributed_cbodu_mg_l_day ?? 0, [...path, "distributed_cbodu_mg_l_day"]);
-    const elevation = requireFinite(r.elevation_m ?? 0, [...path, "elevation_m"]);
-    const salinity = requireNonNegative(r.salinity_g_kg ?? 0, [...path, "salinity_g_kg"]);
-    const heldT = r.temperature_c === undefined ? undefined : requireFinite(r.temperature_c, [...path, "temperature_c"]);
+    const length = requirePositive(r.length_km, path, "length_km");
+    const kd20 = requireNonNegative(r.kd20_per_day, path, "kd20_per_day");
+    const ks20 = requireNonNegative(r.ks20_per_day ?? 0, path, "ks20_per_day");
+    const kn20 = requireNonNegative(r.kn20_per_day ?? 0, path, "kn20_per_day");
+    const sod20 = requireNonNegative(r.sod20_g_m2_day ?? 0, path, "sod20_g_m2_day");
+    const lrd = requireNonNegative(r.distributed_cbodu_mg_l_day ?? 0, path, "distributed_cbodu_mg_l_day");
+    const elevation = requireFinite(r.elevation_m ?? 0, path, "elevation_m");
+    const salinity = requireNonNegative(r.salinity_g_kg ?? 0, path, "salinity_g_kg");
+    const heldT = r.temperature_c === undefined ? undefined : requireFinite(r.temperature_c, path, "temperature_c");
     const method = r.ka_method ?? (r.ka20_per_day !== undefined ? "given" : "depth-velocity");
     if (lrd > 0 && kd20 + ks20 === 0) {
       throw new ModelInputError([...path, "distributed_cbodu_mg_l_day"], "needs kd20_per_day or ks20_per_day > 0 (no steady state otherwise)");

@@ -1,4 +1,4 @@
-import { segmentState } from "../segment";
+import { cbodAt, deficitAt } from "../segment";
 import type { Plan } from "./plan";
 
 /** Head and end state (mg/L) of every segment, indexed like Plan.segments. */
@@ -66,15 +66,16 @@ export function evaluatePlan(plan: Plan, options: EvaluateOptions = {}): States 
       qD += q * (cs - src.DO);
     }
     const Q = seg.flow_m3_s;
-    const head = { L: qL / Q, N: qN / Q, D: qD / Q };
-    s.headL[i] = head.L;
-    s.headN[i] = head.N;
-    s.headD[i] = head.D;
+    const L0 = qL / Q;
+    const N0 = qN / Q;
+    const D0 = qD / Q;
+    s.headL[i] = L0;
+    s.headN[i] = N0;
+    s.headD[i] = D0;
     const rates = componentRates(seg.rates, component);
-    const end = segmentState(rates, head, seg.t_day);
-    s.endL[i] = end.L;
-    s.endN[i] = end.N;
-    s.endD[i] = end.D;
+    s.endL[i] = cbodAt(rates, L0, seg.t_day);
+    s.endN[i] = N0 * Math.exp(-rates.kn * seg.t_day);
+    s.endD[i] = deficitAt(rates, L0, N0, D0, seg.t_day);
   }
   return s;
 }

@@ -1,5 +1,5 @@
 import { LOAD_FACTOR } from "../units";
-import { segmentState } from "../segment";
+import { incrementDeficitAt } from "../segment";
 import type { Location } from "./profile";
 import type { Plan } from "./plan";
 
@@ -34,12 +34,12 @@ export function transferPath(plan: Plan, source: number): TransferPath {
     segs.push(s);
     dLs.push(dL);
     dDs.push(dD);
-    const end = segmentState({ ...seg.rates, sod: 0, lrd: 0 }, { L: dL, N: 0, D: dD }, seg.t_day);
     const next = seg.next;
     if (next < 0) break;
     const dilution = seg.flow_m3_s / plan.segments[next].flow_m3_s;
-    dL = end.L * dilution;
-    dD = end.D * dilution;
+    const endD = incrementDeficitAt(seg.rates, dL, dD, seg.t_day);
+    dL = dL * Math.exp(-seg.rates.kr * seg.t_day) * dilution;
+    dD = endD * dilution;
     s = next;
   }
   return { index, dL: Float64Array.from(dLs), dD: Float64Array.from(dDs) };
@@ -54,6 +54,5 @@ export function transferAt(plan: Plan, path: TransferPath, loc: Location): numbe
   const k = path.index.get(loc.segment);
   if (k === undefined) return 0;
   const seg = plan.segments[loc.segment];
-  if (loc.t_day === 0) return path.dD[k];
-  return segmentState({ ...seg.rates, sod: 0, lrd: 0 }, { L: path.dL[k], N: 0, D: path.dD[k] }, loc.t_day).D;
+  return incrementDeficitAt(seg.rates, path.dL[k], path.dD[k], loc.t_day);
 }
