@@ -23,6 +23,24 @@ function looksLikeZip(b: Uint8Array): boolean {
   return b.length >= 22 && b[0] === 0x50 && b[1] === 0x4b && (b[2] === 3 || b[2] === 5) && b[3] === b[2] + 1;
 }
 
+/**
+ * Checks that the zip ends with an end-of-central-directory record whose directory lies inside
+ * the file. but-unzip scans for that record itself but never stops when it is missing
+ * (a truncated upload), so it must not see such bytes.
+ */
+function checkEndRecord(b: Uint8Array) {
+  const d = view(b);
+  const lowest = Math.max(0, b.length - 22 - 0xffff);
+  for (let i = b.length - 22; i >= lowest; i--) {
+    if (d.getUint32(i, true) !== 0x06054b50) continue;
+    const size = d.getUint32(i + 12, true);
+    const offset = d.getUint32(i + 16, true);
+    if (offset + size <= i) return;
+    break;
+  }
+  throw new GeoError("zip_corrupt", "The zip file is incomplete or damaged (its directory is missing); upload it again");
+}
+
 interface ShapefileParts {
   shp?: Uint8Array;
   dbf?: Uint8Array;
@@ -88,10 +106,13 @@ function checkHeaders(base: string, shp: Uint8Array, dbf: Uint8Array) {
     throw new GeoError("shapefile_corrupt", `${base}.shp is not a valid shapefile (bad header)`);
   }
   const d = view(dbf);
+  const records = dbf.length >= 33 ? d.getUint32(4, true) : 0;
+  const headerLength = dbf.length >= 33 ? d.getUint16(8, true) : 0;
+  const recordLength = dbf.length >= 33 ? d.getUint16(10, true) : 0;
   const ok =
-    dbf.length >= 33 &&
-    d.getUint16(8, true) >= 33 &&
-    d.getUint16(8, true) + d.getUint32(4, true) * d.getUint16(10, true) <= dbf.length + 1;
+    headerLength >= 33 &&
+    (recordLength > 0 || records === 0) &&
+    headerLength + records * recordLength <= dbf.length + 1;
   if (!ok) throw new GeoError("shapefile_corrupt", `${base}.dbf is damaged (its header does not match its size)`);
 }
 
@@ -116,6 +137,7 @@ export async function readShapefileZip(bytes: Bytes, options: ShapefileOptions =
   if (!looksLikeZip(u8)) {
     throw new GeoError("not_a_zip", "The file is not a zip archive; upload the shapefile's files zipped together");
   }
+  checkEndRecord(u8);
   const { layers, names } = await unzipParts(u8);
   const [base, parts] = pickLayer(layers, names, options.layer);
   if (!parts.dbf) {
