@@ -14,6 +14,11 @@ import {
   flowToM3s,
   temperatureToC,
   velocityToMps,
+  type DepthUnit,
+  type DistanceUnit,
+  type FlowUnit,
+  type TemperatureUnit,
+  type VelocityUnit,
 } from "./units";
 
 const source = z.string().trim().min(1);
@@ -104,13 +109,13 @@ interface NumericRule<M, A> {
 const same = (v: number) => v;
 
 const REACH_NUMBERS: NumericRule<ReachMapping, ReachAttributes>[] = [
-  { target: "lengthKm", key: "length", label: "length", convert: (v, b) => distanceToKm(v, b.unit as never) },
-  { target: "velocityMps", key: "velocity", label: "velocity", convert: (v, b) => velocityToMps(v, b.unit as never) },
-  { target: "depthM", key: "depth", label: "depth", convert: (v, b) => depthToM(v, b.unit as never) },
+  { target: "lengthKm", key: "length", label: "length", convert: (v, b) => distanceToKm(v, b.unit as DistanceUnit) },
+  { target: "velocityMps", key: "velocity", label: "velocity", convert: (v, b) => velocityToMps(v, b.unit as VelocityUnit) },
+  { target: "depthM", key: "depth", label: "depth", convert: (v, b) => depthToM(v, b.unit as DepthUnit) },
   { target: "slope", key: "slope", label: "slope", convert: same },
-  { target: "designFlowM3s", key: "designFlow", label: "design flow", convert: (v, b) => flowToM3s(v, b.unit as never) },
-  { target: "temperatureC", key: "temperature", label: "temperature", convert: (v, b) => temperatureToC(v, b.unit as never), signed: true },
-  { target: "elevationM", key: "elevation", label: "elevation", convert: (v, b) => depthToM(v, b.unit as never), signed: true },
+  { target: "designFlowM3s", key: "designFlow", label: "design flow", convert: (v, b) => flowToM3s(v, b.unit as FlowUnit) },
+  { target: "temperatureC", key: "temperature", label: "temperature", convert: (v, b) => temperatureToC(v, b.unit as TemperatureUnit), signed: true },
+  { target: "elevationM", key: "elevation", label: "elevation", convert: (v, b) => depthToM(v, b.unit as DepthUnit), signed: true },
   { target: "deoxygenationRatePerDay", key: "deoxygenationRate", label: "deoxygenation rate", convert: same },
   { target: "reaerationRatePerDay", key: "reaerationRate", label: "reaeration rate", convert: same },
   { target: "settlingRatePerDay", key: "settlingRate", label: "settling rate", convert: same },
@@ -118,10 +123,10 @@ const REACH_NUMBERS: NumericRule<ReachMapping, ReachAttributes>[] = [
 ];
 
 const DISCHARGER_NUMBERS: NumericRule<DischargerMapping, DischargerAttributes>[] = [
-  { target: "designFlowM3s", key: "designFlow", label: "design flow", convert: (v, b) => flowToM3s(v, b.unit as never) },
+  { target: "designFlowM3s", key: "designFlow", label: "design flow", convert: (v, b) => flowToM3s(v, b.unit as FlowUnit) },
   { target: "bottleRatePerDay", key: "bottleRate", label: "bottle rate", convert: same },
   { target: "dissolvedOxygenMgL", key: "dissolvedOxygen", label: "dissolved oxygen", convert: same },
-  { target: "temperatureC", key: "temperature", label: "temperature", convert: (v, b) => temperatureToC(v, b.unit as never), signed: true },
+  { target: "temperatureC", key: "temperature", label: "temperature", convert: (v, b) => temperatureToC(v, b.unit as TemperatureUnit), signed: true },
 ];
 
 function parseMapping<T>(schema: z.ZodType<T>, mapping: unknown, what: string): T {

@@ -1,4 +1,4 @@
-import type { Feature, GeoJsonObject, Geometry } from "geojson";
+import type { Feature, Geometry } from "geojson";
 import { crsFromEpsg, type Reprojector } from "./crs";
 import { GeoError } from "./errors";
 import { detectFields } from "./fields";

@@ -118,13 +118,21 @@ export function snapPoints(
       return { name: pt.name, reach: r, reachName: wanted, ...s, assignment: "reassigned" };
     }
     if (reaches.length === 0) return { name: pt.name, assignment: "unplaced" };
-    const gaps = boxes.map((b) => boxGap(pt.position, b));
-    let best = gaps.indexOf(Math.min(...gaps));
+    const gaps = new Float64Array(boxes.length);
+    let best = 0;
+    boxes.forEach((b, r) => {
+      gaps[r] = boxGap(pt.position, b);
+      if (gaps[r] < gaps[best]) best = r;
+    });
     let bestSnap = snapTo(lines[best], reaches[best], pt.position);
+    let reachDeg = lengthToDegrees(bestSnap.distanceM, "meters");
     gaps.forEach((gap, r) => {
-      if (r === best || gap > lengthToDegrees(bestSnap.distanceM, "meters")) return;
+      if (r === best || gap > reachDeg) return;
       const s = snapTo(lines[r], reaches[r], pt.position);
-      if (s.distanceM < bestSnap.distanceM) [best, bestSnap] = [r, s];
+      if (s.distanceM < bestSnap.distanceM) {
+        [best, bestSnap] = [r, s];
+        reachDeg = lengthToDegrees(s.distanceM, "meters");
+      }
     });
     if (bestSnap.distanceM > maxM) {
       problems.push(
