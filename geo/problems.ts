@@ -20,6 +20,7 @@ export type ProblemCode =
   | "braid"
   | "loop"
   | "gap"
+  | "ends_mid_reach"
   | "reach_reversed"
   | "downstream_id_unknown"
   | "downstream_id_mismatch"

@@ -1,4 +1,5 @@
-import { distance } from "@turf/turf";
+import { distance, lengthToDegrees, nearestPointOnLine } from "@turf/turf";
+import { BoxGrid } from "./box-grid";
 import type { LineString, MultiLineString } from "geojson";
 import { PointGrid } from "./point-grid";
 import { error, nameList, warning, type Problem } from "./problems";
@@ -130,6 +131,41 @@ function joinEnds(lines: readonly TopologyLine[], toleranceM: number, gapM: numb
   return { nodeOf, positions, problems };
 }
 
+/**
+ * Free line ends lying near the middle of another reach (not near its ends): a tributary
+ * drawn to meet the main stem where the main stem has no vertex end, so no node joins them.
+ */
+function endsMidReach(lines: readonly TopologyLine[], nodeOf: Int32Array, endCount: Int32Array, toleranceM: number, gapM: number): Problem[] {
+  const grid = new BoxGrid(lines.map((l) => l.coordinates), lengthToDegrees(gapM, "meters"));
+  const problems: Problem[] = [];
+  lines.forEach((l, e) => {
+    for (const end of [0, 1]) {
+      if (endCount[nodeOf[2 * e + end]] !== 1) continue;
+      const p = end === 0 ? l.coordinates[0] : l.coordinates[l.coordinates.length - 1];
+      for (const other of grid.near(p)) {
+        if (other === e) continue;
+        const target = lines[other].coordinates;
+        const hit = nearestPointOnLine({ type: "LineString", coordinates: target }, p, { units: "meters" });
+        if (hit.properties.pointDistance > gapM) continue;
+        const q = hit.geometry.coordinates;
+        const nearEnd = [target[0], target[target.length - 1]].some((t) => distance(q, t, { units: "meters" }) <= toleranceM);
+        if (nearEnd) continue;
+        problems.push(
+          warning(
+            "ends_mid_reach",
+            `${l.name} ends ${hit.properties.pointDistance.toFixed(1)} m from the middle of ${lines[other].name}, not at one of its ends, ` +
+              `so they are not joined; split ${lines[other].name} at that point`,
+            [l.name, lines[other].name],
+            { geometry: { type: "LineString", coordinates: [p, q] } },
+          ),
+        );
+        break;
+      }
+    }
+  });
+  return problems;
+}
+
 /** Breadth-first spanning tree from `root`: parent edge per node (-1 at the root) and visit order. */
 function spanningTree(g: Graph, root: number, parentEdge: Int32Array, order: number[], seen: Uint8Array) {
   seen[root] = 1;
@@ -213,7 +249,7 @@ function resolveChoice(choice: OutletChoice, lines: readonly TopologyLine[], g: 
  * Builds the network from line ends: joins ends within the tolerance into nodes, finds the
  * separate parts, loops and braids, suggests an outlet per part (or uses the planner's),
  * and orients every reach toward its outlet (flipping lines drawn upstream).
- * Problems: gap, closed_loop, braid, loop, outlet_invalid, disconnected_parts, reach_reversed.
+ * Problems: gap, ends_mid_reach, closed_loop, braid, loop, outlet_invalid, disconnected_parts, reach_reversed.
  */
 export function buildTopology(lines: readonly TopologyLine[], options: TopologyOptions = {}): Topology {
   const toleranceM = options.toleranceM ?? 5;
@@ -228,6 +264,9 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
     if (to[e] !== from[e]) adjacency[to[e]].push(e);
   });
   const g: Graph = { from, to, adjacency };
+  const endCount = new Int32Array(nodeCount);
+  nodeOf.forEach((n) => endCount[n]++);
+  problems.push(...endsMidReach(lines, nodeOf, endCount, toleranceM, gapM));
   const nodeIds = positions.map((_, k) => `N${k + 1}`);
 
   // First pass: parts and cycles, on a spanning tree rooted at each part's first node.

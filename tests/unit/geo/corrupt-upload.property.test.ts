@@ -49,7 +49,7 @@ describe("randomly corrupted shapefile uploads", () => {
       }),
     );
     await fc.assert(fc.asyncProperty(zipCorruption, async (bytes) => void (await readAndValidate(bytes))), { numRuns: 300 });
-  });
+  }, 60_000);
 
   it("damaged .shp, .dbf or .prj contents inside a sound zip give a report or a typed error", async () => {
     const fileCorruption = fc
@@ -65,5 +65,5 @@ describe("randomly corrupted shapefile uploads", () => {
       }),
       { numRuns: 300 },
     );
-  });
+  }, 60_000);
 });

@@ -65,6 +65,18 @@ describe("topology of hand-built networks", () => {
     expect(codes(allowed.warnings)).toContain("disconnected_parts");
   });
 
+  it("a tributary ending on the middle of another reach is reported, with the split point", () => {
+    const r = validate("mid-reach-junction");
+    expect(codes(r.errors)).toEqual(["disconnected_parts"]);
+    const w = r.warnings.find((p) => p.code === "ends_mid_reach");
+    expect(w?.features).toEqual(["TRIB", "MAIN"]);
+    expect(w?.message).toMatch(/^TRIB ends 2\.0 m from the middle of MAIN/);
+    const [, q] = (w?.geometry as { coordinates: number[][] }).coordinates;
+    expect(q[0]).toBeCloseTo(0, 9);
+    expect(q[1]).toBeCloseTo(0, 9);
+    expect(codes(validate("y-confluence").warnings)).not.toContain("ends_mid_reach");
+  });
+
   it("loop: the four reaches of the ring are named", () => {
     const r = validate("loop");
     expect(codes(r.errors)).toEqual(["loop"]);
