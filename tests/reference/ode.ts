@@ -3,7 +3,11 @@
  * extrapolation) of the same ODE system the closed forms solve:
  *   dL/dt = −k_r·L + L_rd,  dN/dt = −k_n·N,  dD/dt = k_d·L + k_n·N − k_a·D + S.
  */
-import { Solver } from "odex";
+import { createRequire } from "node:module";
+
+// Loaded by file rather than by the bare name: tsconfig maps "odex" to a declaration file
+// for type checking, and tsx (the benchmarks) would follow that mapping at run time.
+const { Solver } = createRequire(import.meta.url)("odex/src/odex.js") as typeof import("odex");
 
 export interface OdeRates {
   kd: number;

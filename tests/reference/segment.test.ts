@@ -1,5 +1,6 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { bracketedRoot, criticalPoint, growthKernel, sagKernel, segmentState, type SegmentRates } from "@/lib/model";
+import { bracketedRoot, criticalPoint, deficitAt, growthKernel, sagKernel, segmentState, type SegmentRates } from "@/lib/model";
 import { integrateSegment } from "./ode";
 
 const rates = (o: Partial<SegmentRates>): SegmentRates => ({ kd: 0.2, kr: 0.2, ka: 0.8, kn: 0, sod: 0, lrd: 0, ...o });
@@ -136,5 +137,49 @@ describe("segment closed form against odex with NBOD, settling, SOD and distribu
   it("bracketedRoot throws when the ends do not bracket a root", () => {
     expect(() => bracketedRoot((x) => x * x + 1, -1, 1)).toThrow(/bracket/);
     expect(bracketedRoot((x) => x * x - 2, 0, 2)).toBeCloseTo(Math.SQRT2, 14);
+  });
+});
+
+describe("exact critical point, property-based (fast-check)", () => {
+  it("dD/dt with the sign pattern + − + (both ends rising): the interior maximum is still found", () => {
+    // A parameter set found by searching for this pattern; the expected value is a dense scan.
+    const r: SegmentRates = { kd: 2.3479e-5, kr: 0.0657924, ka: 3.828027, kn: 1.37595, sod: 1.598302, lrd: 0.656878 };
+    const head = { L: 3.76357, N: 20.36594, D: 7.51015 };
+    const T = 14.0304;
+    let scan = -Infinity;
+    for (let i = 0; i <= 200_000; i++) scan = Math.max(scan, deficitAt(r, head.L, head.N, head.D, (T * i) / 200_000));
+    expect(deficitAt(r, head.L, head.N, head.D, T)).toBeGreaterThan(deficitAt(r, head.L, head.N, head.D, T * 0.99)); // rising at the end
+    const c = criticalPoint(r, head, T);
+    expect(c.how).toBe("root");
+    expect(c.D).toBeGreaterThan(head.D);
+    expect(c.D).toBeGreaterThanOrEqual(scan - 1e-12);
+    expect(c.D - scan).toBeLessThan(1e-7); // the scan samples every 7e-5 d
+  });
+
+  const rate = fc.double({ min: 0, max: 3, noNaN: true });
+  it("is never below the highest deficit of a dense scan, and is a local maximum of the closed form", () => {
+    fc.assert(
+      fc.property(
+        fc.record({ kd: rate, ks: fc.double({ min: 0, max: 0.5, noNaN: true }), ka: fc.double({ min: 0.05, max: 5, noNaN: true }), kn: rate, sod: rate, lrd: rate }),
+        fc.record({ L: fc.double({ min: 0, max: 80, noNaN: true }), N: fc.double({ min: 0, max: 30, noNaN: true }), D: fc.double({ min: -2, max: 12, noNaN: true }) }),
+        fc.double({ min: 0.01, max: 15, noNaN: true }),
+        fc.boolean(),
+        (k, head, T, nearlyEqual) => {
+          const kr = k.kd + k.ks;
+          const r: SegmentRates = { kd: k.kd, kr: kr || 0.01, ka: nearlyEqual ? (kr || 0.01) * (1 + 1e-9) : k.ka, kn: k.kn, sod: k.sod, lrd: k.lrd };
+          const c = criticalPoint(r, head, T);
+          let scan = -Infinity;
+          for (let i = 0; i <= 2000; i++) scan = Math.max(scan, deficitAt(r, head.L, head.N, head.D, (T * i) / 2000));
+          expect(c.D).toBeGreaterThanOrEqual(scan - 1e-9 * Math.max(1, Math.abs(scan)));
+          expect(c.D).toBeCloseTo(deficitAt(r, head.L, head.N, head.D, c.t_day), 9);
+          const h = T * 1e-6;
+          if (c.how !== "end") {
+            expect(deficitAt(r, head.L, head.N, head.D, c.t_day - h)).toBeLessThanOrEqual(c.D + 1e-12);
+            expect(deficitAt(r, head.L, head.N, head.D, c.t_day + h)).toBeLessThanOrEqual(c.D + 1e-12);
+          }
+        },
+      ),
+      { numRuns: 300 },
+    );
   });
 });

@@ -1,0 +1,28 @@
+/**
+ * Benchmarks of the computation core (`npm run bench`). Prints figures; never fails on speed.
+ *   1. Model run on seeded synthetic dendritic networks of 1k and 10k reaches.
+ *   2. The same network through an ODE integrator (odex) at equal accuracy: the ratio.
+ *   3. Allocation with 50/200/500 dischargers on 10k reaches vs HiGHS on the full LP.
+ * Targets (issue 3): 10k-reach run ≤ 20 ms; ≥ 100× faster than the ODE integrator;
+ * 500-discharger allocation ≤ 2 s and no slower than HiGHS on the full LP.
+ * Options: `npm run bench -- --quick` skips the 10k ODE comparison and the 500-discharger case.
+ */
+import { runModelBench } from "./run-bench";
+import { odeBench } from "./ode-bench";
+import { allocationBench } from "./allocation-bench";
+
+const quick = process.argv.includes("--quick");
+
+async function main() {
+  console.log(`Sagline computation-core benchmarks — node ${process.version}, ${new Date().toISOString()}`);
+  console.log("Wall-clock medians; a shared machine under load inflates them. Figures, not pass/fail.\n");
+  for (const reaches of [1000, 10_000]) runModelBench(reaches);
+  odeBench(1000);
+  if (!quick) odeBench(10_000);
+  for (const dischargers of quick ? [50, 200] : [50, 200, 500]) await allocationBench(10_000, dischargers);
+}
+
+main().catch((e: unknown) => {
+  console.error(e instanceof Error ? e.message : String(e));
+  process.exit(1);
+});
