@@ -20,31 +20,24 @@ export function writeZip(entries: readonly ZipEntry[]): Uint8Array {
   for (const e of entries) {
     const name = Buffer.from(e.name, "utf8");
     const packed = deflateRawSync(e.data, { level: 9 });
-    const crc = crc32(e.data) >>> 0;
+    // The local header and the central directory entry share this run of fields.
+    const common = Buffer.alloc(26);
+    common.writeUInt16LE(20, 0); // version needed to extract
+    common.writeUInt16LE(0x0800, 2); // flags: UTF-8 names
+    common.writeUInt16LE(8, 4); // deflate
+    common.writeUInt16LE(DOS_TIME, 6);
+    common.writeUInt16LE(DOS_DATE, 8);
+    common.writeUInt32LE(crc32(e.data) >>> 0, 10);
+    common.writeUInt32LE(packed.length, 14);
+    common.writeUInt32LE(e.data.length, 18);
+    common.writeUInt16LE(name.length, 22);
     const local = Buffer.alloc(30);
     local.writeUInt32LE(0x04034b50, 0);
-    local.writeUInt16LE(20, 4); // version needed
-    local.writeUInt16LE(0x0800, 6); // UTF-8 names
-    local.writeUInt16LE(8, 8); // deflate
-    local.writeUInt16LE(DOS_TIME, 10);
-    local.writeUInt16LE(DOS_DATE, 12);
-    local.writeUInt32LE(crc, 14);
-    local.writeUInt32LE(packed.length, 18);
-    local.writeUInt32LE(e.data.length, 22);
-    local.writeUInt16LE(name.length, 26);
-    local.writeUInt16LE(0, 28);
+    common.copy(local, 4);
     const dir = Buffer.alloc(46);
     dir.writeUInt32LE(0x02014b50, 0);
-    dir.writeUInt16LE(20, 4); // made by
-    dir.writeUInt16LE(20, 6);
-    dir.writeUInt16LE(0x0800, 8);
-    dir.writeUInt16LE(8, 10);
-    dir.writeUInt16LE(DOS_TIME, 12);
-    dir.writeUInt16LE(DOS_DATE, 14);
-    dir.writeUInt32LE(crc, 16);
-    dir.writeUInt32LE(packed.length, 20);
-    dir.writeUInt32LE(e.data.length, 24);
-    dir.writeUInt16LE(name.length, 28);
+    dir.writeUInt16LE(20, 4); // version made by
+    common.copy(dir, 6);
     dir.writeUInt32LE(offset, 42);
     chunks.push(local, name, packed);
     central.push(dir, name);
