@@ -1,4 +1,4 @@
-import { criticalPoint, segmentState, type CriticalPoint } from "../segment";
+import { cbodAt, criticalPoint, deficitAt, type CriticalPoint } from "../segment";
 import type { Plan } from "./plan";
 import type { States } from "./evaluate";
 
@@ -27,25 +27,55 @@ export interface Location {
 const KM_EPS = 1e-9;
 
 /**
- * Locations of a reach's profile points: every multiple of `step_km` from the head, plus
+ * Visits a reach's profile points in order: every multiple of `step_km` from the head, plus
  * every segment end. At an outfall inside the reach two points share its km: the end of the
  * segment above (before mixing) and the head of the one below (after mixing).
  */
-export function reachLocations(plan: Plan, reach: number): Location[] {
+export function forEachLocation(plan: Plan, reach: number, visit: (segment: number, t_day: number, km: number) => void): void {
   const r = plan.reaches[reach];
   const step = plan.step_km;
-  const out: Location[] = [];
   for (let k = 0; k < r.segment_count; k++) {
     const si = r.first_segment + k;
     const seg = plan.segments[si];
-    out.push({ segment: si, t_day: 0, km: seg.km_start });
+    visit(si, 0, seg.km_start);
     const perKm = seg.km_end > seg.km_start ? seg.t_day / (seg.km_end - seg.km_start) : 0;
     for (let i = Math.floor(seg.km_start / step + 1); i * step < seg.km_end - KM_EPS; i++) {
       const km = i * step;
-      if (km > seg.km_start + KM_EPS) out.push({ segment: si, t_day: (km - seg.km_start) * perKm, km });
+      if (km > seg.km_start + KM_EPS) visit(si, (km - seg.km_start) * perKm, km);
     }
-    if (seg.km_end > seg.km_start) out.push({ segment: si, t_day: seg.t_day, km: seg.km_end });
+    if (seg.km_end > seg.km_start) visit(si, seg.t_day, seg.km_end);
   }
+}
+
+/** The profile-point locations of a reach (see forEachLocation). */
+export function reachLocations(plan: Plan, reach: number): Location[] {
+  const out: Location[] = [];
+  forEachLocation(plan, reach, (segment, t_day, km) => out.push({ segment, t_day, km }));
+  return out;
+}
+
+/** The profile points of a reach, computed straight from the closed form (no intermediate objects). */
+export function reachPoints(plan: Plan, states: States, reach: number): ProfilePoint[] {
+  const out: ProfilePoint[] = [];
+  const toOutlet = plan.reaches[reach].km_to_outlet_at_head;
+  forEachLocation(plan, reach, (i, t, km) => {
+    const seg = plan.segments[i];
+    const L0 = states.headL[i];
+    const N0 = states.headN[i];
+    const D = deficitAt(seg.rates, L0, N0, states.headD[i], t);
+    out.push({
+      km,
+      km_to_outlet: toOutlet - km,
+      t_day: seg.t_start_day + t,
+      flow_m3_s: seg.flow_m3_s,
+      temperature_c: seg.temperature_c,
+      cbodu_mg_l: cbodAt(seg.rates, L0, t),
+      nbodu_mg_l: N0 * Math.exp(-seg.rates.kn * t),
+      do_mg_l: seg.cs_mg_l - D,
+      do_sat_mg_l: seg.cs_mg_l,
+      deficit_mg_l: D,
+    });
+  });
   return out;
 }
 
@@ -57,32 +87,11 @@ export function locationKm(plan: Plan, loc: Location): number {
   return seg.km_start + ((seg.km_end - seg.km_start) * loc.t_day) / seg.t_day;
 }
 
-/** The full profile point at a location, from evaluated states. */
-export function pointAt(plan: Plan, states: States, loc: Location): ProfilePoint {
-  const seg = plan.segments[loc.segment];
-  const head = { L: states.headL[loc.segment], N: states.headN[loc.segment], D: states.headD[loc.segment] };
-  const st = loc.t_day === 0 ? head : segmentState(seg.rates, head, loc.t_day);
-  const km = locationKm(plan, loc);
-  return {
-    km,
-    km_to_outlet: plan.reaches[seg.reach].km_to_outlet_at_head - km,
-    t_day: seg.t_start_day + loc.t_day,
-    flow_m3_s: seg.flow_m3_s,
-    temperature_c: seg.temperature_c,
-    cbodu_mg_l: st.L,
-    nbodu_mg_l: st.N,
-    do_mg_l: seg.cs_mg_l - st.D,
-    do_sat_mg_l: seg.cs_mg_l,
-    deficit_mg_l: st.D,
-  };
-}
-
 /** DO (mg/L) at a location. */
 export function doAt(plan: Plan, states: States, loc: Location): number {
   const seg = plan.segments[loc.segment];
-  if (loc.t_day === 0) return seg.cs_mg_l - states.headD[loc.segment];
-  const head = { L: states.headL[loc.segment], N: states.headN[loc.segment], D: states.headD[loc.segment] };
-  return seg.cs_mg_l - segmentState(seg.rates, head, loc.t_day).D;
+  const i = loc.segment;
+  return seg.cs_mg_l - deficitAt(seg.rates, states.headL[i], states.headN[i], states.headD[i], loc.t_day);
 }
 
 /** Exact lowest-DO point of one segment (greatest deficit; C_s is constant within a segment). */

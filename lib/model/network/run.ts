@@ -3,7 +3,7 @@ import type { KaFormula } from "../reaeration";
 import { compilePlan } from "./compile";
 import { evaluatePlan, type States } from "./evaluate";
 import type { Plan } from "./plan";
-import { locationKm, pointAt, reachLocations, segmentCritical, type ProfilePoint } from "./profile";
+import { locationKm, reachPoints, segmentCritical, type ProfilePoint } from "./profile";
 
 export interface SegmentReport {
   km_start: number;
@@ -71,7 +71,7 @@ export function reportRun(plan: Plan, states: States): RunResult {
   const below: RunResult["below_criterion"] = [];
   let minimum = { reach: "", km: 0, do_mg_l: Infinity };
   const reaches = plan.reaches.map((r, ri) => {
-    const points = reachLocations(plan, ri).map((loc) => pointAt(plan, states, loc));
+    const points = reachPoints(plan, states, ri);
     const critical = criticals[ri];
     for (const p of points) if (p.do_mg_l < plan.criterion_do_mg_l) below.push({ reach: r.id, km: p.km, do_mg_l: p.do_mg_l, critical: false });
     if (critical.do_mg_l < plan.criterion_do_mg_l) below.push({ reach: r.id, km: critical.km, do_mg_l: critical.do_mg_l, critical: true });

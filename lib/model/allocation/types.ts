@@ -1,0 +1,67 @@
+import type { AllocationObjective } from "../types";
+import type { Lp } from "./lp";
+import type { PermitTerms } from "./permit";
+
+export interface AllocateOptions {
+  /** A checkpoint counts as violated when DO < criterion + MOS − tolerance. Default 1e-6 mg/L. */
+  tolerance_mg_l?: number;
+  /** Most rounds of constraint generation. Default 50. */
+  max_iterations?: number;
+  /** Called with every LP handed to the solver (scaled variables; the last call is the final LP). For checks and tests. */
+  inspect_lp?: (lp: Lp, solution: number[]) => void;
+}
+
+export interface AllocationEntry extends PermitTerms {
+  id: string;
+  today_cbodu_kg_day: number;
+  min_kg_day: number;
+  max_kg_day: number;
+}
+
+export interface BindingCheckpoint {
+  condition: string;
+  reach: string;
+  km: number;
+  do_mg_l: number;
+  /** Objective gained per 1 mg/L relaxation of this checkpoint (shadow price; objective units per mg/L). */
+  dual: number;
+}
+
+export interface DiagnosisEntry {
+  condition: string;
+  reach: string;
+  km: number;
+  do_mg_l: number;
+  required_do_mg_l: number;
+  deficit_mg_l: number;
+  /** Deficit from headwaters, tributary/lateral inflows, distributed load and temperature changes. */
+  from_background_mg_l: number;
+  from_sod_mg_l: number;
+  from_dischargers_mg_l: number;
+}
+
+export interface TmdlTable {
+  wla_kg_day: number;
+  la_kg_day: number;
+  mos_kg_day: number;
+  rc_kg_day: number;
+  tmdl_kg_day: number;
+  /** MOS held as a DO buffer (implicit in the loads above). */
+  mos_do_mg_l: number;
+}
+
+export interface AllocationResult {
+  feasible: boolean;
+  objective: AllocationObjective;
+  objective_value: number | null;
+  /** What objective_value measures. */
+  objective_units: string;
+  allocations: AllocationEntry[];
+  binding: BindingCheckpoint[];
+  tmdl: TmdlTable | null;
+  /** Present when infeasible: checkpoints failing with every discharger at its floor. */
+  diagnosis?: DiagnosisEntry[];
+  conditions: string[];
+  iterations: number;
+  checkpoints: number;
+}
