@@ -100,6 +100,15 @@ export function wktEpsg(wkt: string): number | undefined {
   return found;
 }
 
+/** EPSG code of an ESRI UTM name such as "WGS_1984_UTM_Zone_16N" or "NAD_1983_UTM_Zone_15N". */
+function esriUtmEpsg(wkt: string): number | undefined {
+  const m = /^\s*PROJCS\s*\[\s*"(WGS_1984|NAD_1983)_UTM_Zone_(\d{1,2})([NS])"/i.exec(wkt);
+  if (!m) return undefined;
+  const zone = Number(m[2]);
+  const code = m[1].toUpperCase() === "WGS_1984" ? (m[3].toUpperCase() === "N" ? 32600 : 32700) + zone : m[3].toUpperCase() === "N" ? 26900 + zone : undefined;
+  return code !== undefined && epsgDefinition(code) ? code : undefined;
+}
+
 const wktName = (wkt: string): string => /^\s*\w+\s*\[\s*"([^"]*)"/.exec(wkt)?.[1] ?? "unnamed CRS";
 
 /**
@@ -109,7 +118,7 @@ const wktName = (wkt: string): string => /^\s*\w+\s*\[\s*"([^"]*)"/.exec(wkt)?.[
  */
 export function crsFromPrj(prjText: string): Reprojector {
   const text = prjText.replace(/^\uFEFF/, "").trim();
-  const epsg = wktEpsg(text);
+  const epsg = wktEpsg(text) ?? esriUtmEpsg(text);
   if (epsg !== undefined && epsgDefinition(epsg)) return crsFromEpsg(epsg, "prj");
   const unknown = () =>
     new GeoError(

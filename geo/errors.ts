@@ -15,8 +15,8 @@ export type GeoErrorCode =
   | "geojson_invalid"
   | "csv_invalid"
   | "csv_missing_column"
-  | "mapping_invalid"
-  | "input_invalid";
+  | "zip_too_large"
+  | "mapping_invalid";
 
 /** A problem with an uploaded file, named so a planner can act on it. */
 export class GeoError extends Error {

@@ -11,7 +11,11 @@ export interface ShapefileOptions {
   epsg?: number;
   /** Base name of the layer to read when the zip holds several shapefiles. */
   layer?: string;
+  /** Most bytes the shapefile parts may unpack to, all together. Default 256 MiB. */
+  maxUncompressedBytes?: number;
 }
+
+const DEFAULT_MAX_UNCOMPRESSED = 256 * 1024 * 1024;
 
 type Bytes = ArrayBuffer | Uint8Array;
 
@@ -48,11 +52,41 @@ interface ShapefileParts {
   cpg?: Uint8Array;
 }
 
-async function unzipParts(bytes: Uint8Array): Promise<{ layers: Map<string, ShapefileParts>; names: string[] }> {
+/**
+ * An inflate helper for but-unzip that stops once the entries read so far unpack to more than
+ * `budget.left` bytes, so a small zip cannot expand into gigabytes.
+ */
+function limitedInflate(budget: { left: number; limit: number }) {
+  return async (packed: Uint8Array): Promise<Uint8Array> => {
+    const stream = new Blob([new Uint8Array(packed)]).stream().pipeThrough(new DecompressionStream("deflate-raw"));
+    const reader = stream.getReader();
+    const chunks: Uint8Array[] = [];
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      budget.left -= value.length;
+      if (budget.left < 0) {
+        await reader.cancel();
+        throw new GeoError("zip_too_large", `The shapefile unpacks to more than ${Math.round(budget.limit / 1048576)} MiB; split it into smaller uploads`);
+      }
+      chunks.push(value);
+    }
+    const out = new Uint8Array(chunks.reduce((n, c) => n + c.length, 0));
+    let at = 0;
+    for (const c of chunks) {
+      out.set(c, at);
+      at += c.length;
+    }
+    return out;
+  };
+}
+
+async function unzipParts(bytes: Uint8Array, maxBytes: number): Promise<{ layers: Map<string, ShapefileParts>; names: string[] }> {
   const layers = new Map<string, ShapefileParts>();
   const names: string[] = [];
+  const inflate = limitedInflate({ left: maxBytes, limit: maxBytes });
   try {
-    for (const entry of iter(bytes)) {
+    for (const entry of iter(bytes, inflate)) {
       const name = entry.filename;
       if (name.endsWith("/") || name.includes("__MACOSX")) continue;
       names.push(name);
@@ -129,7 +163,7 @@ function resolveCrs(base: string, prj: Uint8Array | undefined, epsg: number | un
 
 /**
  * Reads a zipped ESRI shapefile (.shp + .dbf, with .prj; .cpg optional) into WGS84 features.
- * Throws `GeoError`: not_a_zip, zip_corrupt, shp_missing, dbf_missing, multiple_layers,
+ * Throws `GeoError`: not_a_zip, zip_corrupt, zip_too_large, shp_missing, dbf_missing, multiple_layers,
  * prj_missing, prj_unknown, epsg_unknown, shapefile_corrupt.
  */
 export async function readShapefileZip(bytes: Bytes, options: ShapefileOptions = {}): Promise<SourceLayer> {
@@ -138,7 +172,7 @@ export async function readShapefileZip(bytes: Bytes, options: ShapefileOptions =
     throw new GeoError("not_a_zip", "The file is not a zip archive; upload the shapefile's files zipped together");
   }
   checkEndRecord(u8);
-  const { layers, names } = await unzipParts(u8);
+  const { layers, names } = await unzipParts(u8, options.maxUncompressedBytes ?? DEFAULT_MAX_UNCOMPRESSED);
   const [base, parts] = pickLayer(layers, names, options.layer);
   if (!parts.dbf) {
     throw new GeoError("dbf_missing", `The zip has ${base}.shp but no ${base}.dbf; add the attribute table`);

@@ -57,8 +57,16 @@ describe("reprojection to WGS84", () => {
     expect(Math.abs(lat - 40.5)).toBeLessThan(1e-5);
   });
 
-  it("gives the same answer for an ESRI UTM .prj as for its EPSG code", () => {
-    const fromPrj = crsFromPrj(utmNorthPrj(16)).toWgs84(612345.6, 4212345.6);
+  it("recognises ESRI UTM names as EPSG codes", () => {
+    expect(crsFromPrj(utmNorthPrj(16)).crs).toEqual({ source: "prj", epsg: 32616, name: "WGS 84 / UTM zone 16N" });
+    expect(crsFromPrj(utmNorthPrj(15).replace("WGS_1984_UTM", "NAD_1983_UTM")).crs.epsg).toBe(26915);
+  });
+
+  it("parses the WKT parameters of a .prj it cannot name to the same answer as the EPSG code", () => {
+    const custom = utmNorthPrj(16).replace("WGS_1984_UTM_Zone_16N", "Site_Grid_TM");
+    const r = crsFromPrj(custom);
+    expect(r.crs).toEqual({ source: "prj", epsg: undefined, name: "Site_Grid_TM" });
+    const fromPrj = r.toWgs84(612345.6, 4212345.6);
     const fromEpsg = crsFromEpsg(32616).toWgs84(612345.6, 4212345.6);
     expect(fromPrj[0]).toBeCloseTo(fromEpsg[0], 10);
     expect(fromPrj[1]).toBeCloseTo(fromEpsg[1], 10);

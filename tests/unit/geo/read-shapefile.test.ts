@@ -30,7 +30,7 @@ describe("readShapefileZip", () => {
     const layer = await readShapefileZip(utmZip());
     expect(layer.format).toBe("shapefile");
     expect(layer.name).toBe("reaches");
-    expect(layer.crs.name).toBe("WGS_1984_UTM_Zone_15N");
+    expect(layer.crs).toEqual({ source: "prj", epsg: 32615, name: "WGS 84 / UTM zone 15N" });
     expect(layer.features).toHaveLength(2);
     const first = layer.features[0];
     expect(first.properties).toEqual({ REACH_ID: "R1", FLOW: 1.25 });
@@ -116,6 +116,13 @@ describe("readShapefileZip", () => {
 
     it("an EPSG override Sagline does not know", async () => {
       expect(await codeOf(readShapefileZip(utmZip({}), { epsg: 12345 }))).toBe("epsg_unknown");
+    });
+
+    it("a zip that unpacks to more than the limit", async () => {
+      const big = writeZip([{ name: "big.shp", data: new Uint8Array(2 * 1024 * 1024) }, { name: "big.dbf", data: new Uint8Array(10) }]);
+      expect(big.length).toBeLessThan(20_000);
+      expect(await codeOf(readShapefileZip(big, { maxUncompressedBytes: 1024 * 1024 }))).toBe("zip_too_large");
+      expect(await codeOf(readShapefileZip(big, { maxUncompressedBytes: 4 * 1024 * 1024 }))).toBe("shapefile_corrupt");
     });
 
     it("a .shp with a bad header", async () => {
