@@ -34,12 +34,12 @@ export interface DemoBasin {
 
 export const DEMO_BASINS: DemoBasin[] = [
   {
-    slug: "vell-river",
-    name: "Vell River basin",
+    slug: "tamsel-river",
+    name: "Tamsel River basin",
     description:
-      "Invented demonstration basin: the Vell River and its tributaries Corran Brook and Ashby Water, " +
-      "flowing past the towns of Hollin Cross, Dunmere and Saltreach. Summer low flow with warm water " +
-      "sets the critical condition.",
+      "Invented demonstration basin: the Tamsel River and its tributaries, flowing past Quillford, " +
+      "Marrowby, East Penhallow, Dunmere and Harrowgate. Summer low flow with warm water sets the " +
+      "critical condition.",
     doCriterionMgL: 5,
     unitSystem: "SI",
     members: [
@@ -48,16 +48,18 @@ export const DEMO_BASINS: DemoBasin[] = [
       { key: "discharger", role: "discharger" },
       { key: "stakeholder", role: "stakeholder" },
     ],
+    // Permit ids match the demo discharger file (tests/fixtures/demo/tamsel-dischargers.csv).
     facilities: [
-      { name: "Hollin Cross Water Recovery Works", permitId: "VR-0101", dischargerKeys: ["discharger"] },
-      { name: "Dunmere Municipal Treatment Plant", permitId: "VR-0102", dischargerKeys: [] },
-      { name: "Saltreach Creamery", permitId: "VR-0203", dischargerKeys: [] },
-      { name: "Corran Brook Paperboard Mill", permitId: "VR-0304", dischargerKeys: [] },
+      { name: "Quillford Water Reclamation Plant", permitId: "DP-1001", dischargerKeys: ["discharger"] },
+      { name: "Marrowby Creamery", permitId: "DP-1002", dischargerKeys: [] },
+      { name: "East Penhallow Sanitary District", permitId: "DP-1003", dischargerKeys: [] },
+      { name: "Dunmere Board Mill", permitId: "DP-1004", dischargerKeys: [] },
+      { name: "Harrowgate Village Wastewater Works", permitId: "DP-1005", dischargerKeys: [] },
     ],
   },
   {
-    slug: "tamsey-creek",
-    name: "Tamsey Creek basin",
+    slug: "orrin-brook",
+    name: "Orrin Brook basin",
     description: "Invented second basin, in US customary units. The demo discharger is not a member here.",
     doCriterionMgL: 4,
     unitSystem: "US",
@@ -65,6 +67,6 @@ export const DEMO_BASINS: DemoBasin[] = [
       { key: "lead", role: "lead" },
       { key: "planner", role: "planner" },
     ],
-    facilities: [{ name: "Tamsey Village Lagoons", permitId: "TC-0001", dischargerKeys: [] }],
+    facilities: [{ name: "Orrin Village Lagoons", permitId: "OB-0001", dischargerKeys: [] }],
   },
 ];

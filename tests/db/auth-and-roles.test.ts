@@ -23,8 +23,8 @@ describe("demo data", () => {
   it("is re-runnable without duplicates", async () => {
     const again = await seedDemo(db, hashPassword);
     expect(again.created).toBe(0);
-    const vell = await db.selectFrom("basins").select("id").where("slug", "=", "vell-river").execute();
-    expect(vell).toHaveLength(1);
+    const tamsel = await db.selectFrom("basins").select("id").where("slug", "=", "tamsel-river").execute();
+    expect(tamsel).toHaveLength(1);
   });
 });
 
@@ -58,19 +58,19 @@ describe("roles come from the database at each request", () => {
     const slugs = (list.json as { slug: string }[]).map((b) => b.slug);
     const memberOf = DEMO_BASINS.filter((b) => b.members.some((m) => m.key === "discharger")).map((b) => b.slug);
     expect(slugs.sort()).toEqual(memberOf.sort());
-    const tamsey = await findBasinBySlug(db, "tamsey-creek");
-    const res = await callRoute(basinRoute.GET, "GET", { userId: discharger, params: { basinId: tamsey!.id } });
+    const orrin = await findBasinBySlug(db, "orrin-brook");
+    const res = await callRoute(basinRoute.GET, "GET", { userId: discharger, params: { basinId: orrin!.id } });
     expect(res.status).toBe(403);
     expect(res.json).toMatchObject({ error: { code: "forbidden" } });
   });
 
   it("removing a member takes effect on the very next request, with the same session", async () => {
     const stakeholder = await userId("stakeholder");
-    const vell = await findBasinBySlug(db, "vell-river");
-    const before = await callRoute(basinRoute.GET, "GET", { userId: stakeholder, params: { basinId: vell!.id } });
+    const tamsel = await findBasinBySlug(db, "tamsel-river");
+    const before = await callRoute(basinRoute.GET, "GET", { userId: stakeholder, params: { basinId: tamsel!.id } });
     expect(before.status).toBe(200);
-    await deleteMembership(db, vell!.id, stakeholder);
-    const after = await callRoute(basinRoute.GET, "GET", { userId: stakeholder, params: { basinId: vell!.id } });
+    await deleteMembership(db, tamsel!.id, stakeholder);
+    const after = await callRoute(basinRoute.GET, "GET", { userId: stakeholder, params: { basinId: tamsel!.id } });
     expect(after.status).toBe(403);
     await seedDemo(db, hashPassword); // put the demo membership back
   });

@@ -71,7 +71,7 @@ describe("each demo role sees what its role allows", () => {
   it("lead: overview, members, settings; edits the DO criterion", async () => {
     const page = await pageAs("lead");
     await page.screenshot({ path: `${SHOTS}/basins-lead.png` });
-    await openBasin(page, "Vell River basin");
+    await openBasin(page, "Tamsel River basin");
     expect(await tabNames(page)).toEqual(["Overview", "Members & facilities", "Settings"]);
     await page.screenshot({ path: `${SHOTS}/basin-overview-lead.png`, fullPage: true });
 
@@ -97,7 +97,7 @@ describe("each demo role sees what its role allows", () => {
 
   it("planner: sees members read-only and no settings", async () => {
     const page = await pageAs("planner");
-    await openBasin(page, "Vell River basin");
+    await openBasin(page, "Tamsel River basin");
     expect(await tabNames(page)).toEqual(["Overview", "Members & facilities"]);
     await page.getByRole("link", { name: "Members & facilities" }).click();
     await page.getByTestId("members-table").waitFor();
@@ -111,26 +111,26 @@ describe("each demo role sees what its role allows", () => {
   it("discharger: sees only its own facility and not the other basin", async () => {
     const page = await pageAs("discharger");
     const names = await page.getByTestId("basin-list").getByRole("link").allTextContents();
-    expect(names).toEqual(["Vell River basin"]);
-    await openBasin(page, "Vell River basin");
+    expect(names).toEqual(["Tamsel River basin"]);
+    await openBasin(page, "Tamsel River basin");
     expect(await tabNames(page)).toEqual(["Overview"]);
     await page.getByRole("heading", { name: "Your facilities" }).waitFor();
     const rows = await page.locator("table.data-table tbody tr").allTextContents();
     expect(rows).toHaveLength(1);
-    expect(rows[0]).toContain("Hollin Cross Water Recovery Works");
+    expect(rows[0]).toContain("Quillford Water Reclamation Plant");
     await page.screenshot({ path: `${SHOTS}/basin-overview-discharger.png`, fullPage: true });
     const basinUrl = page.url();
     await page.goto(`${basinUrl}/members`);
     await page.getByRole("heading", { name: "Not available to you" }).waitFor();
     const res = await page.request.get(`${baseUrl}/api/basins`);
     const ids = ((await res.json()) as { id: string; slug: string }[]).map((b) => b.slug);
-    expect(ids).toEqual(["vell-river"]);
+    expect(ids).toEqual(["tamsel-river"]);
     await page.close();
   });
 
   it("stakeholder: overview only, no facilities", async () => {
     const page = await pageAs("stakeholder");
-    await openBasin(page, "Vell River basin");
+    await openBasin(page, "Tamsel River basin");
     expect(await tabNames(page)).toEqual(["Overview"]);
     expect(await page.getByRole("heading", { name: /facilities/i }).count()).toBe(0);
     await page.close();
@@ -139,7 +139,7 @@ describe("each demo role sees what its role allows", () => {
   it("admin: manages users and sees every basin", async () => {
     const page = await pageAs("admin");
     const names = await page.getByTestId("basin-list").getByRole("link").allTextContents();
-    expect(names.sort()).toEqual(["Tamsey Creek basin", "Vell River basin"]);
+    expect(names.sort()).toEqual(["Orrin Brook basin", "Tamsel River basin"]);
     await page.getByRole("link", { name: "Users" }).click();
     await page.getByTestId("users-table").waitFor();
     await page.getByLabel("Name").fill("Orla Vance");
@@ -154,7 +154,7 @@ describe("each demo role sees what its role allows", () => {
 
   it("lead adds the new account as a stakeholder, then removes it", async () => {
     const page = await pageAs("lead");
-    await openBasin(page, "Vell River basin");
+    await openBasin(page, "Tamsel River basin");
     await page.getByRole("link", { name: "Members & facilities" }).click();
     await page.getByTestId("members-table").waitFor();
     const form = page.getByRole("form", { name: "Add a member" });
