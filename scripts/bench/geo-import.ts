@@ -3,7 +3,8 @@
  * UTM (a collector with a tributary chain at each node and a short side branch at each tributary
  * node; every 7th line drawn upstream) plus CSV dischargers, through read → reproject → mapping →
  * topology → orientation → snapping. Prints figures; never fails on speed.
- * Usage: `npx tsx scripts/bench/geo-import.ts [reaches=5000,10000] [dischargers=1000]`.
+ * Usage: `npx tsx scripts/bench/geo-import.ts [reaches=5000,10000] [dischargers=1000]`;
+ * `node --expose-gc --import tsx scripts/bench/geo-import.ts` also measures the retained heap.
  */
 import { performance } from "node:perf_hooks";
 import { crsFromEpsg } from "../../geo/crs";
@@ -90,11 +91,14 @@ export async function geoImportBench(target: number, dischargerCount: number): P
     { maxReachLengthKm: 10 },
   );
   const t2 = performance.now();
+  const peakRss = process.memoryUsage().rss;
+  global.gc?.();
   const heap1 = process.memoryUsage().heapUsed;
+  const heapNote = global.gc ? `retained heap (report) ${mb(heap1 - heap0)}` : "run with --expose-gc for the retained heap";
   console.log(
     `geo import, ${net.length} reaches (${(zip.length / 1024).toFixed(0)} KiB zip) + ${dischargerCount} dischargers: ` +
       `read+reproject ${(t1 - t0).toFixed(0)} ms, validate (mapping+topology+snapping) ${(t2 - t1).toFixed(0)} ms, ` +
-      `total ${(t2 - t0).toFixed(0)} ms; heap +${mb(heap1 - heap0)}, rss ${mb(process.memoryUsage().rss)}; ` +
+      `total ${(t2 - t0).toFixed(0)} ms; rss ${mb(peakRss)}, ${heapNote}; ` +
       `${report.errors.length} errors, ${report.warnings.length} warnings, ${report.network.parts.length} part(s)`,
   );
 }
