@@ -91,6 +91,9 @@ export interface ReaerationResult {
   floored: boolean;
 }
 
+/** The three formulas that need only U and H, by name. */
+const BY_DEPTH_VELOCITY = { "oconnor-dobbins": oconnorDobbins, churchill, "owens-gibbs": owensGibbs } as const;
+
 /**
  * k_a at 20 °C (1/d) for one segment by the requested method, with the optional floor
  * k_a ≥ 0.6/H (Chin, "Water-Quality Engineering in Natural Systems", 2006).
@@ -107,28 +110,18 @@ export function reaeration(o: ReaerationInput): ReaerationResult {
       formula = "given";
       ka = requirePositive(o.ka20_per_day, ["ka20_per_day"]);
       break;
-    case "oconnor-dobbins":
-      formula = o.method;
-      ka = oconnorDobbins(o.velocity_m_s, o.depth_m);
-      break;
-    case "churchill":
-      formula = o.method;
-      ka = churchill(o.velocity_m_s, o.depth_m);
-      break;
-    case "owens-gibbs":
-      formula = o.method;
-      ka = owensGibbs(o.velocity_m_s, o.depth_m);
-      break;
     case "tsivoglou-neal":
       if (o.slope_m_m === undefined) throw new ModelInputError(["slope_m_m"], 'is required when ka_method is "tsivoglou-neal"');
       formula = o.method;
       ka = tsivoglouNeal(o.velocity_m_s, o.slope_m_m, o.flow_m3_s ?? NaN);
       break;
+    case "oconnor-dobbins":
+    case "churchill":
+    case "owens-gibbs":
     case "depth-velocity": {
-      formula = selectByDepthVelocity(o.velocity_m_s, o.depth_m);
-      ka = formula === "owens-gibbs" ? owensGibbs(o.velocity_m_s, o.depth_m)
-        : formula === "oconnor-dobbins" ? oconnorDobbins(o.velocity_m_s, o.depth_m)
-        : churchill(o.velocity_m_s, o.depth_m);
+      const chosen = o.method === "depth-velocity" ? selectByDepthVelocity(o.velocity_m_s, o.depth_m) : o.method;
+      formula = chosen;
+      ka = BY_DEPTH_VELOCITY[chosen](o.velocity_m_s, o.depth_m);
       break;
     }
     default:

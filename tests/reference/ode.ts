@@ -4,19 +4,14 @@
  *   dL/dt = −k_r·L + L_rd,  dN/dt = −k_n·N,  dD/dt = k_d·L + k_n·N − k_a·D + S.
  */
 import { createRequire } from "node:module";
+import type { SegmentRates } from "@/lib/model";
 
 // Loaded by file rather than by the bare name: tsconfig maps "odex" to a declaration file
 // for type checking, and tsx (the benchmarks) would follow that mapping at run time.
 const { Solver } = createRequire(import.meta.url)("odex/src/odex.js") as typeof import("odex");
 
-export interface OdeRates {
-  kd: number;
-  kr: number;
-  ka: number;
-  kn: number;
-  sod: number;
-  lrd: number;
-}
+/** The same rates the closed form takes (a type only: no code is shared). */
+export type OdeRates = SegmentRates;
 
 export function integrateSegment(r: OdeRates, y0: [number, number, number], t: number, tol = 1e-13): [number, number, number] {
   if (t === 0) return [...y0];
