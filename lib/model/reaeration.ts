@@ -9,7 +9,7 @@ export type KaFormula = Exclude<KaMethod, "depth-velocity">;
  * O'Connor & Dobbins (1958): k_a = 3.93·U^0.5/H^1.5 (1/d at 20 °C; U m/s, H m).
  * The SI form of 12.9·U^0.5/H^1.5 in ft/s and ft. Intended for deeper, slower rivers
  * (roughly H 0.3–9 m, U 0.15–0.5 m/s). Throws on non-positive U or H.
- * Example: `oconnorDobbins(0.3, 1.2)` → 1.6365…
+ * Example: `oconnorDobbins(0.3, 1.2)` → 1.6375
  */
 export function oconnorDobbins(u_m_s: number, h_m: number): number {
   requirePositive(u_m_s, ["velocity_m_s"]);
@@ -20,7 +20,7 @@ export function oconnorDobbins(u_m_s: number, h_m: number): number {
 /**
  * Churchill, Elmore & Buckingham (1962): k_a = 5.026·U^0.969/H^1.673 (1/d at 20 °C; m/s, m).
  * SI form of 11.6·U^0.969/H^1.673 (ft/s, ft); fitted for H 0.6–3.4 m, U 0.55–1.5 m/s.
- * Throws on non-positive U or H. Example: `churchill(0.8, 1.5)` → 2.0917…
+ * Throws on non-positive U or H. Example: `churchill(0.8, 1.5)` → 2.0545…
  */
 export function churchill(u_m_s: number, h_m: number): number {
   requirePositive(u_m_s, ["velocity_m_s"]);
@@ -31,7 +31,7 @@ export function churchill(u_m_s: number, h_m: number): number {
 /**
  * Owens, Edwards & Gibbs (1964): k_a = 5.32·U^0.67/H^1.85 (1/d at 20 °C; m/s, m).
  * SI form of 21.6·U^0.67/H^1.85 (ft/s, ft); for shallow streams, H 0.1–0.6 m.
- * Throws on non-positive U or H. Example: `owensGibbs(0.3, 0.4)` → 14.28…
+ * Throws on non-positive U or H. Example: `owensGibbs(0.3, 0.4)` → 12.935…
  */
 export function owensGibbs(u_m_s: number, h_m: number): number {
   requirePositive(u_m_s, ["velocity_m_s"]);
@@ -99,7 +99,7 @@ const BY_DEPTH_VELOCITY = { "oconnor-dobbins": oconnorDobbins, churchill, "owens
  * k_a ≥ 0.6/H (Chin, "Water-Quality Engineering in Natural Systems", 2006).
  * Throws a ModelInputError naming the missing field (ka20_per_day, slope_m_m) or bad value.
  * Example: `reaeration({ method: "depth-velocity", velocity_m_s: 0.3, depth_m: 1.2 })`
- * → { ka20_per_day: 1.6365…, formula: "oconnor-dobbins", floored: false }.
+ * → { ka20_per_day: 1.6375, formula: "oconnor-dobbins", floored: false }.
  */
 export function reaeration(o: ReaerationInput): ReaerationResult {
   let formula: KaFormula;

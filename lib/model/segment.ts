@@ -30,7 +30,7 @@ export interface SegmentState {
  * with δ = k_a − k, g = −e^(−k t)·expm1(−δ t)/δ (δ > 0) or e^(−k_a t)·expm1(δ t)/δ (δ < 0),
  * and the series t·e^(−k t)·(1 − δt/2 + (δt)²/6) for |δ t| < 1e-5 (limit t·e^(−k_a t) at δ = 0).
  * Relative accuracy ~1e-15 for all δ, subnormal δ included.
- * Example: `sagKernel(0.2, 0.8, 1)` → 0.5071… ; `sagKernel(0.5, 0.5, 2)` → 0.7357…
+ * Example: `sagKernel(0.2, 0.8, 1)` → 0.6157… ; `sagKernel(0.5, 0.5, 2)` → 0.7358…
  */
 export function sagKernel(k: number, ka: number, t: number): number {
   const delta = ka - k;
@@ -53,7 +53,7 @@ export function growthKernel(k: number, t: number): number {
  *   L(t) = L0·e^(−k_r t) + L_rd·h(k_r)
  *   D(t) = D0·e^(−k_a t) + k_d·L0·g(k_r) + k_n·N0·g(k_n) + k_d·L_rd/k_r·[h(k_a) − g(k_r)] + S·h(k_a)
  * Valid for any non-negative rates with k_a > 0 (k_r > 0 whenever L_rd > 0).
- * Example: rates {kd .2, kr .26, ka .8, kn 0, sod 1, lrd 0}, head {50, 0, 0}, t = 1 → D = 9.10…
+ * Example: rates {kd .2, kr .26, ka .8, kn 0, sod 1, lrd 0}, head {50, 0, 0}, t = 1 → L 38.553, D 6.646…
  */
 export function segmentState(r: SegmentRates, head: SegmentState, t_day: number): SegmentState {
   return {
