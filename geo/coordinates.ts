@@ -31,3 +31,8 @@ export function coordinateProblem(g: Geometry): "invalid" | "out_of_range" | und
   }
   return outOfRange ? "out_of_range" : undefined;
 }
+
+/** `{ geometry }` for a problem's map highlight, or `{}` when the geometry cannot be drawn. */
+export function highlight(g: Geometry | null | undefined): { geometry?: Geometry } {
+  return g && coordinateProblem(g) === undefined ? { geometry: g } : {};
+}

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { highlight } from "./coordinates";
 import { GeoError } from "./errors";
 import { valueNumber, valueText } from "./fields";
 import { error, warning, type Problem } from "./problems";
@@ -172,11 +173,11 @@ function readNumbers<M extends object, A>(
     const v = valueNumber(raw);
     if (v === undefined) continue;
     if (Number.isNaN(v)) {
-      problems.push(error("invalid_number", `${who}: ${rule.label} "${valueText(raw)}" in field ${binding.source} is not a number`, [who], { field: binding.source }));
+      problems.push(error("invalid_number", `${who}: ${rule.label} "${valueText(raw)}" in field ${binding.source} is not a number`, [who], { field: binding.source, ...highlight(f.geometry) }));
       continue;
     }
     if (v < 0 && !rule.signed) {
-      problems.push(error("negative_value", `${who}: ${rule.label} ${v} in field ${binding.source} is negative`, [who], { field: binding.source }));
+      problems.push(error("negative_value", `${who}: ${rule.label} ${v} in field ${binding.source} is negative`, [who], { field: binding.source, ...highlight(f.geometry) }));
       continue;
     }
     (out as Record<keyof A, number>)[rule.target] = rule.convert(v, binding);
@@ -197,11 +198,11 @@ export function mapReaches(layer: SourceLayer, mapping: ReachMapping): { reaches
   const reaches = layer.features.map((feature) => {
     const id = text(feature, m.reachId) ?? "";
     const who = id ? `reach ${id}` : feature.label;
-    if (!id) problems.push(error("missing_value", `${feature.label} has no reach id (field ${m.reachId})`, [feature.label], { field: m.reachId }));
+    if (!id) problems.push(error("missing_value", `${feature.label} has no reach id (field ${m.reachId})`, [feature.label], { field: m.reachId, ...highlight(feature.geometry) }));
     const attributes: ReachAttributes = { id, name: text(feature, m.name), downstreamId: text(feature, m.downstreamId) };
     readNumbers(feature, who, m, REACH_NUMBERS, attributes, problems);
     if (attributes.lengthKm === 0) {
-      problems.push(error("zero_length", `${who}: length field ${m.length?.source} is zero`, [id || feature.label], { field: m.length?.source }));
+      problems.push(error("zero_length", `${who}: length field ${m.length?.source} is zero`, [id || feature.label], { field: m.length?.source, ...highlight(feature.geometry) }));
       delete attributes.lengthKm;
     }
     return { feature, attributes };
@@ -227,8 +228,9 @@ export function mapDischargers(
     const name = text(feature, m.name) ?? "";
     const who = permitId ? `discharger ${permitId}` : feature.label;
     const key = permitId || feature.label;
-    if (!permitId) problems.push(error("missing_value", `${feature.label} has no permit id (field ${m.permitId})`, [key], { field: m.permitId }));
-    if (!name) problems.push(error("missing_value", `${who} has no name (field ${m.name})`, [key], { field: m.name }));
+    const at = highlight(feature.geometry);
+    if (!permitId) problems.push(error("missing_value", `${feature.label} has no permit id (field ${m.permitId})`, [key], { field: m.permitId, ...at }));
+    if (!name) problems.push(error("missing_value", `${who} has no name (field ${m.name})`, [key], { field: m.name, ...at }));
     const attributes: DischargerAttributes = { name, permitId, contactEmail: text(feature, m.contactEmail) };
     readNumbers(feature, who, m, DISCHARGER_NUMBERS, attributes, problems);
     if (m.effluentBod) {
@@ -238,10 +240,10 @@ export function mapDischargers(
       Object.assign(attributes, bod);
     }
     if (attributes.contactEmail && !EMAIL.test(attributes.contactEmail)) {
-      problems.push(warning("invalid_email", `${who}: contact e-mail "${attributes.contactEmail}" does not look like an address`, [key], { field: m.contactEmail }));
+      problems.push(warning("invalid_email", `${who}: contact e-mail "${attributes.contactEmail}" does not look like an address`, [key], { field: m.contactEmail, ...at }));
     }
     if (attributes.designFlowM3s === undefined || (attributes.effluentBod5MgL ?? attributes.effluentCbodUMgL) === undefined) {
-      problems.push(warning("missing_value", `${who} has no design flow or effluent BOD yet; enter them before a model run`, [key]));
+      problems.push(warning("missing_value", `${who} has no design flow or effluent BOD yet; enter them before a model run`, [key], at));
     }
     return { feature, attributes };
   });

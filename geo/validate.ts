@@ -1,5 +1,5 @@
 import type { Geometry } from "geojson";
-import { coordinateProblem } from "./coordinates";
+import { coordinateProblem, highlight } from "./coordinates";
 import {
   mapDischargers,
   mapReaches,
@@ -219,7 +219,9 @@ function placeDischargers(input: ImportInput, network: ImportNetwork, o: Validat
     const p = pointOf(m.feature.geometry);
     const bad = m.feature.geometry ? coordinateProblem(m.feature.geometry) : undefined;
     if (p === "missing") problems.push(error("missing_geometry", `${who} has no location`, [id]));
-    else if (p === "wrong_type") problems.push(error("wrong_geometry_type", `${who} is a ${m.feature.geometry?.type}; dischargers must be points`, [id]));
+    else if (p === "wrong_type") {
+      problems.push(error("wrong_geometry_type", `${who} is a ${m.feature.geometry?.type}; dischargers must be points`, [id], highlight(m.feature.geometry)));
+    }
     else if (bad === "invalid") problems.push(error("coordinates_invalid", `${who} has a coordinate that is missing or not a number`, [id]));
     else if (bad === "out_of_range") {
       problems.push(error("coordinates_out_of_range", `${who} has coordinates outside longitude ±180° / latitude ±90° (latitude and longitude swapped, or the wrong coordinate system?)`, [id]));

@@ -40,7 +40,9 @@ describe("dischargers in the validation report", () => {
 
   it("refuses lines as dischargers and an empty discharger layer", () => {
     const asLines = readGeoJson(JSON.stringify({ type: "FeatureCollection", features: [{ type: "Feature", properties: { name: "X", permit: "P-1" }, geometry: { type: "LineString", coordinates: [[0, 0], [0, 1]] } }] }));
-    expect(codes(run(asLines).errors)).toEqual(["wrong_geometry_type"]);
+    const wrong = run(asLines).errors;
+    expect(codes(wrong)).toEqual(["wrong_geometry_type"]);
+    expect(wrong[0].geometry).toEqual({ type: "LineString", coordinates: [[0, 0], [0, 1]] });
     expect(codes(run(csvLayer("")).errors)).toEqual(["empty_layer"]);
   });
 });
