@@ -21,6 +21,18 @@ describe("dischargers in the validation report", () => {
     expect(d.snapDistanceM).toBeCloseTo(6371008.8 * Math.asin(Math.sin(0.0001 * rad) * Math.cos(0.01 * rad)), 6);
   });
 
+  it("measures chainage along a reach that was turned round, from its new head", () => {
+    // C2 is drawn from (0,-0.02) up to (0,-0.01); after orientation its head is (0,-0.01).
+    const r = validateImport({
+      reaches: network("reversed-line"),
+      reachMapping,
+      dischargers: csvLayer("Mill,P-1,-0.0125,0.00001\n"),
+      dischargerMapping,
+    });
+    expect(r.network.dischargers[0].reachId).toBe("C2");
+    expect(r.network.dischargers[0].chainageKm).toBeCloseTo(0.0025 * KM_PER_DEGREE, 6);
+  });
+
   it("reports rows with bad coordinates by permit id", () => {
     const r = run(csvLayer("Mill,P-1,abc,0\nPlant,P-2,0,200\nWorks,P-3,0.001,0\n"));
     expect(codes(r.errors)).toEqual(["coordinates_invalid", "coordinates_out_of_range"]);
