@@ -15,7 +15,7 @@ const quick = process.argv.includes("--quick");
 
 async function main() {
   console.log(`Sagline computation-core benchmarks — node ${process.version}, ${new Date().toISOString()}`);
-  console.log("Wall-clock medians; a shared machine under load inflates them. Figures, not pass/fail.\n");
+  console.log("Wall-clock ms, median and minimum of several runs. On a shared, loaded machine the minimum is the better estimate of CPU cost. Figures, not pass/fail.\n");
   for (const reaches of [1000, 10_000]) runModelBench(reaches);
   odeBench(1000);
   if (!quick) odeBench(10_000);
