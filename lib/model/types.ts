@@ -26,7 +26,7 @@ export interface ReachInput {
   ka20_per_day?: number;
   /** Default: "given" when ka20_per_day is present, else "depth-velocity". */
   ka_method?: KaMethod;
-  /** Apply k_a ≥ 0.6/H. Default false. */
+  /** Apply the floor k_a ≥ 0.6/H (Chin 2006) to the 20 °C value, before temperature correction. Default false. */
   ka_floor?: boolean;
   slope_m_m?: number;
   /** Settling rate, default 0. */

@@ -171,9 +171,12 @@ export const modelFileSchema = z
         ctx.addIssue({ code: "custom", path: [], message: e.message });
       } else throw e;
     }
-    const ids = new Set(file.dischargers.map((d) => d.id));
     for (const key of Object.keys(file.allocation?.bounds ?? {})) {
-      if (!ids.has(key)) ctx.addIssue({ code: "custom", path: ["allocation", "bounds", key], message: `no discharger has id "${key}"` });
+      const d = file.dischargers.find((x) => x.id === key);
+      if (!d) ctx.addIssue({ code: "custom", path: ["allocation", "bounds", key], message: `no discharger has id "${key}"` });
+      else if (d.future) {
+        ctx.addIssue({ code: "custom", path: ["allocation", "bounds", key], message: `"${key}" is a future discharger (reserve capacity): its load is fixed, not allocated` });
+      }
     }
   });
 

@@ -68,6 +68,10 @@ describe("model-file schema (MODEL.md §8)", () => {
     const bounds = example();
     bounds.allocation = { objective: "max-total", bounds: { "VR-9999": { max_kg_day: 3 } } };
     expect(issuesOf(bounds)[0].path).toBe("allocation.bounds.VR-9999");
+    const future = example();
+    future.dischargers[3].future = true;
+    future.allocation = { objective: "max-total", bounds: { "VR-0203": { max_kg_day: 3 } } };
+    expect(issuesOf(future)[0]).toMatchObject({ path: "allocation.bounds.VR-0203", message: expect.stringMatching(/future/) });
   });
 });
 
