@@ -62,6 +62,93 @@ export interface AuditEventsTable {
   created_at: CreatedAt;
 }
 
+export type ImportLayer = "reaches" | "dischargers";
+export type ImportFormat = "shapefile" | "geojson" | "csv";
+type Json<T> = ColumnType<T, string, string>;
+
+export interface ImportsTable {
+  id: Generated<string>;
+  basin_id: string;
+  layer: ImportLayer;
+  format: ImportFormat;
+  file_name: string;
+  size_bytes: number;
+  sha256: string;
+  content: Buffer;
+  crs: Json<Record<string, unknown>>;
+  read_options: Json<Record<string, unknown>>;
+  feature_count: number;
+  fields: Json<unknown[]>;
+  status: ColumnType<"uploaded" | "committed", "uploaded" | "committed" | undefined, "uploaded" | "committed">;
+  uploaded_by: string | null;
+  uploaded_at: CreatedAt;
+}
+
+export interface FieldMappingsTable {
+  id: Generated<string>;
+  basin_id: string;
+  layer: ImportLayer;
+  name: string;
+  mapping: Json<Record<string, unknown>>;
+  created_by: string | null;
+  created_at: CreatedAt;
+}
+
+export interface NetworksTable {
+  id: Generated<string>;
+  basin_id: string;
+  version: number;
+  reach_import_id: string;
+  discharger_import_id: string | null;
+  reach_mapping: Json<Record<string, unknown>>;
+  discharger_mapping: Json<Record<string, unknown> | null>;
+  options: Json<Record<string, unknown>>;
+  report: Json<{ errors: unknown[]; warnings: unknown[] }>;
+  total_length_km: number;
+  note: Generated<string>;
+  created_by: string | null;
+  created_at: CreatedAt;
+}
+
+export interface NetworkNodesTable {
+  network_id: string;
+  node_key: string;
+  kind: string;
+  lon: number;
+  lat: number;
+}
+
+export interface ReachesTable {
+  network_id: string;
+  reach_key: string;
+  name: string | null;
+  downstream_key: string | null;
+  upstream_node: string;
+  downstream_node: string;
+  part: number;
+  flipped: boolean;
+  geometry_length_km: number;
+  length_km: number;
+  coordinates: Json<[number, number][]>;
+  attributes: Json<Record<string, unknown>>;
+  source_index: number;
+}
+
+export interface OutfallsTable {
+  network_id: string;
+  facility_id: string;
+  reach_key: string;
+  chainage_km: number;
+  snap_distance_m: number;
+  assignment: string;
+  lon: number;
+  lat: number;
+  snapped_lon: number;
+  snapped_lat: number;
+  attributes: Json<Record<string, unknown>>;
+  source_index: number;
+}
+
 export interface Database {
   users: UsersTable;
   basins: BasinsTable;
@@ -69,6 +156,12 @@ export interface Database {
   facilities: FacilitiesTable;
   facility_users: FacilityUsersTable;
   audit_events: AuditEventsTable;
+  imports: ImportsTable;
+  field_mappings: FieldMappingsTable;
+  networks: NetworksTable;
+  network_nodes: NetworkNodesTable;
+  reaches: ReachesTable;
+  outfalls: OutfallsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

@@ -5,6 +5,7 @@ export const ERROR_STATUS = {
   forbidden: 403,
   not_found: 404,
   conflict: 409,
+  too_large: 413,
   invalid: 422,
   internal: 500,
 } as const;

@@ -1,5 +1,6 @@
 import type { Migration, MigrationProvider } from "kysely";
 import * as m2026120100 from "./2026120100_foundation";
+import * as m2026120101 from "./2026120101_networks";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -8,6 +9,7 @@ import * as m2026120100 from "./2026120100_foundation";
  */
 export const migrations: Record<string, Migration> = {
   "2026120100_foundation": m2026120100,
+  "2026120101_networks": m2026120101,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -58,8 +58,8 @@ export const DEMO_BASINS: DemoBasin[] = [
     ],
   },
   {
-    slug: "orrin-brook",
-    name: "Orrin Brook basin",
+    slug: "kestle-water",
+    name: "Kestle Water basin",
     description: "Invented second basin, in US customary units. The demo discharger is not a member here.",
     doCriterionMgL: 4,
     unitSystem: "US",
@@ -67,6 +67,6 @@ export const DEMO_BASINS: DemoBasin[] = [
       { key: "lead", role: "lead" },
       { key: "planner", role: "planner" },
     ],
-    facilities: [{ name: "Orrin Village Lagoons", permitId: "OB-0001", dischargerKeys: [] }],
+    facilities: [{ name: "Kestle Village Lagoons", permitId: "KW-0001", dischargerKeys: [] }],
   },
 ];

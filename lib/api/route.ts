@@ -18,6 +18,11 @@ interface Spec<P extends z.ZodType, B extends z.ZodType> {
   access: Access;
   params?: P;
   body?: B;
+  /**
+   * multipart/form-data instead of JSON: the text fields are validated by
+   * `body`, and the one file field named here arrives as `ctx.file`.
+   */
+  fileField?: string;
   /** HTTP status of a successful response (default 200). */
   status?: number;
 }
@@ -30,6 +35,8 @@ export interface RouteContext<P, B> {
   body: B;
   /** Set when access is { basin: … }: the basin and the actor's role in it. */
   access: BasinAccess | null;
+  /** The uploaded file, when the spec names a fileField. */
+  file: { name: string; bytes: Buffer } | null;
 }
 
 type Handler<P, B> = (ctx: RouteContext<P, B>) => Promise<unknown>;
@@ -41,6 +48,18 @@ async function readJson(req: NextRequest): Promise<unknown> {
     return JSON.parse(text);
   } catch {
     throw new AppError("bad_request", "The request body is not valid JSON");
+  }
+}
+
+async function readForm(req: NextRequest): Promise<FormData> {
+  const type = req.headers.get("content-type") ?? "";
+  if (!type.startsWith("multipart/form-data")) {
+    throw new AppError("bad_request", "Send the upload as multipart/form-data");
+  }
+  try {
+    return await req.formData();
+  } catch {
+    throw new AppError("bad_request", "The multipart upload could not be read");
   }
 }
 
@@ -78,13 +97,31 @@ export function route<P extends z.ZodType = z.ZodType<Record<string, string>>, B
       }
 
       let body = undefined as z.infer<B>;
-      if (spec.body) {
+      let file: RouteContext<unknown, unknown>["file"] = null;
+      if (spec.fileField) {
+        const form = await readForm(req);
+        const entry = form.get(spec.fileField);
+        if (!(entry instanceof File)) {
+          throw new AppError("invalid", `Attach the file as the "${spec.fileField}" field`, [
+            { path: spec.fileField, message: "Required" },
+          ]);
+        }
+        file = { name: entry.name || "upload", bytes: Buffer.from(await entry.arrayBuffer()) };
+        const fields: Record<string, string> = {};
+        for (const [k, v] of form.entries()) if (typeof v === "string" && v !== "") fields[k] = v;
+        if (spec.body) {
+          const parsed = spec.body.safeParse(fields);
+          if (!parsed.success) throw invalid(parsed.error, "form fields");
+          body = parsed.data;
+        }
+      } else if (spec.body) {
         const parsed = spec.body.safeParse(await readJson(req));
         if (!parsed.success) throw invalid(parsed.error, "request body");
         body = parsed.data;
       }
 
-      const result = await handler({ db, req, actor, params, body, access });
+      const result = await handler({ db, req, actor, params, body, access, file });
+      if (result instanceof Response) return result;
       const status = spec.status ?? 200;
       if (status === 204 || result === undefined) return new NextResponse(null, { status: 204 });
       return NextResponse.json(result, { status });

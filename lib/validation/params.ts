@@ -6,3 +6,9 @@ export const basinParams = z.object({ basinId: id("basinId") });
 export const memberParams = basinParams.extend({ userId: id("userId") });
 export const facilityParams = basinParams.extend({ facilityId: id("facilityId") });
 export const facilityUserParams = facilityParams.extend({ userId: id("userId") });
+
+export const importParams = basinParams.extend({ importId: id("importId") });
+/** A network version id, or "latest" for the basin's newest version. */
+export const networkParams = basinParams.extend({
+  networkId: z.union([z.literal("latest"), id("networkId")], { message: 'networkId must be a network id or "latest"' }),
+});

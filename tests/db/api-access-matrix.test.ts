@@ -3,7 +3,9 @@ import { join, relative } from "node:path";
 import { fileURLToPath } from "node:url";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createDb, getDb, type Db } from "@/db/client";
+import { DEMO_DISCHARGER_MAPPING, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
 import { callRoute } from "../support/call-route";
+import { commitDemo, demoForm, uploadDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
 
 /**
@@ -31,8 +33,10 @@ const denied = (overrides: Partial<Expect>) => signedIn(403, overrides);
 
 interface Case {
   expect: Expect;
-  params?: (w: World) => Record<string, string>;
-  body?: (w: World, caller: Caller) => unknown;
+  /** Builds what the request needs (an upload, a network) as the world's planner. */
+  prepare?: (w: World) => Promise<Record<string, string>>;
+  params?: (w: World, prepared: Record<string, string>) => Record<string, string>;
+  body?: (w: World, prepared: Record<string, string>) => unknown;
 }
 type RouteModule = Record<string, unknown>;
 interface Entry {
@@ -43,6 +47,18 @@ interface Entry {
 }
 
 const basin = (w: World) => ({ basinId: w.basinId });
+/** Planner-and-lead work (scenario.read / network.import): admins look after settings, not models. */
+const planners = (ok: number) => denied({ lead: ok, planner: ok });
+const withDraft = async (w: World) => {
+  const draft = await uploadDemo(db, w.users.planner, w.basinId);
+  return { reachImportId: draft.reachImportId, dischargerImportId: draft.dischargerImportId! };
+};
+const draftOf = (p: Record<string, string>) => ({
+  reachImportId: p.reachImportId,
+  reachMapping: DEMO_REACH_MAPPING,
+  dischargerImportId: p.dischargerImportId,
+  dischargerMapping: DEMO_DISCHARGER_MAPPING,
+});
 const uniq = () => Math.random().toString(36).slice(2, 8);
 
 const TABLE: Record<string, Entry> = {
@@ -136,6 +152,60 @@ const TABLE: Record<string, Entry> = {
     load: () => import("@/app/api/basins/[basinId]/audit/route"),
     methods: { GET: { expect: denied({ admin: 200, lead: 200 }), params: basin } },
   },
+  "app/api/basins/[basinId]/imports/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/imports/route"),
+    methods: {
+      GET: { expect: planners(200), params: basin },
+      POST: { expect: planners(201), params: basin, body: () => demoForm("reachesGeoJson", "reaches") },
+    },
+  },
+  "app/api/basins/[basinId]/imports/[importId]/file/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/imports/[importId]/file/route"),
+    methods: {
+      GET: {
+        expect: planners(200),
+        prepare: withDraft,
+        params: (w, p) => ({ basinId: w.basinId, importId: p.reachImportId }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/networks/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/networks/route"),
+    methods: {
+      GET: { expect: planners(200), params: basin },
+      POST: {
+        expect: planners(201),
+        prepare: withDraft,
+        params: basin,
+        body: (_w, p) => ({ draft: draftOf(p), acceptReport: true }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/networks/validate/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/networks/validate/route"),
+    methods: { POST: { expect: planners(200), prepare: withDraft, params: basin, body: (_w, p) => draftOf(p) } },
+  },
+  "app/api/basins/[basinId]/networks/[networkId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/networks/[networkId]/route"),
+    methods: {
+      GET: {
+        expect: planners(200),
+        prepare: async (w) => ({ networkId: (await commitDemo(db, w.users.planner, w.basinId)).network.id }),
+        params: (w, p) => ({ basinId: w.basinId, networkId: p.networkId }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/field-mappings/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/field-mappings/route"),
+    methods: {
+      GET: { expect: planners(200), params: basin },
+      POST: {
+        expect: planners(201),
+        params: basin,
+        body: () => ({ layer: "dischargers", name: "Permit file", mapping: DEMO_DISCHARGER_MAPPING }),
+      },
+    },
+  },
   "app/api/users/route.ts": {
     load: () => import("@/app/api/users/route"),
     methods: {
@@ -188,10 +258,11 @@ describe("API access matrix", () => {
         for (const caller of CALLERS) {
           // a fresh world per caller: mutations by one caller never change what the next one sees
           const w = await buildWorld(db);
+          const prepared = c.prepare ? await c.prepare(w) : {};
           const res = await callRoute(handler, method, {
             userId: caller === "anon" ? undefined : w.users[caller].id,
-            params: c.params?.(w),
-            body: c.body?.(w, caller),
+            params: c.params?.(w, prepared),
+            body: c.body?.(w, prepared),
           });
           got[caller] = res.status;
           if (res.status >= 400) {

@@ -58,7 +58,7 @@ describe("roles come from the database at each request", () => {
     const slugs = (list.json as { slug: string }[]).map((b) => b.slug);
     const memberOf = DEMO_BASINS.filter((b) => b.members.some((m) => m.key === "discharger")).map((b) => b.slug);
     expect(slugs.sort()).toEqual(memberOf.sort());
-    const orrin = await findBasinBySlug(db, "orrin-brook");
+    const orrin = await findBasinBySlug(db, "kestle-water");
     const res = await callRoute(basinRoute.GET, "GET", { userId: discharger, params: { basinId: orrin!.id } });
     expect(res.status).toBe(403);
     expect(res.json).toMatchObject({ error: { code: "forbidden" } });

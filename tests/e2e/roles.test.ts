@@ -139,7 +139,7 @@ describe("each demo role sees what its role allows", () => {
   it("admin: manages users and sees every basin", async () => {
     const page = await pageAs("admin");
     const names = await page.getByTestId("basin-list").getByRole("link").allTextContents();
-    expect(names.sort()).toEqual(["Orrin Brook basin", "Tamsel River basin"]);
+    expect(names.sort()).toEqual(["Kestle Water basin", "Tamsel River basin"]);
     await page.getByRole("link", { name: "Users" }).click();
     await page.getByTestId("users-table").waitFor();
     await page.getByLabel("Name").fill("Orla Vance");

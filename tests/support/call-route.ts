@@ -19,19 +19,22 @@ export async function callRoute(
   handler: Handler,
   method: string,
   { userId, params = {}, body }: CallOptions = {},
-): Promise<{ status: number; json: unknown }> {
+): Promise<{ status: number; json: unknown; headers: Headers }> {
   const headers = new Headers();
   if (userId) {
     const token = await encode({ token: { sub: userId }, secret: process.env.NEXTAUTH_SECRET! });
     headers.set("cookie", `next-auth.session-token=${token}`);
   }
-  let payload: string | undefined;
-  if (body !== undefined) {
+  let payload: string | FormData | undefined;
+  if (body instanceof FormData) {
+    payload = body;
+  } else if (body !== undefined) {
     payload = typeof body === "string" ? body : JSON.stringify(body);
     headers.set("content-type", "application/json");
   }
   const req = new NextRequest("http://127.0.0.1/api/test", { method, headers, body: payload });
   const res = await handler(req, { params: Promise.resolve(params) });
   const text = await res.text();
-  return { status: res.status, json: text ? JSON.parse(text) : null };
+  const json = (res.headers.get("content-type") ?? "").includes("json") && text ? JSON.parse(text) : text || null;
+  return { status: res.status, json, headers: res.headers };
 }

@@ -1,0 +1,122 @@
+import { sql } from "kysely";
+import type { Db } from "../client";
+import type { Insertable } from "kysely";
+import type { NetworkNodesTable, OutfallsTable, ReachesTable } from "../schema";
+import { isUuid } from "./users";
+
+/** The next version number of a basin's network; locks the basin row until the transaction ends. */
+export async function nextNetworkVersion(db: Db, basinId: string): Promise<number> {
+  await sql`select id from basins where id = ${basinId} for update`.execute(db);
+  const row = await db
+    .selectFrom("networks")
+    .select((eb) => eb.fn.max("version").as("v"))
+    .where("basin_id", "=", basinId)
+    .executeTakeFirst();
+  return Number(row?.v ?? 0) + 1;
+}
+
+export async function insertNetwork(
+  db: Db,
+  v: {
+    basinId: string;
+    version: number;
+    reachImportId: string;
+    dischargerImportId: string | null;
+    reachMapping: unknown;
+    dischargerMapping: unknown;
+    options: unknown;
+    report: unknown;
+    totalLengthKm: number;
+    note: string;
+    createdBy: string;
+  },
+) {
+  return db
+    .insertInto("networks")
+    .values({
+      basin_id: v.basinId,
+      version: v.version,
+      reach_import_id: v.reachImportId,
+      discharger_import_id: v.dischargerImportId,
+      reach_mapping: JSON.stringify(v.reachMapping),
+      discharger_mapping: JSON.stringify(v.dischargerMapping ?? null),
+      options: JSON.stringify(v.options),
+      report: JSON.stringify(v.report),
+      total_length_km: v.totalLengthKm,
+      note: v.note,
+      created_by: v.createdBy,
+    })
+    .returningAll()
+    .executeTakeFirstOrThrow();
+}
+
+/** Insert rows in chunks (PostgreSQL caps a statement at 65 535 parameters). */
+async function insertChunked<T>(rows: T[], size: number, insert: (chunk: T[]) => Promise<unknown>): Promise<void> {
+  for (let i = 0; i < rows.length; i += size) await insert(rows.slice(i, i + size));
+}
+
+export const insertNodes = (db: Db, rows: Insertable<NetworkNodesTable>[]) =>
+  insertChunked(rows, 2000, (c) => db.insertInto("network_nodes").values(c).execute());
+export const insertReaches = (db: Db, rows: Insertable<ReachesTable>[]) =>
+  insertChunked(rows, 1000, (c) => db.insertInto("reaches").values(c).execute());
+export const insertOutfalls = (db: Db, rows: Insertable<OutfallsTable>[]) =>
+  insertChunked(rows, 1000, (c) => db.insertInto("outfalls").values(c).execute());
+
+export async function listNetworks(db: Db, basinId: string) {
+  return db
+    .selectFrom("networks as n")
+    .leftJoin("users as u", "u.id", "n.created_by")
+    .select([
+      "n.id",
+      "n.version",
+      "n.total_length_km",
+      "n.note",
+      "n.created_at",
+      "u.name as created_by_name",
+      (eb) => eb.selectFrom("reaches as r").whereRef("r.network_id", "=", "n.id").select((e) => e.fn.countAll<string>().as("c")).as("reach_count"),
+      (eb) =>
+        eb.selectFrom("outfalls as o").whereRef("o.network_id", "=", "n.id").select((e) => e.fn.countAll<string>().as("c")).as("outfall_count"),
+    ])
+    .where("n.basin_id", "=", basinId)
+    .orderBy("n.version", "desc")
+    .execute();
+}
+
+export async function findNetwork(db: Db, basinId: string, networkId: string) {
+  if (!isUuid(networkId)) return undefined;
+  return db
+    .selectFrom("networks as n")
+    .leftJoin("users as u", "u.id", "n.created_by")
+    .selectAll("n")
+    .select("u.name as created_by_name")
+    .where("n.basin_id", "=", basinId)
+    .where("n.id", "=", networkId)
+    .executeTakeFirst();
+}
+
+export async function latestNetworkId(db: Db, basinId: string): Promise<string | undefined> {
+  const row = await db
+    .selectFrom("networks")
+    .select("id")
+    .where("basin_id", "=", basinId)
+    .orderBy("version", "desc")
+    .limit(1)
+    .executeTakeFirst();
+  return row?.id;
+}
+
+export const networkNodes = (db: Db, networkId: string) =>
+  db.selectFrom("network_nodes").selectAll().where("network_id", "=", networkId).orderBy("node_key").execute();
+
+export const networkReaches = (db: Db, networkId: string) =>
+  db.selectFrom("reaches").selectAll().where("network_id", "=", networkId).orderBy("reach_key").execute();
+
+export const networkOutfalls = (db: Db, networkId: string) =>
+  db
+    .selectFrom("outfalls as o")
+    .innerJoin("facilities as f", "f.id", "o.facility_id")
+    .selectAll("o")
+    .select(["f.name as facility_name", "f.permit_id"])
+    .where("o.network_id", "=", networkId)
+    .orderBy("f.name")
+    .execute();

@@ -1,0 +1,38 @@
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+import type { Db } from "@/db/client";
+import { findBasinBySlug } from "@/db/queries/basins";
+import { latestNetworkId } from "@/db/queries/networks";
+import { DEMO_DISCHARGER_MAPPING, DEMO_GIS_FILES, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
+import { DEMO_BASINS, DEMO_USERS } from "@/db/seed/demo-data";
+import { loadActor } from "@/lib/auth/guard";
+import { findUserByEmail } from "@/db/queries/users";
+import { uploadImport } from "./imports";
+import { commitNetwork } from "./networks";
+
+/**
+ * Load the demo basin's network from the demo GIS files through the same
+ * upload → validate → commit path a planner uses. Skipped when the basin
+ * already has a network. Returns the new version number, or null.
+ */
+export async function loadDemoNetwork(db: Db, root: string): Promise<number | null> {
+  const basin = await findBasinBySlug(db, DEMO_BASINS[0].slug);
+  if (!basin || (await latestNetworkId(db, basin.id))) return null;
+  const plannerRow = await findUserByEmail(db, DEMO_USERS.find((u) => u.key === "planner")!.email);
+  const planner = await loadActor(db, plannerRow?.id);
+  const read = (p: string) => ({ name: p.split("/").at(-1)!, bytes: readFileSync(join(root, p)) });
+  const reaches = await uploadImport(db, planner, basin.id, read(DEMO_GIS_FILES.reaches), { layer: "reaches" });
+  const dischargers = await uploadImport(db, planner, basin.id, read(DEMO_GIS_FILES.dischargers), { layer: "dischargers" });
+  const network = await commitNetwork(db, planner, basin.id, {
+    draft: {
+      reachImportId: reaches.id,
+      reachMapping: DEMO_REACH_MAPPING,
+      dischargerImportId: dischargers.id,
+      dischargerMapping: DEMO_DISCHARGER_MAPPING,
+      options: { toleranceM: 5, maxSnapDistanceM: 500, maxReachLengthKm: 10, allowMultipleOutlets: false },
+    },
+    note: "Demo network loaded from the Tamsel River shapefile and discharger CSV",
+    acceptReport: true,
+  });
+  return network.version;
+}

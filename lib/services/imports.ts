@@ -1,0 +1,226 @@
+import { createHash } from "node:crypto";
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import { findImport, insertImport, listFieldMappings, listImports, upsertFieldMapping, type ImportMeta } from "@/db/queries/imports";
+import type { ImportFormat, ImportLayer } from "@/db/schema";
+import {
+  detectCsvFields,
+  guessCsvCoordinates,
+  isGeoError,
+  readGeoJson,
+  readPointCsv,
+  readShapefileZip,
+  type CsvCoordinates,
+  type FieldInfo,
+  type SourceLayer,
+} from "@/geo";
+import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { AppError, notFound } from "@/lib/errors";
+import type { FieldMappingSave, UploadFields } from "@/lib/validation/network";
+
+/** Upload size limit in bytes: SAGLINE_UPLOAD_LIMIT_MB (default 50 MB). */
+export function uploadLimitBytes(): number {
+  const mb = Number(process.env.SAGLINE_UPLOAD_LIMIT_MB ?? 50);
+  return (Number.isFinite(mb) && mb > 0 ? mb : 50) * 1024 * 1024;
+}
+
+export interface ImportDto {
+  id: string;
+  layer: ImportLayer;
+  format: ImportFormat;
+  fileName: string;
+  sizeBytes: number;
+  sha256: string;
+  crs: Record<string, unknown>;
+  featureCount: number;
+  fields: FieldInfo[];
+  status: string;
+  uploadedAt: string;
+  uploadedBy?: string | null;
+}
+
+const importDto = (m: ImportMeta & { uploader_name?: string | null }): ImportDto => ({
+  id: m.id,
+  layer: m.layer,
+  format: m.format,
+  fileName: m.file_name,
+  sizeBytes: m.size_bytes,
+  sha256: m.sha256,
+  crs: m.crs,
+  featureCount: m.feature_count,
+  fields: m.fields as FieldInfo[],
+  status: m.status,
+  uploadedAt: m.uploaded_at.toISOString(),
+  uploadedBy: m.uploader_name,
+});
+
+const fileProblem = (message: string, code: string, extra?: Record<string, unknown>) =>
+  new AppError("invalid", message, [{ path: "file", message, code, ...extra }]);
+
+/** What kind of file this is, from its first bytes and its name. */
+export function detectFormat(fileName: string, bytes: Uint8Array): ImportFormat {
+  const name = fileName.toLowerCase();
+  if (bytes[0] === 0x50 && bytes[1] === 0x4b) return "shapefile";
+  if (name.endsWith(".zip")) return "shapefile";
+  if (name.endsWith(".csv") || name.endsWith(".txt")) return "csv";
+  if (name.endsWith(".geojson") || name.endsWith(".json")) return "geojson";
+  const head = Buffer.from(bytes.subarray(0, 64)).toString("utf8").trimStart();
+  if (head.startsWith("{")) return "geojson";
+  throw fileProblem(
+    `${fileName} is not a zipped shapefile, a GeoJSON file or a CSV; upload a .zip with .shp, .shx, .dbf and .prj, a .geojson, or a .csv`,
+    "unknown_format",
+  );
+}
+
+export interface ReadOptions {
+  epsg?: number;
+  csv?: CsvCoordinates;
+}
+
+/** Read an upload with the geo readers; file problems become 422 naming the problem. */
+export async function readUpload(format: ImportFormat, bytes: Buffer, options: ReadOptions): Promise<SourceLayer> {
+  try {
+    if (format === "shapefile") return await readShapefileZip(bytes, { epsg: options.epsg });
+    const text = bytes.toString("utf8");
+    if (format === "geojson") return readGeoJson(text, { epsg: options.epsg });
+    const coordinates = options.csv ?? guessCsvCoordinates(detectCsvFields(text).map((f) => f.name));
+    if (!coordinates) {
+      throw fileProblem(
+        "The CSV has no latitude/longitude columns that Sagline recognises; name them (csvLatitude, csvLongitude) or give x/y columns with an EPSG code",
+        "csv_missing_column",
+      );
+    }
+    return readPointCsv(text, coordinates);
+  } catch (error) {
+    if (isGeoError(error)) throw fileProblem(error.message, error.code, error.details);
+    throw error;
+  }
+}
+
+const LINE_TYPES = new Set(["LineString", "MultiLineString"]);
+const POINT_TYPES = new Set(["Point"]);
+
+/** Refuse a layer with nothing usable before anything is stored. */
+function checkLayer(layer: ImportLayer, source: SourceLayer, fileName: string): void {
+  if (source.features.length === 0) throw fileProblem(`${fileName} has no features (empty layer)`, "empty_layer");
+  const wanted = layer === "reaches" ? LINE_TYPES : POINT_TYPES;
+  const usable = source.features.filter((f) => f.geometry && wanted.has(f.geometry.type)).length;
+  if (usable === 0) {
+    const found = [...new Set(source.features.map((f) => f.geometry?.type ?? "no geometry"))].join(", ");
+    const want = layer === "reaches" ? "lines (LineString or MultiLineString)" : "points";
+    throw fileProblem(`${fileName} holds ${found}; ${layer} must be ${want}`, "wrong_geometry_type");
+  }
+}
+
+/**
+ * Keep an upload (bytes, SHA-256, who, when) after it has been read
+ * successfully; returns its fields with sample values for the mapping step.
+ */
+export async function uploadImport(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  file: { name: string; bytes: Buffer },
+  fields: UploadFields,
+): Promise<ImportDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  if (file.bytes.byteLength > uploadLimitBytes()) {
+    throw new AppError("too_large", `${file.name} is larger than the ${uploadLimitBytes() / 1048576} MB upload limit`, [
+      { path: "file", message: "File too large" },
+    ]);
+  }
+  if (file.bytes.byteLength === 0) throw fileProblem(`${file.name} is empty`, "empty_file");
+  const format = detectFormat(file.name, file.bytes);
+  if (format === "csv" && fields.layer === "reaches") {
+    throw fileProblem("Reaches must be lines: upload a zipped shapefile or a GeoJSON file, not a CSV", "wrong_format");
+  }
+  const options: ReadOptions = { epsg: fields.epsg };
+  if (fields.csvLatitude && fields.csvLongitude) {
+    options.csv = { kind: "latlon", latitude: fields.csvLatitude, longitude: fields.csvLongitude };
+  } else if (fields.csvX && fields.csvY && fields.epsg) {
+    options.csv = { kind: "xy", x: fields.csvX, y: fields.csvY, epsg: fields.epsg };
+  }
+  const source = await readUpload(format, file.bytes, options);
+  checkLayer(fields.layer, source, file.name);
+  const sha256 = createHash("sha256").update(file.bytes).digest("hex");
+  return db.transaction().execute(async (trx) => {
+    const row = await insertImport(trx, {
+      basinId: basin.id,
+      layer: fields.layer,
+      format,
+      fileName: file.name,
+      content: file.bytes,
+      sha256,
+      crs: { ...source.crs },
+      readOptions: { ...options },
+      featureCount: source.features.length,
+      fields: source.fields,
+      uploadedBy: actor!.id,
+    });
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "import.uploaded",
+      targetType: "import",
+      targetId: row.id,
+      details: { fileName: file.name, layer: fields.layer, format, sha256, features: source.features.length },
+    });
+    return importDto(row);
+  });
+}
+
+/** Re-read a kept upload (for validation and commit), checking it belongs to the basin and layer. */
+export async function loadUploadLayer(db: Db, basinId: string, importId: string, layer: ImportLayer, path: string) {
+  const row = await findImport(db, basinId, importId);
+  if (!row) throw new AppError("invalid", `${path}: no such upload in this basin`, [{ path, message: "Unknown upload" }]);
+  if (row.layer !== layer) {
+    throw new AppError("invalid", `${path}: that upload holds ${row.layer}, not ${layer}`, [{ path, message: `Not a ${layer} upload` }]);
+  }
+  const source = await readUpload(row.format, row.content, row.read_options as ReadOptions);
+  return { row, source };
+}
+
+export async function listBasinImports(db: Db, actor: Actor | null, basinId: string): Promise<ImportDto[]> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  return (await listImports(db, basin.id)).map(importDto);
+}
+
+/** The original bytes of an upload, for download (traceability). */
+export async function importFile(db: Db, actor: Actor | null, basinId: string, importId: string) {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  const row = await findImport(db, basin.id, importId);
+  if (!row) throw notFound("Upload");
+  return { fileName: row.file_name, format: row.format, content: row.content, sha256: row.sha256 };
+}
+
+export interface FieldMappingDto {
+  id: string;
+  layer: ImportLayer;
+  name: string;
+  mapping: Record<string, unknown>;
+  createdAt: string;
+}
+
+export async function listMappings(db: Db, actor: Actor | null, basinId: string): Promise<FieldMappingDto[]> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  return (await listFieldMappings(db, basin.id)).map((m) => ({
+    id: m.id,
+    layer: m.layer,
+    name: m.name,
+    mapping: m.mapping,
+    createdAt: m.created_at.toISOString(),
+  }));
+}
+
+/** Save (or replace, by name) a field mapping for the next import into this basin. */
+export async function saveMapping(db: Db, actor: Actor | null, basinId: string, input: FieldMappingSave): Promise<FieldMappingDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  const m = await upsertFieldMapping(db, {
+    basinId: basin.id,
+    layer: input.layer,
+    name: input.name,
+    mapping: input.mapping as Record<string, unknown>,
+    createdBy: actor!.id,
+  });
+  return { id: m.id, layer: m.layer, name: m.name, mapping: m.mapping, createdAt: m.created_at.toISOString() };
+}

@@ -1,0 +1,293 @@
+import type { Feature, FeatureCollection } from "geojson";
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import { findFacilityByPermit, insertFacility } from "@/db/queries/facilities";
+import { markImportsCommitted } from "@/db/queries/imports";
+import {
+  findNetwork,
+  insertNetwork,
+  insertNodes,
+  insertOutfalls,
+  insertReaches,
+  latestNetworkId,
+  listNetworks as listNetworkRows,
+  networkNodes,
+  networkOutfalls,
+  networkReaches,
+  nextNetworkVersion,
+} from "@/db/queries/networks";
+import { isGeoError, validateImport, type ImportReport, type Problem } from "@/geo";
+import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { AppError, notFound } from "@/lib/errors";
+import type { NetworkCommit, NetworkDraft } from "@/lib/validation/network";
+import { loadUploadLayer } from "./imports";
+
+export interface DraftResult {
+  report: ImportReport;
+  /** Permit ids of the dischargers that match an existing facility of the basin. */
+  knownPermits: string[];
+}
+
+async function runValidation(db: Db, basinId: string, draft: NetworkDraft): Promise<DraftResult> {
+  const reaches = await loadUploadLayer(db, basinId, draft.reachImportId, "reaches", "reachImportId");
+  const dischargers = draft.dischargerImportId
+    ? await loadUploadLayer(db, basinId, draft.dischargerImportId, "dischargers", "dischargerImportId")
+    : undefined;
+  let report: ImportReport;
+  try {
+    report = validateImport(
+      {
+        reaches: reaches.source,
+        reachMapping: draft.reachMapping,
+        dischargers: dischargers?.source,
+        dischargerMapping: draft.dischargerImportId ? draft.dischargerMapping : undefined,
+      },
+      draft.options,
+    );
+  } catch (error) {
+    if (isGeoError(error)) throw new AppError("invalid", error.message, [{ path: "reachMapping", message: error.message }]);
+    throw error;
+  }
+  const knownPermits: string[] = [];
+  for (const d of report.network.dischargers) {
+    if (d.attributes.permitId && (await findFacilityByPermit(db, basinId, d.attributes.permitId))) knownPermits.push(d.attributes.permitId);
+  }
+  return { report, knownPermits };
+}
+
+/** Validate a network draft without saving anything: the report the planner must accept. */
+export async function validateDraft(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft): Promise<DraftResult> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  return runValidation(db, basin.id, draft);
+}
+
+const summarise = (problems: Problem[]) => problems.map((p) => ({ code: p.code, message: p.message, features: p.features }));
+
+export interface NetworkSummaryDto {
+  id: string;
+  version: number;
+  totalLengthKm: number;
+  reachCount: number;
+  outfallCount: number;
+  note: string;
+  createdAt: string;
+  createdBy: string | null;
+}
+
+/**
+ * Save a validated network as the basin's next version, in one transaction:
+ * network, nodes, reaches, outfalls; facilities matched by permit id (new
+ * permits become new facilities); the uploads marked as used; an audit event.
+ */
+export async function commitNetwork(db: Db, actor: Actor | null, basinId: string, input: NetworkCommit): Promise<NetworkSummaryDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  const { draft } = input;
+  return db.transaction().execute(async (trx) => {
+    const { report } = await runValidation(trx, basin.id, draft);
+    if (report.errors.length > 0) {
+      throw new AppError(
+        "invalid",
+        `The validation report has ${report.errors.length} error(s); nothing was saved. First: ${report.errors[0].message}`,
+        summarise(report.errors).map((p) => ({ path: "draft", ...p })),
+      );
+    }
+    const net = report.network;
+    const version = await nextNetworkVersion(trx, basin.id);
+    const network = await insertNetwork(trx, {
+      basinId: basin.id,
+      version,
+      reachImportId: draft.reachImportId,
+      dischargerImportId: draft.dischargerImportId ?? null,
+      reachMapping: draft.reachMapping,
+      dischargerMapping: draft.dischargerMapping,
+      options: draft.options,
+      report: { errors: [], warnings: summarise(report.warnings) },
+      totalLengthKm: net.totalLengthKm,
+      note: input.note,
+      createdBy: actor!.id,
+    });
+    await insertNodes(
+      trx,
+      net.nodes.map((n) => ({ network_id: network.id, node_key: n.id, kind: n.kind, lon: n.position[0], lat: n.position[1] })),
+    );
+    await insertReaches(
+      trx,
+      net.reaches.map((r) => ({
+        network_id: network.id,
+        reach_key: r.id,
+        name: r.attributes.name ?? null,
+        downstream_key: r.downstreamReachId ?? null,
+        upstream_node: r.upstreamNodeId,
+        downstream_node: r.downstreamNodeId,
+        part: r.component,
+        flipped: r.flipped,
+        geometry_length_km: r.geometryLengthKm,
+        length_km: r.lengthKm,
+        coordinates: JSON.stringify(r.coordinates),
+        attributes: JSON.stringify(r.attributes),
+        source_index: r.sourceIndex,
+      })),
+    );
+    const outfalls = [];
+    for (const d of net.dischargers) {
+      if (!d.reachId || d.snapped === undefined || d.chainageKm === undefined) {
+        throw new AppError("invalid", `Discharger ${d.id} is not placed on a reach; reassign it before saving`, [
+          { path: "draft.options.reassign", message: `Place ${d.id}` },
+        ]);
+      }
+      let facility = await findFacilityByPermit(trx, basin.id, d.attributes.permitId);
+      facility ??= await insertFacility(trx, { basin_id: basin.id, name: d.attributes.name, permit_id: d.attributes.permitId });
+      outfalls.push({
+        network_id: network.id,
+        facility_id: facility.id,
+        reach_key: d.reachId,
+        chainage_km: d.modelChainageKm ?? d.chainageKm,
+        snap_distance_m: d.snapDistanceM ?? 0,
+        assignment: d.assignment,
+        lon: d.position[0],
+        lat: d.position[1],
+        snapped_lon: d.snapped[0],
+        snapped_lat: d.snapped[1],
+        attributes: JSON.stringify({ ...d.attributes, geometryChainageKm: d.chainageKm }),
+        source_index: d.sourceIndex,
+      });
+    }
+    await insertOutfalls(trx, outfalls);
+    await markImportsCommitted(trx, [draft.reachImportId, ...(draft.dischargerImportId ? [draft.dischargerImportId] : [])]);
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "network.committed",
+      targetType: "network",
+      targetId: network.id,
+      details: { version, reaches: net.reaches.length, outfalls: outfalls.length, warnings: report.warnings.length },
+    });
+    return {
+      id: network.id,
+      version,
+      totalLengthKm: network.total_length_km,
+      reachCount: net.reaches.length,
+      outfallCount: outfalls.length,
+      note: network.note,
+      createdAt: network.created_at.toISOString(),
+      createdBy: actor!.name,
+    };
+  });
+}
+
+export async function listNetworks(db: Db, actor: Actor | null, basinId: string): Promise<NetworkSummaryDto[]> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  return (await listNetworkRows(db, basin.id)).map((n) => ({
+    id: n.id,
+    version: n.version,
+    totalLengthKm: n.total_length_km,
+    reachCount: Number(n.reach_count ?? 0),
+    outfallCount: Number(n.outfall_count ?? 0),
+    note: n.note,
+    createdAt: n.created_at.toISOString(),
+    createdBy: n.created_by_name,
+  }));
+}
+
+export interface ReachDto {
+  id: string;
+  name: string | null;
+  downstreamId: string | null;
+  lengthKm: number;
+  geometryLengthKm: number;
+  flipped: boolean;
+  part: number;
+  attributes: Record<string, unknown>;
+}
+
+export interface OutfallDto {
+  facilityId: string;
+  facilityName: string;
+  permitId: string;
+  reachId: string;
+  chainageKm: number;
+  snapDistanceM: number;
+  assignment: string;
+  attributes: Record<string, unknown>;
+}
+
+export interface NetworkDto extends NetworkSummaryDto {
+  warnings: { code: string; message: string; features: string[] }[];
+  reaches: ReachDto[];
+  outfalls: OutfallDto[];
+  geojson: FeatureCollection;
+}
+
+/** One network version with its reaches, nodes and outfalls (tables and map GeoJSON). */
+export async function getNetwork(db: Db, actor: Actor | null, basinId: string, networkId: string | "latest"): Promise<NetworkDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  const id = networkId === "latest" ? await latestNetworkId(db, basin.id) : networkId;
+  const n = id ? await findNetwork(db, basin.id, id) : undefined;
+  if (!n) throw notFound("Network");
+  const [nodes, reaches, outfalls] = await Promise.all([networkNodes(db, n.id), networkReaches(db, n.id), networkOutfalls(db, n.id)]);
+  const features: Feature[] = [
+    ...reaches.map(
+      (r): Feature => ({
+        type: "Feature",
+        id: `reach:${r.reach_key}`,
+        geometry: { type: "LineString", coordinates: r.coordinates },
+        properties: { kind: "reach", id: r.reach_key, name: r.name, lengthKm: r.length_km, downstreamId: r.downstream_key },
+      }),
+    ),
+    ...nodes.map(
+      (x): Feature => ({
+        type: "Feature",
+        id: `node:${x.node_key}`,
+        geometry: { type: "Point", coordinates: [x.lon, x.lat] },
+        properties: { kind: "node", id: x.node_key, nodeKind: x.kind },
+      }),
+    ),
+    ...outfalls.map(
+      (o): Feature => ({
+        type: "Feature",
+        id: `outfall:${o.permit_id}`,
+        geometry: { type: "Point", coordinates: [o.snapped_lon, o.snapped_lat] },
+        properties: {
+          kind: "outfall",
+          id: o.permit_id,
+          name: o.facility_name,
+          reachId: o.reach_key,
+          chainageKm: o.chainage_km,
+          snapDistanceM: o.snap_distance_m,
+        },
+      }),
+    ),
+  ];
+  return {
+    id: n.id,
+    version: n.version,
+    totalLengthKm: n.total_length_km,
+    reachCount: reaches.length,
+    outfallCount: outfalls.length,
+    note: n.note,
+    createdAt: n.created_at.toISOString(),
+    createdBy: n.created_by_name,
+    warnings: (n.report.warnings ?? []) as NetworkDto["warnings"],
+    reaches: reaches.map((r) => ({
+      id: r.reach_key,
+      name: r.name,
+      downstreamId: r.downstream_key,
+      lengthKm: r.length_km,
+      geometryLengthKm: r.geometry_length_km,
+      flipped: r.flipped,
+      part: r.part,
+      attributes: r.attributes,
+    })),
+    outfalls: outfalls.map((o) => ({
+      facilityId: o.facility_id,
+      facilityName: o.facility_name,
+      permitId: o.permit_id,
+      reachId: o.reach_key,
+      chainageKm: o.chainage_km,
+      snapDistanceM: o.snap_distance_m,
+      assignment: o.assignment,
+      attributes: o.attributes,
+    })),
+    geojson: { type: "FeatureCollection", features },
+  };
+}
