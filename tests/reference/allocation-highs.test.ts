@@ -47,15 +47,15 @@ describe("constraint generation loses nothing: HiGHS on every profile point give
   it("max-total on a 40-reach network with 10 dischargers", async () => {
     const f = bindingNetwork(21, 40, 10);
     f.allocation = { objective: "max-total" };
-    let last: { lp: Lp; x: number[] } | undefined;
-    const result = allocate(f, { inspect_lp: (lp, x) => (last = { lp, x }) });
+    let last: { lp: Lp; x: number[]; scale: number[] } | undefined;
+    const result = allocate(f, { inspect_lp: (lp, x, scale) => (last = { lp, x, scale }) });
     const plan = compilePlan(f);
     const ids = f.dischargers.map((_, j) => plan.discharger_sources[j]);
     const L = Float64Array.from(plan.sources, (s) => s.L);
     for (const s of ids) L[s] = 0;
     const zero = evaluatePlan(plan, { sourceL: L });
     const paths = ids.map((s) => transferPath(plan, s));
-    const scale = result.allocations.map((a) => Math.max(a.max_kg_day, 1));
+    const scale = last!.scale;
     const rows: Lp["rows"] = [...last!.lp.rows];
     plan.reaches.forEach((_, ri) => {
       for (const loc of reachLocations(plan, ri)) {

@@ -19,10 +19,23 @@ function checkpointRows(rows: Checkpoint[], scale: number[], required: number): 
   }));
 }
 
+/**
+ * Column scale per discharger (kg/d): the load it could carry alone before its most sensitive
+ * checkpoint fails, capped by its upper bound, so that every scaled variable is of order one
+ * whatever bounds are given (a bound of 1e9 kg/d must not wreck the LP's conditioning).
+ */
+function columnScales(s: Setup, rows: Checkpoint[]): number[] {
+  return s.hi.map((h, k) => {
+    let cap = h;
+    for (const r of rows) if (r.a[k] > 0) cap = Math.min(cap, Math.max(r.do0 - s.required, 0) / r.a[k]);
+    return Math.max(cap, s.lo[k], 1e-3);
+  });
+}
+
 /** max-total, min-removal (cost-weighted) and max-min-share as LPs (javascript-lp-solver). */
 export function solveAsLp(s: Setup, objective: AllocationObjective, rows: Checkpoint[], inspect?: AllocateOptions["inspect_lp"]): Solved | null {
   const K = s.ids.length;
-  const scale = s.hi.map((h) => Math.max(h, 1));
+  const scale = columnScales(s, rows);
   const base = checkpointRows(rows, scale, s.required);
   const lo = s.lo.map((l, k) => l / scale[k]);
   const hi = s.hi.map((h, k) => h / scale[k]);
@@ -31,7 +44,7 @@ export function solveAsLp(s: Setup, objective: AllocationObjective, rows: Checkp
     const lp: Lp = { c: weights.map((w, k) => w * scale[k]), rows: base, lo, hi };
     const sol = solveLp(lp);
     if (!sol.feasible) return null;
-    inspect?.(lp, sol.x);
+    inspect?.(lp, sol.x, scale);
     const W = sol.x.map((x, k) => x * scale[k]);
     const duals = lpDuals(lp).y;
     const value = objective === "min-removal" ? W.reduce((t, w, k) => t + s.cost[k] * (s.today[k] - w), 0) : W.reduce((t, w) => t + w, 0);
@@ -44,7 +57,7 @@ export function solveAsLp(s: Setup, objective: AllocationObjective, rows: Checkp
   const stage1: Lp = { c: [...s.ids.map(() => 0), 1], rows: [...base, ...share], lo: [...lo, 0], hi: [...hi, zMax] };
   const first = solveLp(stage1);
   if (!first.feasible) return null;
-  inspect?.(stage1, first.x);
+  inspect?.(stage1, first.x, scale);
   const z = first.x[K];
   const duals = lpDuals(stage1).y.slice(0, rows.length);
   const stage2: Lp = { c: [...scale, 0], rows: stage1.rows, lo: [...lo, Math.max(0, z * (1 - 1e-9))], hi: [...hi, zMax] };

@@ -7,8 +7,11 @@ export interface AllocateOptions {
   tolerance_mg_l?: number;
   /** Most rounds of constraint generation. Default 50. */
   max_iterations?: number;
-  /** Called with every LP handed to the solver (scaled variables; the last call is the final LP). For checks and tests. */
-  inspect_lp?: (lp: Lp, solution: number[]) => void;
+  /**
+   * Called with every LP handed to the solver, its solution and the column scales
+   * (x_k = W_k/scale_k, kg/d); the last call is the final LP. For checks and tests.
+   */
+  inspect_lp?: (lp: Lp, solution: number[], scale: number[]) => void;
 }
 
 export interface AllocationEntry extends PermitTerms {

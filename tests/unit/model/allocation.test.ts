@@ -146,6 +146,15 @@ describe("margins, reserve, bounds and several conditions", () => {
     }
   });
 
+  it("huge upper bounds do not disturb the LP (columns are scaled by what each discharger could carry)", () => {
+    const ref = allocate({ ...f, allocation: { objective: "max-total" } });
+    const bounds = Object.fromEntries(f.dischargers.map((d) => [d.id, { max_kg_day: 1e12 }]));
+    const r = allocate({ ...f, allocation: { objective: "max-total", bounds } });
+    expect(r.feasible).toBe(true);
+    expect(r.objective_value!).toBeGreaterThanOrEqual(ref.objective_value! * (1 - 1e-9));
+    expect(runModel(withLoads(f, loadsOf(r))).minimum.do_mg_l).toBeGreaterThan(f.criterion_do_mg_l - 1e-6);
+  });
+
   it("several design conditions in one LP: the allocation meets both", () => {
     const g: ModelFile = { ...f, allocation: { objective: "max-total", conditions: [{ name: "hot", temperature_c: 26 }] } };
     const r = allocate(g);
