@@ -157,7 +157,7 @@ export function compilePlan(file: ModelFile): Plan {
     }
 
     // Split points: the head plus every distinct chainage of a source below the head.
-    const here = byReach[ri].slice().sort((a, b) => pending[a].km - pending[b].km);
+    const here = byReach[ri].length > 1 ? byReach[ri].slice().sort((a, b) => pending[a].km - pending[b].km) : byReach[ri];
     const cuts = [0];
     for (const s of here) if (pending[s].km > cuts[cuts.length - 1]) cuts.push(pending[s].km);
     const first = segments.length;
@@ -169,11 +169,13 @@ export function compilePlan(file: ModelFile): Plan {
       qT += us.flow_m3_s * us.temperature_c;
     }
     let tStart = 0;
+    let csT = NaN;
+    let cs = NaN;
     for (let c = 0; c < cuts.length; c++) {
       const kmStart = cuts[c];
       const kmEnd = c + 1 < cuts.length ? cuts[c + 1] : length;
       const segIndex = segments.length;
-      const mixing = here.filter((s) => pending[s].km === kmStart);
+      const mixing = here.length === 0 ? here : here.filter((s) => pending[s].km === kmStart);
       for (const s of mixing) {
         sources[s].segment = segIndex;
         q += sources[s].flow_m3_s;
@@ -182,6 +184,10 @@ export function compilePlan(file: ModelFile): Plan {
       if (!(q > 0)) throw new ModelInputError([...path, "id"], `reach "${r.id}" has no inflow at its head (add a headwater or an upstream reach)`);
       const mixedT = qT / q;
       const T = heldT ?? mixedT;
+      if (T !== csT) {
+        cs = doSaturationAtElevation(T, elevation, salinity);
+        csT = T;
+      }
       const { u, h } = reachHydraulics(r, q, path);
       const ka = withPrefix(path, () =>
         reaeration({ method, velocity_m_s: u, depth_m: h, ka20_per_day: r.ka20_per_day, slope_m_m: r.slope_m_m, flow_m3_s: q, floor: r.ka_floor ?? false }),
@@ -198,7 +204,7 @@ export function compilePlan(file: ModelFile): Plan {
         t_day: tDay,
         flow_m3_s: q,
         temperature_c: T,
-        cs_mg_l: doSaturationAtElevation(T, elevation, salinity),
+        cs_mg_l: cs,
         velocity_m_s: u,
         depth_m: h,
         rates: {
