@@ -65,6 +65,7 @@ export function allocate(file: ModelFile, options: AllocateOptions = {}): Alloca
         km: locationKm(plan, r.loc),
         do_mg_l: r.do0 - use,
         dual: final.duals[i],
+        do_gain_mg_l_per_kg_day: objective === "max-total" || objective === "min-removal" ? 1 / final.duals[i] : null,
       });
     }
   });

@@ -26,8 +26,16 @@ export interface BindingCheckpoint {
   reach: string;
   km: number;
   do_mg_l: number;
-  /** Objective gained per 1 mg/L relaxation of this checkpoint (shadow price; objective units per mg/L). */
+  /**
+   * Shadow price of the checkpoint: objective gained per 1 mg/L relaxation of its requirement
+   * (for max-total and min-removal: kg/d CBODu per mg/L).
+   */
   dual: number;
+  /**
+   * 1/dual for the load objectives: DO gained at this checkpoint (mg/L) per kg/d of total
+   * allocation given up, with the rest re-optimised; null for the other objectives.
+   */
+  do_gain_mg_l_per_kg_day: number | null;
 }
 
 export interface DiagnosisEntry {

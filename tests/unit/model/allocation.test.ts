@@ -56,7 +56,16 @@ describe("allocation objectives", () => {
     expect(r.feasible).toBe(true);
     expect(runModel(withLoads(f, loadsOf(r))).minimum.do_mg_l).toBeGreaterThan(f.criterion_do_mg_l - 1e-6);
     expect(r.binding.length).toBeGreaterThan(0);
-    for (const b of r.binding) expect(b.do_mg_l).toBeCloseTo(f.criterion_do_mg_l, 6);
+    for (const b of r.binding) {
+      expect(b.do_mg_l).toBeCloseTo(f.criterion_do_mg_l, 6);
+      expect(b.do_gain_mg_l_per_kg_day! * b.dual).toBeCloseTo(1, 12);
+    }
+    // Duals are the optimum's sensitivity: relax the criterion (every checkpoint) by δ and the
+    // optimum grows by δ·Σ duals (finite difference, same basis for a small δ).
+    const delta = 1e-5;
+    const relaxed = allocate({ ...f, criterion_do_mg_l: f.criterion_do_mg_l - delta, allocation: { objective: "max-total" } });
+    const sumDuals = r.binding.reduce((t, b) => t + b.dual, 0);
+    expect((relaxed.objective_value! - r.objective_value!) / delta / sumDuals).toBeCloseTo(1, 3);
     const total = r.objective_value!;
     for (const objective of ["equal-percent", "equal-concentration", "max-min-share"] as const) {
       const other = allocate({ ...f, allocation: { objective } });
