@@ -68,6 +68,17 @@ describe("exact analytic cases of the sag (Streeter & Phelps 1925)", () => {
   });
 });
 
+describe("printed answer of a published sag problem", () => {
+  it("k_a 0.05 /d, k_d 0.030 /d, D0 5.00 mg/L, L0 12.0 mg/L → t_c = 9.27 d (answer printed with the problem)", () => {
+    // Source: multiple-choice stream-survey problem published at
+    // https://tutorbin.com/questions-and-answers/a-stream-survey-revealed-that-the-reaeration-constant-is-005-d-and-the
+    // (options 16.43, 25.46, 17.05, 9.27 d); printed to 0.01 d.
+    const c = criticalPoint(rates({ kd: 0.03, kr: 0.03, ka: 0.05 }), { L: 12, N: 0, D: 5 }, 100);
+    expect(c.how).toBe("closed-form");
+    expect(Math.abs(c.t_day - 9.27)).toBeLessThan(0.005);
+  });
+});
+
 describe("Chapra & Canale, Numerical Methods for Engineers (5th ed.), problem 16.16 (settling + SOD)", () => {
   // Inputs printed in the problem: o_s 10 mg/L, k_d 0.2 /d, k_a 0.8 /d, k_s 0.06 /d,
   // L0 50 mg/L, S_b 1 mg/L/d, with the DO starting at saturation (D0 = 0). The book asks
