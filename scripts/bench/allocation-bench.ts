@@ -1,14 +1,5 @@
-import {
-  allocate,
-  compilePlan,
-  doAt,
-  evaluatePlan,
-  reachLocations,
-  transferAt,
-  transferPath,
-  type Location,
-  type Lp,
-} from "@/lib/model";
+import { allocate, type Lp } from "@/lib/model";
+import { fullLpRows } from "@/tests/reference/full-lp";
 import { solveWithHighs } from "@/tests/reference/highs";
 import { median, ms } from "./measure";
 import { syntheticNetwork, withBindingCriterion } from "./synthetic";
@@ -38,35 +29,7 @@ export async function allocationBench(reaches: number, dischargers: number): Pro
   }
   const small = last;
   const buildStart = performance.now();
-  // The full LP, built with the same transfer coefficients and scaling as ours.
-  const plan = compilePlan(file);
-  const zeroL = Float64Array.from(plan.sources, (s) => s.L);
-  const ids = file.dischargers.map((_, j) => plan.discharger_sources[j]);
-  for (const s of ids) zeroL[s] = 0;
-  const zero = evaluatePlan(plan, { sourceL: zeroL });
-  const bySegment = new Map<number, Location[]>();
-  plan.reaches.forEach((_, ri) => {
-    for (const loc of reachLocations(plan, ri)) {
-      const list = bySegment.get(loc.segment) ?? [];
-      list.push(loc);
-      bySegment.set(loc.segment, list);
-    }
-  });
-  const rowsAt = new Map<Location, Array<[number, number]>>();
-  ids.forEach((s, k) => {
-    const path = transferPath(plan, s);
-    for (const seg of path.index.keys()) {
-      for (const loc of bySegment.get(seg) ?? []) {
-        const a = transferAt(plan, path, loc);
-        if (a === 0) continue;
-        const terms = rowsAt.get(loc) ?? [];
-        terms.push([k, a * scale[k]]);
-        rowsAt.set(loc, terms);
-      }
-    }
-  });
-  const rows: Lp["rows"] = [...small.rows];
-  for (const [loc, terms] of rowsAt) rows.push({ terms, rhs: doAt(plan, zero, loc) - file.criterion_do_mg_l });
+  const rows = fullLpRows(file, small.rows, scale);
   const nonzeros = rows.reduce((t, r) => t + r.terms.length, 0);
   const buildMs = performance.now() - buildStart;
   const t0 = performance.now();

@@ -1,15 +1,6 @@
 import { describe, expect, it } from "vitest";
-import {
-  allocate,
-  compilePlan,
-  doAt,
-  evaluatePlan,
-  reachLocations,
-  transferAt,
-  transferPath,
-  type AllocationObjective,
-  type Lp,
-} from "@/lib/model";
+import { allocate, type AllocationObjective, type Lp } from "@/lib/model";
+import { fullLpRows } from "./full-lp";
 import { solveWithHighs } from "./highs";
 import { bindingNetwork } from "./networks";
 
@@ -49,20 +40,7 @@ describe("constraint generation loses nothing: HiGHS on every profile point give
     f.allocation = { objective: "max-total" };
     let last: { lp: Lp; x: number[]; scale: number[] } | undefined;
     const result = allocate(f, { inspect_lp: (lp, x, scale) => (last = { lp, x, scale }) });
-    const plan = compilePlan(f);
-    const ids = f.dischargers.map((_, j) => plan.discharger_sources[j]);
-    const L = Float64Array.from(plan.sources, (s) => s.L);
-    for (const s of ids) L[s] = 0;
-    const zero = evaluatePlan(plan, { sourceL: L });
-    const paths = ids.map((s) => transferPath(plan, s));
-    const scale = last!.scale;
-    const rows: Lp["rows"] = [...last!.lp.rows];
-    plan.reaches.forEach((_, ri) => {
-      for (const loc of reachLocations(plan, ri)) {
-        const terms = paths.map((p, k): [number, number] => [k, transferAt(plan, p, loc) * scale[k]]).filter(([, a]) => a !== 0);
-        if (terms.length > 0) rows.push({ terms, rhs: doAt(plan, zero, loc) - f.criterion_do_mg_l });
-      }
-    });
+    const rows = fullLpRows(f, last!.lp.rows, last!.scale);
     expect(rows.length).toBeGreaterThan(last!.lp.rows.length + 100);
     const full = await solveWithHighs({ ...last!.lp, rows });
     expect(full.status).toBe("Optimal");
