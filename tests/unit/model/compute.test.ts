@@ -11,9 +11,9 @@ describe("compute pool (worker threads)", () => {
   afterAll(() => pool.close());
 
   it("runs a model and an allocation in workers with the same results as in-process", async () => {
-    const [run, alloc] = await Promise.all([pool.run(file("vell-river")), pool.allocate(file("vell-river-allocate"))]);
-    expect(run).toEqual(runModel(file("vell-river")));
-    expect(alloc).toEqual(allocate(file("vell-river-allocate")));
+    const [run, alloc] = await Promise.all([pool.run(file("tamsel-river")), pool.allocate(file("tamsel-river-allocate"))]);
+    expect(run).toEqual(runModel(file("tamsel-river")));
+    expect(alloc).toEqual(allocate(file("tamsel-river-allocate")));
   }, 30_000);
 
   it("keeps the event loop free while a job runs (an in-process solve would allow no tick until it ends)", async () => {
@@ -31,20 +31,20 @@ describe("compute pool (worker threads)", () => {
   }, 60_000);
 
   it("re-creates bad-input errors with their field path", async () => {
-    const bad = file("vell-river");
+    const bad = file("tamsel-river");
     bad.dischargers[0].km = 99;
     const err = await pool.run(bad).catch((e: unknown) => e);
     expect(err).toBeInstanceOf(ModelInputError);
     expect((err as ModelInputError).path).toEqual(["dischargers", 0, "km"]);
-    const noAlloc = await pool.allocate(file("vell-river")).catch((e: unknown) => e);
+    const noAlloc = await pool.allocate(file("tamsel-river")).catch((e: unknown) => e);
     expect(noAlloc).toBeInstanceOf(ModelInputError);
   }, 30_000);
 
   it("times out a long job, replaces the worker, and refuses work after close", async () => {
     const slow = createComputePool({ timeoutMs: 1 });
-    const err = await slow.run(file("vell-river")).catch((e: unknown) => e);
+    const err = await slow.run(file("tamsel-river")).catch((e: unknown) => e);
     expect(err).toBeInstanceOf(ComputeTimeoutError);
     await slow.close();
-    await expect(slow.run(file("vell-river"))).rejects.toBeInstanceOf(ComputeError);
+    await expect(slow.run(file("tamsel-river"))).rejects.toBeInstanceOf(ComputeError);
   }, 30_000);
 });

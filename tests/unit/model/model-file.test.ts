@@ -5,7 +5,7 @@ import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { parseModelFile } from "@/lib/validation/model-file";
 
-const example = () => JSON.parse(readFileSync("examples/vell-river.json", "utf8"));
+const example = () => JSON.parse(readFileSync("examples/tamsel-river.json", "utf8"));
 
 const issuesOf = (data: unknown) => {
   const r = parseModelFile(data);
@@ -15,7 +15,7 @@ const issuesOf = (data: unknown) => {
 
 describe("model-file schema (MODEL.md §8)", () => {
   it("accepts every example file", () => {
-    for (const f of ["vell-river", "vell-river-allocate", "vell-river-equal-percent"]) {
+    for (const f of ["tamsel-river", "tamsel-river-allocate", "tamsel-river-equal-percent"]) {
       const r = parseModelFile(JSON.parse(readFileSync(`examples/${f}.json`, "utf8")));
       expect(r.ok, f).toBe(true);
     }
@@ -36,11 +36,11 @@ describe("model-file schema (MODEL.md §8)", () => {
 
   it("cross-field rules: k_a, hydraulics, CBOD forms, fractions, bounds", () => {
     const f = example();
-    delete f.reaches[3].ka20_per_day;
+    f.reaches[3].ka_method = "given";
     delete f.reaches[0].depth_m;
-    delete f.dischargers[1].cbodu_mg_l;
+    delete f.dischargers[1].bod5_mg_l;
     f.dischargers[2].cbodu_mg_l = 10;
-    f.allocation = { objective: "max-total", mos_fraction: 0.5, reserve_fraction: 0.5, bounds: { "VR-0101": { min_kg_day: 5, max_kg_day: 1 }, NOPE: {} } };
+    f.allocation = { objective: "max-total", mos_fraction: 0.5, reserve_fraction: 0.5, bounds: { "DP-1001": { min_kg_day: 5, max_kg_day: 1 }, NOPE: {} } };
     const issues = issuesOf(f);
     const paths = issues.map((i) => i.path);
     expect(paths).toEqual(
@@ -50,28 +50,28 @@ describe("model-file schema (MODEL.md §8)", () => {
         "dischargers[1].cbodu_mg_l",
         "dischargers[2].bod5_mg_l",
         "allocation.reserve_fraction",
-        "allocation.bounds.VR-0101.min_kg_day",
+        "allocation.bounds.DP-1001.min_kg_day",
       ]),
     );
   });
 
   it("network errors come back with the offending field's path", () => {
     const cyc = example();
-    cyc.reaches[5].downstream = "VELL-1";
+    cyc.reaches[7].downstream = "TR-01";
     expect(issuesOf(cyc)[0]).toMatchObject({ path: "reaches[0].downstream", message: expect.stringMatching(/cycle/) });
     const far = example();
     far.dischargers[2].km = 99;
     expect(issuesOf(far)[0]).toMatchObject({ path: "dischargers[2].km", message: expect.stringMatching(/beyond/) });
     const missing = example();
-    missing.reaches[0].downstream = "VELL-9";
+    missing.reaches[0].downstream = "TR-99";
     expect(issuesOf(missing)[0].path).toBe("reaches[0].downstream");
     const bounds = example();
-    bounds.allocation = { objective: "max-total", bounds: { "VR-9999": { max_kg_day: 3 } } };
-    expect(issuesOf(bounds)[0].path).toBe("allocation.bounds.VR-9999");
+    bounds.allocation = { objective: "max-total", bounds: { "DP-9999": { max_kg_day: 3 } } };
+    expect(issuesOf(bounds)[0].path).toBe("allocation.bounds.DP-9999");
     const future = example();
     future.dischargers[3].future = true;
-    future.allocation = { objective: "max-total", bounds: { "VR-0203": { max_kg_day: 3 } } };
-    expect(issuesOf(future)[0]).toMatchObject({ path: "allocation.bounds.VR-0203", message: expect.stringMatching(/future/) });
+    future.allocation = { objective: "max-total", bounds: { "DP-1004": { max_kg_day: 3 } } };
+    expect(issuesOf(future)[0]).toMatchObject({ path: "allocation.bounds.DP-1004", message: expect.stringMatching(/future/) });
   });
 });
 
@@ -79,7 +79,7 @@ const cli = (...args: string[]) => spawnSync(process.execPath, ["--import", "tsx
 
 describe("CLI (npm run model / npm run allocate)", () => {
   it("run prints the MODEL.md §8 contract", () => {
-    const r = cli("run", "examples/vell-river.json");
+    const r = cli("run", "examples/tamsel-river.json");
     expect(r.status).toBe(0);
     const out = JSON.parse(r.stdout);
     expect(Object.keys(out)).toEqual(expect.arrayContaining(["reaches", "minimum"]));
@@ -93,7 +93,7 @@ describe("CLI (npm run model / npm run allocate)", () => {
   }, 30_000);
 
   it("allocate prints the allocation contract", () => {
-    const r = cli("allocate", "examples/vell-river-allocate.json");
+    const r = cli("allocate", "examples/tamsel-river-allocate.json");
     expect(r.status).toBe(0);
     const out = JSON.parse(r.stdout);
     expect(Object.keys(out)).toEqual(expect.arrayContaining(["feasible", "objective_value", "allocations", "binding"]));
@@ -115,7 +115,7 @@ describe("CLI (npm run model / npm run allocate)", () => {
     const j = cli("run", join(dir, "broken.json"));
     expect(j.status).toBe(1);
     expect(j.stderr).toMatch(/not valid JSON/);
-    const noAlloc = cli("allocate", "examples/vell-river.json");
+    const noAlloc = cli("allocate", "examples/tamsel-river.json");
     expect(noAlloc.status).toBe(1);
     expect(noAlloc.stderr).toMatch(/allocation/);
     expect(cli("run", join(dir, "missing.json")).status).toBe(1);
