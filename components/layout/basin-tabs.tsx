@@ -7,7 +7,7 @@ export function BasinTabs({ tabs }: { tabs: { href: string; label: string }[] })
   return (
     <nav className="flex gap-1 border-b border-rule" aria-label="Basin sections">
       {tabs.map((t) => {
-        const active = path === t.href;
+        const active = path === t.href || (t.href.split("/").length > 3 && path.startsWith(`${t.href}/`));
         return (
           <Link
             key={t.href}

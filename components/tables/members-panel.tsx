@@ -96,7 +96,7 @@ export function MembersPanel({
                 return (
                   <tr key={f.id}>
                     <td className="font-medium">{f.name}</td>
-                    <td className="font-mono text-xs">{f.permitId}</td>
+                    <td className="whitespace-nowrap font-mono text-xs">{f.permitId}</td>
                     <td>
                       {f.users.length === 0 && <span className="text-ink-faint">none</span>}
                       <ul>

@@ -8,6 +8,10 @@ export const queryKeys = {
     members: (basinId: string) => ["basins", basinId, "members"] as const,
     facilities: (basinId: string) => ["basins", basinId, "facilities"] as const,
     audit: (basinId: string) => ["basins", basinId, "audit"] as const,
+    networks: (basinId: string) => ["basins", basinId, "networks"] as const,
+    network: (basinId: string, networkId: string) => ["basins", basinId, "networks", networkId] as const,
+    imports: (basinId: string) => ["basins", basinId, "imports"] as const,
+    mappings: (basinId: string) => ["basins", basinId, "field-mappings"] as const,
   },
   users: () => ["users"] as const,
 };

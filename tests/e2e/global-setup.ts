@@ -5,6 +5,7 @@ import type { TestProject } from "vitest/node";
 import { createDb } from "@/db/client";
 import { migrateToLatest } from "@/db/migrate";
 import { seedDemo } from "@/db/seed/demo";
+import { loadDemoNetwork } from "@/lib/services/demo";
 import { hashPassword } from "@/lib/services/users";
 import { createThrowawayDatabase, dropDatabase, ensureTestCluster } from "../support/test-db";
 
@@ -46,6 +47,7 @@ export default async function setup(project: TestProject) {
   const db = createDb(url, 2);
   await migrateToLatest(db);
   await seedDemo(db, hashPassword);
+  await loadDemoNetwork(db, ROOT);
   await db.destroy();
 
   if (!existsSync(`${ROOT}.next/BUILD_ID`)) {

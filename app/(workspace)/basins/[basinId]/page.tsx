@@ -59,7 +59,7 @@ export default async function BasinOverviewPage({ params }: { params: Promise<{ 
                 {facilities.map((f) => (
                   <tr key={f.id}>
                     <td>{f.name}</td>
-                    <td className="font-mono text-xs">{f.permitId}</td>
+                    <td className="whitespace-nowrap font-mono text-xs">{f.permitId}</td>
                     <td>{f.users.map((u) => u.name).join(", ") || "—"}</td>
                   </tr>
                 ))}

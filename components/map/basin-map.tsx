@@ -1,0 +1,208 @@
+"use client";
+import type { Feature, FeatureCollection, Geometry } from "geojson";
+import * as maplibregl from "maplibre-gl";
+import "maplibre-gl/dist/maplibre-gl.css";
+import { useEffect, useRef, useState } from "react";
+import { arrowImage, baseStyle, MAP_COLOURS } from "./map-style";
+
+maplibregl.setWorkerUrl(new URL("../../node_modules/maplibre-gl/dist/maplibre-gl-worker.mjs", import.meta.url).href);
+
+export interface MapSelection {
+  kind: "reach" | "node" | "outfall";
+  id: string;
+  properties: Record<string, unknown>;
+}
+
+const EMPTY: FeatureCollection = { type: "FeatureCollection", features: [] };
+
+function bounds(fc: FeatureCollection): maplibregl.LngLatBounds | null {
+  const b = new maplibregl.LngLatBounds();
+  let any = false;
+  const visit = (c: unknown): void => {
+    if (Array.isArray(c) && typeof c[0] === "number") {
+      b.extend([c[0] as number, c[1] as number]);
+      any = true;
+    } else if (Array.isArray(c)) c.forEach(visit);
+  };
+  for (const f of fc.features) if (f.geometry && "coordinates" in f.geometry) visit(f.geometry.coordinates);
+  return any ? b : null;
+}
+
+function describe(p: Record<string, unknown>): string {
+  const esc = (v: unknown) => String(v ?? "").replace(/[&<>"]/g, (c) => `&#${c.charCodeAt(0)};`);
+  if (p.kind === "reach") {
+    return `<strong>Reach ${esc(p.id)}</strong>${p.name ? `<br>${esc(p.name)}` : ""}<br>${Number(p.lengthKm).toFixed(2)} km${
+      p.downstreamId ? ` → ${esc(p.downstreamId)}` : " → outlet"
+    }`;
+  }
+  if (p.kind === "outfall") {
+    return `<strong>${esc(p.name)}</strong><br>Permit ${esc(p.id)}<br>Reach ${esc(p.reachId)} at ${Number(p.chainageKm).toFixed(2)} km<br>Snapped ${Number(p.snapDistanceM).toFixed(0)} m`;
+  }
+  return `<strong>${esc(p.nodeKind)} node</strong><br>${esc(p.id)}`;
+}
+
+/**
+ * The basin on a plain background: reaches with flow-direction chevrons,
+ * nodes, outfalls, and (optionally) problem geometries to highlight. Hover
+ * shows details; a click reports the feature.
+ */
+export function BasinMap({
+  data,
+  highlight,
+  selectedId,
+  onSelect,
+  height = 480,
+}: {
+  data: FeatureCollection;
+  highlight?: Geometry[];
+  selectedId?: string | null;
+  onSelect?: (s: MapSelection) => void;
+  height?: number;
+}) {
+  const container = useRef<HTMLDivElement>(null);
+  const mapRef = useRef<maplibregl.Map | null>(null);
+  const [ready, setReady] = useState(false);
+  const onSelectRef = useRef(onSelect);
+  useEffect(() => {
+    onSelectRef.current = onSelect;
+  }, [onSelect]);
+
+  useEffect(() => {
+    if (!container.current) return;
+    const map = new maplibregl.Map({
+      container: container.current,
+      style: baseStyle(),
+      center: [0, 0],
+      zoom: 1,
+      attributionControl: false,
+    });
+    mapRef.current = map;
+    map.addControl(new maplibregl.NavigationControl({ showCompass: false }), "top-right");
+    map.addControl(new maplibregl.ScaleControl({ unit: "metric" }), "bottom-left");
+    const popup = new maplibregl.Popup({ closeButton: false, closeOnClick: false, offset: 8 });
+    map.on("load", () => {
+      map.addImage("flow-arrow", arrowImage());
+      map.addSource("basin", { type: "geojson", data: EMPTY, promoteId: "fid" });
+      map.addSource("problems", { type: "geojson", data: EMPTY });
+      map.addLayer({
+        id: "problem-lines",
+        type: "line",
+        source: "problems",
+        filter: ["!=", ["geometry-type"], "Point"],
+        paint: { "line-color": MAP_COLOURS.problem, "line-width": 9, "line-opacity": 0.35 },
+      });
+      map.addLayer({
+        id: "reaches",
+        type: "line",
+        source: "basin",
+        filter: ["==", ["get", "kind"], "reach"],
+        layout: { "line-cap": "round", "line-join": "round" },
+        paint: {
+          "line-color": ["case", ["boolean", ["feature-state", "selected"], false], MAP_COLOURS.reachSelected, MAP_COLOURS.reach],
+          "line-width": ["case", ["boolean", ["feature-state", "selected"], false], 5, 3],
+        },
+      });
+      map.addLayer({
+        id: "reach-direction",
+        type: "symbol",
+        source: "basin",
+        filter: ["==", ["get", "kind"], "reach"],
+        layout: { "symbol-placement": "line", "symbol-spacing": 90, "icon-image": "flow-arrow", "icon-allow-overlap": true },
+      });
+      map.addLayer({
+        id: "nodes",
+        type: "circle",
+        source: "basin",
+        filter: ["==", ["get", "kind"], "node"],
+        paint: {
+          "circle-radius": ["match", ["get", "nodeKind"], "outlet", 7, 3.5],
+          "circle-color": ["match", ["get", "nodeKind"], "outlet", MAP_COLOURS.outlet, "headwater", MAP_COLOURS.headwater, MAP_COLOURS.node],
+          "circle-stroke-color": "#ffffff",
+          "circle-stroke-width": 1.5,
+        },
+      });
+      map.addLayer({
+        id: "problem-points",
+        type: "circle",
+        source: "problems",
+        filter: ["==", ["geometry-type"], "Point"],
+        paint: { "circle-radius": 11, "circle-color": MAP_COLOURS.problem, "circle-opacity": 0.35 },
+      });
+      map.addLayer({
+        id: "outfalls",
+        type: "circle",
+        source: "basin",
+        filter: ["==", ["get", "kind"], "outfall"],
+        paint: {
+          "circle-radius": ["case", ["boolean", ["feature-state", "selected"], false], 9, 6.5],
+          "circle-color": MAP_COLOURS.outfall,
+          "circle-stroke-color": "#ffffff",
+          "circle-stroke-width": 2,
+        },
+      });
+      for (const layer of ["reaches", "nodes", "outfalls"]) {
+        map.on("mousemove", layer, (e) => {
+          const f = e.features?.[0];
+          if (!f) return;
+          map.getCanvas().style.cursor = "pointer";
+          popup.setLngLat(e.lngLat).setHTML(describe(f.properties as Record<string, unknown>)).addTo(map);
+        });
+        map.on("mouseleave", layer, () => {
+          map.getCanvas().style.cursor = "";
+          popup.remove();
+        });
+        map.on("click", layer, (e) => {
+          const f = e.features?.[0];
+          if (!f) return;
+          const p = f.properties as Record<string, unknown>;
+          onSelectRef.current?.({ kind: p.kind as MapSelection["kind"], id: String(p.id), properties: p });
+        });
+      }
+      setReady(true);
+    });
+    return () => {
+      popup.remove();
+      map.remove();
+      mapRef.current = null;
+    };
+  }, []);
+
+  useEffect(() => {
+    const map = mapRef.current;
+    if (!map || !ready) return;
+    // feature-state needs an id MapLibre can use: promote the feature id into a property
+    const withIds: FeatureCollection = {
+      ...data,
+      features: data.features.map((f) => ({ ...f, properties: { ...f.properties, fid: String(f.id ?? "") } })),
+    };
+    (map.getSource("basin") as maplibregl.GeoJSONSource).setData(withIds);
+    const b = bounds(data);
+    if (b) map.fitBounds(b, { padding: 40, duration: 0 });
+  }, [data, ready]);
+
+  useEffect(() => {
+    const map = mapRef.current;
+    if (!map || !ready) return;
+    const features: Feature[] = (highlight ?? []).map((geometry) => ({ type: "Feature", geometry, properties: {} }));
+    (map.getSource("problems") as maplibregl.GeoJSONSource).setData({ type: "FeatureCollection", features });
+  }, [highlight, ready]);
+
+  useEffect(() => {
+    const map = mapRef.current;
+    if (!map || !ready) return;
+    map.removeFeatureState({ source: "basin" });
+    if (selectedId) map.setFeatureState({ source: "basin", id: selectedId }, { selected: true });
+  }, [selectedId, ready, data]);
+
+  return (
+    <div
+      ref={container}
+      className="w-full overflow-hidden rounded-card border border-rule"
+      style={{ height }}
+      role="region"
+      aria-label="Basin map"
+      data-testid="basin-map"
+      data-ready={ready ? "true" : "false"}
+    />
+  );
+}

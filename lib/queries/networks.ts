@@ -1,0 +1,70 @@
+"use client";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import type { ImportReport } from "@/geo";
+import type { FieldMappingDto, ImportDto } from "@/lib/services/imports";
+import type { NetworkDto, NetworkSummaryDto } from "@/lib/services/networks";
+import type { FieldMappingSave, NetworkCommit, NetworkDraft } from "@/lib/validation/network";
+import { apiFetch } from "./fetcher";
+import { queryKeys } from "./keys";
+
+export const useNetworksQuery = (basinId: string) =>
+  useQuery({
+    queryKey: queryKeys.basins.networks(basinId),
+    queryFn: () => apiFetch<NetworkSummaryDto[]>(`/api/basins/${basinId}/networks`),
+  });
+
+export const useNetworkQuery = (basinId: string, networkId: string, enabled = true) =>
+  useQuery({
+    queryKey: queryKeys.basins.network(basinId, networkId),
+    queryFn: () => apiFetch<NetworkDto>(`/api/basins/${basinId}/networks/${networkId}`),
+    enabled,
+  });
+
+export const useMappingsQuery = (basinId: string) =>
+  useQuery({
+    queryKey: queryKeys.basins.mappings(basinId),
+    queryFn: () => apiFetch<FieldMappingDto[]>(`/api/basins/${basinId}/field-mappings`),
+  });
+
+export function useUploadMutation(basinId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ file, layer, epsg }: { file: File; layer: "reaches" | "dischargers"; epsg?: number }) => {
+      const form = new FormData();
+      form.set("file", file);
+      form.set("layer", layer);
+      if (epsg) form.set("epsg", String(epsg));
+      return apiFetch<ImportDto>(`/api/basins/${basinId}/imports`, { method: "POST", body: form });
+    },
+    onSuccess: () => qc.invalidateQueries({ queryKey: queryKeys.basins.imports(basinId) }),
+  });
+}
+
+export interface DraftResultDto {
+  report: ImportReport;
+  knownPermits: string[];
+}
+
+export const useValidateMutation = (basinId: string) =>
+  useMutation({
+    mutationFn: (draft: NetworkDraft) =>
+      apiFetch<DraftResultDto>(`/api/basins/${basinId}/networks/validate`, { method: "POST", json: draft }),
+  });
+
+export function useCommitMutation(basinId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: NetworkCommit) =>
+      apiFetch<NetworkSummaryDto>(`/api/basins/${basinId}/networks`, { method: "POST", json: input }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: queryKeys.basins.networks(basinId) }),
+  });
+}
+
+export function useSaveMappingMutation(basinId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: FieldMappingSave) =>
+      apiFetch<FieldMappingDto>(`/api/basins/${basinId}/field-mappings`, { method: "POST", json: input }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: queryKeys.basins.mappings(basinId) }),
+  });
+}

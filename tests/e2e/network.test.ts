@@ -1,0 +1,80 @@
+import { mkdirSync } from "node:fs";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { DEMO_USERS } from "@/db/seed/demo-data";
+import { launchBrowser, signInAs } from "./support/browser";
+
+const baseUrl = inject("baseUrl");
+const SHOTS = "test-results/screens";
+let browser: Browser;
+let page: Page;
+let basinUrl: string;
+
+beforeAll(async () => {
+  mkdirSync(SHOTS, { recursive: true });
+  browser = await launchBrowser();
+  page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+  const planner = DEMO_USERS.find((u) => u.key === "planner")!;
+  await signInAs(page, baseUrl, planner.email, planner.password);
+  const basins = (await (await page.request.get(`${baseUrl}/api/basins`)).json()) as { id: string; slug: string }[];
+  basinUrl = `${baseUrl}/basins/${basins.find((b) => b.slug === "tamsel-river")!.id}`;
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("the basin network", () => {
+  it("shows the demo network on the map with its reach and discharger tables", async () => {
+    await page.goto(`${basinUrl}/network`);
+    await page.locator('[data-testid="basin-map"][data-ready="true"]').waitFor();
+    expect(await page.getByTestId("reach-table").locator("tbody tr").count()).toBe(17);
+    expect(await page.getByTestId("outfall-table").locator("tbody tr").count()).toBe(5);
+    // the map draws on a WebGL canvas
+    expect(await page.locator('[data-testid="basin-map"] canvas').count()).toBe(1);
+    await page.getByTestId("reach-table").getByRole("row", { name: /^TR-03 / }).click();
+    expect(await page.getByTestId("reach-table").getByRole("row", { name: /^TR-03 / }).getAttribute("aria-selected")).toBe("true");
+    await page.screenshot({ path: `${SHOTS}/network-planner.png`, fullPage: true });
+    const download = page.waitForEvent("download");
+    await page.getByTestId("reach-table").locator("xpath=ancestor::section").getByRole("button", { name: "Download CSV" }).click();
+    const file = await download;
+    expect(file.suggestedFilename()).toBe("tamsel-river-network-v1-reaches.csv");
+  });
+
+  it("imports a new version through the wizard: upload, suggested fields, report, accept, save", async () => {
+    await page.goto(`${basinUrl}/network/import`);
+    await page.getByLabel("Reach lines").setInputFiles("tests/fixtures/demo/tamsel-reaches.zip");
+    await page.getByRole("button", { name: "Upload" }).first().click();
+    await page.getByTestId("reach-lines-uploaded").waitFor();
+    expect(await page.getByTestId("reach-lines-uploaded").textContent()).toMatch(/17 features.*UTM zone 16N/);
+    await page.getByLabel("Dischargers (optional)").setInputFiles("tests/fixtures/demo/tamsel-dischargers.csv");
+    await page.getByRole("button", { name: "Upload" }).nth(1).click();
+    await page.getByTestId("dischargers-optional-uploaded").waitFor();
+    expect(await page.getByLabel("Source field for Design flow").first().inputValue()).toBe("FLOW_CFS");
+    expect(await page.getByLabel("Unit of Design flow").first().inputValue()).toBe("cfs");
+
+    await page.getByRole("button", { name: "Check the network" }).click();
+    const report = page.getByTestId("validation-report");
+    await report.waitFor();
+    expect(await report.textContent()).toMatch(/0 error\(s\), 1 warning\(s\)/);
+    expect(await page.getByTestId("snapped-dischargers").locator("tbody tr").count()).toBe(5);
+    await page.screenshot({ path: `${SHOTS}/network-import-report.png`, fullPage: true });
+
+    const save = page.getByRole("button", { name: "Save network" });
+    expect(await save.isDisabled()).toBe(true);
+    await page.getByLabel(/I have read the report/).check();
+    await page.getByLabel("Note for this version (optional)").fill("Re-imported in the browser test");
+    await save.click();
+    await page.waitForURL(`${basinUrl}/network`);
+    await page.getByTestId("network-summary").getByText("v2").waitFor();
+  });
+
+  it("reports a bad upload in plain words and keeps nothing", async () => {
+    await page.goto(`${basinUrl}/network/import`);
+    await page.getByLabel("Reach lines").setInputFiles({ name: "reaches.zip", mimeType: "application/zip", buffer: Buffer.from("not a zip at all") });
+    await page.getByRole("button", { name: "Upload" }).first().click();
+    const alert = page.getByRole("alert").filter({ hasText: /zip/i });
+    await alert.waitFor();
+    const imports = (await (await page.request.get(`${basinUrl.replace("/basins/", "/api/basins/")}/imports`)).json()) as { fileName: string }[];
+    expect(imports.map((i) => i.fileName)).not.toContain("reaches.zip");
+  });
+});
