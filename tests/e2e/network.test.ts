@@ -1,6 +1,8 @@
 import { mkdirSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
+import { PNG } from "pngjs";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { MAP_COLOURS } from "@/components/map/map-style";
 import { DEMO_USERS } from "@/db/seed/demo-data";
 import { launchBrowser, signInAs } from "./support/browser";
 
@@ -23,14 +25,28 @@ afterAll(async () => {
   await browser?.close();
 });
 
+/** Pixels of the map close to a colour: proof the WebGL canvas really drew the layer. */
+async function pixelsNear(hex: string, tolerance = 40): Promise<number> {
+  const png = PNG.sync.read(await page.getByTestId("basin-map").screenshot());
+  const [r, g, b] = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16));
+  let n = 0;
+  for (let i = 0; i < png.data.length; i += 4) {
+    if (Math.abs(png.data[i] - r) + Math.abs(png.data[i + 1] - g) + Math.abs(png.data[i + 2] - b) < tolerance) n++;
+  }
+  return n;
+}
+
 describe("the basin network", () => {
   it("shows the demo network on the map with its reach and discharger tables", async () => {
     await page.goto(`${basinUrl}/network`);
     await page.locator('[data-testid="basin-map"][data-ready="true"]').waitFor();
     expect(await page.getByTestId("reach-table").locator("tbody tr").count()).toBe(17);
     expect(await page.getByTestId("outfall-table").locator("tbody tr").count()).toBe(5);
-    // the map draws on a WebGL canvas
+    // the map draws on a WebGL canvas: reach lines and outfalls in their colours
     expect(await page.locator('[data-testid="basin-map"] canvas').count()).toBe(1);
+    await page.waitForTimeout(500);
+    expect(await pixelsNear(MAP_COLOURS.reach)).toBeGreaterThan(800);
+    expect(await pixelsNear(MAP_COLOURS.outfall)).toBeGreaterThan(100);
     await page.getByTestId("reach-table").getByRole("row", { name: /^TR-03 / }).click();
     expect(await page.getByTestId("reach-table").getByRole("row", { name: /^TR-03 / }).getAttribute("aria-selected")).toBe("true");
     await page.screenshot({ path: `${SHOTS}/network-planner.png`, fullPage: true });
@@ -66,6 +82,9 @@ describe("the basin network", () => {
     await save.click();
     await page.waitForURL(`${basinUrl}/network`);
     await page.getByTestId("network-summary").getByText("v2").waitFor();
+    await page.locator('[data-testid="basin-map"][data-ready="true"]').waitFor();
+    await page.waitForTimeout(500);
+    expect(await pixelsNear(MAP_COLOURS.reach)).toBeGreaterThan(800);
   });
 
   it("reports a bad upload in plain words and keeps nothing", async () => {
