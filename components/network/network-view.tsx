@@ -6,7 +6,8 @@ import { CsvButton, downloadCsv, SortableTable } from "@/components/tables/sorta
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
-import { useNetworkQuery, useNetworksQuery } from "@/lib/queries/networks";
+import { ApiError } from "@/lib/queries/fetcher";
+import { useEditMutation, useNetworkQuery, useNetworksQuery } from "@/lib/queries/networks";
 import { outfallColumns, reachColumns } from "./network-columns";
 
 export function NetworkView({
@@ -24,8 +25,17 @@ export function NetworkView({
   const [networkId, setNetworkId] = useState("latest");
   const network = useNetworkQuery(basinId, networkId, (versions.data?.length ?? 0) > 0);
   const [selected, setSelected] = useState<string | null>(null);
-  const reaches = useMemo(() => reachColumns(unitSystem), [unitSystem]);
-  const outfalls = useMemo(() => outfallColumns(unitSystem), [unitSystem]);
+  const edit = useEditMutation(basinId);
+  const current = network.data && versions.data && network.data.id === versions.data[0]?.id ? network.data.id : null;
+  const editable = canImport && current !== null;
+  const reaches = useMemo(() => {
+    if (!editable) return reachColumns(unitSystem);
+    return reachColumns(unitSystem, (rowId, field, value) => saveEdit(edit.mutateAsync, current!, "reaches", rowId, field, value));
+  }, [unitSystem, editable, current, edit.mutateAsync]);
+  const outfalls = useMemo(() => {
+    if (!editable) return outfallColumns(unitSystem);
+    return outfallColumns(unitSystem, (rowId, field, value) => saveEdit(edit.mutateAsync, current!, "outfalls", rowId, field, value));
+  }, [unitSystem, editable, current, edit.mutateAsync]);
 
   if (versions.isPending) return <p className="text-ink-faint">Loading the network…</p>;
   if (versions.error) return <Notice tone="error">{versions.error.message}</Notice>;
@@ -104,6 +114,12 @@ export function NetworkView({
             selectedId={selected}
             onSelect={(s) => setSelected(`${s.kind}:${s.id}`)}
           />
+          {editable && (
+            <p className="text-sm text-ink-soft">
+              Click a value in the tables to correct it in this version; every change is recorded. Earlier versions are
+              read-only.
+            </p>
+          )}
           <section className="card">
             <div className="mb-3 flex items-center justify-between">
               <h2>Reaches</h2>
@@ -139,6 +155,22 @@ export function NetworkView({
       )}
     </div>
   );
+}
+
+async function saveEdit(
+  mutate: (v: { networkId: string; table: "reaches" | "outfalls"; rowId: string; patch: Record<string, unknown> }) => Promise<unknown>,
+  networkId: string,
+  table: "reaches" | "outfalls",
+  rowId: string,
+  field: string,
+  value: unknown,
+): Promise<string | null> {
+  try {
+    await mutate({ networkId, table, rowId, patch: { [field]: value } });
+    return null;
+  } catch (e) {
+    return e instanceof ApiError ? (e.details?.[0]?.message ?? e.message) : String(e);
+  }
 }
 
 function Stat({ label, value }: { label: string; value: string }) {

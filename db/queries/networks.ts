@@ -120,3 +120,35 @@ export const networkOutfalls = (db: Db, networkId: string) =>
     .where("o.network_id", "=", networkId)
     .orderBy("f.name")
     .execute();
+
+export async function findReach(db: Db, networkId: string, reachKey: string) {
+  return db.selectFrom("reaches").selectAll().where("network_id", "=", networkId).where("reach_key", "=", reachKey).executeTakeFirst();
+}
+
+export async function updateReach(
+  db: Db,
+  networkId: string,
+  reachKey: string,
+  patch: { name?: string | null; length_km?: number; attributes: Record<string, unknown> },
+): Promise<void> {
+  await db
+    .updateTable("reaches")
+    .set({ ...patch, attributes: JSON.stringify(patch.attributes) })
+    .where("network_id", "=", networkId)
+    .where("reach_key", "=", reachKey)
+    .execute();
+}
+
+export async function findOutfall(db: Db, networkId: string, facilityId: string) {
+  if (!isUuid(facilityId)) return undefined;
+  return db.selectFrom("outfalls").selectAll().where("network_id", "=", networkId).where("facility_id", "=", facilityId).executeTakeFirst();
+}
+
+export async function updateOutfallAttributes(db: Db, networkId: string, facilityId: string, attributes: Record<string, unknown>) {
+  await db
+    .updateTable("outfalls")
+    .set({ attributes: JSON.stringify(attributes) })
+    .where("network_id", "=", networkId)
+    .where("facility_id", "=", facilityId)
+    .execute();
+}

@@ -1,5 +1,5 @@
 import type { UnitSystem } from "@/db/schema";
-import { cToF, kgToLb, kmToMi, m3sToCfs, mPerSToFtPerS, mToFt } from "@/lib/model/units";
+import { cfsToM3s, cToF, fToC, ftPerSToMPerS, ftToM, kgToLb, kmToMi, lbToKg, m3sToCfs, miToKm, mPerSToFtPerS, mToFt } from "@/lib/model/units";
 
 /**
  * Display of SI quantities in the basin's unit system (SI or US customary).
@@ -10,17 +10,30 @@ export interface Quantity {
   unit: string;
 }
 
-type Kind = "length" | "flow" | "depth" | "velocity" | "temperature" | "load" | "distance";
+export type QuantityKind = "length" | "flow" | "depth" | "velocity" | "temperature" | "load" | "distance";
+type Kind = QuantityKind;
 
-const TABLE: Record<Kind, Record<UnitSystem, { unit: string; convert: (si: number) => number; digits: number }>> = {
-  length: { SI: { unit: "km", convert: (x) => x, digits: 2 }, US: { unit: "mi", convert: kmToMi, digits: 2 } },
-  distance: { SI: { unit: "m", convert: (x) => x, digits: 0 }, US: { unit: "ft", convert: mToFt, digits: 0 } },
-  flow: { SI: { unit: "m³/s", convert: (x) => x, digits: 3 }, US: { unit: "cfs", convert: m3sToCfs, digits: 2 } },
-  depth: { SI: { unit: "m", convert: (x) => x, digits: 2 }, US: { unit: "ft", convert: mToFt, digits: 2 } },
-  velocity: { SI: { unit: "m/s", convert: (x) => x, digits: 3 }, US: { unit: "ft/s", convert: mPerSToFtPerS, digits: 2 } },
-  temperature: { SI: { unit: "°C", convert: (x) => x, digits: 1 }, US: { unit: "°F", convert: cToF, digits: 1 } },
-  load: { SI: { unit: "kg/d", convert: (x) => x, digits: 1 }, US: { unit: "lb/d", convert: kgToLb, digits: 1 } },
+interface Rule {
+  unit: string;
+  convert: (si: number) => number;
+  back: (shown: number) => number;
+  digits: number;
+}
+const same = (x: number) => x;
+const si = (unit: string, digits: number): Rule => ({ unit, convert: same, back: same, digits });
+
+const TABLE: Record<Kind, Record<UnitSystem, Rule>> = {
+  length: { SI: si("km", 2), US: { unit: "mi", convert: kmToMi, back: miToKm, digits: 2 } },
+  distance: { SI: si("m", 0), US: { unit: "ft", convert: mToFt, back: ftToM, digits: 0 } },
+  flow: { SI: si("m³/s", 3), US: { unit: "cfs", convert: m3sToCfs, back: cfsToM3s, digits: 2 } },
+  depth: { SI: si("m", 2), US: { unit: "ft", convert: mToFt, back: ftToM, digits: 2 } },
+  velocity: { SI: si("m/s", 3), US: { unit: "ft/s", convert: mPerSToFtPerS, back: ftPerSToMPerS, digits: 2 } },
+  temperature: { SI: si("°C", 1), US: { unit: "°F", convert: cToF, back: fToC, digits: 1 } },
+  load: { SI: si("kg/d", 1), US: { unit: "lb/d", convert: kgToLb, back: lbToKg, digits: 1 } },
 };
+
+/** A value typed in the basin's unit, back to SI. */
+export const toSi = (kind: Kind, shown: number, system: UnitSystem): number => TABLE[kind][system].back(shown);
 
 export function quantity(kind: Kind, si: number, system: UnitSystem): Quantity {
   const t = TABLE[kind][system];

@@ -68,3 +68,13 @@ export function useSaveMappingMutation(basinId: string) {
     onSuccess: () => qc.invalidateQueries({ queryKey: queryKeys.basins.mappings(basinId) }),
   });
 }
+
+/** Inline edit of a reach or discharger in the newest network version. */
+export function useEditMutation(basinId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ networkId, table, rowId, patch }: { networkId: string; table: "reaches" | "outfalls"; rowId: string; patch: Record<string, unknown> }) =>
+      apiFetch<void>(`/api/basins/${basinId}/networks/${networkId}/${table}/${encodeURIComponent(rowId)}`, { method: "PATCH", json: patch }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: queryKeys.basins.networks(basinId) }),
+  });
+}

@@ -67,3 +67,44 @@ export const fieldMappingSaveSchema = z.discriminatedUnion("layer", [
   z.object({ layer: z.literal("dischargers"), name: z.string().trim().min(1).max(80), mapping: dischargerMappingSchema }),
 ]);
 export type FieldMappingSave = z.infer<typeof fieldMappingSaveSchema>;
+
+const positive = (what: string, max: number) =>
+  z.number({ message: `${what} must be a number` }).positive(`${what} must be above zero`).max(max, `${what} must be at most ${max}`);
+const nonNegative = (what: string, max: number) =>
+  z.number({ message: `${what} must be a number` }).min(0, `${what} cannot be negative`).max(max, `${what} must be at most ${max}`);
+
+/** Inline edit of a saved reach (SI values; the table converts from the basin's units). null clears a value. */
+export const reachEditSchema = z
+  .object({
+    name: z.string().trim().max(200).nullable(),
+    lengthKm: positive("Length (km)", 1000),
+    designFlowM3s: positive("Design flow (m³/s)", 100_000).nullable(),
+    velocityMps: positive("Velocity (m/s)", 10).nullable(),
+    depthM: positive("Depth (m)", 100).nullable(),
+    slope: nonNegative("Slope (m/m)", 1).nullable(),
+    temperatureC: z.number().min(0, "Temperature must be at least 0 °C").max(45, "Temperature must be at most 45 °C").nullable(),
+    elevationM: z.number().min(-500).max(6000).nullable(),
+    deoxygenationRatePerDay: nonNegative("k_d (1/d)", 20).nullable(),
+    reaerationRatePerDay: nonNegative("k_a (1/d)", 200).nullable(),
+    settlingRatePerDay: nonNegative("k_s (1/d)", 20).nullable(),
+    sodGPerM2PerDay: nonNegative("SOD (g/m²/d)", 50).nullable(),
+  })
+  .partial()
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: "Give at least one value to change" });
+export type ReachEdit = z.infer<typeof reachEditSchema>;
+
+/** Inline edit of a saved discharger's effluent (SI values). */
+export const outfallEditSchema = z
+  .object({
+    designFlowM3s: positive("Design flow (m³/s)", 1000).nullable(),
+    effluentBod5MgL: nonNegative("Effluent BOD5 (mg/L)", 100_000).nullable(),
+    effluentCbodUMgL: nonNegative("Effluent CBODu (mg/L)", 100_000).nullable(),
+    bottleRatePerDay: positive("Bottle rate (1/d)", 5).nullable(),
+    dissolvedOxygenMgL: nonNegative("Effluent DO (mg/L)", 20).nullable(),
+    temperatureC: z.number().min(0, "Temperature must be at least 0 °C").max(60, "Temperature must be at most 60 °C").nullable(),
+  })
+  .partial()
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: "Give at least one value to change" });
+export type OutfallEdit = z.infer<typeof outfallEditSchema>;

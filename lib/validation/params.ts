@@ -12,3 +12,5 @@ export const importParams = basinParams.extend({ importId: id("importId") });
 export const networkParams = basinParams.extend({
   networkId: z.union([z.literal("latest"), id("networkId")], { message: 'networkId must be a network id or "latest"' }),
 });
+export const reachParams = basinParams.extend({ networkId: id("networkId"), reachId: z.string().min(1).max(200) });
+export const outfallParams = basinParams.extend({ networkId: id("networkId"), facilityId: id("facilityId") });

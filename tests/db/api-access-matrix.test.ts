@@ -195,6 +195,32 @@ const TABLE: Record<string, Entry> = {
       },
     },
   },
+  "app/api/basins/[basinId]/networks/[networkId]/reaches/[reachId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/networks/[networkId]/reaches/[reachId]/route"),
+    methods: {
+      PATCH: {
+        expect: planners(204),
+        prepare: async (w) => ({ networkId: (await commitDemo(db, w.users.planner, w.basinId)).network.id }),
+        params: (w, p) => ({ basinId: w.basinId, networkId: p.networkId, reachId: "TR-03" }),
+        body: () => ({ depthM: 0.5 }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/networks/[networkId]/outfalls/[facilityId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/networks/[networkId]/outfalls/[facilityId]/route"),
+    methods: {
+      PATCH: {
+        expect: planners(204),
+        prepare: async (w) => {
+          const { network } = await commitDemo(db, w.users.planner, w.basinId);
+          const f = await db.selectFrom("outfalls").select("facility_id").where("network_id", "=", network.id).executeTakeFirstOrThrow();
+          return { networkId: network.id, facilityId: f.facility_id };
+        },
+        params: (w, p) => ({ basinId: w.basinId, networkId: p.networkId, facilityId: p.facilityId }),
+        body: () => ({ effluentBod5MgL: 25 }),
+      },
+    },
+  },
   "app/api/basins/[basinId]/field-mappings/route.ts": {
     load: () => import("@/app/api/basins/[basinId]/field-mappings/route"),
     methods: {

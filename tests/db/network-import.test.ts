@@ -298,3 +298,37 @@ describe("saved field mappings", () => {
     expect(named[0].mapping.contactEmail).toBeUndefined();
   });
 });
+
+describe("inline edits of the newest network version", () => {
+  it("change the stored SI value, are audited, and leave earlier versions as saved", async () => {
+    const world = await buildWorld(db);
+    const { commitDemo } = await import("../support/demo-network");
+    const v1 = (await commitDemo(db, world.users.planner, world.basinId)).network;
+    const patch = (await import("@/app/api/basins/[basinId]/networks/[networkId]/reaches/[reachId]/route")).PATCH;
+    const edit = (networkId: string, reachId: string, body: unknown) =>
+      callRoute(patch, "PATCH", { userId: world.users.planner.id, params: { basinId: world.basinId, networkId, reachId }, body });
+
+    expect((await edit(v1.id, "TR-03", { depthM: 0.75, name: "Tamsel River (edited)" })).status).toBe(204);
+    const row = await db.selectFrom("reaches").selectAll().where("network_id", "=", v1.id).where("reach_key", "=", "TR-03").executeTakeFirstOrThrow();
+    expect(row.attributes.depthM).toBe(0.75);
+    expect(row.name).toBe("Tamsel River (edited)");
+    const audit = await db.selectFrom("audit_events").selectAll().where("basin_id", "=", world.basinId).where("action", "=", "network.reach_edited").execute();
+    expect(audit).toHaveLength(1);
+
+    // clearing a value with null
+    expect((await edit(v1.id, "TR-03", { velocityMps: null })).status).toBe(204);
+    const cleared = await db.selectFrom("reaches").select("attributes").where("network_id", "=", v1.id).where("reach_key", "=", "TR-03").executeTakeFirstOrThrow();
+    expect(cleared.attributes).not.toHaveProperty("velocityMps");
+
+    const bad = await edit(v1.id, "TR-03", { depthM: -1 });
+    expect(bad.status).toBe(422);
+    expect(err(bad.json).details![0]).toMatchObject({ path: "depthM", message: "Depth (m) must be above zero" });
+    expect((await edit(v1.id, "TR-03", { colour: "blue" })).status).toBe(422);
+    expect((await edit(v1.id, "XX-99", { depthM: 1 })).status).toBe(404);
+
+    await commitDemo(db, world.users.planner, world.basinId);
+    const old = await edit(v1.id, "TR-03", { depthM: 0.9 });
+    expect(old.status).toBe(409);
+    expect(err(old.json).message).toMatch(/not the newest version/);
+  });
+});

@@ -47,7 +47,7 @@ describe("the basin network", () => {
     await page.waitForTimeout(500);
     expect(await pixelsNear(MAP_COLOURS.reach)).toBeGreaterThan(800);
     expect(await pixelsNear(MAP_COLOURS.outfall)).toBeGreaterThan(100);
-    await page.getByTestId("reach-table").getByRole("row", { name: /^TR-03 / }).click();
+    await page.getByTestId("reach-table").getByRole("row", { name: /^TR-03 / }).getByRole("cell").first().click();
     expect(await page.getByTestId("reach-table").getByRole("row", { name: /^TR-03 / }).getAttribute("aria-selected")).toBe("true");
     await page.screenshot({ path: `${SHOTS}/network-planner.png`, fullPage: true });
     const download = page.waitForEvent("download");
@@ -85,6 +85,21 @@ describe("the basin network", () => {
     await page.locator('[data-testid="basin-map"][data-ready="true"]').waitFor();
     await page.waitForTimeout(500);
     expect(await pixelsNear(MAP_COLOURS.reach)).toBeGreaterThan(800);
+  });
+
+  it("corrects a value inline in the newest version, refusing a bad one with the field's message", async () => {
+    await page.goto(`${basinUrl}/network`);
+    const table = page.getByTestId("reach-table");
+    await table.waitFor();
+    await table.getByRole("button", { name: "Edit Depth (m) of TR-03" }).click();
+    const input = table.getByRole("textbox", { name: "Depth (m) of TR-03" });
+    await input.fill("-1");
+    await input.press("Enter");
+    await table.getByText("Depth (m) must be above zero").waitFor();
+    await input.fill("0.5");
+    await input.press("Enter");
+    await table.getByRole("button", { name: "Edit Depth (m) of TR-03" }).filter({ hasText: "0.50" }).waitFor();
+    await page.screenshot({ path: `${SHOTS}/network-inline-edit.png` });
   });
 
   it("reports a bad upload in plain words and keeps nothing", async () => {

@@ -1,0 +1,91 @@
+import { sql } from "kysely";
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import {
+  findNetwork,
+  findOutfall,
+  findReach,
+  latestNetworkId,
+  updateOutfallAttributes,
+  updateReach,
+} from "@/db/queries/networks";
+import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { conflict, notFound } from "@/lib/errors";
+import type { OutfallEdit, ReachEdit } from "@/lib/validation/network";
+
+/** Apply a patch where null removes a value. */
+function merge(attributes: Record<string, unknown>, patch: Record<string, unknown>): Record<string, unknown> {
+  const out = { ...attributes };
+  for (const [k, v] of Object.entries(patch)) {
+    if (v === null) delete out[k];
+    else out[k] = v;
+  }
+  return out;
+}
+
+/** Only the newest version takes edits; earlier versions stay as they were saved. */
+async function editableNetwork(db: Db, basinId: string, networkId: string) {
+  await sql`select id from networks where id = ${networkId} for update`.execute(db);
+  const network = await findNetwork(db, basinId, networkId);
+  if (!network) throw notFound("Network");
+  if ((await latestNetworkId(db, basinId)) !== network.id) {
+    throw conflict(`Network v${network.version} is not the newest version; earlier versions are kept as they were saved`);
+  }
+  return network;
+}
+
+export async function editReach(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  networkId: string,
+  reachId: string,
+  edit: ReachEdit,
+): Promise<void> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  await db.transaction().execute(async (trx) => {
+    const network = await editableNetwork(trx, basin.id, networkId);
+    const reach = await findReach(trx, network.id, reachId);
+    if (!reach) throw notFound(`Reach ${reachId}`);
+    const { name, lengthKm, ...rest } = edit;
+    const attributes = merge(reach.attributes, { ...rest, ...(name !== undefined ? { name } : {}), ...(lengthKm !== undefined ? { lengthKm } : {}) });
+    await updateReach(trx, network.id, reachId, {
+      ...(name !== undefined ? { name } : {}),
+      ...(lengthKm !== undefined ? { length_km: lengthKm } : {}),
+      attributes,
+    });
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "network.reach_edited",
+      targetType: "reach",
+      targetId: `${network.id}/${reachId}`,
+      details: { version: network.version, reach: reachId, before: reach.attributes, change: edit },
+    });
+  });
+}
+
+export async function editOutfall(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  networkId: string,
+  facilityId: string,
+  edit: OutfallEdit,
+): Promise<void> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  await db.transaction().execute(async (trx) => {
+    const network = await editableNetwork(trx, basin.id, networkId);
+    const outfall = await findOutfall(trx, network.id, facilityId);
+    if (!outfall) throw notFound("Discharger in this network");
+    await updateOutfallAttributes(trx, network.id, facilityId, merge(outfall.attributes, edit));
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "network.discharger_edited",
+      targetType: "facility",
+      targetId: facilityId,
+      details: { version: network.version, before: outfall.attributes, change: edit },
+    });
+  });
+}
