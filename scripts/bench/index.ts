@@ -3,6 +3,8 @@
  *   1. Model run on seeded synthetic dendritic networks of 1k and 10k reaches.
  *   2. The same network through an ODE integrator (odex) at equal accuracy: the ratio.
  *   3. Allocation with 50/200/500 dischargers on 10k reaches vs HiGHS on the full LP.
+ *   4. GIS import of a synthetic 10k-reach zipped shapefile with 1k dischargers
+ *      (parse + reprojection + topology + snapping); target ≤ 3 s.
  * Targets (issue 3): 10k-reach run ≤ 20 ms; ≥ 100× faster than the ODE integrator;
  * 500-discharger allocation ≤ 2 s and no slower than HiGHS on the full LP.
  * Options: `npm run bench -- --quick` skips the 10k ODE comparison and the 500-discharger case.
@@ -10,6 +12,7 @@
 import { runModelBench } from "./run-bench";
 import { odeBench } from "./ode-bench";
 import { allocationBench } from "./allocation-bench";
+import { geoImportBench } from "./geo-import";
 
 const quick = process.argv.includes("--quick");
 
@@ -20,6 +23,7 @@ async function main() {
   odeBench(1000);
   if (!quick) odeBench(10_000);
   for (const dischargers of quick ? [50, 200] : [50, 200, 500]) await allocationBench(10_000, dischargers);
+  await geoImportBench(10_000, 1000);
 }
 
 main().catch((e: unknown) => {
