@@ -5,7 +5,7 @@ const config = [
   ...nextVitals,
   ...nextTs,
   {
-    ignores: [".next/**", "node_modules/**", ".data/**", "next-env.d.ts", "test-results/**", "coverage/**"],
+    ignores: [".next/**", ".next-*/**", "node_modules/**", ".data/**", "next-env.d.ts", "test-results/**", "coverage/**"],
   },
   {
     rules: {
