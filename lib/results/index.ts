@@ -1,0 +1,10 @@
+/** Pure helpers behind the results views (DO map, profile, tables, exports). */
+export * from "./do-scale";
+export * from "./path";
+export * from "./profile-series";
+export * from "./line-cut";
+export * from "./results-geojson";
+export * from "./caution";
+export * from "./csv-rows";
+export * from "./reach-rows";
+export * from "./compare";

@@ -1,0 +1,102 @@
+import type { UnitSystem } from "@/db/schema";
+import { kmToMi } from "@/lib/model/units";
+import type { RunResult } from "@/lib/model/network/run";
+import type { ModelFile } from "@/lib/model/types";
+import { pathToOutlet } from "./path";
+
+export type DistanceUnit = "km" | "mi";
+
+/** km or mi for the basin's unit system. */
+export const distanceUnit = (system: UnitSystem): DistanceUnit => (system === "US" ? "mi" : "km");
+const toUnit = (km: number, unit: DistanceUnit) => (unit === "mi" ? kmToMi(km) : km);
+
+export interface SeriesPoint {
+  reach: string;
+  /** km from the reach head (model output). */
+  km: number;
+  /** Distance from the head of the path, in the series' unit. */
+  distance: number;
+  /** Distance to the outlet, in the series' unit. */
+  to_outlet: number;
+  t_day: number;
+  /** DO as computed (may be below zero). */
+  do_mg_l: number;
+  /** DO for drawing: never below zero. */
+  do_shown_mg_l: number;
+  anoxic: boolean;
+  do_sat_mg_l: number;
+  criterion_mg_l: number;
+}
+
+export interface SeriesMarker {
+  reach: string;
+  km: number;
+  distance: number;
+}
+
+export interface ProfileSeries {
+  unit: DistanceUnit;
+  path: string[];
+  criterion_mg_l: number;
+  /** Where each reach of the path starts and ends on the distance axis. */
+  reaches: Array<{ id: string; from: number; to: number }>;
+  points: SeriesPoint[];
+  dischargers: Array<SeriesMarker & { id: string }>;
+  criticals: Array<SeriesMarker & { do_mg_l: number; do_shown_mg_l: number; anoxic: boolean; below: boolean }>;
+  /** Length of the path, in the series' unit. */
+  length: number;
+}
+
+/**
+ * DO versus distance along the path from `startReach` to the outlet: every profile point
+ * of every reach on the path, its saturation and the criterion, with the path's
+ * dischargers and each reach's exact critical point on the same distance axis
+ * (distance from the head of `startReach`, km or mi). Throws for an unknown reach or a
+ * reach missing from the run.
+ */
+export function profileSeries(run: RunResult, model: ModelFile, startReach: string, system: UnitSystem = "SI"): ProfileSeries {
+  const unit = distanceUnit(system);
+  const path = pathToOutlet(model, startReach);
+  const lengths = new Map(model.reaches.map((r) => [r.id, r.length_km]));
+  const results = new Map(run.reaches.map((r) => [r.id, r]));
+  const criterion = run.criterion_do_mg_l;
+  const out: ProfileSeries = { unit, path, criterion_mg_l: criterion, reaches: [], points: [], dischargers: [], criticals: [], length: 0 };
+  const totalKm = path.reduce((s, id) => s + (lengths.get(id) ?? 0), 0);
+  let headKm = 0;
+  for (const id of path) {
+    const r = results.get(id);
+    if (!r) throw new RangeError(`Reach "${id}" is not in the run result`);
+    const at = (km: number) => toUnit(headKm + km, unit);
+    const lengthKm = lengths.get(id) ?? 0;
+    out.reaches.push({ id, from: at(0), to: at(lengthKm) });
+    for (const p of r.points) {
+      out.points.push({
+        reach: id,
+        km: p.km,
+        distance: at(p.km),
+        to_outlet: toUnit(p.km_to_outlet, unit),
+        t_day: p.t_day,
+        do_mg_l: p.do_mg_l,
+        do_shown_mg_l: Math.max(0, p.do_mg_l),
+        anoxic: p.do_mg_l < 0,
+        do_sat_mg_l: p.do_sat_mg_l,
+        criterion_mg_l: criterion,
+      });
+    }
+    for (const d of model.dischargers) if (d.reach === id) out.dischargers.push({ id: d.id, reach: id, km: d.km, distance: at(d.km) });
+    const c = r.critical;
+    out.criticals.push({
+      reach: id,
+      km: c.km,
+      distance: at(c.km),
+      do_mg_l: c.do_mg_l,
+      do_shown_mg_l: Math.max(0, c.do_mg_l),
+      anoxic: c.do_mg_l < 0,
+      below: c.do_mg_l < criterion,
+    });
+    headKm += lengthKm;
+  }
+  out.dischargers.sort((a, b) => a.distance - b.distance);
+  out.length = toUnit(totalKm, unit);
+  return out;
+}
