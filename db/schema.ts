@@ -149,6 +149,43 @@ export interface OutfallsTable {
   source_index: number;
 }
 
+export type RunKind = "model" | "allocation";
+export type RunStatus = "queued" | "running" | "done" | "failed";
+
+export interface ScenariosTable {
+  id: Generated<string>;
+  basin_id: string;
+  network_id: string;
+  name: string;
+  description: Generated<string>;
+  inputs: Json<Record<string, unknown>>;
+  version: Generated<number>;
+  created_by: string | null;
+  created_at: CreatedAt;
+  updated_by: string | null;
+  updated_at: UpdatedAt;
+}
+
+export interface RunsTable {
+  id: Generated<string>;
+  basin_id: string;
+  scenario_id: string;
+  scenario_version: number;
+  kind: RunKind;
+  status: ColumnType<RunStatus, RunStatus | undefined, RunStatus>;
+  progress: ColumnType<number, number | undefined, number>;
+  error: string | null;
+  inputs_hash: string;
+  model_file: Json<Record<string, unknown>>;
+  model_version: string;
+  methods: Json<Record<string, unknown>>;
+  result: Json<Record<string, unknown> | null>;
+  created_by: string | null;
+  created_at: CreatedAt;
+  started_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  finished_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+}
+
 export interface Database {
   users: UsersTable;
   basins: BasinsTable;
@@ -162,6 +199,8 @@ export interface Database {
   network_nodes: NetworkNodesTable;
   reaches: ReachesTable;
   outfalls: OutfallsTable;
+  scenarios: ScenariosTable;
+  runs: RunsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

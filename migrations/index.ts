@@ -1,6 +1,7 @@
 import type { Migration, MigrationProvider } from "kysely";
 import * as m2026120100 from "./2026120100_foundation";
 import * as m2026120101 from "./2026120101_networks";
+import * as m2026120102 from "./2026120102_scenarios_runs";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -10,6 +11,7 @@ import * as m2026120101 from "./2026120101_networks";
 export const migrations: Record<string, Migration> = {
   "2026120100_foundation": m2026120100,
   "2026120101_networks": m2026120101,
+  "2026120102_scenarios_runs": m2026120102,
 };
 
 export const migrationProvider: MigrationProvider = {

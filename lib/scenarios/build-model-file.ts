@@ -1,0 +1,225 @@
+import { cbodToBod5Ratio, loadKgPerDay, type ConditionInput, type DischargerInput, type HeadwaterInput, type ModelFile, type ReachInput } from "@/lib/model";
+import type { ConditionInputs, ScenarioInputs } from "@/lib/validation/scenario";
+
+/** A saved network as the builder needs it (SI attributes as imported). */
+export interface NetworkForModel {
+  reaches: { id: string; downstreamId: string | null; lengthKm: number; attributes: Record<string, unknown> }[];
+  outfalls: { permitId: string; reachId: string; chainageKm: number; attributes: Record<string, unknown> }[];
+}
+
+/** A problem that stops a model file being built; `path` names the scenario or network field. */
+export class ScenarioInputError extends Error {
+  constructor(
+    readonly path: string,
+    message: string,
+  ) {
+    super(message);
+    this.name = "ScenarioInputError";
+  }
+}
+
+const num = (v: unknown): number | undefined => (typeof v === "number" && Number.isFinite(v) ? v : undefined);
+
+/** Default effluent DO when neither the network nor the scenario gives one (mg/L; common practice for secondary effluent). */
+export const DEFAULT_EFFLUENT_DO_MG_L = 2;
+/** Default bottle rate k1 (1/d), MODEL.md §1. */
+export const DEFAULT_BOTTLE_K_PER_DAY = 0.23;
+
+/**
+ * The natural (upstream of effluents) design flow added at the head of each
+ * reach under one condition: the reach's design flow minus that of the reaches
+ * flowing into it. Returns m³/s per reach id; warnings for negative increments.
+ */
+export function flowIncrements(network: NetworkForModel, condition: ConditionInputs, conditionPath: string, warnings: string[]): Map<string, number> {
+  const natural = new Map<string, number>();
+  for (const r of network.reaches) {
+    const q = condition.reachFlowsM3s[r.id] ?? (num(r.attributes.designFlowM3s) !== undefined ? num(r.attributes.designFlowM3s)! * condition.flowScale : undefined);
+    if (q === undefined) {
+      throw new ScenarioInputError(
+        `${conditionPath}.reachFlowsM3s.${r.id}`,
+        `Reach ${r.id} has no design flow: enter one in condition "${condition.name}" or in the network table`,
+      );
+    }
+    natural.set(r.id, q);
+  }
+  const upstreamSum = new Map<string, number>();
+  for (const r of network.reaches) {
+    if (r.downstreamId) upstreamSum.set(r.downstreamId, (upstreamSum.get(r.downstreamId) ?? 0) + natural.get(r.id)!);
+  }
+  const out = new Map<string, number>();
+  for (const r of network.reaches) {
+    const inc = natural.get(r.id)! - (upstreamSum.get(r.id) ?? 0);
+    if (inc < -1e-9) {
+      warnings.push(
+        `Condition "${condition.name}": the design flow of ${r.id} (${natural.get(r.id)!.toFixed(4)} m³/s) is below the sum of the reaches flowing into it; no inflow is added there`,
+      );
+    }
+    out.set(r.id, Math.max(0, inc));
+  }
+  return out;
+}
+
+function reachInput(r: NetworkForModel["reaches"][number], inputs: ScenarioInputs, condition: ConditionInputs): ReachInput {
+  const a = r.attributes;
+  const o = inputs.reachOverrides[r.id] ?? {};
+  const k = inputs.kinetics;
+  const velocity = num(a.velocityMps);
+  const depth = num(a.depthM);
+  if (velocity === undefined || depth === undefined) {
+    throw new ScenarioInputError(`network.reaches.${r.id}`, `Reach ${r.id} needs a velocity and a depth at design flow; add them in the network table`);
+  }
+  const givenKa = o.ka20PerDay ?? (o.kaMethod === undefined ? num(a.reaerationRatePerDay) : undefined);
+  const method = givenKa !== undefined ? "given" : (o.kaMethod ?? k.kaMethod);
+  if (method === "given" && givenKa === undefined) {
+    throw new ScenarioInputError(`inputs.reachOverrides.${r.id}.ka20PerDay`, `Reach ${r.id}: reaeration is "given" but no k_a value is entered`);
+  }
+  const temperature = condition.temperatureC ?? num(a.temperatureC);
+  return {
+    id: r.id,
+    downstream: r.downstreamId,
+    length_km: r.lengthKm,
+    velocity_m_s: velocity,
+    depth_m: depth,
+    kd20_per_day: o.kd20PerDay ?? num(a.deoxygenationRatePerDay) ?? k.kd20PerDay,
+    ...(givenKa !== undefined ? { ka20_per_day: givenKa } : {}),
+    ka_method: method,
+    ka_floor: k.kaFloor,
+    ...(num(a.slope) !== undefined ? { slope_m_m: num(a.slope) } : {}),
+    ks20_per_day: o.ks20PerDay ?? num(a.settlingRatePerDay) ?? k.ks20PerDay,
+    kn20_per_day: o.kn20PerDay ?? k.kn20PerDay,
+    sod20_g_m2_day: o.sod20GPerM2Day ?? num(a.sodGPerM2PerDay) ?? k.sod20GPerM2Day,
+    ...(temperature !== undefined ? { temperature_c: temperature } : {}),
+    ...(num(a.elevationM) !== undefined ? { elevation_m: num(a.elevationM) } : {}),
+  };
+}
+
+function dischargerInput(o: NetworkForModel["outfalls"][number], inputs: ScenarioInputs, warnings: string[]): DischargerInput {
+  const a = o.attributes;
+  const s = inputs.dischargers[o.permitId] ?? {};
+  const flow = s.designFlowM3s ?? num(a.designFlowM3s);
+  if (flow === undefined) {
+    throw new ScenarioInputError(`inputs.dischargers.${o.permitId}.designFlowM3s`, `Discharger ${o.permitId} has no design flow; enter one`);
+  }
+  const cbodu = s.cbodUMgL ?? (s.bod5MgL === undefined ? num(a.effluentCbodUMgL) : undefined);
+  const bod5 = cbodu === undefined ? (s.bod5MgL ?? num(a.effluentBod5MgL)) : undefined;
+  if (cbodu === undefined && bod5 === undefined) {
+    throw new ScenarioInputError(`inputs.dischargers.${o.permitId}.bod5MgL`, `Discharger ${o.permitId} has no effluent BOD5 or CBODu; enter today's effluent quality`);
+  }
+  const doMgL = s.doMgL ?? num(a.dissolvedOxygenMgL);
+  if (doMgL === undefined) warnings.push(`Discharger ${o.permitId}: no effluent DO given; ${DEFAULT_EFFLUENT_DO_MG_L} mg/L assumed`);
+  const temperature = s.temperatureC ?? num(a.temperatureC) ?? inputs.headwater.temperatureC;
+  return {
+    id: o.permitId,
+    reach: o.reachId,
+    km: o.chainageKm,
+    flow_m3_s: flow,
+    ...(cbodu !== undefined ? { cbodu_mg_l: cbodu } : { bod5_mg_l: bod5 }),
+    bottle_k_per_day: s.bottleKPerDay ?? num(a.bottleRatePerDay) ?? DEFAULT_BOTTLE_K_PER_DAY,
+    do_mg_l: doMgL ?? DEFAULT_EFFLUENT_DO_MG_L,
+    temperature_c: temperature,
+  };
+}
+
+function headwaters(network: NetworkForModel, inputs: ScenarioInputs, condition: ConditionInputs, increments: Map<string, number>): HeadwaterInput[] {
+  const hw = inputs.headwater;
+  return network.reaches
+    .filter((r) => (increments.get(r.id) ?? 0) > 0)
+    .map((r) => ({
+      reach: r.id,
+      flow_m3_s: increments.get(r.id)!,
+      cbodu_mg_l: hw.cbodUMgL,
+      ...(hw.nbodUMgL > 0 ? { nbodu_mg_l: hw.nbodUMgL } : {}),
+      do_mg_l: hw.doMgL,
+      temperature_c: condition.temperatureC ?? num(r.attributes.temperatureC) ?? hw.temperatureC,
+    }));
+}
+
+/**
+ * A discharger already cleaner than the technology floor cannot be given the
+ * floor as its minimum (today's load is the ceiling): its minimum becomes
+ * today's load, i.e. it keeps what it achieves now.
+ */
+function floorBounds(dischargers: DischargerInput[], floorBod5MgL: number | null, warnings: string[]) {
+  const bounds: Record<string, { min_kg_day: number; max_kg_day: number }> = {};
+  if (floorBod5MgL === null) return bounds;
+  for (const d of dischargers) {
+    const f = cbodToBod5Ratio(d.bottle_k_per_day ?? DEFAULT_BOTTLE_K_PER_DAY);
+    const cbodu = d.cbodu_mg_l ?? (d.bod5_mg_l ?? 0) * f;
+    const today = loadKgPerDay(d.flow_m3_s, cbodu);
+    if (loadKgPerDay(d.flow_m3_s, floorBod5MgL * f) > today) {
+      bounds[d.id] = { min_kg_day: today, max_kg_day: today };
+      warnings.push(`Discharger ${d.id} already discharges below the ${floorBod5MgL} mg/L BOD5 floor; its minimum is today's load`);
+    }
+  }
+  return bounds;
+}
+
+export interface BuiltModelFile {
+  file: ModelFile;
+  warnings: string[];
+}
+
+/**
+ * The model file (MODEL.md §8) for a scenario on a network: the first
+ * condition is the file's own; the others travel as allocation conditions
+ * (temperatures and headwater flows), so one LP covers them all. Natural
+ * design flow enters each reach's head as the increment over its upstream
+ * reaches, with the scenario's headwater quality. Throws ScenarioInputError
+ * naming the field at fault.
+ */
+export function buildModelFile(network: NetworkForModel, inputs: ScenarioInputs, basinCriterionMgL: number, withAllocation: boolean): BuiltModelFile {
+  if (network.reaches.length === 0) throw new ScenarioInputError("network", "The network has no reaches");
+  const warnings: string[] = [];
+  const [main, ...others] = inputs.conditions;
+  const mainIncrements = flowIncrements(network, main, "inputs.conditions.0", warnings);
+  const file: ModelFile = {
+    reaches: network.reaches.map((r) => reachInput(r, inputs, main)),
+    headwaters: headwaters(network, inputs, main, mainIncrements),
+    dischargers: network.outfalls.map((o) => dischargerInput(o, inputs, warnings)),
+    criterion_do_mg_l: inputs.criterionDoMgL ?? basinCriterionMgL,
+    step_km: inputs.stepKm,
+    kinetics: { deoxygenation_rule: inputs.kinetics.thetaRule },
+  };
+  if (withAllocation) {
+    const conditions: ConditionInput[] = others.map((c, i) => {
+      const inc = flowIncrements(network, c, `inputs.conditions.${i + 1}`, warnings);
+      const hws = headwaters(network, inputs, c, inc);
+      const sameReaches =
+        hws.length === file.headwaters.length && hws.every((h) => file.headwaters.some((m) => m.reach === h.reach));
+      if (!sameReaches) {
+        throw new ScenarioInputError(
+          `inputs.conditions.${i + 1}`,
+          `Condition "${c.name}" brings inflow in at other reaches than "${main.name}" does; give every condition flow entering at the same reaches`,
+        );
+      }
+      return {
+        name: c.name,
+        ...(c.temperatureC !== null ? { temperature_c: c.temperatureC } : {}),
+        headwaters: file.headwaters.map((m) => {
+          const h = hws.find((x) => x.reach === m.reach)!;
+          return { reach: m.reach, flow_m3_s: h.flow_m3_s, temperature_c: h.temperature_c };
+        }),
+      };
+    });
+    const al = inputs.allocation;
+    const bounds = floorBounds(file.dischargers, al.floorBod5MgL, warnings);
+    file.allocation = {
+      objective: al.objective,
+      ...(al.floorBod5MgL !== null ? { floor_bod5_mg_l: al.floorBod5MgL } : {}),
+      mos_do_mg_l: al.mosDoMgL,
+      mos_fraction: al.mosFraction,
+      reserve_fraction: al.reserveFraction,
+      ...(conditions.length ? { conditions } : {}),
+      ...(Object.keys(bounds).length ? { bounds } : {}),
+    };
+  }
+  return { file, warnings };
+}
+
+/** Single-condition model files, one per condition (for model runs on today's loads). */
+export function buildConditionFiles(network: NetworkForModel, inputs: ScenarioInputs, basinCriterionMgL: number): { name: string; file: ModelFile; warnings: string[] }[] {
+  return inputs.conditions.map((c) => {
+    const built = buildModelFile(network, { ...inputs, conditions: [c] }, basinCriterionMgL, false);
+    return { name: c.name, ...built };
+  });
+}

@@ -1,0 +1,83 @@
+import { describe, expect, it } from "vitest";
+import { readPointCsv, readShapefileZip, validateImport } from "@/geo";
+import { DEMO_DISCHARGER_MAPPING, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
+import { allocate, runModel } from "@/lib/model";
+import { buildConditionFiles, buildModelFile, ScenarioInputError, type NetworkForModel } from "@/lib/scenarios/build-model-file";
+import { parseModelFile } from "@/lib/validation/model-file";
+import { scenarioInputsSchema } from "@/lib/validation/scenario";
+import { fixtureBytes, fixtureText } from "../geo/helpers";
+
+async function demoNetwork(): Promise<NetworkForModel> {
+  const reaches = await readShapefileZip(fixtureBytes("demo/tamsel-reaches.zip"));
+  const dischargers = readPointCsv(fixtureText("demo/tamsel-dischargers.csv"), { kind: "latlon", latitude: "latitude", longitude: "longitude" });
+  const { network } = validateImport({ reaches, reachMapping: DEMO_REACH_MAPPING, dischargers, dischargerMapping: DEMO_DISCHARGER_MAPPING });
+  return {
+    reaches: network.reaches.map((r) => ({ id: r.id, downstreamId: r.downstreamReachId ?? null, lengthKm: r.lengthKm, attributes: { ...r.attributes } })),
+    outfalls: network.dischargers.map((d) => ({ permitId: d.id, reachId: d.reachId!, chainageKm: d.modelChainageKm ?? d.chainageKm!, attributes: { ...d.attributes } })),
+  };
+}
+const inputs = (patch: Record<string, unknown> = {}) => scenarioInputsSchema.parse({ conditions: [{ name: "7Q10, August" }], ...patch });
+
+describe("model file from a scenario and a network version", () => {
+  it("is a valid MODEL.md file whose outlet flow is the outlet reach's design flow plus every effluent", async () => {
+    const net = await demoNetwork();
+    const { file } = buildModelFile(net, inputs(), 5, false);
+    expect(parseModelFile(file).ok).toBe(true);
+    const run = runModel(file);
+    const outlet = net.reaches.find((r) => r.downstreamId === null)!;
+    const last = run.reaches.find((r) => r.id === outlet.id)!.points.at(-1)!;
+    // mass balance: natural design flow at the outlet reach + Σ effluent design flows (independent sum)
+    const effluent = net.outfalls.reduce((s, o) => s + (o.attributes.designFlowM3s as number), 0);
+    expect(last.flow_m3_s).toBeCloseTo((outlet.attributes.designFlowM3s as number) + effluent, 9);
+  });
+
+  it("scales every natural inflow with the condition's flow scale and honours per-reach flows", async () => {
+    const net = await demoNetwork();
+    const base = buildModelFile(net, inputs(), 5, false).file;
+    const half = buildModelFile(net, inputs({ conditions: [{ name: "half", flowScale: 0.5 }] }), 5, false).file;
+    for (const h of half.headwaters) {
+      expect(h.flow_m3_s).toBeCloseTo(base.headwaters.find((b) => b.reach === h.reach)!.flow_m3_s * 0.5, 12);
+    }
+    const given = buildModelFile(net, inputs({ conditions: [{ name: "given", reachFlowsM3s: { "TR-01": 0.05 } }] }), 5, false).file;
+    expect(given.headwaters.find((h) => h.reach === "TR-01")!.flow_m3_s).toBe(0.05);
+  });
+
+  it("uses the condition temperature everywhere and the scenario criterion over the basin's", async () => {
+    const net = await demoNetwork();
+    const { file } = buildModelFile(net, inputs({ criterionDoMgL: 6, conditions: [{ name: "hot", temperatureC: 28 }] }), 5, false);
+    expect(file.criterion_do_mg_l).toBe(6);
+    expect(new Set(file.reaches.map((r) => r.temperature_c))).toEqual(new Set([28]));
+    expect(new Set(file.headwaters.map((h) => h.temperature_c))).toEqual(new Set([28]));
+  });
+
+  it("carries further conditions into one allocation that the LP can solve", async () => {
+    const net = await demoNetwork();
+    const { file } = buildModelFile(net, inputs({ conditions: [{ name: "7Q10" }, { name: "warmer, lower", flowScale: 0.8, temperatureC: 27 }] }), 5, true);
+    expect(file.allocation?.conditions).toHaveLength(1);
+    const result = allocate(file);
+    expect(result.conditions.length).toBe(2);
+    expect(result.allocations).toHaveLength(5);
+  });
+
+  it("names the field when something the model needs is missing", async () => {
+    const net = await demoNetwork();
+    net.reaches[2].attributes = { ...net.reaches[2].attributes, velocityMps: undefined };
+    expect(() => buildModelFile(net, inputs(), 5, false)).toThrow(ScenarioInputError);
+    expect(() => buildModelFile(net, inputs(), 5, false)).toThrow(new RegExp(`Reach ${net.reaches[2].id} needs a velocity`));
+    const net2 = await demoNetwork();
+    delete net2.reaches[0].attributes.designFlowM3s;
+    try {
+      buildModelFile(net2, inputs(), 5, false);
+      expect.unreachable();
+    } catch (e) {
+      expect((e as ScenarioInputError).path).toBe(`inputs.conditions.0.reachFlowsM3s.${net2.reaches[0].id}`);
+    }
+  });
+
+  it("gives one single-condition file per condition for model runs", async () => {
+    const net = await demoNetwork();
+    const files = buildConditionFiles(net, inputs({ conditions: [{ name: "a" }, { name: "b", flowScale: 2 }] }), 5);
+    expect(files.map((f) => f.name)).toEqual(["a", "b"]);
+    expect(runModel(files[1].file).minimum.do_mg_l).toBeGreaterThan(runModel(files[0].file).minimum.do_mg_l);
+  });
+});
