@@ -174,12 +174,12 @@ export interface RunsTable {
   kind: RunKind;
   status: ColumnType<RunStatus, RunStatus | undefined, RunStatus>;
   progress: ColumnType<number, number | undefined, number>;
-  error: string | null;
+  error: ColumnType<string | null, string | null | undefined, string | null>;
   inputs_hash: string;
   model_file: Json<Record<string, unknown>>;
   model_version: string;
-  methods: Json<Record<string, unknown>>;
-  result: Json<Record<string, unknown> | null>;
+  methods: ColumnType<Record<string, unknown>, string | undefined, string>;
+  result: ColumnType<Record<string, unknown> | null, string | null | undefined, string | null>;
   created_by: string | null;
   created_at: CreatedAt;
   started_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;

@@ -23,11 +23,20 @@ npx tsx scripts/migrate.ts latest
 say "Loading the demo basin"
 npx tsx scripts/seed.ts
 
+if [ "$MODE" != "--dev" ]; then
+  say "Building"
+  npx next build
+fi
+
+say "Starting the background worker (model and allocation runs)"
+npx tsx scripts/worker.ts &
+WORKER_PID=$!
+trap 'kill "$WORKER_PID" 2>/dev/null || true' EXIT INT TERM
+
 if [ "$MODE" = "--dev" ]; then
   say "Serving (development) on http://127.0.0.1:$PORT"
-  exec npx next dev -H 127.0.0.1 -p "$PORT"
+  npx next dev -H 127.0.0.1 -p "$PORT"
+else
+  say "Serving on http://127.0.0.1:$PORT  (Ctrl-C stops the web server and the worker; 'npm run db -- stop' stops PostgreSQL)"
+  npx next start -H 127.0.0.1 -p "$PORT"
 fi
-say "Building"
-npx next build
-say "Serving on http://127.0.0.1:$PORT  (Ctrl-C stops the web server; 'npm run db -- stop' stops PostgreSQL)"
-exec npx next start -H 127.0.0.1 -p "$PORT"

@@ -14,3 +14,5 @@ export const networkParams = basinParams.extend({
 });
 export const reachParams = basinParams.extend({ networkId: id("networkId"), reachId: z.string().min(1).max(200) });
 export const outfallParams = basinParams.extend({ networkId: id("networkId"), facilityId: id("facilityId") });
+export const scenarioParams = basinParams.extend({ scenarioId: id("scenarioId") });
+export const runParams = basinParams.extend({ runId: id("runId") });

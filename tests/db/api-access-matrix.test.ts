@@ -4,6 +4,10 @@ import { fileURLToPath } from "node:url";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createDb, getDb, type Db } from "@/db/client";
 import { DEMO_DISCHARGER_MAPPING, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
+import { createRun, processRun } from "@/lib/services/runs";
+import { createScenario } from "@/lib/services/scenarios";
+import { scenarioCreateSchema } from "@/lib/validation/scenario";
+import { stopBoss } from "@/lib/jobs/queue";
 import { callRoute } from "../support/call-route";
 import { commitDemo, demoForm, uploadDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
@@ -53,6 +57,20 @@ const withDraft = async (w: World) => {
   const draft = await uploadDemo(db, w.users.planner, w.basinId);
   return { reachImportId: draft.reachImportId, dischargerImportId: draft.dischargerImportId! };
 };
+const SCENARIO = { name: "Matrix scenario", inputs: { conditions: [{ name: "7Q10" }] } };
+const withScenario = async (w: World) => {
+  await commitDemo(db, w.users.planner, w.basinId);
+  const s = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse(SCENARIO));
+  return { scenarioId: s.id };
+};
+const withRun = async (w: World) => {
+  const { scenarioId } = await withScenario(w);
+  const run = await createRun(db, w.users.planner, w.basinId, scenarioId, "model");
+  await processRun(db, run.id);
+  return { scenarioId, runId: run.id };
+};
+const scenarioOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, scenarioId: p.scenarioId });
+const runOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, runId: p.runId });
 const draftOf = (p: Record<string, string>) => ({
   reachImportId: p.reachImportId,
   reachMapping: DEMO_REACH_MAPPING,
@@ -232,6 +250,53 @@ const TABLE: Record<string, Entry> = {
       },
     },
   },
+  "app/api/basins/[basinId]/scenarios/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/scenarios/route"),
+    methods: {
+      GET: { expect: planners(200), params: basin },
+      POST: {
+        expect: planners(201),
+        prepare: async (w) => ({ networkId: (await commitDemo(db, w.users.planner, w.basinId)).network.id }),
+        params: basin,
+        body: () => SCENARIO,
+      },
+    },
+  },
+  "app/api/basins/[basinId]/scenarios/[scenarioId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/scenarios/[scenarioId]/route"),
+    methods: {
+      GET: { expect: planners(200), prepare: withScenario, params: scenarioOf },
+      PATCH: { expect: planners(200), prepare: withScenario, params: scenarioOf, body: () => ({ version: 1, description: "edited" }) },
+      DELETE: { expect: planners(204), prepare: withScenario, params: scenarioOf },
+    },
+  },
+  "app/api/basins/[basinId]/scenarios/[scenarioId]/duplicate/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/scenarios/[scenarioId]/duplicate/route"),
+    methods: { POST: { expect: planners(201), prepare: withScenario, params: scenarioOf, body: () => ({ name: "Copy" }) } },
+  },
+  "app/api/basins/[basinId]/scenarios/[scenarioId]/runs/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/scenarios/[scenarioId]/runs/route"),
+    methods: {
+      GET: { expect: planners(200), prepare: withScenario, params: scenarioOf },
+      POST: { expect: planners(202), prepare: withScenario, params: scenarioOf, body: () => ({ kind: "model" }) },
+    },
+  },
+  "app/api/basins/[basinId]/runs/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/runs/route"),
+    methods: { GET: { expect: planners(200), params: basin } },
+  },
+  "app/api/basins/[basinId]/runs/[runId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/runs/[runId]/route"),
+    methods: { GET: { expect: planners(200), prepare: withRun, params: runOf } },
+  },
+  "app/api/basins/[basinId]/runs/[runId]/status/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/runs/[runId]/status/route"),
+    methods: { GET: { expect: planners(200), prepare: withRun, params: runOf } },
+  },
+  "app/api/basins/[basinId]/runs/[runId]/model-file/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/runs/[runId]/model-file/route"),
+    methods: { GET: { expect: planners(200), prepare: withRun, params: runOf } },
+  },
   "app/api/users/route.ts": {
     load: () => import("@/app/api/users/route"),
     methods: {
@@ -259,6 +324,7 @@ beforeAll(() => {
   db = createDb(process.env.DATABASE_URL, 3);
 });
 afterAll(async () => {
+  await stopBoss();
   await db.destroy();
   await getDb().destroy();
 });

@@ -71,6 +71,15 @@ export default async function setup(project: TestProject) {
   let log = "";
   server.stdout?.on("data", (d) => (log += d));
   server.stderr?.on("data", (d) => (log += d));
+  // the background worker that takes runs off the job queue, as the start command runs it
+  const worker = spawn("npx", ["tsx", "scripts/worker.ts"], {
+    cwd: ROOT,
+    env: { ...process.env, DATABASE_URL: url },
+    stdio: ["ignore", "pipe", "pipe"],
+    detached: true,
+  });
+  worker.stdout?.on("data", (d) => (log += d));
+  worker.stderr?.on("data", (d) => (log += d));
   try {
     await waitForHealth(baseUrl, server, 60_000);
   } catch (error) {
@@ -81,10 +90,11 @@ export default async function setup(project: TestProject) {
   project.provide("e2eDatabaseUrl", url);
 
   return async () => {
-    // stop the server we started, by its process group id
-    if (server.pid) {
+    // stop the server and the worker we started, by their process group ids
+    for (const child of [server, worker]) {
+      if (!child.pid) continue;
       try {
-        process.kill(-server.pid, "SIGTERM");
+        process.kill(-child.pid, "SIGTERM");
       } catch {
         // already gone
       }

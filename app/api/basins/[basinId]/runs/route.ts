@@ -1,0 +1,7 @@
+import { route } from "@/lib/api/route";
+import { listRuns } from "@/lib/services/runs";
+import { basinParams } from "@/lib/validation/params";
+
+export const GET = route({ access: { basin: "scenario.read" }, params: basinParams }, ({ db, actor, params }) =>
+  listRuns(db, actor, params.basinId),
+);

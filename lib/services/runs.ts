@@ -1,0 +1,236 @@
+import { createHash } from "node:crypto";
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import { findDoneRunByHash, findRun, findScenario, insertRun, listRuns as listRunRows, runForWork, setRunState } from "@/db/queries/scenarios";
+import type { RunKind } from "@/db/schema";
+import { enqueueRun } from "@/lib/jobs/queue";
+import { allocate, ModelInputError, runModel, type AllocationResult, type ModelFile, type RunResult } from "@/lib/model";
+import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { AppError, notFound } from "@/lib/errors";
+import { buildConditionFiles, buildModelFile, ScenarioInputError } from "@/lib/scenarios/build-model-file";
+import { MODEL_VERSION, SATURATION_METHOD } from "@/lib/scenarios/model-version";
+import { scenarioInputsSchema } from "@/lib/validation/scenario";
+import { loadNetworkForModel } from "./scenarios";
+
+/** What a run computes: the model files it will use, as stored with it. */
+export interface RunInputs {
+  kind: RunKind;
+  /** Model runs: one file per condition; allocation runs: one file (further conditions inside). */
+  files: { name: string; file: ModelFile }[];
+  warnings: string[];
+}
+
+/** Key-sorted JSON, so equal inputs hash equally. */
+function stableJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(stableJson).join(",")}]`;
+  if (value && typeof value === "object") {
+    const entries = Object.entries(value as Record<string, unknown>).filter(([, v]) => v !== undefined);
+    entries.sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${stableJson(v)}`).join(",")}}`;
+  }
+  return JSON.stringify(value);
+}
+
+export const inputsHash = (inputs: RunInputs) =>
+  createHash("sha256").update(stableJson({ model: MODEL_VERSION, kind: inputs.kind, files: inputs.files })).digest("hex");
+
+export interface RunSummaryDto {
+  id: string;
+  scenarioId: string;
+  scenarioName: string;
+  scenarioVersion: number;
+  kind: RunKind;
+  status: string;
+  progress: number;
+  error: string | null;
+  inputsHash: string;
+  modelVersion: string;
+  methods: Record<string, unknown>;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+}
+
+export interface RunResultPayload {
+  warnings: string[];
+  /** Model runs: today's loads under each condition. Allocation runs: the first condition with the allocated loads. */
+  conditions: { name: string; run: RunResult }[];
+  allocation?: AllocationResult;
+}
+
+export interface RunDto extends RunSummaryDto {
+  result: RunResultPayload | null;
+  modelFiles: { name: string; file: ModelFile }[];
+}
+
+type RunRow = NonNullable<Awaited<ReturnType<typeof findRun>>>;
+const summary = (r: RunRow & { scenario_name: string }): RunSummaryDto => ({
+  id: r.id,
+  scenarioId: r.scenario_id,
+  scenarioName: r.scenario_name,
+  scenarioVersion: r.scenario_version,
+  kind: r.kind,
+  status: r.status,
+  progress: r.progress,
+  error: r.error,
+  inputsHash: r.inputs_hash,
+  modelVersion: r.model_version,
+  methods: r.methods,
+  createdAt: r.created_at.toISOString(),
+  startedAt: r.started_at?.toISOString() ?? null,
+  finishedAt: r.finished_at?.toISOString() ?? null,
+});
+
+/**
+ * Queue a model or allocation run of a scenario as it is now. The model
+ * files are built (and checked) here, stored with the run and hashed; a
+ * finished run with the same inputs is returned instead of computing again.
+ */
+export async function createRun(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  scenarioId: string,
+  kind: RunKind,
+): Promise<RunSummaryDto & { reused: boolean }> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.run");
+  const scenario = await findScenario(db, basin.id, scenarioId);
+  if (!scenario) throw notFound("Scenario");
+  const inputs = scenarioInputsSchema.parse(scenario.inputs);
+  const network = await loadNetworkForModel(db, scenario.network_id);
+  let runInputs: RunInputs;
+  try {
+    if (kind === "model") {
+      const files = buildConditionFiles(network, inputs, basin.do_criterion_mg_l);
+      runInputs = { kind, files: files.map(({ name, file }) => ({ name, file })), warnings: files.flatMap((f) => f.warnings) };
+    } else {
+      const built = buildModelFile(network, inputs, basin.do_criterion_mg_l, true);
+      runInputs = { kind, files: [{ name: inputs.conditions[0].name, file: built.file }], warnings: built.warnings };
+    }
+  } catch (error) {
+    if (error instanceof ScenarioInputError) {
+      throw new AppError("invalid", error.message, [{ path: error.path, message: error.message }]);
+    }
+    throw error;
+  }
+  const hash = inputsHash(runInputs);
+  const done = await findDoneRunByHash(db, basin.id, kind, hash);
+  if (done) {
+    const row = (await findRun(db, basin.id, done.id, false))!;
+    return { ...summary(row), reused: true };
+  }
+  const { id } = await db.transaction().execute(async (trx) => {
+    const run = await insertRun(trx, {
+      basinId: basin.id,
+      scenarioId: scenario.id,
+      scenarioVersion: scenario.version,
+      kind,
+      inputsHash: hash,
+      modelFile: runInputs,
+      modelVersion: MODEL_VERSION,
+      userId: actor!.id,
+    });
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "run.queued",
+      targetType: "run",
+      targetId: run.id,
+      details: { scenario: scenario.name, kind },
+    });
+    return run;
+  });
+  try {
+    await enqueueRun(id);
+  } catch (error) {
+    await setRunState(db, id, { status: "failed", error: "The job queue could not be reached; try again", finished: true });
+    console.error("[runs] enqueue failed", error);
+  }
+  return { ...summary((await findRun(db, basin.id, id, false))!), reused: false };
+}
+
+/** A readable reason for a failed run (never a stack trace). */
+export function failureReason(error: unknown): string {
+  if (error instanceof ModelInputError) return `${error.path.join(".")}: ${error.message}`;
+  if (error instanceof Error) return error.message;
+  return String(error);
+}
+
+/** Methods used, recorded with the run: reaeration formula per reach, θ rule, saturation. */
+function methodsOf(runs: RunResult[]): Record<string, unknown> {
+  const ka: Record<string, string[]> = {};
+  for (const run of runs) {
+    for (const r of run.reaches) ka[r.id] = [...new Set([...(ka[r.id] ?? []), ...r.segments.map((s) => s.ka_method)])];
+  }
+  return { reaeration: ka, deoxygenation_theta_rule: runs[0]?.kinetics.deoxygenation_rule, theta: runs[0]?.kinetics.theta, saturation: SATURATION_METHOD };
+}
+
+/** Replace each discharger's effluent by its allocated CBODu load (same flow). */
+export function withAllocatedLoads(file: ModelFile, allocation: AllocationResult): ModelFile {
+  const byId = new Map(allocation.allocations.map((a) => [a.id, a]));
+  return {
+    ...file,
+    dischargers: file.dischargers.map((d) => {
+      const a = byId.get(d.id);
+      if (!a) return d;
+      const { bod5_mg_l: _bod5, ...rest } = d;
+      return { ...rest, cbodu_mg_l: a.cbodu_mg_l };
+    }),
+  };
+}
+
+/** The job: compute a queued run and store its result or its failure reason. */
+export async function processRun(db: Db, runId: string): Promise<void> {
+  const run = await runForWork(db, runId);
+  if (!run || run.status === "done") return;
+  await setRunState(db, runId, { status: "running", progress: 0.05, started: true });
+  try {
+    const inputs = run.model_file as unknown as RunInputs;
+    let payload: RunResultPayload;
+    if (run.kind === "model") {
+      const conditions: RunResultPayload["conditions"] = [];
+      for (const [i, f] of inputs.files.entries()) {
+        conditions.push({ name: f.name, run: runModel(f.file) });
+        await setRunState(db, runId, { status: "running", progress: 0.05 + (0.9 * (i + 1)) / inputs.files.length });
+      }
+      payload = { warnings: inputs.warnings, conditions };
+    } else {
+      const { name, file } = inputs.files[0];
+      const allocation = allocate(file);
+      await setRunState(db, runId, { status: "running", progress: 0.7 });
+      const { allocation: _a, ...plain } = file;
+      const after = allocation.feasible ? runModel(withAllocatedLoads(plain, allocation)) : runModel(plain);
+      payload = { warnings: inputs.warnings, conditions: [{ name, run: after }], allocation };
+    }
+    await setRunState(db, runId, {
+      status: "done",
+      progress: 1,
+      result: payload,
+      methods: methodsOf(payload.conditions.map((c) => c.run)),
+      finished: true,
+    });
+  } catch (error) {
+    await setRunState(db, runId, { status: "failed", error: failureReason(error), finished: true });
+  }
+}
+
+export async function listRuns(db: Db, actor: Actor | null, basinId: string, scenarioId?: string): Promise<RunSummaryDto[]> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  return (await listRunRows(db, basin.id, scenarioId)).map(summary);
+}
+
+export async function getRun(db: Db, actor: Actor | null, basinId: string, runId: string): Promise<RunDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  const row = await findRun(db, basin.id, runId, true);
+  if (!row) throw notFound("Run");
+  const r = row as typeof row & { result: RunResultPayload | null; model_file: RunInputs };
+  return { ...summary(r), result: r.result, modelFiles: r.model_file.files };
+}
+
+/** Status only (for polling). */
+export async function getRunStatus(db: Db, actor: Actor | null, basinId: string, runId: string): Promise<RunSummaryDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  const row = await findRun(db, basin.id, runId, false);
+  if (!row) throw notFound("Run");
+  return summary(row);
+}

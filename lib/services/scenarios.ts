@@ -1,0 +1,142 @@
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import { findNetwork, latestNetworkId, networkOutfalls, networkReaches } from "@/db/queries/networks";
+import {
+  countRuns,
+  deleteScenario as deleteScenarioRow,
+  findScenario,
+  findScenarioByName,
+  insertScenario,
+  listScenarios as listScenarioRows,
+  updateScenarioIfVersion,
+} from "@/db/queries/scenarios";
+import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { AppError, conflict, notFound } from "@/lib/errors";
+import type { NetworkForModel } from "@/lib/scenarios/build-model-file";
+import { scenarioInputsSchema, type ScenarioCreate, type ScenarioInputs, type ScenarioUpdate } from "@/lib/validation/scenario";
+
+export interface ScenarioDto {
+  id: string;
+  name: string;
+  description: string;
+  networkId: string;
+  networkVersion: number;
+  inputs: ScenarioInputs;
+  version: number;
+  updatedAt: string;
+  updatedBy: string | null;
+}
+
+type Row = NonNullable<Awaited<ReturnType<typeof findScenario>>>;
+const dto = (s: Row): ScenarioDto => ({
+  id: s.id,
+  name: s.name,
+  description: s.description,
+  networkId: s.network_id,
+  networkVersion: s.network_version,
+  inputs: scenarioInputsSchema.parse(s.inputs),
+  version: s.version,
+  updatedAt: s.updated_at.toISOString(),
+  updatedBy: s.updated_by_name,
+});
+
+/** A saved network in the shape the model-file builder takes. */
+export async function loadNetworkForModel(db: Db, networkId: string): Promise<NetworkForModel> {
+  const [reaches, outfalls] = await Promise.all([networkReaches(db, networkId), networkOutfalls(db, networkId)]);
+  return {
+    reaches: reaches.map((r) => ({ id: r.reach_key, downstreamId: r.downstream_key, lengthKm: r.length_km, attributes: r.attributes })),
+    outfalls: outfalls.map((o) => ({ permitId: o.permit_id, reachId: o.reach_key, chainageKm: o.chainage_km, attributes: o.attributes })),
+  };
+}
+
+const nameTaken = (name: string) => conflict(`A scenario named "${name}" already exists in this basin`, [{ path: "name", message: "Already in use" }]);
+
+export async function listScenarios(db: Db, actor: Actor | null, basinId: string): Promise<ScenarioDto[]> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  return (await listScenarioRows(db, basin.id)).map(dto);
+}
+
+export async function getScenario(db: Db, actor: Actor | null, basinId: string, scenarioId: string): Promise<ScenarioDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  const s = await findScenario(db, basin.id, scenarioId);
+  if (!s) throw notFound("Scenario");
+  return dto(s);
+}
+
+export async function createScenario(db: Db, actor: Actor | null, basinId: string, input: ScenarioCreate): Promise<ScenarioDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.edit");
+  return db.transaction().execute(async (trx) => {
+    const networkId = input.networkId ?? (await latestNetworkId(trx, basin.id));
+    if (!networkId || !(await findNetwork(trx, basin.id, networkId))) {
+      throw new AppError("invalid", "Import a network into this basin before creating scenarios", [
+        { path: "networkId", message: "No such network in this basin" },
+      ]);
+    }
+    if (await findScenarioByName(trx, basin.id, input.name)) throw nameTaken(input.name);
+    const { id } = await insertScenario(trx, {
+      basinId: basin.id,
+      networkId,
+      name: input.name,
+      description: input.description,
+      inputs: input.inputs,
+      userId: actor!.id,
+    });
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "scenario.created", targetType: "scenario", targetId: id, details: { name: input.name } });
+    return dto((await findScenario(trx, basin.id, id))!);
+  });
+}
+
+/** Save an edit made from `version`; a stale version gets 409 and nothing is written. */
+export async function updateScenario(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  scenarioId: string,
+  input: ScenarioUpdate,
+): Promise<ScenarioDto> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.edit");
+  return db.transaction().execute(async (trx) => {
+    const current = await findScenario(trx, basin.id, scenarioId);
+    if (!current) throw notFound("Scenario");
+    if (input.name && input.name !== current.name && (await findScenarioByName(trx, basin.id, input.name))) throw nameTaken(input.name);
+    const ok = await updateScenarioIfVersion(trx, current.id, input.version, input, actor!.id);
+    if (!ok) {
+      throw conflict(
+        `Someone saved this scenario after you opened it (now version ${current.version}${current.updated_by_name ? `, by ${current.updated_by_name}` : ""}); reload it and apply your change again`,
+        [{ path: "version", message: `Stale: current version is ${current.version}` }],
+      );
+    }
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "scenario.updated",
+      targetType: "scenario",
+      targetId: current.id,
+      details: { fromVersion: input.version },
+    });
+    return dto((await findScenario(trx, basin.id, current.id))!);
+  });
+}
+
+export async function duplicateScenario(db: Db, actor: Actor | null, basinId: string, scenarioId: string, name: string): Promise<ScenarioDto> {
+  const source = await getScenario(db, actor, basinId, scenarioId);
+  return createScenario(db, actor, basinId, {
+    name,
+    description: source.description,
+    networkId: source.networkId,
+    inputs: source.inputs,
+  });
+}
+
+/** Delete a scenario that has never been run (runs keep their scenario for traceability). */
+export async function deleteScenario(db: Db, actor: Actor | null, basinId: string, scenarioId: string): Promise<void> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.edit");
+  await db.transaction().execute(async (trx) => {
+    const s = await findScenario(trx, basin.id, scenarioId);
+    if (!s) throw notFound("Scenario");
+    const runs = await countRuns(trx, s.id);
+    if (runs > 0) throw conflict(`"${s.name}" has ${runs} run(s) and is kept so they stay traceable; duplicate it to start afresh`);
+    await deleteScenarioRow(trx, s.id);
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "scenario.deleted", targetType: "scenario", targetId: s.id, details: { name: s.name } });
+  });
+}

@@ -1,0 +1,197 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as runRoute from "@/app/api/basins/[basinId]/runs/[runId]/route";
+import * as modelFileRoute from "@/app/api/basins/[basinId]/runs/[runId]/model-file/route";
+import * as scenarioRoute from "@/app/api/basins/[basinId]/scenarios/[scenarioId]/route";
+import * as scenarioRunsRoute from "@/app/api/basins/[basinId]/scenarios/[scenarioId]/runs/route";
+import * as scenariosRoute from "@/app/api/basins/[basinId]/scenarios/route";
+import * as duplicateRoute from "@/app/api/basins/[basinId]/scenarios/[scenarioId]/duplicate/route";
+import { createDb, getDb, type Db } from "@/db/client";
+import { getBoss, RUN_QUEUE, stopBoss } from "@/lib/jobs/queue";
+import { allocate, runModel, type ModelFile } from "@/lib/model";
+import { processRun, type RunDto, type RunSummaryDto } from "@/lib/services/runs";
+import type { ScenarioDto } from "@/lib/services/scenarios";
+import { callRoute } from "../support/call-route";
+import { commitDemo } from "../support/demo-network";
+import { buildWorld, type World } from "../support/world";
+
+let db: Db;
+let w: World;
+beforeAll(async () => {
+  db = createDb(process.env.DATABASE_URL, 3);
+  w = await buildWorld(db);
+  await commitDemo(db, w.users.planner, w.basinId);
+});
+afterAll(async () => {
+  await stopBoss();
+  await db.destroy();
+  await getDb().destroy();
+});
+
+type ErrorBody = { error: { code: string; message: string; details?: { path: string; message: string }[] } };
+const err = (json: unknown) => (json as ErrorBody).error;
+const as = (key: keyof World["users"]) => w.users[key].id;
+const scenarioBody = (name: string, extra: Record<string, unknown> = {}) => ({
+  name,
+  inputs: { conditions: [{ name: "7Q10, August", temperatureC: 26 }], ...extra },
+});
+async function createScenario(name: string, extra: Record<string, unknown> = {}) {
+  const res = await callRoute(scenariosRoute.POST, "POST", { userId: as("planner"), params: { basinId: w.basinId }, body: scenarioBody(name, extra) });
+  expect(res.status).toBe(201);
+  return res.json as ScenarioDto;
+}
+const queueRun = (scenarioId: string, kind: "model" | "allocation") =>
+  callRoute(scenarioRunsRoute.POST, "POST", { userId: as("planner"), params: { basinId: w.basinId, scenarioId }, body: { kind } });
+const readRun = async (runId: string) =>
+  (await callRoute(runRoute.GET, "GET", { userId: as("lead"), params: { basinId: w.basinId, runId } })).json as RunDto;
+
+describe("scenarios", () => {
+  it("are created on the newest network with defaults filled in, and read back", async () => {
+    const s = await createScenario("Base case");
+    expect(s.version).toBe(1);
+    expect(s.networkVersion).toBe(1);
+    expect(s.inputs.kinetics.kd20PerDay).toBe(0.3);
+    expect(s.inputs.allocation.floorBod5MgL).toBe(30);
+  });
+
+  it("catch concurrent edits: the second save from the same version gets 409 and nothing is lost", async () => {
+    const s = await createScenario("Concurrent");
+    const patch = (userId: string, body: unknown) =>
+      callRoute(scenarioRoute.PATCH, "PATCH", { userId, params: { basinId: w.basinId, scenarioId: s.id }, body });
+    const first = await patch(as("planner"), { version: 1, description: "first editor" });
+    expect(first.status).toBe(200);
+    expect((first.json as ScenarioDto).version).toBe(2);
+    const second = await patch(as("lead"), { version: 1, description: "second editor" });
+    expect(second.status).toBe(409);
+    expect(err(second.json).message).toMatch(/after you opened it/);
+    const now = (await callRoute(scenarioRoute.GET, "GET", { userId: as("lead"), params: { basinId: w.basinId, scenarioId: s.id } })).json as ScenarioDto;
+    expect(now.description).toBe("first editor");
+    expect(now.version).toBe(2);
+  });
+
+  it("refuse bad inputs naming the field", async () => {
+    const res = await callRoute(scenariosRoute.POST, "POST", {
+      userId: as("planner"),
+      params: { basinId: w.basinId },
+      body: scenarioBody("Bad", { kinetics: { kd20PerDay: -1 } }),
+    });
+    expect(res.status).toBe(422);
+    expect(err(res.json).details![0].path).toBe("inputs.kinetics.kd20PerDay");
+    const noConditions = await callRoute(scenariosRoute.POST, "POST", {
+      userId: as("planner"),
+      params: { basinId: w.basinId },
+      body: { name: "None", inputs: { conditions: [] } },
+    });
+    expect(err(noConditions.json).details![0].path).toBe("inputs.conditions");
+  });
+
+  it("duplicate, and delete only while never run", async () => {
+    const s = await createScenario("Original");
+    const dup = await callRoute(duplicateRoute.POST, "POST", {
+      userId: as("planner"),
+      params: { basinId: w.basinId, scenarioId: s.id },
+      body: { name: "Original (copy)" },
+    });
+    expect(dup.status).toBe(201);
+    expect((dup.json as ScenarioDto).inputs).toEqual(s.inputs);
+    const again = await callRoute(duplicateRoute.POST, "POST", {
+      userId: as("planner"),
+      params: { basinId: w.basinId, scenarioId: s.id },
+      body: { name: "Original (copy)" },
+    });
+    expect(again.status).toBe(409);
+    const del = (scenarioId: string) => callRoute(scenarioRoute.DELETE, "DELETE", { userId: as("planner"), params: { basinId: w.basinId, scenarioId } });
+    expect((await del((dup.json as ScenarioDto).id)).status).toBe(204);
+    await queueRun(s.id, "model");
+    const kept = await del(s.id);
+    expect(kept.status).toBe(409);
+    expect(err(kept.json).message).toMatch(/traceable/);
+  });
+});
+
+describe("runs", () => {
+  it("a model run stores its inputs, hash, methods and the same result as the model run directly", async () => {
+    const s = await createScenario("Model run");
+    const queued = await queueRun(s.id, "model");
+    expect(queued.status).toBe(202);
+    const summary = queued.json as RunSummaryDto;
+    expect(summary.status).toBe("queued");
+    expect(summary.inputsHash).toMatch(/^[0-9a-f]{64}$/);
+    await processRun(db, summary.id);
+    const run = await readRun(summary.id);
+    expect(run.status).toBe("done");
+    expect(run.progress).toBe(1);
+    expect(run.result!.conditions[0].run).toEqual(runModel(run.modelFiles[0].file));
+    expect(run.methods).toMatchObject({ deoxygenation_theta_rule: "constant", saturation: expect.stringMatching(/Benson/) });
+    expect(Object.keys(run.methods.reaeration as object)).toHaveLength(17);
+
+    // the same inputs are served from the stored run
+    const again = await queueRun(s.id, "model");
+    expect(again.status).toBe(200);
+    expect((again.json as RunSummaryDto & { reused: boolean }).id).toBe(summary.id);
+
+    // the exported model file reproduces the stored result
+    const exported = await callRoute(modelFileRoute.GET, "GET", { userId: as("planner"), params: { basinId: w.basinId, runId: summary.id } });
+    expect(exported.headers.get("content-disposition")).toMatch(/attachment/);
+    expect(runModel(exported.json as ModelFile)).toEqual(run.result!.conditions[0].run);
+  });
+
+  it("an allocation run stores the LP result and DO with the allocated loads", async () => {
+    const s = await createScenario("Allocation run", { allocation: { objective: "equal-percent" } });
+    const summary = (await queueRun(s.id, "allocation")).json as RunSummaryDto;
+    await processRun(db, summary.id);
+    const run = await readRun(summary.id);
+    expect(run.status).toBe("done");
+    expect(run.result!.allocation).toEqual(allocate(run.modelFiles[0].file));
+    if (run.result!.allocation!.feasible) {
+      expect(run.result!.conditions[0].run.minimum.do_mg_l).toBeGreaterThanOrEqual(run.modelFiles[0].file.criterion_do_mg_l - 1e-6);
+    }
+  });
+
+  it("a failed run surfaces a readable reason", async () => {
+    const s = await createScenario("Impossible floor", { allocation: { objective: "max-total", floorBod5MgL: 30, mosDoMgL: 4.9 } });
+    const summary = (await queueRun(s.id, "allocation")).json as RunSummaryDto;
+    // break the stored inputs the way a bad file would: a discharger beyond its reach
+    const row = await db.selectFrom("runs").select("model_file").where("id", "=", summary.id).executeTakeFirstOrThrow();
+    const inputs = row.model_file as unknown as { files: { file: ModelFile }[] };
+    inputs.files[0].file.dischargers[0].km = 999;
+    await db.updateTable("runs").set({ model_file: JSON.stringify(inputs) }).where("id", "=", summary.id).execute();
+    await processRun(db, summary.id);
+    const run = await readRun(summary.id);
+    expect(run.status).toBe("failed");
+    expect(run.error).toMatch(/^dischargers\.0\.km: /);
+    expect(run.error).not.toMatch(/\n\s+at /);
+  });
+
+  it("a scenario the network cannot support is refused before queueing, naming the field", async () => {
+    const other = await buildWorld(db);
+    const { network } = await commitDemo(db, other.users.planner, other.basinId);
+    await db.updateTable("reaches").set({ attributes: JSON.stringify({ velocityMps: 0.2 }) }).where("reach_key", "=", "SR-01").where("network_id", "=", network.id).execute();
+    const created = await callRoute(scenariosRoute.POST, "POST", { userId: other.users.planner.id, params: { basinId: other.basinId }, body: scenarioBody("No depth") });
+    const res = await callRoute(scenarioRunsRoute.POST, "POST", {
+      userId: other.users.planner.id,
+      params: { basinId: other.basinId, scenarioId: (created.json as ScenarioDto).id },
+      body: { kind: "model" },
+    });
+    expect(res.status).toBe(422);
+    expect(err(res.json).details![0].path).toMatch(/SR-01/);
+    expect(await db.selectFrom("runs").select("id").where("basin_id", "=", other.basinId).execute()).toEqual([]);
+  });
+
+  it("runs off the request thread on the PostgreSQL job queue", async () => {
+    const boss = await getBoss(process.env.DATABASE_URL);
+    await boss.work<{ runId: string }>(RUN_QUEUE, { pollingIntervalSeconds: 0.5 }, async (jobs) => {
+      for (const job of jobs) await processRun(db, job.data.runId);
+    });
+    const s = await createScenario("Queued", { stepKm: 0.25 });
+    const queued = await queueRun(s.id, "model");
+    expect(queued.status, JSON.stringify(queued.json)).toBe(202);
+    const summary = queued.json as RunSummaryDto;
+    let run = await readRun(summary.id);
+    for (let i = 0; i < 100 && run.status !== "done" && run.status !== "failed"; i++) {
+      await new Promise((r) => setTimeout(r, 200));
+      run = await readRun(summary.id);
+    }
+    expect(run.status).toBe("done");
+    expect(run.startedAt).not.toBeNull();
+  });
+});
