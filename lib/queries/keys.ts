@@ -12,6 +12,10 @@ export const queryKeys = {
     network: (basinId: string, networkId: string) => ["basins", basinId, "networks", networkId] as const,
     imports: (basinId: string) => ["basins", basinId, "imports"] as const,
     mappings: (basinId: string) => ["basins", basinId, "field-mappings"] as const,
+    scenarios: (basinId: string) => ["basins", basinId, "scenarios"] as const,
+    scenario: (basinId: string, scenarioId: string) => ["basins", basinId, "scenarios", scenarioId] as const,
+    runs: (basinId: string) => ["basins", basinId, "runs"] as const,
+    run: (basinId: string, runId: string) => ["basins", basinId, "runs", runId] as const,
   },
   users: () => ["users"] as const,
 };

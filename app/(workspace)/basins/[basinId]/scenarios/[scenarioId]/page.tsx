@@ -1,0 +1,33 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { ScenarioEditor } from "@/components/scenarios/scenario-editor";
+import { Denied } from "@/components/ui/denied";
+import { getDb } from "@/db/client";
+import { basinPageAccess } from "@/lib/auth/page-access";
+import { AppError } from "@/lib/errors";
+import { getScenario } from "@/lib/services/scenarios";
+
+export const metadata: Metadata = { title: "Scenario" };
+
+export default async function ScenarioPage({ params }: { params: Promise<{ basinId: string; scenarioId: string }> }) {
+  const { basinId, scenarioId } = await params;
+  const access = await basinPageAccess(basinId, "scenario.read");
+  if (!access.ok) return <Denied message={access.message} />;
+  const scenario = await getScenario(getDb(), access.actor, access.basin.id, scenarioId).catch((e) => {
+    if (e instanceof AppError && e.status === 404) return null;
+    throw e;
+  });
+  if (!scenario) notFound();
+  return (
+    <div>
+      <h2 className="mb-4">{scenario.name}</h2>
+      <ScenarioEditor
+        basinId={access.basin.id}
+        scenario={scenario}
+        unitSystem={access.basin.unitSystem}
+        basinCriterion={access.basin.doCriterionMgL}
+        canEdit={await access.can("scenario.edit")}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,245 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import Link from "next/link";
+import { useState } from "react";
+import { useFieldArray, useForm, type Resolver } from "react-hook-form";
+import { z } from "zod";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import type { UnitSystem } from "@/db/schema";
+import { ApiError } from "@/lib/queries/fetcher";
+import { useScenarioQuery, useStartRunMutation, useUpdateScenarioMutation } from "@/lib/queries/scenarios";
+import type { ScenarioDto } from "@/lib/services/scenarios";
+import { OBJECTIVES, scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
+import { RunStarter } from "./run-starter";
+import { UnitField } from "./unit-field";
+
+const formSchema = z.object({
+  name: z.string().trim().min(1, "Give the scenario a name").max(120),
+  description: z.string().trim().max(2000),
+  inputs: scenarioInputsSchema,
+});
+type FormValues = z.infer<typeof formSchema>;
+
+const OBJECTIVE_LABELS: Record<(typeof OBJECTIVES)[number], string> = {
+  "max-total": "Most total load",
+  "min-removal": "Least total removal",
+  "equal-percent": "Equal percent removal",
+  "equal-concentration": "Equal effluent concentration",
+  "max-min-share": "Most even share",
+};
+const KA_LABELS: Record<string, string> = {
+  "depth-velocity": "Chosen by depth and velocity",
+  "oconnor-dobbins": "O'Connor–Dobbins",
+  churchill: "Churchill–Elmore–Buckingham",
+  "owens-gibbs": "Owens–Edwards–Gibbs",
+  "tsivoglou-neal": "Tsivoglou–Neal (needs slope)",
+};
+
+export function ScenarioEditor({
+  basinId,
+  scenario: initial,
+  unitSystem,
+  basinCriterion,
+  canEdit,
+}: {
+  basinId: string;
+  scenario: ScenarioDto;
+  unitSystem: UnitSystem;
+  basinCriterion: number;
+  canEdit: boolean;
+}) {
+  const query = useScenarioQuery(basinId, initial.id);
+  const scenario = query.data ?? initial;
+  const update = useUpdateScenarioMutation(basinId, initial.id);
+  const start = useStartRunMutation(basinId);
+  const [notice, setNotice] = useState<{ tone: "success" | "error"; text: string; stale?: boolean } | null>(null);
+  const form = useForm<FormValues>({
+    resolver: zodResolver(formSchema) as Resolver<FormValues>,
+    defaultValues: { name: scenario.name, description: scenario.description, inputs: scenario.inputs },
+  });
+  const { register, control, handleSubmit, formState, reset, watch, setValue } = form;
+  const conditions = useFieldArray({ control, name: "inputs.conditions" });
+  const errors = formState.errors;
+  const criterionOverride = watch("inputs.criterionDoMgL");
+
+  const save = handleSubmit(async (values) => {
+    setNotice(null);
+    try {
+      const saved = await update.mutateAsync({ version: scenario.version, ...values });
+      reset({ name: saved.name, description: saved.description, inputs: saved.inputs });
+      setNotice({ tone: "success", text: `Saved (version ${saved.version}).` });
+    } catch (e) {
+      if (e instanceof ApiError && e.status === 409) setNotice({ tone: "error", text: e.message, stale: true });
+      else setNotice({ tone: "error", text: e instanceof Error ? e.message : String(e) });
+    }
+  });
+
+  const reload = async () => {
+    const fresh = await query.refetch();
+    if (fresh.data) reset({ name: fresh.data.name, description: fresh.data.description, inputs: fresh.data.inputs });
+    setNotice(null);
+  };
+
+  const num = (label: string, name: Parameters<typeof register>[0], unit?: string, hint?: string) => (
+    <UnitField control={control} name={name} label={label} system={unitSystem} plainUnit={unit} hint={hint} />
+  );
+
+  return (
+    <form onSubmit={save} noValidate className="space-y-6" aria-label="Scenario">
+      {notice && (
+        <Notice tone={notice.tone}>
+          {notice.text}
+          {notice.stale && (
+            <Button variant="secondary" className="ml-3 px-2 py-1" onClick={reload}>
+              Reload the saved version
+            </Button>
+          )}
+        </Notice>
+      )}
+      <fieldset disabled={!canEdit} className="space-y-6">
+        <section className="card grid gap-4 md:grid-cols-2">
+          <Field label="Scenario name" error={errors.name?.message} {...register("name")} />
+          <Field label="Description" error={errors.description?.message} {...register("description")} />
+          <div>
+            <span className="field-label">DO criterion</span>
+            <label className="mb-2 flex items-center gap-2 text-sm">
+              <input
+                type="checkbox"
+                checked={criterionOverride === null}
+                onChange={(e) => setValue("inputs.criterionDoMgL", e.target.checked ? null : basinCriterion, { shouldDirty: true })}
+              />
+              Use the basin&apos;s criterion ({basinCriterion.toFixed(1)} mg/L)
+            </label>
+            {criterionOverride !== null && num("Criterion for this scenario", "inputs.criterionDoMgL", "mg/L")}
+          </div>
+          <UnitField control={control} name="inputs.stepKm" label="Profile spacing" kind="length" system={unitSystem} />
+        </section>
+
+        <section className="card space-y-3">
+          <div className="flex items-center justify-between">
+            <h2>Critical conditions</h2>
+            <Button
+              variant="secondary"
+              onClick={() => conditions.append({ name: `Condition ${conditions.fields.length + 1}`, flowScale: 1, reachFlowsM3s: {}, temperatureC: null })}
+              disabled={conditions.fields.length >= 6}
+            >
+              Add a condition
+            </Button>
+          </div>
+          <p className="text-sm text-ink-soft">
+            Design flows come from the network&apos;s reach table (its low-flow statistic, e.g. 7Q10), scaled here; a blank
+            temperature keeps each reach&apos;s own. An allocation keeps DO above the criterion under every condition at once.
+          </p>
+          {errors.inputs?.conditions?.message && <p className="field-error">{errors.inputs.conditions.message}</p>}
+          {conditions.fields.map((c, i) => (
+            <div key={c.id} className="grid items-end gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_1fr_1fr_auto]">
+              <Field label="Name" error={errors.inputs?.conditions?.[i]?.name?.message} {...register(`inputs.conditions.${i}.name`)} />
+              {num("Flow scale", `inputs.conditions.${i}.flowScale`, "× design flow")}
+              <UnitField
+                control={control}
+                name={`inputs.conditions.${i}.temperatureC`}
+                label="Design temperature"
+                kind="temperature"
+                system={unitSystem}
+                nullable
+              />
+              <Button variant="quiet" disabled={conditions.fields.length === 1} onClick={() => conditions.remove(i)}>
+                Remove
+              </Button>
+            </div>
+          ))}
+        </section>
+
+        <section className="card grid gap-4 md:grid-cols-3">
+          <h2 className="md:col-span-3">Kinetics (at 20 °C, base e)</h2>
+          {num("Deoxygenation k_d where the network gives none", "inputs.kinetics.kd20PerDay", "1/d")}
+          <div>
+            <label htmlFor="ka-method" className="field-label">
+              Reaeration where the network gives no k_a
+            </label>
+            <select id="ka-method" className="field-input" {...register("inputs.kinetics.kaMethod")}>
+              {Object.entries(KA_LABELS).map(([v, l]) => (
+                <option key={v} value={v}>
+                  {l}
+                </option>
+              ))}
+            </select>
+            <label className="mt-2 flex items-center gap-2 text-sm">
+              <input type="checkbox" {...register("inputs.kinetics.kaFloor")} /> Never below 0.6/H
+            </label>
+          </div>
+          <div>
+            <label htmlFor="theta-rule" className="field-label">
+              Temperature correction of k_d
+            </label>
+            <select id="theta-rule" className="field-input" {...register("inputs.kinetics.thetaRule")}>
+              <option value="constant">θ = 1.047</option>
+              <option value="piecewise">1.135 below 20 °C, 1.056 to 30 °C, 1.047 above</option>
+            </select>
+          </div>
+          {num("Settling k_s", "inputs.kinetics.ks20PerDay", "1/d")}
+          {num("Sediment oxygen demand", "inputs.kinetics.sod20GPerM2Day", "g O₂/m²/d")}
+          {num("Nitrification k_n", "inputs.kinetics.kn20PerDay", "1/d")}
+        </section>
+
+        <section className="card grid gap-4 md:grid-cols-4">
+          <h2 className="md:col-span-4">Headwater and tributary water</h2>
+          {num("CBODu", "inputs.headwater.cbodUMgL", "mg/L")}
+          {num("NBODu", "inputs.headwater.nbodUMgL", "mg/L")}
+          {num("DO", "inputs.headwater.doMgL", "mg/L")}
+          <UnitField control={control} name="inputs.headwater.temperatureC" label="Temperature if none set" kind="temperature" system={unitSystem} />
+        </section>
+
+        <section className="card grid gap-4 md:grid-cols-3">
+          <h2 className="md:col-span-3">Allocation</h2>
+          <div>
+            <label htmlFor="objective" className="field-label">
+              Objective
+            </label>
+            <select id="objective" className="field-input" {...register("inputs.allocation.objective")}>
+              {OBJECTIVES.map((o) => (
+                <option key={o} value={o}>
+                  {OBJECTIVE_LABELS[o]}
+                </option>
+              ))}
+            </select>
+          </div>
+          <UnitField
+            control={control}
+            name="inputs.allocation.floorBod5MgL"
+            label="Technology floor, effluent BOD5"
+            plainUnit="mg/L"
+            system={unitSystem}
+            nullable
+            hint="e.g. 30 mg/L for secondary treatment; blank for none. Today's load is the ceiling."
+          />
+          {num("Margin of safety as DO", "inputs.allocation.mosDoMgL", "mg/L")}
+          {num("Margin of safety as a share of capacity", "inputs.allocation.mosFraction", "0–0.9")}
+          {num("Reserve capacity as a share", "inputs.allocation.reserveFraction", "0–0.9")}
+        </section>
+      </fieldset>
+
+      <div className="flex flex-wrap items-center gap-3">
+        {canEdit && (
+          <Button type="submit" disabled={update.isPending}>
+            {update.isPending ? "Saving…" : formState.isDirty ? "Save changes" : "Save"}
+          </Button>
+        )}
+        <span className="text-sm text-ink-faint">
+          Version {scenario.version} · network v{scenario.networkVersion}
+          {scenario.updatedBy ? ` · last saved by ${scenario.updatedBy}` : ""}
+        </span>
+        <Link href={`/basins/${basinId}/scenarios`} className="ml-auto text-sm">
+          All scenarios and runs
+        </Link>
+      </div>
+      {canEdit && (
+        <RunStarter basinId={basinId} scenarioId={scenario.id} dirty={formState.isDirty} start={start} />
+      )}
+    </form>
+  );
+}
+
+export type { ScenarioInputs };
