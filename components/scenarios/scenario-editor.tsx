@@ -2,7 +2,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useState } from "react";
-import { useFieldArray, useForm, type Resolver } from "react-hook-form";
+import { useFieldArray, useForm, useWatch, type Resolver } from "react-hook-form";
 import { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
@@ -59,10 +59,10 @@ export function ScenarioEditor({
     resolver: zodResolver(formSchema) as Resolver<FormValues>,
     defaultValues: { name: scenario.name, description: scenario.description, inputs: scenario.inputs },
   });
-  const { register, control, handleSubmit, formState, reset, watch, setValue } = form;
+  const { register, control, handleSubmit, formState, reset, setValue } = form;
   const conditions = useFieldArray({ control, name: "inputs.conditions" });
   const errors = formState.errors;
-  const criterionOverride = watch("inputs.criterionDoMgL");
+  const criterionOverride = useWatch({ control, name: "inputs.criterionDoMgL" });
 
   const save = handleSubmit(async (values) => {
     setNotice(null);
