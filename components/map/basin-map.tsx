@@ -1,11 +1,8 @@
 "use client";
 import type { Feature, FeatureCollection, Geometry } from "geojson";
-import * as maplibregl from "maplibre-gl";
-import "maplibre-gl/dist/maplibre-gl.css";
 import { useEffect, useRef, useState } from "react";
-import { arrowImage, baseStyle, MAP_COLOURS } from "./map-style";
-
-maplibregl.setWorkerUrl(new URL("../../node_modules/maplibre-gl/dist/maplibre-gl-worker.mjs", import.meta.url).href);
+import { createBaseMap, escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "./map-setup";
+import { arrowImage, MAP_COLOURS } from "./map-style";
 
 export interface MapSelection {
   kind: "reach" | "node" | "outfall";
@@ -15,21 +12,7 @@ export interface MapSelection {
 
 const EMPTY: FeatureCollection = { type: "FeatureCollection", features: [] };
 
-function bounds(fc: FeatureCollection): maplibregl.LngLatBounds | null {
-  const b = new maplibregl.LngLatBounds();
-  let any = false;
-  const visit = (c: unknown): void => {
-    if (Array.isArray(c) && typeof c[0] === "number") {
-      b.extend([c[0] as number, c[1] as number]);
-      any = true;
-    } else if (Array.isArray(c)) c.forEach(visit);
-  };
-  for (const f of fc.features) if (f.geometry && "coordinates" in f.geometry) visit(f.geometry.coordinates);
-  return any ? b : null;
-}
-
 function describe(p: Record<string, unknown>): string {
-  const esc = (v: unknown) => String(v ?? "").replace(/[&<>"]/g, (c) => `&#${c.charCodeAt(0)};`);
   if (p.kind === "reach") {
     return `<strong>Reach ${esc(p.id)}</strong>${p.name ? `<br>${esc(p.name)}` : ""}<br>${Number(p.lengthKm).toFixed(2)} km${
       p.downstreamId ? ` → ${esc(p.downstreamId)}` : " → outlet"
@@ -69,17 +52,9 @@ export function BasinMap({
 
   useEffect(() => {
     if (!container.current) return;
-    const map = new maplibregl.Map({
-      container: container.current,
-      style: baseStyle(),
-      center: [0, 0],
-      zoom: 1,
-      attributionControl: false,
-    });
+    const map = createBaseMap(container.current);
     mapRef.current = map;
-    map.addControl(new maplibregl.NavigationControl({ showCompass: false }), "top-right");
-    map.addControl(new maplibregl.ScaleControl({ unit: "metric" }), "bottom-left");
-    const popup = new maplibregl.Popup({ closeButton: false, closeOnClick: false, offset: 8 });
+    let popup: maplibregl.Popup | undefined;
     map.on("load", () => {
       map.addImage("flow-arrow", arrowImage());
       map.addSource("basin", { type: "geojson", data: EMPTY, promoteId: "fid" });
@@ -140,28 +115,13 @@ export function BasinMap({
           "circle-stroke-width": 2,
         },
       });
-      for (const layer of ["reaches", "nodes", "outfalls"]) {
-        map.on("mousemove", layer, (e) => {
-          const f = e.features?.[0];
-          if (!f) return;
-          map.getCanvas().style.cursor = "pointer";
-          popup.setLngLat(e.lngLat).setHTML(describe(f.properties as Record<string, unknown>)).addTo(map);
-        });
-        map.on("mouseleave", layer, () => {
-          map.getCanvas().style.cursor = "";
-          popup.remove();
-        });
-        map.on("click", layer, (e) => {
-          const f = e.features?.[0];
-          if (!f) return;
-          const p = f.properties as Record<string, unknown>;
-          onSelectRef.current?.({ kind: p.kind as MapSelection["kind"], id: String(p.id), properties: p });
-        });
-      }
+      popup = wireLayerEvents(map, ["reaches", "nodes", "outfalls"], describe, (p) =>
+        onSelectRef.current?.({ kind: p.kind as MapSelection["kind"], id: String(p.id), properties: p }),
+      );
       setReady(true);
     });
     return () => {
-      popup.remove();
+      popup?.remove();
       map.remove();
       mapRef.current = null;
     };
@@ -176,8 +136,7 @@ export function BasinMap({
       features: data.features.map((f) => ({ ...f, properties: { ...f.properties, fid: String(f.id ?? "") } })),
     };
     (map.getSource("basin") as maplibregl.GeoJSONSource).setData(withIds);
-    const b = bounds(data);
-    if (b) map.fitBounds(b, { padding: 40, duration: 0 });
+    fitToFeatures(map, data);
   }, [data, ready]);
 
   useEffect(() => {

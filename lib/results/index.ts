@@ -8,3 +8,5 @@ export * from "./caution";
 export * from "./csv-rows";
 export * from "./reach-rows";
 export * from "./compare";
+export * from "./binding-rows";
+export * from "./diagnosis-rows";

@@ -100,3 +100,23 @@ export function profileSeries(run: RunResult, model: ModelFile, startReach: stri
   out.length = toUnit(totalKm, unit);
   return out;
 }
+
+/**
+ * Stretches of the series where DO is below zero, as [from, to] on its distance axis
+ * (the chart shades them as anoxic). A stretch runs from its first anoxic point to its last.
+ */
+export function anoxicStretches(series: Pick<ProfileSeries, "points">): Array<{ from: number; to: number }> {
+  const out: Array<{ from: number; to: number }> = [];
+  let open: { from: number; to: number } | null = null;
+  for (const p of series.points) {
+    if (p.anoxic) {
+      if (open) open.to = p.distance;
+      else open = { from: p.distance, to: p.distance };
+    } else if (open) {
+      out.push(open);
+      open = null;
+    }
+  }
+  if (open) out.push(open);
+  return out;
+}

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { runModel } from "@/lib/model";
 import { MI_TO_KM } from "@/lib/model/units";
-import { profileSeries } from "@/lib/results/profile-series";
+import { anoxicStretches, profileSeries } from "@/lib/results/profile-series";
 import { chainFile, example } from "./fixtures";
 
 describe("DO-versus-distance series", () => {
@@ -87,5 +87,17 @@ describe("DO-versus-distance series", () => {
   it("throws for a reach the run does not hold", () => {
     const partial = { ...run, reaches: run.reaches.filter((r) => r.id !== "R3") };
     expect(() => profileSeries(partial, f, "R1")).toThrow(/R3/);
+  });
+});
+
+describe("anoxic stretches", () => {
+  const pt = (distance: number, anoxic: boolean) => ({ distance, anoxic });
+  it("groups consecutive anoxic points", () => {
+    const points = [pt(0, false), pt(1, true), pt(2, true), pt(3, false), pt(4, true)];
+    expect(anoxicStretches({ points } as never)).toEqual([
+      { from: 1, to: 2 },
+      { from: 4, to: 4 },
+    ]);
+    expect(anoxicStretches({ points: [pt(0, false)] } as never)).toEqual([]);
   });
 });

@@ -1,0 +1,63 @@
+"use client";
+import { useMemo } from "react";
+import { CsvButton, downloadCsv, SortableTable } from "@/components/tables/sortable-table";
+import type { UnitSystem } from "@/db/schema";
+import { formatIn, unitLabel } from "@/lib/format/quantities";
+import type { AllocationResult } from "@/lib/model/allocation/types";
+import type { ModelFile } from "@/lib/model/types";
+import { allocationCsv, allocationRows, type AllocationRow } from "@/lib/results/csv-rows";
+import { column } from "./columns";
+
+/**
+ * Each facility's allocation: CBODu and BOD5 loads, effluent BOD5 at design flow,
+ * today's load and the reduction from it; sortable, with a CSV download that carries
+ * the planning caution. `about` lines (basin, scenario, run) go into the CSV's preface.
+ */
+export function AllocationTable({
+  allocation,
+  model,
+  unitSystem,
+  fileName = "allocation.csv",
+  about = [],
+}: {
+  allocation: AllocationResult;
+  model: ModelFile;
+  unitSystem: UnitSystem;
+  fileName?: string;
+  about?: string[];
+}) {
+  const rows = useMemo(() => allocationRows(allocation, model), [allocation, model]);
+  const load = unitLabel("load", unitSystem);
+  const columns = useMemo(() => {
+    const l = (v: number) => formatIn("load", v, unitSystem);
+    return [
+      column<AllocationRow>("id", "Facility", (r) => r.id),
+      column<AllocationRow>("flow", `Design flow (${unitLabel("flow", unitSystem)})`, (r) => r.design_flow_m3_s, {
+        numeric: true,
+        show: (r) => formatIn("flow", r.design_flow_m3_s, unitSystem),
+      }),
+      column<AllocationRow>("cbodu", `Allocated CBODu (${load})`, (r) => r.cbodu_kg_day, { numeric: true, show: (r) => l(r.cbodu_kg_day) }),
+      column<AllocationRow>("bod5", `Allocated BOD5 (${load})`, (r) => r.bod5_kg_day, { numeric: true, show: (r) => l(r.bod5_kg_day) }),
+      column<AllocationRow>("bod5_mg_l", "Effluent BOD5 (mg/L)", (r) => r.bod5_mg_l, { numeric: true, show: (r) => r.bod5_mg_l.toFixed(1) }),
+      column<AllocationRow>("today", `Today's CBODu (${load})`, (r) => r.today_cbodu_kg_day, { numeric: true, show: (r) => l(r.today_cbodu_kg_day) }),
+      column<AllocationRow>("reduction", "Reduction (%)", (r) => r.reduction_pct, {
+        numeric: true,
+        show: (r) => (r.reduction_pct === null ? "—" : r.reduction_pct.toFixed(1)),
+      }),
+    ];
+  }, [load, unitSystem]);
+  if (!allocation.feasible) return <p className="text-sm text-ink-soft">No allocation meets the criterion; see the diagnosis.</p>;
+  const csv = () => {
+    const t = allocationCsv(allocation, model, unitSystem, about);
+    downloadCsv(fileName, t.rows, t.columns, t.preface);
+  };
+  return (
+    <div className="space-y-2">
+      <div className="flex items-center justify-between gap-4">
+        <p className="text-xs text-ink-faint">Effluent BOD5 is the allocated BOD5 load at the facility&apos;s design flow.</p>
+        <CsvButton onClick={csv} />
+      </div>
+      <SortableTable rows={rows} columns={columns} rowId={(r) => r.id} testId="allocation-table" initialSort={[{ id: "id", desc: false }]} />
+    </div>
+  );
+}

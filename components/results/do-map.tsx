@@ -1,0 +1,160 @@
+"use client";
+import type { FeatureCollection } from "geojson";
+import { useEffect, useMemo, useRef, useState } from "react";
+import { createBaseMap, escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "@/components/map/map-setup";
+import type { UnitSystem } from "@/db/schema";
+import { formatIn, unitLabel } from "@/lib/format/quantities";
+import type { RunResult } from "@/lib/model/network/run";
+import type { ModelFile } from "@/lib/model/types";
+import { DO_BAND_COLOURS, formatDo, type DoScaleOptions } from "@/lib/results/do-scale";
+import { resultsGeoJson } from "@/lib/results/results-geojson";
+
+const EMPTY: FeatureCollection = { type: "FeatureCollection", features: [] };
+const NONE = "\u0000";
+
+const isKind = (k: string): maplibregl.FilterSpecification => ["==", ["get", "kind"], k];
+const pieceWhere = (key: string, value: string | boolean) => ["all", isKind("reach-piece"), ["==", ["get", key], value]] as maplibregl.FilterSpecification;
+
+/** MapLibre colour expression for the `band` property written by resultsGeoJson. */
+const BAND_COLOUR = ["match", ["get", "band"], ...Object.entries(DO_BAND_COLOURS).flat(), DO_BAND_COLOURS.ample] as unknown as maplibregl.ExpressionSpecification;
+
+function describe(p: Record<string, unknown>, system: UnitSystem): string {
+  const where = (km: unknown) => `${formatIn("length", Number(km), system)} ${unitLabel("length", system)}`;
+  const dO = (v: unknown) => (Number(v) < 0 ? "anoxic" : `${formatDo(Number(v))} mg/L`);
+  if (p.kind === "reach-piece") {
+    return `<strong>Reach ${esc(p.reach)}</strong><br>${where(p.km_start)} – ${where(p.km_end)} from its head<br>DO ${dO(p.do_start_mg_l)} → ${dO(p.do_end_mg_l)}`;
+  }
+  if (p.kind === "critical") {
+    return `<strong>Critical point of ${esc(p.reach)}</strong><br>DO ${dO(p.do_mg_l)} at ${where(p.km)} from the reach head${p.below === true ? "<br>below the criterion" : ""}`;
+  }
+  return `<strong>Discharger ${esc(p.id)}</strong><br>Reach ${esc(p.reach)} at ${where(p.km)}`;
+}
+
+/**
+ * The basin coloured by DO along every reach (bands relative to the criterion, anoxic
+ * water drawn dark with a dashed core), each reach's critical point ringed, dischargers
+ * as white dots. A click on a reach reports its id.
+ */
+export function DoMap({
+  run,
+  model,
+  network,
+  unitSystem,
+  selectedReach,
+  onSelectReach,
+  scale,
+  height = 480,
+}: {
+  run: RunResult;
+  model: ModelFile;
+  /** The network's map features (reach LineStrings head→mouth with properties.kind "reach" and properties.id). */
+  network: FeatureCollection;
+  unitSystem: UnitSystem;
+  selectedReach?: string | null;
+  onSelectReach?: (reachId: string) => void;
+  scale?: DoScaleOptions;
+  height?: number;
+}) {
+  const container = useRef<HTMLDivElement>(null);
+  const mapRef = useRef<maplibregl.Map | null>(null);
+  const [ready, setReady] = useState(false);
+  const onSelectRef = useRef(onSelectReach);
+  const systemRef = useRef(unitSystem);
+  useEffect(() => {
+    onSelectRef.current = onSelectReach;
+    systemRef.current = unitSystem;
+  }, [onSelectReach, unitSystem]);
+  const data = useMemo(() => resultsGeoJson({ run, model, network, scale }), [run, model, network, scale]);
+
+  useEffect(() => {
+    if (!container.current) return;
+    const map = createBaseMap(container.current);
+    mapRef.current = map;
+    let popup: maplibregl.Popup | undefined;
+    map.on("load", () => {
+      map.addSource("results", { type: "geojson", data: EMPTY });
+      map.addLayer({
+        id: "selected-reach",
+        type: "line",
+        source: "results",
+        filter: pieceWhere("reach", NONE),
+        layout: { "line-cap": "round", "line-join": "round" },
+        paint: { "line-color": "#143234", "line-width": 10 },
+      });
+      map.addLayer({
+        id: "do-pieces",
+        type: "line",
+        source: "results",
+        filter: isKind("reach-piece"),
+        layout: { "line-cap": "round", "line-join": "round" },
+        paint: { "line-color": BAND_COLOUR, "line-width": 5 },
+      });
+      map.addLayer({
+        id: "anoxic-core",
+        type: "line",
+        source: "results",
+        filter: pieceWhere("anoxic", true),
+        paint: { "line-color": "#f7f6f1", "line-width": 1.5, "line-dasharray": [2, 2] },
+      });
+      map.addLayer({
+        id: "dischargers",
+        type: "circle",
+        source: "results",
+        filter: isKind("discharger"),
+        paint: { "circle-radius": 4.5, "circle-color": "#ffffff", "circle-stroke-color": "#1d2a33", "circle-stroke-width": 1.5 },
+      });
+      map.addLayer({
+        id: "criticals",
+        type: "circle",
+        source: "results",
+        filter: isKind("critical"),
+        paint: {
+          "circle-radius": ["case", ["==", ["get", "below"], true], 8, 6],
+          "circle-color": "rgba(0,0,0,0)",
+          "circle-stroke-color": BAND_COLOUR,
+          "circle-stroke-width": 3,
+        },
+      });
+      popup = wireLayerEvents(
+        map,
+        ["do-pieces", "criticals", "dischargers"],
+        (p) => describe(p, systemRef.current),
+        (p) => {
+          const reach = p.kind === "discharger" || p.kind === "critical" || p.kind === "reach-piece" ? p.reach : undefined;
+          if (reach !== undefined) onSelectRef.current?.(String(reach));
+        },
+      );
+      setReady(true);
+    });
+    return () => {
+      popup?.remove();
+      map.remove();
+      mapRef.current = null;
+    };
+  }, []);
+
+  useEffect(() => {
+    const map = mapRef.current;
+    if (!map || !ready) return;
+    (map.getSource("results") as maplibregl.GeoJSONSource).setData(data);
+    fitToFeatures(map, data);
+  }, [data, ready]);
+
+  useEffect(() => {
+    const map = mapRef.current;
+    if (!map || !ready) return;
+    map.setFilter("selected-reach", pieceWhere("reach", selectedReach ?? NONE));
+  }, [selectedReach, ready]);
+
+  return (
+    <div
+      ref={container}
+      className="w-full overflow-hidden rounded-card border border-rule"
+      style={{ height }}
+      role="region"
+      aria-label="Dissolved-oxygen map"
+      data-testid="do-map"
+      data-ready={ready ? "true" : "false"}
+    />
+  );
+}
