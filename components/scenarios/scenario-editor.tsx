@@ -12,6 +12,7 @@ import { ApiError } from "@/lib/queries/fetcher";
 import { useScenarioQuery, useStartRunMutation, useUpdateScenarioMutation } from "@/lib/queries/scenarios";
 import type { ScenarioDto } from "@/lib/services/scenarios";
 import { OBJECTIVES, scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
+import { DischargerInputs, type OutfallRow } from "./discharger-inputs";
 import { RunStarter } from "./run-starter";
 import { UnitField } from "./unit-field";
 
@@ -43,12 +44,14 @@ export function ScenarioEditor({
   unitSystem,
   basinCriterion,
   canEdit,
+  outfalls,
 }: {
   basinId: string;
   scenario: ScenarioDto;
   unitSystem: UnitSystem;
   basinCriterion: number;
   canEdit: boolean;
+  outfalls: OutfallRow[];
 }) {
   const query = useScenarioQuery(basinId, initial.id);
   const scenario = query.data ?? initial;
@@ -191,6 +194,8 @@ export function ScenarioEditor({
           {num("DO", "inputs.headwater.doMgL", "mg/L")}
           <UnitField control={control} name="inputs.headwater.temperatureC" label="Temperature if none set" kind="temperature" system={unitSystem} />
         </section>
+
+        <DischargerInputs control={control} outfalls={outfalls} system={unitSystem} />
 
         <section className="card grid gap-4 md:grid-cols-3">
           <h2 className="md:col-span-3">Allocation</h2>

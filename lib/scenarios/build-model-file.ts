@@ -100,7 +100,7 @@ function dischargerInput(o: NetworkForModel["outfalls"][number], inputs: Scenari
   if (flow === undefined) {
     throw new ScenarioInputError(`inputs.dischargers.${o.permitId}.designFlowM3s`, `Discharger ${o.permitId} has no design flow; enter one`);
   }
-  const cbodu = s.cbodUMgL ?? (s.bod5MgL === undefined ? num(a.effluentCbodUMgL) : undefined);
+  const cbodu = s.cbodUMgL ?? (s.bod5MgL == null ? num(a.effluentCbodUMgL) : undefined);
   const bod5 = cbodu === undefined ? (s.bod5MgL ?? num(a.effluentBod5MgL)) : undefined;
   if (cbodu === undefined && bod5 === undefined) {
     throw new ScenarioInputError(`inputs.dischargers.${o.permitId}.bod5MgL`, `Discharger ${o.permitId} has no effluent BOD5 or CBODu; enter today's effluent quality`);

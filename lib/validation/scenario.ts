@@ -50,14 +50,15 @@ export const waterQualitySchema = z.object({
   temperatureC: temperature.default(20),
 });
 
+/** Per-discharger values for this scenario; missing or null keeps the network's value. */
 export const dischargerOverrideSchema = z
   .object({
-    designFlowM3s: z.number().positive("design flow must be above zero").max(1000),
-    bod5MgL: conc("BOD5"),
-    cbodUMgL: conc("CBODu"),
-    bottleKPerDay: z.number().positive("bottle rate must be above zero").max(5),
-    doMgL: conc("DO", 20),
-    temperatureC: temperature,
+    designFlowM3s: z.number().positive("design flow must be above zero").max(1000).nullable(),
+    bod5MgL: conc("BOD5").nullable(),
+    cbodUMgL: conc("CBODu").nullable(),
+    bottleKPerDay: z.number().positive("bottle rate must be above zero").max(5).nullable(),
+    doMgL: conc("DO", 20).nullable(),
+    temperatureC: temperature.nullable(),
   })
   .partial();
 

@@ -5,6 +5,7 @@ import { Denied } from "@/components/ui/denied";
 import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { AppError } from "@/lib/errors";
+import { getNetwork } from "@/lib/services/networks";
 import { getScenario } from "@/lib/services/scenarios";
 
 export const metadata: Metadata = { title: "Scenario" };
@@ -18,6 +19,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ basin
     throw e;
   });
   if (!scenario) notFound();
+  const network = await getNetwork(getDb(), access.actor, access.basin.id, scenario.networkId);
   return (
     <div>
       <h2 className="mb-4">{scenario.name}</h2>
@@ -27,6 +29,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ basin
         unitSystem={access.basin.unitSystem}
         basinCriterion={access.basin.doCriterionMgL}
         canEdit={await access.can("scenario.edit")}
+        outfalls={network.outfalls.map((o) => ({ permitId: o.permitId, facilityName: o.facilityName, reachId: o.reachId, attributes: o.attributes }))}
       />
     </div>
   );
