@@ -1,0 +1,34 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { RunResults } from "@/components/scenarios/run-results";
+import { Denied } from "@/components/ui/denied";
+import { getDb } from "@/db/client";
+import { basinPageAccess } from "@/lib/auth/page-access";
+import { AppError } from "@/lib/errors";
+import { getNetwork } from "@/lib/services/networks";
+import { getRun } from "@/lib/services/runs";
+import { getScenario } from "@/lib/services/scenarios";
+
+export const metadata: Metadata = { title: "Run results" };
+
+export default async function RunPage({ params }: { params: Promise<{ basinId: string; runId: string }> }) {
+  const { basinId, runId } = await params;
+  const access = await basinPageAccess(basinId, "scenario.read");
+  if (!access.ok) return <Denied message={access.message} />;
+  const db = getDb();
+  const run = await getRun(db, access.actor, access.basin.id, runId).catch((e) => {
+    if (e instanceof AppError && e.status === 404) return null;
+    throw e;
+  });
+  if (!run) notFound();
+  const scenario = await getScenario(db, access.actor, access.basin.id, run.scenarioId);
+  const network = await getNetwork(db, access.actor, access.basin.id, scenario.networkId);
+  return (
+    <div>
+      <h2 className="mb-4">
+        {run.scenarioName} — {run.kind === "allocation" ? "allocation" : "model"} run
+      </h2>
+      <RunResults basinId={access.basin.id} basinName={access.basin.name} initial={run} network={network.geojson} unitSystem={access.basin.unitSystem} />
+    </div>
+  );
+}

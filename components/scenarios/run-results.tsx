@@ -1,0 +1,189 @@
+"use client";
+import type { FeatureCollection } from "geojson";
+import Link from "next/link";
+import { useMemo, useState } from "react";
+import { AllocationTable } from "@/components/results/allocation-table";
+import { BindingTable } from "@/components/results/binding-table";
+import { DiagnosisTable } from "@/components/results/diagnosis-table";
+import { DoLegend } from "@/components/results/do-legend";
+import { DoMapLazy } from "@/components/results/do-map-lazy";
+import { PlanningCaution } from "@/components/results/planning-caution";
+import { ProfileChart } from "@/components/results/profile-chart";
+import { ProfileCsvButton } from "@/components/results/profile-csv-button";
+import { ReachResultsTable } from "@/components/results/reach-results-table";
+import { ResultsGeoJsonButton } from "@/components/results/results-geojson-button";
+import { TmdlSummary } from "@/components/results/tmdl-table";
+import { Notice } from "@/components/ui/notice";
+import type { UnitSystem } from "@/db/schema";
+import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { useRunQuery } from "@/lib/queries/scenarios";
+import { headwaterReaches, profileSeries } from "@/lib/results";
+import type { RunDto } from "@/lib/services/runs";
+
+/** Everything a finished run shows: map, profile, tables, allocation, exports, and the caution. */
+export function RunResults({
+  basinId,
+  basinName,
+  initial,
+  network,
+  unitSystem,
+}: {
+  basinId: string;
+  basinName: string;
+  initial: RunDto;
+  network: FeatureCollection;
+  unitSystem: UnitSystem;
+}) {
+  const query = useRunQuery(basinId, initial.id);
+  const run = query.data ?? initial;
+  const [conditionIndex, setConditionIndex] = useState(0);
+  const [startReach, setStartReach] = useState<string | null>(null);
+
+  const result = run.result;
+  const condition = result?.conditions[conditionIndex];
+  const model = run.modelFiles[Math.min(conditionIndex, run.modelFiles.length - 1)].file;
+  const heads = useMemo(() => headwaterReaches(model), [model]);
+  const from = startReach ?? heads[0];
+  const series = useMemo(() => (condition ? profileSeries(condition.run, model, from, unitSystem) : null), [condition, model, from, unitSystem]);
+  const about = [`${basinName} — scenario "${run.scenarioName}" v${run.scenarioVersion}`, `run ${run.id} (${run.kind}), ${run.finishedAt ?? ""}`];
+  const stem = `${run.scenarioName.replace(/[^\w-]+/g, "-").toLowerCase()}-${run.kind}`;
+
+  if (run.status === "queued" || run.status === "running") {
+    return <Notice tone="info">This run is {run.status} ({Math.round(run.progress * 100)}%). The page updates by itself.</Notice>;
+  }
+  if (run.status === "failed" || !result || !condition || !series) {
+    return (
+      <Notice tone="error" title="This run failed">
+        {run.error ?? "No result was stored."}
+      </Notice>
+    );
+  }
+  const r = condition.run;
+  const allocation = result.allocation;
+  return (
+    <div className="space-y-6" data-testid="run-results">
+      <PlanningCaution />
+      <div className="flex flex-wrap items-end gap-4">
+        <dl className="grid grow grid-cols-2 gap-4 sm:grid-cols-4">
+          <Stat label="Run" value={run.kind === "allocation" ? "Allocation" : "Model, today's loads"} />
+          <Stat label="Lowest DO" value={r.minimum.do_mg_l < 0 ? "anoxic" : `${r.minimum.do_mg_l.toFixed(2)} mg/L`} />
+          <Stat label="Where" value={`${r.minimum.reach}, ${formatIn("length", r.minimum.km, unitSystem)} ${unitLabel("length", unitSystem)}`} />
+          <Stat label="Criterion" value={`${r.criterion_do_mg_l.toFixed(1)} mg/L`} />
+        </dl>
+        {result.conditions.length > 1 && (
+          <div>
+            <label htmlFor="condition" className="field-label">
+              Condition
+            </label>
+            <select id="condition" className="field-input" value={conditionIndex} onChange={(e) => setConditionIndex(Number(e.target.value))}>
+              {result.conditions.map((c, i) => (
+                <option key={c.name} value={i}>
+                  {c.name}
+                </option>
+              ))}
+            </select>
+          </div>
+        )}
+      </div>
+      {r.below_criterion.length > 0 ? (
+        <Notice tone="warning">
+          DO falls below the criterion at {r.below_criterion.length} point(s) in{" "}
+          {[...new Set(r.below_criterion.map((b) => b.reach))].join(", ")}.
+        </Notice>
+      ) : (
+        <Notice tone="success">DO stays at or above the criterion everywhere under “{condition.name}”.</Notice>
+      )}
+      {result.warnings.length > 0 && (
+        <Notice tone="warning" title="Assumptions made while building the model file">
+          <ul className="list-disc pl-5">
+            {result.warnings.map((w) => (
+              <li key={w}>{w}</li>
+            ))}
+          </ul>
+        </Notice>
+      )}
+
+      <section className="grid gap-4 lg:grid-cols-[3fr_1fr]">
+        <DoMapLazy run={r} model={model} network={network} unitSystem={unitSystem} selectedReach={from} onSelectReach={setStartReach} />
+        <DoLegend criterionMgL={r.criterion_do_mg_l} />
+      </section>
+
+      <section className="card space-y-3">
+        <div className="flex flex-wrap items-end gap-3">
+          <h2 className="grow">DO along the river</h2>
+          <div>
+            <label htmlFor="profile-start" className="field-label">
+              From
+            </label>
+            <select id="profile-start" className="field-input" value={from} onChange={(e) => setStartReach(e.target.value)}>
+              {model.reaches.map((x) => (
+                <option key={x.id} value={x.id}>
+                  {x.id}
+                  {heads.includes(x.id) ? " (headwater)" : ""}
+                </option>
+              ))}
+            </select>
+          </div>
+          <ProfileCsvButton series={series} fileName={`${stem}-profile-${from}.csv`} about={about} />
+        </div>
+        <p className="text-sm text-ink-soft">Click a reach on the map, or choose one, to follow its water to the outlet.</p>
+        <ProfileChart series={series} />
+      </section>
+
+      <section className="card">
+        <h2 className="mb-3">Reaches</h2>
+        <ReachResultsTable run={r} unitSystem={unitSystem} selectedReach={from} onSelectReach={setStartReach} />
+      </section>
+
+      {allocation && (
+        <>
+          <section className="card space-y-3">
+            <h2>Allocation — {allocation.feasible ? "feasible" : "no allocation meets the criterion"}</h2>
+            {allocation.feasible ? (
+              <AllocationTable allocation={allocation} model={run.modelFiles[0].file} unitSystem={unitSystem} fileName={`${stem}-allocation.csv`} about={about} />
+            ) : (
+              <DiagnosisTable diagnosis={allocation.diagnosis ?? []} unitSystem={unitSystem} />
+            )}
+          </section>
+          {allocation.tmdl && (
+            <section className="card">
+              <h2 className="mb-3">TMDL</h2>
+              <TmdlSummary tmdl={allocation.tmdl} unitSystem={unitSystem} />
+            </section>
+          )}
+          {allocation.binding.length > 0 && (
+            <section className="card">
+              <h2 className="mb-3">Checkpoints that bind</h2>
+              <BindingTable allocation={allocation} unitSystem={unitSystem} />
+            </section>
+          )}
+        </>
+      )}
+
+      <section className="card space-y-2">
+        <h2>Exports and methods</h2>
+        <div className="flex flex-wrap gap-3">
+          <a className="rounded-md border border-rule-strong px-3 py-1.5 text-sm" href={`/api/basins/${basinId}/runs/${run.id}/model-file`}>
+            Download the model file (JSON)
+          </a>
+          <ResultsGeoJsonButton run={r} model={model} network={network} fileName={`${stem}-reaches.geojson`} about={about} />
+        </div>
+        <p className="text-sm text-ink-soft">
+          Model {run.modelVersion}; deoxygenation θ rule: {String(run.methods.deoxygenation_theta_rule ?? "constant")}; saturation:{" "}
+          {String(run.methods.saturation ?? "")}. The model file reproduces this run with <code>npm run model</code> or{" "}
+          <code>npm run allocate</code>. Inputs hash <span className="font-mono text-xs">{run.inputsHash.slice(0, 16)}…</span>
+        </p>
+        <Link href={`/basins/${basinId}/scenarios/${run.scenarioId}`}>Back to the scenario</Link>
+      </section>
+    </div>
+  );
+}
+
+function Stat({ label, value }: { label: string; value: string }) {
+  return (
+    <div className="card py-3">
+      <dt className="text-xs text-ink-faint">{label}</dt>
+      <dd className="text-lg font-semibold tabular-nums">{value}</dd>
+    </div>
+  );
+}
