@@ -1,7 +1,8 @@
 "use client";
 import type { Feature, FeatureCollection, Geometry } from "geojson";
-import { useEffect, useRef, useState } from "react";
-import { createBaseMap, escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "./map-setup";
+import { useEffect, useRef } from "react";
+import { escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "./map-setup";
+import { MapFrame, useBaseMap } from "./use-base-map";
 import { arrowImage, MAP_COLOURS } from "./map-style";
 
 export interface MapSelection {
@@ -42,94 +43,79 @@ export function BasinMap({
   onSelect?: (s: MapSelection) => void;
   height?: number;
 }) {
-  const container = useRef<HTMLDivElement>(null);
-  const mapRef = useRef<maplibregl.Map | null>(null);
-  const [ready, setReady] = useState(false);
   const onSelectRef = useRef(onSelect);
   useEffect(() => {
     onSelectRef.current = onSelect;
   }, [onSelect]);
 
-  useEffect(() => {
-    if (!container.current) return;
-    const map = createBaseMap(container.current);
-    mapRef.current = map;
-    let popup: maplibregl.Popup | undefined;
-    map.on("load", () => {
-      map.addImage("flow-arrow", arrowImage());
-      map.addSource("basin", { type: "geojson", data: EMPTY, promoteId: "fid" });
-      map.addSource("problems", { type: "geojson", data: EMPTY });
-      map.addLayer({
-        id: "problem-lines",
-        type: "line",
-        source: "problems",
-        filter: ["!=", ["geometry-type"], "Point"],
-        paint: { "line-color": MAP_COLOURS.problem, "line-width": 9, "line-opacity": 0.35 },
-      });
-      map.addLayer({
-        id: "reaches",
-        type: "line",
-        source: "basin",
-        filter: ["==", ["get", "kind"], "reach"],
-        layout: { "line-cap": "round", "line-join": "round" },
-        paint: {
-          "line-color": ["case", ["boolean", ["feature-state", "selected"], false], MAP_COLOURS.reachSelected, MAP_COLOURS.reach],
-          "line-width": ["case", ["boolean", ["feature-state", "selected"], false], 5, 3],
-        },
-      });
-      map.addLayer({
-        id: "reach-direction",
-        type: "symbol",
-        source: "basin",
-        filter: ["==", ["get", "kind"], "reach"],
-        layout: { "symbol-placement": "line", "symbol-spacing": 90, "icon-image": "flow-arrow", "icon-allow-overlap": true },
-      });
-      map.addLayer({
-        id: "nodes",
-        type: "circle",
-        source: "basin",
-        filter: ["==", ["get", "kind"], "node"],
-        paint: {
-          "circle-radius": ["match", ["get", "nodeKind"], "outlet", 7, 3.5],
-          "circle-color": ["match", ["get", "nodeKind"], "outlet", MAP_COLOURS.outlet, "headwater", MAP_COLOURS.headwater, MAP_COLOURS.node],
-          "circle-stroke-color": "#ffffff",
-          "circle-stroke-width": 1.5,
-        },
-      });
-      map.addLayer({
-        id: "problem-points",
-        type: "circle",
-        source: "problems",
-        filter: ["==", ["geometry-type"], "Point"],
-        paint: { "circle-radius": 11, "circle-color": MAP_COLOURS.problem, "circle-opacity": 0.35 },
-      });
-      map.addLayer({
-        id: "outfalls",
-        type: "circle",
-        source: "basin",
-        filter: ["==", ["get", "kind"], "outfall"],
-        paint: {
-          "circle-radius": ["case", ["boolean", ["feature-state", "selected"], false], 9, 6.5],
-          "circle-color": MAP_COLOURS.outfall,
-          "circle-stroke-color": "#ffffff",
-          "circle-stroke-width": 2,
-        },
-      });
-      popup = wireLayerEvents(map, ["reaches", "nodes", "outfalls"], describe, (p) =>
-        onSelectRef.current?.({ kind: p.kind as MapSelection["kind"], id: String(p.id), properties: p }),
-      );
-      setReady(true);
+  const { container, map: loaded } = useBaseMap((map) => {
+    map.addImage("flow-arrow", arrowImage());
+    map.addSource("basin", { type: "geojson", data: EMPTY, promoteId: "fid" });
+    map.addSource("problems", { type: "geojson", data: EMPTY });
+    map.addLayer({
+      id: "problem-lines",
+      type: "line",
+      source: "problems",
+      filter: ["!=", ["geometry-type"], "Point"],
+      paint: { "line-color": MAP_COLOURS.problem, "line-width": 9, "line-opacity": 0.35 },
     });
-    return () => {
-      popup?.remove();
-      map.remove();
-      mapRef.current = null;
-    };
-  }, []);
+    map.addLayer({
+      id: "reaches",
+      type: "line",
+      source: "basin",
+      filter: ["==", ["get", "kind"], "reach"],
+      layout: { "line-cap": "round", "line-join": "round" },
+      paint: {
+        "line-color": ["case", ["boolean", ["feature-state", "selected"], false], MAP_COLOURS.reachSelected, MAP_COLOURS.reach],
+        "line-width": ["case", ["boolean", ["feature-state", "selected"], false], 5, 3],
+      },
+    });
+    map.addLayer({
+      id: "reach-direction",
+      type: "symbol",
+      source: "basin",
+      filter: ["==", ["get", "kind"], "reach"],
+      layout: { "symbol-placement": "line", "symbol-spacing": 90, "icon-image": "flow-arrow", "icon-allow-overlap": true },
+    });
+    map.addLayer({
+      id: "nodes",
+      type: "circle",
+      source: "basin",
+      filter: ["==", ["get", "kind"], "node"],
+      paint: {
+        "circle-radius": ["match", ["get", "nodeKind"], "outlet", 7, 3.5],
+        "circle-color": ["match", ["get", "nodeKind"], "outlet", MAP_COLOURS.outlet, "headwater", MAP_COLOURS.headwater, MAP_COLOURS.node],
+        "circle-stroke-color": "#ffffff",
+        "circle-stroke-width": 1.5,
+      },
+    });
+    map.addLayer({
+      id: "problem-points",
+      type: "circle",
+      source: "problems",
+      filter: ["==", ["geometry-type"], "Point"],
+      paint: { "circle-radius": 11, "circle-color": MAP_COLOURS.problem, "circle-opacity": 0.35 },
+    });
+    map.addLayer({
+      id: "outfalls",
+      type: "circle",
+      source: "basin",
+      filter: ["==", ["get", "kind"], "outfall"],
+      paint: {
+        "circle-radius": ["case", ["boolean", ["feature-state", "selected"], false], 9, 6.5],
+        "circle-color": MAP_COLOURS.outfall,
+        "circle-stroke-color": "#ffffff",
+        "circle-stroke-width": 2,
+      },
+    });
+    return wireLayerEvents(map, ["reaches", "nodes", "outfalls"], describe, (p) =>
+      onSelectRef.current?.({ kind: p.kind as MapSelection["kind"], id: String(p.id), properties: p }),
+    );
+  });
 
   useEffect(() => {
-    const map = mapRef.current;
-    if (!map || !ready) return;
+    const map = loaded;
+    if (!map) return;
     // feature-state needs an id MapLibre can use: promote the feature id into a property
     const withIds: FeatureCollection = {
       ...data,
@@ -137,31 +123,21 @@ export function BasinMap({
     };
     (map.getSource("basin") as maplibregl.GeoJSONSource).setData(withIds);
     fitToFeatures(map, data);
-  }, [data, ready]);
+  }, [data, loaded]);
 
   useEffect(() => {
-    const map = mapRef.current;
-    if (!map || !ready) return;
+    const map = loaded;
+    if (!map) return;
     const features: Feature[] = (highlight ?? []).map((geometry) => ({ type: "Feature", geometry, properties: {} }));
     (map.getSource("problems") as maplibregl.GeoJSONSource).setData({ type: "FeatureCollection", features });
-  }, [highlight, ready]);
+  }, [highlight, loaded]);
 
   useEffect(() => {
-    const map = mapRef.current;
-    if (!map || !ready) return;
+    const map = loaded;
+    if (!map) return;
     map.removeFeatureState({ source: "basin" });
     if (selectedId) map.setFeatureState({ source: "basin", id: selectedId }, { selected: true });
-  }, [selectedId, ready, data]);
+  }, [selectedId, loaded, data]);
 
-  return (
-    <div
-      ref={container}
-      className="w-full overflow-hidden rounded-card border border-rule"
-      style={{ height }}
-      role="region"
-      aria-label="Basin map"
-      data-testid="basin-map"
-      data-ready={ready ? "true" : "false"}
-    />
-  );
+  return <MapFrame ref={container} height={height} label="Basin map" testId="basin-map" ready={loaded !== null} />;
 }

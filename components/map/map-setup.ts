@@ -6,8 +6,8 @@ import { baseStyle } from "./map-style";
 // The worker URL breaks after bundling unless it is given explicitly (STACK.md).
 maplibregl.setWorkerUrl(new URL("../../node_modules/maplibre-gl/dist/maplibre-gl-worker.mjs", import.meta.url).href);
 
-/** A map on Sagline's plain base style with zoom buttons and a metric scale; nothing fetched from outside. */
-export function createBaseMap(container: HTMLElement): maplibregl.Map {
+/** A map on Sagline's plain base style with zoom buttons and a scale bar; nothing fetched from outside. */
+export function createBaseMap(container: HTMLElement, scaleUnit: "metric" | "imperial" = "metric"): maplibregl.Map {
   const map = new maplibregl.Map({
     container,
     style: baseStyle(),
@@ -16,7 +16,7 @@ export function createBaseMap(container: HTMLElement): maplibregl.Map {
     attributionControl: false,
   });
   map.addControl(new maplibregl.NavigationControl({ showCompass: false }), "top-right");
-  map.addControl(new maplibregl.ScaleControl({ unit: "metric" }), "bottom-left");
+  map.addControl(new maplibregl.ScaleControl({ unit: scaleUnit }), "bottom-left");
   return map;
 }
 

@@ -1,7 +1,8 @@
 "use client";
 import type { FeatureCollection } from "geojson";
-import { useEffect, useMemo, useRef, useState } from "react";
-import { createBaseMap, escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "@/components/map/map-setup";
+import { useEffect, useMemo, useRef } from "react";
+import { escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "@/components/map/map-setup";
+import { MapFrame, useBaseMap } from "@/components/map/use-base-map";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import type { RunResult } from "@/lib/model/network/run";
@@ -55,9 +56,6 @@ export function DoMap({
   scale?: DoScaleOptions;
   height?: number;
 }) {
-  const container = useRef<HTMLDivElement>(null);
-  const mapRef = useRef<maplibregl.Map | null>(null);
-  const [ready, setReady] = useState(false);
   const onSelectRef = useRef(onSelectReach);
   const systemRef = useRef(unitSystem);
   useEffect(() => {
@@ -66,95 +64,73 @@ export function DoMap({
   }, [onSelectReach, unitSystem]);
   const data = useMemo(() => resultsGeoJson({ run, model, network, scale }), [run, model, network, scale]);
 
-  useEffect(() => {
-    if (!container.current) return;
-    const map = createBaseMap(container.current);
-    mapRef.current = map;
-    let popup: maplibregl.Popup | undefined;
-    map.on("load", () => {
-      map.addSource("results", { type: "geojson", data: EMPTY });
-      map.addLayer({
-        id: "selected-reach",
-        type: "line",
-        source: "results",
-        filter: pieceWhere("reach", NONE),
-        layout: { "line-cap": "round", "line-join": "round" },
-        paint: { "line-color": "#143234", "line-width": 10 },
-      });
-      map.addLayer({
-        id: "do-pieces",
-        type: "line",
-        source: "results",
-        filter: isKind("reach-piece"),
-        layout: { "line-cap": "round", "line-join": "round" },
-        paint: { "line-color": BAND_COLOUR, "line-width": 5 },
-      });
-      map.addLayer({
-        id: "anoxic-core",
-        type: "line",
-        source: "results",
-        filter: pieceWhere("anoxic", true),
-        paint: { "line-color": "#f7f6f1", "line-width": 1.5, "line-dasharray": [2, 2] },
-      });
-      map.addLayer({
-        id: "dischargers",
-        type: "circle",
-        source: "results",
-        filter: isKind("discharger"),
-        paint: { "circle-radius": 4.5, "circle-color": "#ffffff", "circle-stroke-color": "#1d2a33", "circle-stroke-width": 1.5 },
-      });
-      map.addLayer({
-        id: "criticals",
-        type: "circle",
-        source: "results",
-        filter: isKind("critical"),
-        paint: {
-          "circle-radius": ["case", ["==", ["get", "below"], true], 8, 6],
-          "circle-color": "rgba(0,0,0,0)",
-          "circle-stroke-color": BAND_COLOUR,
-          "circle-stroke-width": 3,
-        },
-      });
-      popup = wireLayerEvents(
-        map,
-        ["do-pieces", "criticals", "dischargers"],
-        (p) => describe(p, systemRef.current),
-        (p) => {
-          const reach = p.kind === "discharger" || p.kind === "critical" || p.kind === "reach-piece" ? p.reach : undefined;
-          if (reach !== undefined) onSelectRef.current?.(String(reach));
-        },
-      );
-      setReady(true);
+  const { container, map: loaded } = useBaseMap((map) => {
+    map.addSource("results", { type: "geojson", data: EMPTY });
+    map.addLayer({
+      id: "selected-reach",
+      type: "line",
+      source: "results",
+      filter: pieceWhere("reach", NONE),
+      layout: { "line-cap": "round", "line-join": "round" },
+      paint: { "line-color": "#143234", "line-width": 10 },
     });
-    return () => {
-      popup?.remove();
-      map.remove();
-      mapRef.current = null;
-    };
-  }, []);
+    map.addLayer({
+      id: "do-pieces",
+      type: "line",
+      source: "results",
+      filter: isKind("reach-piece"),
+      layout: { "line-cap": "round", "line-join": "round" },
+      paint: { "line-color": BAND_COLOUR, "line-width": 5 },
+    });
+    map.addLayer({
+      id: "anoxic-core",
+      type: "line",
+      source: "results",
+      filter: pieceWhere("anoxic", true),
+      paint: { "line-color": "#f7f6f1", "line-width": 1.5, "line-dasharray": [2, 2] },
+    });
+    map.addLayer({
+      id: "dischargers",
+      type: "circle",
+      source: "results",
+      filter: isKind("discharger"),
+      paint: { "circle-radius": 4.5, "circle-color": "#ffffff", "circle-stroke-color": "#1d2a33", "circle-stroke-width": 1.5 },
+    });
+    map.addLayer({
+      id: "criticals",
+      type: "circle",
+      source: "results",
+      filter: isKind("critical"),
+      paint: {
+        "circle-radius": ["case", ["==", ["get", "below"], true], 8, 6],
+        "circle-color": "rgba(0,0,0,0)",
+        "circle-stroke-color": BAND_COLOUR,
+        "circle-stroke-width": 3,
+      },
+    });
+    return wireLayerEvents(
+      map,
+      ["do-pieces", "criticals", "dischargers"],
+      (p) => describe(p, systemRef.current),
+      (p) => {
+        const reach = p.kind === "discharger" || p.kind === "critical" || p.kind === "reach-piece" ? p.reach : undefined;
+        if (reach !== undefined) onSelectRef.current?.(String(reach));
+      },
+    );
+  }, unitSystem === "US" ? "imperial" : "metric");
 
   useEffect(() => {
-    const map = mapRef.current;
-    if (!map || !ready) return;
+    const map = loaded;
+    if (!map) return;
     (map.getSource("results") as maplibregl.GeoJSONSource).setData(data);
     fitToFeatures(map, data);
-  }, [data, ready]);
+  }, [data, loaded]);
 
   useEffect(() => {
-    const map = mapRef.current;
-    if (!map || !ready) return;
+    const map = loaded;
+    if (!map) return;
     map.setFilter("selected-reach", pieceWhere("reach", selectedReach ?? NONE));
-  }, [selectedReach, ready]);
+  }, [selectedReach, loaded]);
 
-  return (
-    <div
-      ref={container}
-      className="w-full overflow-hidden rounded-card border border-rule"
-      style={{ height }}
-      role="region"
-      aria-label="Dissolved-oxygen map"
-      data-testid="do-map"
-      data-ready={ready ? "true" : "false"}
-    />
-  );
+  return <MapFrame ref={container} height={height} label="Dissolved-oxygen map" testId="do-map" ready={loaded !== null} />;
 }
