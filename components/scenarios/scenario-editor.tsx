@@ -23,6 +23,22 @@ const formSchema = z.object({
 });
 type FormValues = z.infer<typeof formSchema>;
 
+const DISCHARGER_FIELDS = ["designFlowM3s", "bod5MgL", "doMgL", "temperatureC"] as const;
+
+/**
+ * Give every discharger's fields a value (null = keep the network's) so the
+ * form's saved state and its registered fields match, and "unsaved changes"
+ * means what it says.
+ */
+function formValues(s: ScenarioDto, outfalls: OutfallRow[]): FormValues {
+  const dischargers = { ...s.inputs.dischargers };
+  for (const o of outfalls) {
+    const current = dischargers[o.permitId] ?? {};
+    dischargers[o.permitId] = { ...Object.fromEntries(DISCHARGER_FIELDS.map((k) => [k, null])), ...current };
+  }
+  return { name: s.name, description: s.description, inputs: { ...s.inputs, dischargers } };
+}
+
 const OBJECTIVE_LABELS: Record<(typeof OBJECTIVES)[number], string> = {
   "max-total": "Most total load",
   "min-removal": "Least total removal",
@@ -60,7 +76,7 @@ export function ScenarioEditor({
   const [notice, setNotice] = useState<{ tone: "success" | "error"; text: string; stale?: boolean } | null>(null);
   const form = useForm<FormValues>({
     resolver: zodResolver(formSchema) as Resolver<FormValues>,
-    defaultValues: { name: scenario.name, description: scenario.description, inputs: scenario.inputs },
+    defaultValues: formValues(scenario, outfalls),
   });
   const { register, control, handleSubmit, formState, reset, setValue } = form;
   const conditions = useFieldArray({ control, name: "inputs.conditions" });
@@ -71,7 +87,7 @@ export function ScenarioEditor({
     setNotice(null);
     try {
       const saved = await update.mutateAsync({ version: scenario.version, ...values });
-      reset({ name: saved.name, description: saved.description, inputs: saved.inputs });
+      reset(formValues(saved, outfalls));
       setNotice({ tone: "success", text: `Saved (version ${saved.version}).` });
     } catch (e) {
       if (e instanceof ApiError && e.status === 409) setNotice({ tone: "error", text: e.message, stale: true });
@@ -81,7 +97,7 @@ export function ScenarioEditor({
 
   const reload = async () => {
     const fresh = await query.refetch();
-    if (fresh.data) reset({ name: fresh.data.name, description: fresh.data.description, inputs: fresh.data.inputs });
+    if (fresh.data) reset(formValues(fresh.data, outfalls));
     setNotice(null);
   };
 
