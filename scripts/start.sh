@@ -29,9 +29,10 @@ if [ "$MODE" != "--dev" ]; then
 fi
 
 say "Starting the background worker (model and allocation runs)"
-npx tsx scripts/worker.ts &
+# its own process group, so stopping it also stops the node process under npx
+setsid npx tsx scripts/worker.ts &
 WORKER_PID=$!
-trap 'kill "$WORKER_PID" 2>/dev/null || true' EXIT INT TERM
+trap 'kill -- "-$WORKER_PID" 2>/dev/null || true' EXIT INT TERM
 
 if [ "$MODE" = "--dev" ]; then
   say "Serving (development) on http://127.0.0.1:$PORT"

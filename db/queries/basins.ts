@@ -50,3 +50,18 @@ export async function updateBasin(db: Db, id: string, patch: BasinUpdate): Promi
     .returningAll()
     .executeTakeFirst();
 }
+
+/** A basin and one user's role in it, in one round trip (the guard's hot path). */
+export async function findBasinWithRole(db: Db, basinId: string, userId: string): Promise<{ basin: BasinRecord; role: BasinRole | null } | undefined> {
+  if (!isUuid(basinId)) return undefined;
+  const row = await db
+    .selectFrom("basins")
+    .leftJoin("memberships as m", (join) => join.onRef("m.basin_id", "=", "basins.id").on("m.user_id", "=", userId))
+    .selectAll("basins")
+    .select("m.role")
+    .where("basins.id", "=", basinId)
+    .executeTakeFirst();
+  if (!row) return undefined;
+  const { role, ...basin } = row;
+  return { basin, role: role ?? null };
+}

@@ -184,3 +184,20 @@ export async function setRunState(
     .where("id", "=", id)
     .execute();
 }
+
+/** A run's stored result and model files as JSON text (no parse/serialise round trip). */
+export async function findRunJsonText(db: Db, basinId: string, id: string) {
+  if (!isUuid(id)) return undefined;
+  return db
+    .selectFrom("runs as r")
+    .innerJoin("scenarios as s", "s.id", "r.scenario_id")
+    .select(RUN_META)
+    .select("s.name as scenario_name")
+    .select((eb) => [
+      eb.cast<string | null>("r.result", "text").as("result_text"),
+      eb.cast<string>(eb.ref("r.model_file", "->").key("files"), "text").as("files_text"),
+    ])
+    .where("r.basin_id", "=", basinId)
+    .where("r.id", "=", id)
+    .executeTakeFirst();
+}

@@ -1,6 +1,5 @@
 import type { Db } from "@/db/client";
-import { findBasinById, type BasinRecord } from "@/db/queries/basins";
-import { findMembershipRole } from "@/db/queries/memberships";
+import { findBasinWithRole, type BasinRecord } from "@/db/queries/basins";
 import { findUserById } from "@/db/queries/users";
 import type { BasinRole } from "@/db/schema";
 import { AppError, forbidden, notFound, unauthenticated } from "@/lib/errors";
@@ -60,9 +59,9 @@ export async function requireBasinAction(
   action: BasinAction,
 ): Promise<BasinAccess> {
   const a = requireActor(actor);
-  const basin = await findBasinById(db, basinId);
-  if (!basin) throw notFound("Basin");
-  const role = await findMembershipRole(db, basin.id, a.id);
+  const found = await findBasinWithRole(db, basinId, a.id);
+  if (!found) throw notFound("Basin");
+  const { basin, role } = found;
   if (roleAllows(role, action) || (a.isAdmin && ADMIN_BASIN_ACTIONS.includes(action))) {
     return { basin, role };
   }

@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
-import { findDoneRunByHash, findRun, findScenario, insertRun, listRuns as listRunRows, runForWork, setRunState } from "@/db/queries/scenarios";
+import { findDoneRunByHash, findRun, findRunJsonText, findScenario, insertRun, listRuns as listRunRows, runForWork, setRunState } from "@/db/queries/scenarios";
 import type { RunKind } from "@/db/schema";
 import { enqueueRun } from "@/lib/jobs/queue";
 import { allocate, ModelInputError, runModel, type AllocationResult, type ModelFile, type RunResult } from "@/lib/model";
@@ -233,4 +233,18 @@ export async function getRunStatus(db: Db, actor: Actor | null, basinId: string,
   const row = await findRun(db, basin.id, runId, false);
   if (!row) throw notFound("Run");
   return summary(row);
+}
+
+/**
+ * The same document as getRun, assembled from the stored JSON text: a stored
+ * result is read often (results pages, comparisons, review) and never changes,
+ * so it is not parsed and serialised again on every request.
+ */
+export async function getRunJson(db: Db, actor: Actor | null, basinId: string, runId: string): Promise<{ json: string; etag: string }> {
+  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  const row = await findRunJsonText(db, basin.id, runId);
+  if (!row) throw notFound("Run");
+  const head = JSON.stringify(summary(row));
+  const json = `${head.slice(0, -1)},"result":${row.result_text ?? "null"},"modelFiles":${row.files_text}}`;
+  return { json, etag: `"${row.id}-${row.status}-${row.finished_at?.getTime() ?? 0}"` };
 }

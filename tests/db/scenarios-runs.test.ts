@@ -8,7 +8,7 @@ import * as duplicateRoute from "@/app/api/basins/[basinId]/scenarios/[scenarioI
 import { createDb, getDb, type Db } from "@/db/client";
 import { getBoss, RUN_QUEUE, stopBoss } from "@/lib/jobs/queue";
 import { allocate, runModel, type ModelFile } from "@/lib/model";
-import { processRun, type RunDto, type RunSummaryDto } from "@/lib/services/runs";
+import { getRun, processRun, type RunDto, type RunSummaryDto } from "@/lib/services/runs";
 import type { ScenarioDto } from "@/lib/services/scenarios";
 import { callRoute } from "../support/call-route";
 import { commitDemo } from "../support/demo-network";
@@ -121,6 +121,8 @@ describe("runs", () => {
     expect(run.status).toBe("done");
     expect(run.progress).toBe(1);
     expect(run.result!.conditions[0].run).toEqual(runModel(run.modelFiles[0].file));
+    // the stored-text fast path gives the same document as the parsed one
+    expect(run).toEqual(await getRun(db, w.users.lead, w.basinId, summary.id));
     expect(run.methods).toMatchObject({ deoxygenation_theta_rule: "constant", saturation: expect.stringMatching(/Benson/) });
     expect(Object.keys(run.methods.reaeration as object)).toHaveLength(17);
 

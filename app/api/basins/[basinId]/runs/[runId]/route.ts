@@ -1,7 +1,11 @@
 import { route } from "@/lib/api/route";
-import { getRun } from "@/lib/services/runs";
+import { getRunJson } from "@/lib/services/runs";
 import { runParams } from "@/lib/validation/params";
 
-export const GET = route({ access: { basin: "scenario.read" }, params: runParams }, ({ db, actor, params }) =>
-  getRun(db, actor, params.basinId, params.runId),
-);
+/** A run with its stored result; a finished run never changes, so it carries an ETag. */
+export const GET = route({ access: { basin: "scenario.read" }, params: runParams }, async ({ db, actor, params, req }) => {
+  const { json, etag } = await getRunJson(db, actor, params.basinId, params.runId);
+  const headers = { "content-type": "application/json", etag, "cache-control": "private, no-cache" };
+  if (req.headers.get("if-none-match") === etag) return new Response(null, { status: 304, headers });
+  return new Response(json, { headers });
+});
