@@ -13,6 +13,7 @@ import { useScenarioQuery, useStartRunMutation, useUpdateScenarioMutation } from
 import type { ScenarioDto } from "@/lib/services/scenarios";
 import { OBJECTIVES, scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
 import { DischargerInputs, type OutfallRow } from "./discharger-inputs";
+import { REACH_OVERRIDE_FIELDS, ReachInputs, type ReachRow } from "./reach-inputs";
 import { RunStarter } from "./run-starter";
 import { UnitField } from "./unit-field";
 
@@ -30,13 +31,17 @@ const DISCHARGER_FIELDS = ["designFlowM3s", "bod5MgL", "doMgL", "temperatureC"] 
  * form's saved state and its registered fields match, and "unsaved changes"
  * means what it says.
  */
-function formValues(s: ScenarioDto, outfalls: OutfallRow[]): FormValues {
+function formValues(s: ScenarioDto, outfalls: OutfallRow[], reaches: ReachRow[]): FormValues {
+  const slots = <K extends string>(keys: readonly K[]) => Object.fromEntries(keys.map((k) => [k, null]));
   const dischargers = { ...s.inputs.dischargers };
-  for (const o of outfalls) {
-    const current = dischargers[o.permitId] ?? {};
-    dischargers[o.permitId] = { ...Object.fromEntries(DISCHARGER_FIELDS.map((k) => [k, null])), ...current };
-  }
-  return { name: s.name, description: s.description, inputs: { ...s.inputs, dischargers } };
+  for (const o of outfalls) dischargers[o.permitId] = { ...slots(DISCHARGER_FIELDS), ...dischargers[o.permitId] };
+  const reachOverrides = { ...s.inputs.reachOverrides };
+  for (const r of reaches) reachOverrides[r.id] = { ...slots(REACH_OVERRIDE_FIELDS), ...reachOverrides[r.id] };
+  const conditions = s.inputs.conditions.map((c) => ({
+    ...c,
+    reachFlowsM3s: { ...Object.fromEntries(reaches.map((r) => [r.id, null])), ...c.reachFlowsM3s },
+  }));
+  return { name: s.name, description: s.description, inputs: { ...s.inputs, dischargers, reachOverrides, conditions } };
 }
 
 const OBJECTIVE_LABELS: Record<(typeof OBJECTIVES)[number], string> = {
@@ -61,6 +66,7 @@ export function ScenarioEditor({
   basinCriterion,
   canEdit,
   outfalls,
+  reaches,
 }: {
   basinId: string;
   scenario: ScenarioDto;
@@ -68,6 +74,7 @@ export function ScenarioEditor({
   basinCriterion: number;
   canEdit: boolean;
   outfalls: OutfallRow[];
+  reaches: ReachRow[];
 }) {
   const query = useScenarioQuery(basinId, initial.id);
   const scenario = query.data ?? initial;
@@ -76,18 +83,19 @@ export function ScenarioEditor({
   const [notice, setNotice] = useState<{ tone: "success" | "error"; text: string; stale?: boolean } | null>(null);
   const form = useForm<FormValues>({
     resolver: zodResolver(formSchema) as Resolver<FormValues>,
-    defaultValues: formValues(scenario, outfalls),
+    defaultValues: formValues(scenario, outfalls, reaches),
   });
   const { register, control, handleSubmit, formState, reset, setValue } = form;
   const conditions = useFieldArray({ control, name: "inputs.conditions" });
   const errors = formState.errors;
   const criterionOverride = useWatch({ control, name: "inputs.criterionDoMgL" });
+  const watchedConditions = useWatch({ control, name: "inputs.conditions" });
 
   const save = handleSubmit(async (values) => {
     setNotice(null);
     try {
       const saved = await update.mutateAsync({ version: scenario.version, ...values });
-      reset(formValues(saved, outfalls));
+      reset(formValues(saved, outfalls, reaches));
       setNotice({ tone: "success", text: `Saved (version ${saved.version}).` });
     } catch (e) {
       if (e instanceof ApiError && e.status === 409) setNotice({ tone: "error", text: e.message, stale: true });
@@ -97,7 +105,7 @@ export function ScenarioEditor({
 
   const reload = async () => {
     const fresh = await query.refetch();
-    if (fresh.data) reset(formValues(fresh.data, outfalls));
+    if (fresh.data) reset(formValues(fresh.data, outfalls, reaches));
     setNotice(null);
   };
 
@@ -141,7 +149,14 @@ export function ScenarioEditor({
             <h2>Critical conditions</h2>
             <Button
               variant="secondary"
-              onClick={() => conditions.append({ name: `Condition ${conditions.fields.length + 1}`, flowScale: 1, reachFlowsM3s: {}, temperatureC: null })}
+              onClick={() =>
+                conditions.append({
+                  name: `Condition ${conditions.fields.length + 1}`,
+                  flowScale: 1,
+                  reachFlowsM3s: Object.fromEntries(reaches.map((r) => [r.id, null])),
+                  temperatureC: null,
+                })
+              }
               disabled={conditions.fields.length >= 6}
             >
               Add a condition
@@ -210,6 +225,13 @@ export function ScenarioEditor({
           {num("DO", "inputs.headwater.doMgL", "mg/L")}
           <UnitField control={control} name="inputs.headwater.temperatureC" label="Temperature if none set" kind="temperature" system={unitSystem} />
         </section>
+
+        <ReachInputs
+          control={control}
+          reaches={reaches}
+          conditions={(watchedConditions ?? []).map((c) => ({ name: c.name, flowScale: c.flowScale }))}
+          system={unitSystem}
+        />
 
         <DischargerInputs control={control} outfalls={outfalls} system={unitSystem} />
 

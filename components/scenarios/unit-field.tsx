@@ -18,6 +18,8 @@ export function UnitField<T extends FieldValues>({
   nullable = false,
   hint,
   plainUnit,
+  compact = false,
+  placeholder,
 }: {
   control: Control<T>;
   name: FieldPath<T>;
@@ -28,6 +30,9 @@ export function UnitField<T extends FieldValues>({
   nullable?: boolean;
   hint?: string;
   plainUnit?: string;
+  /** In a table cell: the label is for screen readers only and the input is narrow. */
+  compact?: boolean;
+  placeholder?: string;
 }) {
   const id = `f-${String(name).replace(/\W+/g, "-")}`;
   const unit = kind ? unitLabel(kind, system) : plainUnit;
@@ -37,7 +42,7 @@ export function UnitField<T extends FieldValues>({
       name={name}
       render={({ field, fieldState }) => (
         <div>
-          <label htmlFor={id} className="field-label">
+          <label htmlFor={id} className={compact ? "sr-only" : "field-label"}>
             {label}
             {unit ? ` (${unit})` : ""}
           </label>
@@ -50,6 +55,8 @@ export function UnitField<T extends FieldValues>({
             onChange={field.onChange}
             onBlur={field.onBlur}
             invalid={!!fieldState.error}
+            compact={compact}
+            placeholder={placeholder}
           />
           {hint && !fieldState.error && <p className="mt-1 text-xs text-ink-faint">{hint}</p>}
           {fieldState.error && <p className="field-error">{fieldState.error.message}</p>}
@@ -71,7 +78,11 @@ function NumberText({
   onChange,
   onBlur,
   invalid,
+  compact,
+  placeholder,
 }: {
+  compact: boolean;
+  placeholder?: string;
   id: string;
   si: number | null | undefined;
   toShown: (v: number) => number;
@@ -94,7 +105,8 @@ function NumberText({
       id={id}
       inputMode="decimal"
       aria-invalid={invalid || undefined}
-      className="field-input"
+      className={compact ? "w-20 rounded border border-rule-strong bg-paper-raised px-1.5 py-1 text-right text-sm" : "field-input"}
+      placeholder={placeholder}
       value={text}
       onBlur={onBlur}
       onChange={(e) => {

@@ -68,7 +68,7 @@ function reachInput(r: NetworkForModel["reaches"][number], inputs: ScenarioInput
   if (velocity === undefined || depth === undefined) {
     throw new ScenarioInputError(`network.reaches.${r.id}`, `Reach ${r.id} needs a velocity and a depth at design flow; add them in the network table`);
   }
-  const givenKa = o.ka20PerDay ?? (o.kaMethod === undefined ? num(a.reaerationRatePerDay) : undefined);
+  const givenKa = o.ka20PerDay ?? (o.kaMethod == null ? num(a.reaerationRatePerDay) : undefined);
   const method = givenKa !== undefined ? "given" : (o.kaMethod ?? k.kaMethod);
   if (method === "given" && givenKa === undefined) {
     throw new ScenarioInputError(`inputs.reachOverrides.${r.id}.ka20PerDay`, `Reach ${r.id}: reaeration is "given" but no k_a value is entered`);

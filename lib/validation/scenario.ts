@@ -15,7 +15,7 @@ export const conditionSchema = z.object({
   /** Multiplier on every reach's design flow from the network (1 = the imported low flow). */
   flowScale: z.number().positive("flow scale must be above zero").max(100).default(1),
   /** Design flow entered per reach (m³/s), overriding the network's value. */
-  reachFlowsM3s: z.record(z.string(), z.number().positive("design flow must be above zero").max(100_000)).default({}),
+  reachFlowsM3s: z.record(z.string(), z.number().positive("design flow must be above zero").max(100_000).nullable()).default({}),
   /** One design temperature for every reach (°C); null keeps each reach's own. */
   temperatureC: temperature.nullable().default(null),
 });
@@ -31,14 +31,15 @@ export const kineticsSchema = z.object({
   thetaRule: z.enum(["constant", "piecewise"]).default("constant"),
 });
 
+/** Per-reach kinetics for this scenario; missing or null keeps the network's value or the scenario default. */
 export const reachOverrideSchema = z
   .object({
-    kd20PerDay: rate("k_d", 5),
-    kaMethod: z.enum(KA_METHODS),
-    ka20PerDay: rate("k_a", 200),
-    ks20PerDay: rate("k_s", 5),
-    sod20GPerM2Day: rate("SOD", 50),
-    kn20PerDay: rate("k_n", 5),
+    kd20PerDay: rate("k_d", 5).nullable(),
+    kaMethod: z.enum(KA_METHODS).nullable(),
+    ka20PerDay: rate("k_a", 200).nullable(),
+    ks20PerDay: rate("k_s", 5).nullable(),
+    sod20GPerM2Day: rate("SOD", 50).nullable(),
+    kn20PerDay: rate("k_n", 5).nullable(),
   })
   .partial();
 

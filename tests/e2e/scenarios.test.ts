@@ -56,8 +56,15 @@ describe("scenarios, runs and results in the browser", () => {
     scenarioUrl = page.url();
     await page.getByLabel("Design temperature (°C)").first().fill("28");
     await page.getByLabel("Flow scale (× design flow)").first().fill("0.6");
+    await page.getByRole("button", { name: /Show per-reach design flows and rates/ }).click();
+    await page.getByTestId("reach-inputs").getByLabel("k_d of TR-03").fill("0.4");
     await page.getByRole("button", { name: "Save changes" }).click();
     await page.getByText("Saved (version 2).").waitFor();
+    const saved = (await (await page.request.get(`${baseUrl}/api/basins/${basinId}/scenarios/${scenarioUrl.split("/").at(-1)}`)).json()) as {
+      inputs: { reachOverrides: Record<string, { kd20PerDay?: number | null }>; conditions: { temperatureC: number | null; flowScale: number }[] };
+    };
+    expect(saved.inputs.reachOverrides["TR-03"].kd20PerDay).toBe(0.4);
+    expect(saved.inputs.conditions[0]).toMatchObject({ temperatureC: 28, flowScale: 0.6 });
     await page.screenshot({ path: `${SHOTS}/scenario-editor.png`, fullPage: true });
   });
 

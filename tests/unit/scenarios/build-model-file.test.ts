@@ -59,6 +59,24 @@ describe("model file from a scenario and a network version", () => {
     expect(result.allocations).toHaveLength(5);
   });
 
+  it("applies per-reach kinetics and flows; a null override keeps the network's value", async () => {
+    const net = await demoNetwork();
+    const { file } = buildModelFile(
+      net,
+      inputs({
+        reachOverrides: { "TR-01": { kd20PerDay: 0.5, sod20GPerM2Day: null, ka20PerDay: 4 } },
+        conditions: [{ name: "c", reachFlowsM3s: { "TR-01": null, "OC-01": 0.08 } }],
+      }),
+      5,
+      false,
+    );
+    const tr01 = file.reaches.find((r) => r.id === "TR-01")!;
+    expect(tr01).toMatchObject({ kd20_per_day: 0.5, ka20_per_day: 4, ka_method: "given", sod20_g_m2_day: 0 });
+    const tr01Network = net.reaches.find((r) => r.id === "TR-01")!;
+    expect(file.headwaters.find((h) => h.reach === "TR-01")!.flow_m3_s).toBe(tr01Network.attributes.designFlowM3s);
+    expect(file.headwaters.find((h) => h.reach === "OC-01")!.flow_m3_s).toBe(0.08);
+  });
+
   it("names the field when something the model needs is missing", async () => {
     const net = await demoNetwork();
     net.reaches[2].attributes = { ...net.reaches[2].attributes, velocityMps: undefined };
