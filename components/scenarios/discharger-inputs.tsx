@@ -36,7 +36,7 @@ export function DischargerInputs<T extends FieldValues>({
         network (shown under it). Today&apos;s load is the allocation&apos;s ceiling.
       </p>
       {outfalls.map((o) => (
-        <div key={o.permitId} className="grid gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_1fr_1fr_1fr_1fr]" data-testid={`discharger-${o.permitId}`}>
+        <div key={o.permitId} className="grid gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_repeat(6,1fr)]" data-testid={`discharger-${o.permitId}`}>
           <div>
             <p className="font-medium">{o.facilityName}</p>
             <p className="font-mono text-xs text-ink-faint">
@@ -52,6 +52,14 @@ export function DischargerInputs<T extends FieldValues>({
           <div>
             <UnitField control={control} name={field(o.permitId, "bod5MgL")} label="Effluent BOD5" plainUnit="mg/L" system={system} nullable />
             <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.effluentBod5MgL)?.toFixed(1) ?? "—"} mg/L</p>
+          </div>
+          <div>
+            <UnitField control={control} name={field(o.permitId, "cbodUMgL")} label="or CBODu" plainUnit="mg/L" system={system} nullable />
+            <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.effluentCbodUMgL)?.toFixed(1) ?? "—"} mg/L</p>
+          </div>
+          <div>
+            <UnitField control={control} name={field(o.permitId, "bottleKPerDay")} label="Bottle rate k1" plainUnit="1/d" system={system} nullable />
+            <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.bottleRatePerDay)?.toFixed(2) ?? "0.23 (default)"} 1/d</p>
           </div>
           <div>
             <UnitField control={control} name={field(o.permitId, "doMgL")} label="Effluent DO" plainUnit="mg/L" system={system} nullable />

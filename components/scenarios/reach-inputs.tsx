@@ -12,7 +12,9 @@ export interface ReachRow {
 }
 
 /** Per-reach kinetics overrides (the network value or the scenario default otherwise). */
-export const REACH_OVERRIDE_FIELDS = ["kd20PerDay", "ka20PerDay", "ks20PerDay", "sod20GPerM2Day"] as const;
+export const REACH_OVERRIDE_FIELDS = ["kd20PerDay", "ka20PerDay", "ks20PerDay", "sod20GPerM2Day", "kn20PerDay"] as const;
+/** Quality of the natural water entering a reach's head. */
+export const INFLOW_OVERRIDE_FIELDS = ["cbodUMgL", "doMgL"] as const;
 
 const n = (v: unknown) => (typeof v === "number" ? v : undefined);
 
@@ -26,11 +28,14 @@ export function ReachInputs<T extends FieldValues>({
   reaches,
   conditions,
   system,
+  defaults,
 }: {
   control: Control<T>;
   reaches: ReachRow[];
   conditions: { name: string; flowScale: number }[];
   system: UnitSystem;
+  /** Scenario-wide values shown where a reach has none of its own. */
+  defaults: { kn20PerDay: number; cbodUMgL: number; doMgL: number };
 }) {
   const [open, setOpen] = useState(false);
   const path = (p: string) => p as Path<T>;
@@ -43,8 +48,9 @@ export function ReachInputs<T extends FieldValues>({
         </button>
       </div>
       <p className="text-sm text-ink-soft">
-        Enter a design flow for a reach to use a low-flow statistic of its own under a condition, or a rate to override the
-        network&apos;s value. Blank fields keep the value shown in grey.
+        Enter a design flow for a reach to use a low-flow statistic of its own under a condition, a rate to override the
+        network&apos;s value, or the quality of the headwater or tributary water entering the reach. Blank fields keep
+        the value shown in grey.
       </p>
       {open && (
         <div className="overflow-x-auto">
@@ -61,6 +67,9 @@ export function ReachInputs<T extends FieldValues>({
                 <th className="num">k_a (1/d)</th>
                 <th className="num">k_s (1/d)</th>
                 <th className="num">SOD (g/m²/d)</th>
+                <th className="num">k_n (1/d)</th>
+                <th className="num">Inflow CBODu (mg/L)</th>
+                <th className="num">Inflow DO (mg/L)</th>
               </tr>
             </thead>
             <tbody>
@@ -93,6 +102,7 @@ export function ReachInputs<T extends FieldValues>({
                       ["ka20PerDay", "k_a", n(r.attributes.reaerationRatePerDay)],
                       ["ks20PerDay", "k_s", n(r.attributes.settlingRatePerDay)],
                       ["sod20GPerM2Day", "SOD", n(r.attributes.sodGPerM2PerDay)],
+                      ["kn20PerDay", "k_n", defaults.kn20PerDay],
                     ] as const
                   ).map(([key, label, network]) => (
                     <td key={key} className="num">
@@ -104,6 +114,24 @@ export function ReachInputs<T extends FieldValues>({
                         nullable
                         compact
                         placeholder={network === undefined ? "" : String(network)}
+                      />
+                    </td>
+                  ))}
+                  {(
+                    [
+                      ["cbodUMgL", "Inflow CBODu", defaults.cbodUMgL],
+                      ["doMgL", "Inflow DO", defaults.doMgL],
+                    ] as const
+                  ).map(([key, label, fallback]) => (
+                    <td key={key} className="num">
+                      <UnitField
+                        control={control}
+                        name={path(`inputs.inflowOverrides.${r.id}.${key}`)}
+                        label={`${label} of ${r.id}`}
+                        system={system}
+                        nullable
+                        compact
+                        placeholder={String(fallback)}
                       />
                     </td>
                   ))}

@@ -13,7 +13,7 @@ import { useScenarioQuery, useStartRunMutation, useUpdateScenarioMutation } from
 import type { ScenarioDto } from "@/lib/services/scenarios";
 import { OBJECTIVES, scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
 import { DischargerInputs, type OutfallRow } from "./discharger-inputs";
-import { REACH_OVERRIDE_FIELDS, ReachInputs, type ReachRow } from "./reach-inputs";
+import { INFLOW_OVERRIDE_FIELDS, REACH_OVERRIDE_FIELDS, ReachInputs, type ReachRow } from "./reach-inputs";
 import { RunStarter } from "./run-starter";
 import { UnitField } from "./unit-field";
 
@@ -24,7 +24,7 @@ const formSchema = z.object({
 });
 type FormValues = z.infer<typeof formSchema>;
 
-const DISCHARGER_FIELDS = ["designFlowM3s", "bod5MgL", "doMgL", "temperatureC"] as const;
+const DISCHARGER_FIELDS = ["designFlowM3s", "bod5MgL", "cbodUMgL", "bottleKPerDay", "doMgL", "temperatureC"] as const;
 
 /**
  * Give every discharger's fields a value (null = keep the network's) so the
@@ -37,11 +37,13 @@ function formValues(s: ScenarioDto, outfalls: OutfallRow[], reaches: ReachRow[])
   for (const o of outfalls) dischargers[o.permitId] = { ...slots(DISCHARGER_FIELDS), ...dischargers[o.permitId] };
   const reachOverrides = { ...s.inputs.reachOverrides };
   for (const r of reaches) reachOverrides[r.id] = { ...slots(REACH_OVERRIDE_FIELDS), ...reachOverrides[r.id] };
+  const inflowOverrides = { ...s.inputs.inflowOverrides };
+  for (const r of reaches) inflowOverrides[r.id] = { ...slots(INFLOW_OVERRIDE_FIELDS), ...inflowOverrides[r.id] };
   const conditions = s.inputs.conditions.map((c) => ({
     ...c,
     reachFlowsM3s: { ...Object.fromEntries(reaches.map((r) => [r.id, null])), ...c.reachFlowsM3s },
   }));
-  return { name: s.name, description: s.description, inputs: { ...s.inputs, dischargers, reachOverrides, conditions } };
+  return { name: s.name, description: s.description, inputs: { ...s.inputs, dischargers, reachOverrides, inflowOverrides, conditions } };
 }
 
 const OBJECTIVE_LABELS: Record<(typeof OBJECTIVES)[number], string> = {
@@ -231,6 +233,7 @@ export function ScenarioEditor({
           reaches={reaches}
           conditions={(watchedConditions ?? []).map((c) => ({ name: c.name, flowScale: c.flowScale }))}
           system={unitSystem}
+          defaults={{ kn20PerDay: scenario.inputs.kinetics.kn20PerDay, cbodUMgL: scenario.inputs.headwater.cbodUMgL, doMgL: scenario.inputs.headwater.doMgL }}
         />
 
         <DischargerInputs control={control} outfalls={outfalls} system={unitSystem} />

@@ -124,14 +124,18 @@ function headwaters(network: NetworkForModel, inputs: ScenarioInputs, condition:
   const hw = inputs.headwater;
   return network.reaches
     .filter((r) => (increments.get(r.id) ?? 0) > 0)
-    .map((r) => ({
-      reach: r.id,
-      flow_m3_s: increments.get(r.id)!,
-      cbodu_mg_l: hw.cbodUMgL,
-      ...(hw.nbodUMgL > 0 ? { nbodu_mg_l: hw.nbodUMgL } : {}),
-      do_mg_l: hw.doMgL,
-      temperature_c: condition.temperatureC ?? num(r.attributes.temperatureC) ?? hw.temperatureC,
-    }));
+    .map((r) => {
+      const o = inputs.inflowOverrides[r.id] ?? {};
+      const nbodu = o.nbodUMgL ?? hw.nbodUMgL;
+      return {
+        reach: r.id,
+        flow_m3_s: increments.get(r.id)!,
+        cbodu_mg_l: o.cbodUMgL ?? hw.cbodUMgL,
+        ...(nbodu > 0 ? { nbodu_mg_l: nbodu } : {}),
+        do_mg_l: o.doMgL ?? hw.doMgL,
+        temperature_c: condition.temperatureC ?? num(r.attributes.temperatureC) ?? hw.temperatureC,
+      };
+    });
 }
 
 /**

@@ -52,6 +52,15 @@ export const waterQualitySchema = z.object({
 });
 
 /** Per-discharger values for this scenario; missing or null keeps the network's value. */
+/** Quality of the natural water entering one reach's head (headwater or tributary); null keeps the scenario default. */
+export const inflowOverrideSchema = z
+  .object({
+    cbodUMgL: conc("CBODu", 1000).nullable(),
+    nbodUMgL: conc("NBODu", 1000).nullable(),
+    doMgL: conc("DO", 20).nullable(),
+  })
+  .partial();
+
 export const dischargerOverrideSchema = z
   .object({
     designFlowM3s: z.number().positive("design flow must be above zero").max(1000).nullable(),
@@ -82,6 +91,7 @@ export const scenarioInputsSchema = z
     kinetics: kineticsSchema.default(kineticsSchema.parse({})),
     reachOverrides: z.record(z.string(), reachOverrideSchema).default({}),
     headwater: waterQualitySchema.default(waterQualitySchema.parse({})),
+    inflowOverrides: z.record(z.string(), inflowOverrideSchema).default({}),
     dischargers: z.record(z.string(), dischargerOverrideSchema).default({}),
     allocation: allocationSettingsSchema.default(allocationSettingsSchema.parse({})),
   })

@@ -64,7 +64,8 @@ describe("model file from a scenario and a network version", () => {
     const { file } = buildModelFile(
       net,
       inputs({
-        reachOverrides: { "TR-01": { kd20PerDay: 0.5, sod20GPerM2Day: null, ka20PerDay: 4 } },
+        reachOverrides: { "TR-01": { kd20PerDay: 0.5, sod20GPerM2Day: null, ka20PerDay: 4, kn20PerDay: 0.1 } },
+        inflowOverrides: { "OC-01": { cbodUMgL: 6, doMgL: null } },
         conditions: [{ name: "c", reachFlowsM3s: { "TR-01": null, "OC-01": 0.08 } }],
       }),
       5,
@@ -74,7 +75,8 @@ describe("model file from a scenario and a network version", () => {
     expect(tr01).toMatchObject({ kd20_per_day: 0.5, ka20_per_day: 4, ka_method: "given", sod20_g_m2_day: 0 });
     const tr01Network = net.reaches.find((r) => r.id === "TR-01")!;
     expect(file.headwaters.find((h) => h.reach === "TR-01")!.flow_m3_s).toBe(tr01Network.attributes.designFlowM3s);
-    expect(file.headwaters.find((h) => h.reach === "OC-01")!.flow_m3_s).toBe(0.08);
+    expect(file.headwaters.find((h) => h.reach === "OC-01")).toMatchObject({ flow_m3_s: 0.08, cbodu_mg_l: 6, do_mg_l: 7.5 });
+    expect(tr01.kn20_per_day).toBe(0.1);
   });
 
   it("names the field when something the model needs is missing", async () => {
