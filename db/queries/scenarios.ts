@@ -2,29 +2,23 @@ import type { Db } from "../client";
 import type { RunKind, RunStatus } from "../schema";
 import { isUuid } from "./users";
 
-export async function listScenarios(db: Db, basinId: string) {
-  return db
+/** Scenarios with their network version and the name of whoever saved them last. */
+const scenarioQuery = (db: Db, basinId: string) =>
+  db
     .selectFrom("scenarios as s")
     .innerJoin("networks as n", "n.id", "s.network_id")
     .leftJoin("users as u", "u.id", "s.updated_by")
     .selectAll("s")
     .select(["n.version as network_version", "u.name as updated_by_name"])
-    .where("s.basin_id", "=", basinId)
-    .orderBy("s.updated_at", "desc")
-    .execute();
+    .where("s.basin_id", "=", basinId);
+
+export async function listScenarios(db: Db, basinId: string) {
+  return scenarioQuery(db, basinId).orderBy("s.updated_at", "desc").execute();
 }
 
 export async function findScenario(db: Db, basinId: string, id: string) {
   if (!isUuid(id)) return undefined;
-  return db
-    .selectFrom("scenarios as s")
-    .innerJoin("networks as n", "n.id", "s.network_id")
-    .leftJoin("users as u", "u.id", "s.updated_by")
-    .selectAll("s")
-    .select(["n.version as network_version", "u.name as updated_by_name"])
-    .where("s.basin_id", "=", basinId)
-    .where("s.id", "=", id)
-    .executeTakeFirst();
+  return scenarioQuery(db, basinId).where("s.id", "=", id).executeTakeFirst();
 }
 
 export async function findScenarioByName(db: Db, basinId: string, name: string) {
@@ -138,26 +132,24 @@ export async function findDoneRunByHash(db: Db, basinId: string, kind: RunKind, 
     .executeTakeFirst();
 }
 
-export async function listRuns(db: Db, basinId: string, scenarioId?: string) {
-  let q = db
+/** Runs with their scenario's name (no result). */
+const runQuery = (db: Db, basinId: string) =>
+  db
     .selectFrom("runs as r")
     .innerJoin("scenarios as s", "s.id", "r.scenario_id")
     .select(RUN_META)
     .select("s.name as scenario_name")
     .where("r.basin_id", "=", basinId);
+
+export async function listRuns(db: Db, basinId: string, scenarioId?: string) {
+  let q = runQuery(db, basinId);
   if (scenarioId) q = q.where("r.scenario_id", "=", scenarioId);
   return q.orderBy("r.created_at", "desc").limit(200).execute();
 }
 
 export async function findRun(db: Db, basinId: string, id: string, withResult: boolean) {
   if (!isUuid(id)) return undefined;
-  const q = db
-    .selectFrom("runs as r")
-    .innerJoin("scenarios as s", "s.id", "r.scenario_id")
-    .select(RUN_META)
-    .select("s.name as scenario_name")
-    .where("r.basin_id", "=", basinId)
-    .where("r.id", "=", id);
+  const q = runQuery(db, basinId).where("r.id", "=", id);
   return withResult ? q.select(["r.result", "r.model_file"]).executeTakeFirst() : q.executeTakeFirst();
 }
 
@@ -188,16 +180,11 @@ export async function setRunState(
 /** A run's stored result and model files as JSON text (no parse/serialise round trip). */
 export async function findRunJsonText(db: Db, basinId: string, id: string) {
   if (!isUuid(id)) return undefined;
-  return db
-    .selectFrom("runs as r")
-    .innerJoin("scenarios as s", "s.id", "r.scenario_id")
-    .select(RUN_META)
-    .select("s.name as scenario_name")
+  return runQuery(db, basinId)
     .select((eb) => [
       eb.cast<string | null>("r.result", "text").as("result_text"),
       eb.cast<string>(eb.ref("r.model_file", "->").key("files"), "text").as("files_text"),
     ])
-    .where("r.basin_id", "=", basinId)
     .where("r.id", "=", id)
     .executeTakeFirst();
 }

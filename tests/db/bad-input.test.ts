@@ -8,6 +8,7 @@ import * as linkRoute from "@/app/api/basins/[basinId]/facilities/[facilityId]/u
 import * as usersRoute from "@/app/api/users/route";
 import { createDb, getDb, type Db } from "@/db/client";
 import { callRoute } from "../support/call-route";
+import { err } from "../support/errors";
 import { buildWorld, type World } from "../support/world";
 
 let db: Db;
@@ -21,8 +22,6 @@ afterAll(async () => {
   await getDb().destroy();
 });
 
-type ErrorBody = { error: { code: string; message: string; details?: { path: string; message: string }[] } };
-const err = (json: unknown) => (json as ErrorBody).error;
 const validBasin = { name: "Fresh basin", slug: "fresh-basin", description: "", doCriterionMgL: 5, unitSystem: "SI" };
 
 describe("bad input", () => {

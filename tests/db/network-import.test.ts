@@ -14,6 +14,7 @@ import { writeZip } from "@/scripts/lib/zip-writer";
 import type { NetworkDto, NetworkSummaryDto } from "@/lib/services/networks";
 import type { ImportDto } from "@/lib/services/imports";
 import { callRoute } from "../support/call-route";
+import { err } from "../support/errors";
 import { demoFile, demoForm, uploadDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
 
@@ -28,8 +29,6 @@ afterAll(async () => {
   await getDb().destroy();
 });
 
-type ErrorBody = { error: { code: string; message: string; details?: { path: string; message: string; code?: string }[] } };
-const err = (json: unknown) => (json as ErrorBody).error;
 const count = async (table: "imports" | "networks" | "reaches" | "outfalls" | "facilities") =>
   Number((await db.selectFrom(table).select((e) => e.fn.countAll<string>().as("n")).executeTakeFirstOrThrow()).n);
 const upload = (form: FormData, userId = w.users.planner.id) =>

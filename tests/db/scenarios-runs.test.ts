@@ -11,6 +11,7 @@ import { allocate, runModel, type ModelFile } from "@/lib/model";
 import { getRun, processRun, type RunDto, type RunSummaryDto } from "@/lib/services/runs";
 import type { ScenarioDto } from "@/lib/services/scenarios";
 import { callRoute } from "../support/call-route";
+import { err } from "../support/errors";
 import { commitDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
 
@@ -27,8 +28,6 @@ afterAll(async () => {
   await getDb().destroy();
 });
 
-type ErrorBody = { error: { code: string; message: string; details?: { path: string; message: string }[] } };
-const err = (json: unknown) => (json as ErrorBody).error;
 const as = (key: keyof World["users"]) => w.users[key].id;
 const scenarioBody = (name: string, extra: Record<string, unknown> = {}) => ({
   name,

@@ -1,36 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { readGeoJson, readPointCsv, readShapefileZip, validateImport, type DischargerMapping, type ReachMapping } from "@/geo";
+import { DEMO_DISCHARGER_MAPPING as CSV_MAPPING, DEMO_GEOJSON_REACH_MAPPING as GEOJSON_MAPPING, DEMO_REACH_MAPPING as SHP_MAPPING } from "@/db/seed/demo-gis";
+import { readGeoJson, readPointCsv, readShapefileZip, validateImport } from "@/geo";
 import { buildDemo } from "@/scripts/make-demo-gis";
 import { fixtureBytes, fixtureText } from "./helpers";
 
-const SHP_MAPPING: ReachMapping = {
-  reachId: "REACH_ID",
-  name: "NAME",
-  downstreamId: "DOWN_ID",
-  designFlow: { source: "FLOW_CFS", unit: "cfs" },
-  velocity: { source: "VEL_FPS", unit: "ft/s" },
-  depth: { source: "DEPTH_FT", unit: "ft" },
-  slope: { source: "SLOPE" },
-  temperature: { source: "TEMP_F", unit: "degF" },
-  elevation: { source: "ELEV_FT", unit: "ft" },
-  deoxygenationRate: { source: "KD_20" },
-};
-const GEOJSON_MAPPING: ReachMapping = {
-  reachId: "reach_id",
-  downstreamId: "downstream_id",
-  designFlow: { source: "design_flow_m3s", unit: "m3/s" },
-  temperature: { source: "temperature_c", unit: "degC" },
-};
-const CSV_MAPPING: DischargerMapping = {
-  name: "facility",
-  permitId: "permit_id",
-  designFlow: { source: "design_flow_mgd", unit: "MGD" },
-  effluentBod: { source: "bod5_mg_l", kind: "BOD5" },
-  bottleRate: { source: "bottle_rate_per_day" },
-  dissolvedOxygen: { source: "do_mg_l" },
-  temperature: { source: "temperature_f", unit: "degF" },
-  contactEmail: "contact_email",
-};
 const dischargers = () => readPointCsv(fixtureText("demo/tamsel-dischargers.csv"), { kind: "latlon", latitude: "latitude", longitude: "longitude" });
 
 describe("the demo basin", () => {
