@@ -186,6 +186,66 @@ export interface RunsTable {
   finished_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
 }
 
+export type PlanStatus = "draft" | "review" | "closed" | "published" | "withdrawn";
+
+export interface PlansTable {
+  id: Generated<string>;
+  basin_id: string;
+  version: number;
+  title: string;
+  run_id: string;
+  status: ColumnType<PlanStatus, PlanStatus | undefined, PlanStatus>;
+  snapshot: Json<Record<string, unknown>>;
+  created_by: string | null;
+  created_at: CreatedAt;
+  published_by: ColumnType<string | null, string | null | undefined, string | null>;
+  published_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+}
+
+export interface PlanAllocationsTable {
+  plan_id: string;
+  facility_id: string;
+  permit_id: string;
+  cbodu_kg_day: number;
+  bod5_kg_day: number;
+  bod5_mg_l: number;
+  today_cbodu_kg_day: number;
+  reduction_pct: number | null;
+  terms: Json<Record<string, unknown>>;
+}
+
+export interface ReviewPeriodsTable {
+  id: Generated<string>;
+  plan_id: string;
+  starts_at: ColumnType<Date, Date | string, Date | string>;
+  ends_at: ColumnType<Date, Date | string, Date | string>;
+  time_zone: string;
+  opened_by: string | null;
+  closed_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  extensions: ColumnType<{ at: string; by: string; from: string; to: string; reason: string }[], string | undefined, string>;
+  created_at: CreatedAt;
+}
+
+export interface ThreadsTable {
+  id: Generated<string>;
+  plan_id: string;
+  facility_id: string | null;
+  status: ColumnType<"open" | "addressed", "open" | "addressed" | undefined, "open" | "addressed">;
+  response: ColumnType<string | null, string | null | undefined, string | null>;
+  responded_by: ColumnType<string | null, string | null | undefined, string | null>;
+  responded_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+}
+
+export interface CommentsTable {
+  id: Generated<string>;
+  thread_id: string;
+  author_id: string | null;
+  author_name: string;
+  author_role: string;
+  body: string;
+  created_at: CreatedAt;
+}
+
 export interface Database {
   users: UsersTable;
   basins: BasinsTable;
@@ -201,6 +261,11 @@ export interface Database {
   outfalls: OutfallsTable;
   scenarios: ScenariosTable;
   runs: RunsTable;
+  plans: PlansTable;
+  plan_allocations: PlanAllocationsTable;
+  review_periods: ReviewPeriodsTable;
+  threads: ThreadsTable;
+  comments: CommentsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

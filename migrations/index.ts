@@ -2,6 +2,7 @@ import type { Migration, MigrationProvider } from "kysely";
 import * as m2026120100 from "./2026120100_foundation";
 import * as m2026120101 from "./2026120101_networks";
 import * as m2026120102 from "./2026120102_scenarios_runs";
+import * as m2026120103 from "./2026120103_plans_reviews";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -12,6 +13,7 @@ export const migrations: Record<string, Migration> = {
   "2026120100_foundation": m2026120100,
   "2026120101_networks": m2026120101,
   "2026120102_scenarios_runs": m2026120102,
+  "2026120103_plans_reviews": m2026120103,
 };
 
 export const migrationProvider: MigrationProvider = {
