@@ -16,3 +16,5 @@ export const reachParams = basinParams.extend({ networkId: id("networkId"), reac
 export const outfallParams = basinParams.extend({ networkId: id("networkId"), facilityId: id("facilityId") });
 export const scenarioParams = basinParams.extend({ scenarioId: id("scenarioId") });
 export const runParams = basinParams.extend({ runId: id("runId") });
+export const planParams = basinParams.extend({ planId: id("planId") });
+export const threadParams = basinParams.extend({ threadId: id("threadId") });

@@ -9,6 +9,7 @@ import { createScenario } from "@/lib/services/scenarios";
 import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { stopBoss } from "@/lib/jobs/queue";
 import { callRoute } from "../support/call-route";
+import { planAt, type PlanStage } from "../support/plan-fixture";
 import { commitDemo, demoForm, uploadDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
 
@@ -70,6 +71,24 @@ const withRun = async (w: World) => {
   return { scenarioId, runId: run.id };
 };
 const scenarioOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, scenarioId: p.scenarioId });
+const planOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, planId: p.planId });
+const threadOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, threadId: p.planThreadId });
+const plan = (stage: PlanStage) => async (w: World) => {
+  const p = await planAt(db, w, stage);
+  return { planId: p.planId, planThreadId: p.planThreadId };
+};
+const withAllocationRun = async (w: World) => {
+  const { scenarioId } = await withScenario(w);
+  const run = await createRun(db, w.users.planner, w.basinId, scenarioId, "allocation");
+  await processRun(db, run.id);
+  return { runId: run.id };
+};
+const lead = (ok: number) => denied({ lead: ok });
+const period = () => ({
+  startsAt: new Date(Date.now() - 60_000).toISOString(),
+  endsAt: new Date(Date.now() + 86_400_000).toISOString(),
+  timeZone: "Europe/Dublin",
+});
 const runOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, runId: p.runId });
 const draftOf = (p: Record<string, string>) => ({
   reachImportId: p.reachImportId,
@@ -297,6 +316,47 @@ const TABLE: Record<string, Entry> = {
     load: () => import("@/app/api/basins/[basinId]/runs/[runId]/model-file/route"),
     methods: { GET: { expect: planners(200), prepare: withRun, params: runOf } },
   },
+  "app/api/basins/[basinId]/plans/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/plans/route"),
+    methods: {
+      GET: { expect: all(200), params: basin },
+      POST: { expect: planners(201), prepare: withAllocationRun, params: basin, body: (_w, p) => ({ runId: p.runId, title: "Matrix plan" }) },
+    },
+  },
+  "app/api/basins/[basinId]/plans/[planId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/plans/[planId]/route"),
+    // a draft: planners and leads only
+    methods: { GET: { expect: planners(200), prepare: plan("draft"), params: planOf } },
+  },
+  "app/api/basins/[basinId]/plans/[planId]/review/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/plans/[planId]/review/route"),
+    methods: {
+      POST: { expect: lead(204), prepare: plan("draft"), params: planOf, body: period },
+      PATCH: {
+        expect: lead(204),
+        prepare: plan("review"),
+        params: planOf,
+        body: () => ({ endsAt: new Date(Date.now() + 30 * 86_400_000).toISOString(), reason: "More time was asked for" }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/plans/[planId]/publish/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/plans/[planId]/publish/route"),
+    methods: { POST: { expect: lead(204), prepare: plan("closed"), params: planOf } },
+  },
+  "app/api/basins/[basinId]/plans/[planId]/withdraw/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/plans/[planId]/withdraw/route"),
+    methods: { POST: { expect: lead(204), prepare: plan("draft"), params: planOf } },
+  },
+  "app/api/basins/[basinId]/threads/[threadId]/comments/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/threads/[threadId]/comments/route"),
+    // during review anyone signed in may comment, members of the public included
+    methods: { POST: { expect: signedIn(201), prepare: plan("review"), params: threadOf, body: () => ({ body: "A comment" }) } },
+  },
+  "app/api/basins/[basinId]/threads/[threadId]/response/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/threads/[threadId]/response/route"),
+    methods: { POST: { expect: planners(204), prepare: plan("review"), params: threadOf, body: () => ({ response: "Answered" }) } },
+  },
   "app/api/users/route.ts": {
     load: () => import("@/app/api/users/route"),
     methods: {
@@ -343,7 +403,7 @@ describe("API access matrix", () => {
 
   for (const [file, entry] of Object.entries(TABLE)) {
     for (const [method, c] of Object.entries(entry.methods)) {
-      it(`${method} ${file.replace(/^app|\/route\.ts$/g, "")}`, async () => {
+      it(`${method} ${file.replace(/^app|\/route\.ts$/g, "")}`, { timeout: 90_000 }, async () => {
         const mod = await entry.load();
         const handler = mod[method] as Parameters<typeof callRoute>[0];
         const got: Partial<Expect> = {};

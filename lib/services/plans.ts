@@ -1,0 +1,278 @@
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import { findFacilityByPermit } from "@/db/queries/facilities";
+import { findMembershipRole } from "@/db/queries/memberships";
+import { currentPeriod, findPlan, findThread, nextPlanVersion, planAllocations, planQuery, planThreads, setPlanStatus } from "@/db/queries/plans";
+import type { PlanStatus } from "@/db/schema";
+import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { AppError, conflict, notFound } from "@/lib/errors";
+import type { PlanPropose, ReviewExtend, ReviewOpen } from "@/lib/validation/plan";
+import { getRun } from "./runs";
+import { getScenario } from "./scenarios";
+import { findBasinById } from "@/db/queries/basins";
+
+/** Plan states anyone signed in may read (and, when published, anyone at all). */
+const PUBLIC_READ: PlanStatus[] = ["review", "closed", "published"];
+
+async function basinOr404(db: Db, basinId: string) {
+  const basin = await findBasinById(db, basinId);
+  if (!basin) throw notFound("Basin");
+  return basin;
+}
+
+/**
+ * Who may read a plan: drafts and withdrawn plans only planners and leads;
+ * plans in or after review any signed-in person; published plans everyone.
+ */
+async function requirePlanRead(db: Db, actor: Actor | null, basinId: string, status: PlanStatus): Promise<void> {
+  if (status === "published") return;
+  if (PUBLIC_READ.includes(status)) {
+    requireActor(actor);
+    return;
+  }
+  await requireBasinAction(db, actor, basinId, "scenario.read");
+}
+
+/** Propose a plan from a finished, feasible allocation run: a frozen snapshot of what was run. */
+export async function proposePlan(db: Db, actor: Actor | null, basinId: string, input: PlanPropose) {
+  const { basin } = await requireBasinAction(db, actor, basinId, "plan.propose");
+  const run = await getRun(db, actor, basin.id, input.runId);
+  if (run.kind !== "allocation" || run.status !== "done" || !run.result?.allocation) {
+    throw new AppError("invalid", "A plan is proposed from a finished allocation run", [{ path: "runId", message: "Not a finished allocation run" }]);
+  }
+  const allocation = run.result.allocation;
+  if (!allocation.feasible) {
+    throw new AppError("invalid", "That allocation does not meet the criterion; a plan needs a feasible allocation", [
+      { path: "runId", message: "Infeasible allocation" },
+    ]);
+  }
+  const scenario = await getScenario(db, actor, basin.id, run.scenarioId);
+  return db.transaction().execute(async (trx) => {
+    const version = await nextPlanVersion(trx, basin.id);
+    const plan = await trx
+      .insertInto("plans")
+      .values({
+        basin_id: basin.id,
+        version,
+        title: input.title,
+        run_id: run.id,
+        snapshot: JSON.stringify({ run, scenario: { id: scenario.id, name: scenario.name, version: run.scenarioVersion, inputs: scenario.inputs } }),
+        created_by: actor!.id,
+      })
+      .returning("id")
+      .executeTakeFirstOrThrow();
+    const facilityIds: string[] = [];
+    for (const a of allocation.allocations) {
+      const facility = await findFacilityByPermit(trx, basin.id, a.id);
+      if (!facility) throw new AppError("invalid", `Discharger ${a.id} is not a facility of this basin`, [{ path: "runId", message: a.id }]);
+      facilityIds.push(facility.id);
+      await trx
+        .insertInto("plan_allocations")
+        .values({
+          plan_id: plan.id,
+          facility_id: facility.id,
+          permit_id: a.id,
+          cbodu_kg_day: a.cbodu_kg_day,
+          bod5_kg_day: a.bod5_kg_day,
+          bod5_mg_l: a.bod5_mg_l,
+          today_cbodu_kg_day: a.today_cbodu_kg_day,
+          reduction_pct: a.reduction_pct,
+          terms: JSON.stringify(a),
+        })
+        .execute();
+    }
+    await trx
+      .insertInto("threads")
+      .values([{ plan_id: plan.id, facility_id: null }, ...facilityIds.map((id) => ({ plan_id: plan.id, facility_id: id }))])
+      .execute();
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.proposed", targetType: "plan", targetId: plan.id, details: { version, runId: run.id } });
+    return { id: plan.id, version };
+  });
+}
+
+export async function listPlans(db: Db, actor: Actor | null, basinId: string) {
+  const basin = await basinOr404(db, basinId);
+  const seesDrafts = await canInBasin(db, actor, basin.id, "scenario.read");
+  let q = planQuery(db, basin.id);
+  if (!seesDrafts) q = actor ? q.where("p.status", "in", PUBLIC_READ) : q.where("p.status", "=", "published");
+  const rows = await q.orderBy("p.version", "desc").execute();
+  return rows.map((p) => ({
+    id: p.id,
+    version: p.version,
+    title: p.title,
+    status: p.status,
+    createdAt: p.created_at.toISOString(),
+    createdBy: p.created_by_name,
+    publishedAt: p.published_at?.toISOString() ?? null,
+  }));
+}
+
+/** A plan with its allocations, review period and threads (comments as plain text). */
+export async function getPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
+  const basin = await basinOr404(db, basinId);
+  const plan = await findPlan(db, basin.id, planId, true);
+  if (!plan) throw notFound("Plan");
+  await requirePlanRead(db, actor, basin.id, plan.status);
+  const [allocations, period, threads] = await Promise.all([planAllocations(db, plan.id), currentPeriod(db, plan.id), planThreads(db, plan.id)]);
+  return {
+    id: plan.id,
+    version: plan.version,
+    title: plan.title,
+    status: plan.status,
+    createdAt: plan.created_at.toISOString(),
+    createdBy: plan.created_by_name,
+    publishedAt: plan.published_at?.toISOString() ?? null,
+    snapshot: (plan as typeof plan & { snapshot: Record<string, unknown> }).snapshot,
+    allocations: allocations.map((a) => ({
+      facilityId: a.facility_id,
+      facilityName: a.facility_name,
+      permitId: a.permit_id,
+      cboduKgDay: a.cbodu_kg_day,
+      bod5KgDay: a.bod5_kg_day,
+      bod5MgL: a.bod5_mg_l,
+      todayCboduKgDay: a.today_cbodu_kg_day,
+      reductionPct: a.reduction_pct,
+    })),
+    review: period
+      ? {
+          startsAt: period.starts_at.toISOString(),
+          endsAt: period.ends_at.toISOString(),
+          timeZone: period.time_zone,
+          closedAt: period.closed_at?.toISOString() ?? null,
+          extensions: period.extensions,
+          open: isOpen(period, new Date()),
+        }
+      : null,
+    threads: threads.map((t) => ({
+      id: t.id,
+      facilityId: t.facility_id,
+      facilityName: t.facility_name,
+      permitId: t.permit_id,
+      status: t.status,
+      response: t.response,
+      respondedAt: t.responded_at?.toISOString() ?? null,
+      responder: t.responder_name,
+      comments: t.comments.map((c) => ({ id: c.id, author: c.author_name, role: c.author_role, body: c.body, at: c.created_at.toISOString() })),
+    })),
+  };
+}
+
+const isOpen = (p: { starts_at: Date; ends_at: Date; closed_at: Date | null }, now: Date) =>
+  p.closed_at === null && p.starts_at <= now && now < p.ends_at;
+
+async function planForLead(db: Db, actor: Actor | null, basinId: string, planId: string, action: "review.manage" | "plan.publish") {
+  const { basin } = await requireBasinAction(db, actor, basinId, action);
+  const plan = await findPlan(db, basin.id, planId);
+  if (!plan) throw notFound("Plan");
+  return { basin, plan };
+}
+
+/** Open the review period of a draft plan (lead). */
+export async function openReview(db: Db, actor: Actor | null, basinId: string, planId: string, input: ReviewOpen) {
+  const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
+  if (plan.status !== "draft") throw conflict(`Only a draft plan can go to review; this one is ${plan.status}`);
+  await db.transaction().execute(async (trx) => {
+    await trx
+      .insertInto("review_periods")
+      .values({ plan_id: plan.id, starts_at: input.startsAt, ends_at: input.endsAt, time_zone: input.timeZone, opened_by: actor!.id })
+      .execute();
+    await setPlanStatus(trx, plan.id, "review");
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.opened", targetType: "plan", targetId: plan.id, details: { ...input } });
+  });
+}
+
+/** Extend an open review; a reason is required and recorded. */
+export async function extendReview(db: Db, actor: Actor | null, basinId: string, planId: string, input: ReviewExtend) {
+  const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
+  const period = await currentPeriod(db, plan.id);
+  if (plan.status !== "review" || !period) throw conflict("Only a plan in review can have its review extended");
+  if (Date.parse(input.endsAt) <= period.ends_at.getTime()) {
+    throw new AppError("invalid", "The new end must be later than the current one", [{ path: "endsAt", message: "Not later" }]);
+  }
+  const extensions = [...period.extensions, { at: new Date().toISOString(), by: actor!.name, from: period.ends_at.toISOString(), to: input.endsAt, reason: input.reason }];
+  await db.transaction().execute(async (trx) => {
+    await trx.updateTable("review_periods").set({ ends_at: input.endsAt, closed_at: null, extensions: JSON.stringify(extensions) }).where("id", "=", period.id).execute();
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.extended", targetType: "plan", targetId: plan.id, details: { ...input } });
+  });
+}
+
+/** Close review periods whose end has passed (the scheduled job); returns how many closed. */
+export async function closeDueReviews(db: Db, now = new Date()): Promise<number> {
+  return db.transaction().execute(async (trx) => {
+    const due = await trx
+      .selectFrom("review_periods as r")
+      .innerJoin("plans as p", "p.id", "r.plan_id")
+      .select(["r.id", "r.plan_id", "p.basin_id"])
+      .where("p.status", "=", "review")
+      .where("r.closed_at", "is", null)
+      .where("r.ends_at", "<=", now)
+      .forUpdate()
+      .execute();
+    for (const d of due) {
+      await trx.updateTable("review_periods").set({ closed_at: now }).where("id", "=", d.id).execute();
+      await setPlanStatus(trx, d.plan_id, "closed");
+      await insertAuditEvent(trx, { basinId: d.basin_id, actorId: null, action: "review.closed", targetType: "plan", targetId: d.plan_id, details: { by: "schedule" } });
+    }
+    return due.length;
+  });
+}
+
+/** Approve and publish a plan whose review has closed (lead). The plan is frozen from then on. */
+export async function publishPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
+  const { basin, plan } = await planForLead(db, actor, basinId, planId, "plan.publish");
+  if (plan.status !== "closed") throw conflict(`A plan is published after its review closes; this one is ${plan.status}`);
+  await db.transaction().execute(async (trx) => {
+    await setPlanStatus(trx, plan.id, "published", { published_by: actor!.id, published_at: new Date() });
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.published", targetType: "plan", targetId: plan.id, details: { version: plan.version } });
+  });
+}
+
+/** Withdraw a plan that is not published (lead). */
+export async function withdrawPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
+  const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
+  if (plan.status === "published" || plan.status === "withdrawn") throw conflict(`This plan is ${plan.status} and cannot be withdrawn`);
+  await db.transaction().execute(async (trx) => {
+    await setPlanStatus(trx, plan.id, "withdrawn");
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.withdrawn", targetType: "plan", targetId: plan.id });
+  });
+}
+
+/**
+ * Comment on a thread: any signed-in person (members with their basin role,
+ * others as members of the public), only while the plan's review period is open.
+ */
+export async function addComment(db: Db, actor: Actor | null, basinId: string, threadId: string, body: string, now = new Date()) {
+  const a = requireActor(actor);
+  const basin = await basinOr404(db, basinId);
+  const thread = await findThread(db, basin.id, threadId);
+  if (!thread) throw notFound("Thread");
+  const period = await currentPeriod(db, thread.plan_id);
+  if (thread.plan_status !== "review" || !period || !isOpen(period, now)) {
+    const when = period
+      ? ` (the review ${now < period.starts_at ? "opens" : "closed"} ${(now < period.starts_at ? period.starts_at : (period.closed_at ?? period.ends_at)).toISOString()})`
+      : "";
+    throw conflict(`Comments are accepted only while the plan's review period is open${when}`);
+  }
+  const role = (await findMembershipRole(db, basin.id, a.id)) ?? "stakeholder (public)";
+  return db.transaction().execute(async (trx) => {
+    const c = await trx
+      .insertInto("comments")
+      .values({ thread_id: thread.id, author_id: a.id, author_name: a.name, author_role: role, body })
+      .returning(["id", "created_at"])
+      .executeTakeFirstOrThrow();
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: a.id, action: "comment.added", targetType: "thread", targetId: thread.id });
+    return { id: c.id, at: c.created_at.toISOString(), role };
+  });
+}
+
+/** A planner's response marks the thread addressed. */
+export async function respondToThread(db: Db, actor: Actor | null, basinId: string, threadId: string, response: string) {
+  const { basin } = await requireBasinAction(db, actor, basinId, "comment.answer");
+  const thread = await findThread(db, basin.id, threadId);
+  if (!thread) throw notFound("Thread");
+  if (thread.plan_status === "published" || thread.plan_status === "withdrawn") throw conflict(`This plan is ${thread.plan_status}; its threads are closed`);
+  await db.transaction().execute(async (trx) => {
+    await trx.updateTable("threads").set({ status: "addressed", response, responded_by: actor!.id, responded_at: new Date() }).where("id", "=", thread.id).execute();
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "thread.addressed", targetType: "thread", targetId: thread.id });
+  });
+}

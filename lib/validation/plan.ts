@@ -1,0 +1,40 @@
+import { z } from "zod";
+
+export const planProposeSchema = z.object({
+  runId: z.uuid("runId must be a run id"),
+  title: z.string().trim().min(3, "Give the plan a title").max(200),
+});
+export type PlanPropose = z.infer<typeof planProposeSchema>;
+
+const isoWithZone = z.iso.datetime({ offset: true, message: "Give a date-time with its offset, e.g. 2026-12-01T09:00:00-05:00" });
+
+/** A review period; times carry their offset and the time zone is named, so nobody guesses. */
+export const reviewOpenSchema = z
+  .object({
+    startsAt: isoWithZone,
+    endsAt: isoWithZone,
+    timeZone: z.string().trim().min(1).max(64).refine((tz) => {
+      try {
+        new Intl.DateTimeFormat("en", { timeZone: tz });
+        return true;
+      } catch {
+        return false;
+      }
+    }, "Unknown time zone; use an IANA name such as America/Chicago"),
+  })
+  .refine((v) => Date.parse(v.endsAt) > Date.parse(v.startsAt), { message: "The review must end after it starts", path: ["endsAt"] });
+export type ReviewOpen = z.infer<typeof reviewOpenSchema>;
+
+export const reviewExtendSchema = z.object({
+  endsAt: isoWithZone,
+  reason: z.string().trim().min(10, "Say why the review is extended (at least 10 characters)").max(2000),
+});
+export type ReviewExtend = z.infer<typeof reviewExtendSchema>;
+
+/** Plain text with line breaks; rendered as text, never as HTML. */
+export const commentSchema = z.object({
+  body: z.string().trim().min(1, "Write a comment").max(10_000, "Comments are limited to 10 000 characters"),
+});
+export const responseSchema = z.object({
+  response: z.string().trim().min(1, "Write the response").max(10_000),
+});

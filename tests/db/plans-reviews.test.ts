@@ -1,0 +1,143 @@
+import { sql } from "kysely";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as planRoute from "@/app/api/basins/[basinId]/plans/[planId]/route";
+import * as plansRoute from "@/app/api/basins/[basinId]/plans/route";
+import * as reviewRoute from "@/app/api/basins/[basinId]/plans/[planId]/review/route";
+import * as commentsRoute from "@/app/api/basins/[basinId]/threads/[threadId]/comments/route";
+import * as responseRoute from "@/app/api/basins/[basinId]/threads/[threadId]/response/route";
+import { createDb, getDb, type Db } from "@/db/client";
+import { stopBoss } from "@/lib/jobs/queue";
+import { addComment, closeDueReviews, getPlan, publishPlan, respondToThread, withdrawPlan } from "@/lib/services/plans";
+import { callRoute } from "../support/call-route";
+import { err } from "../support/errors";
+import { planAt } from "../support/plan-fixture";
+import { buildWorld, type World } from "../support/world";
+
+let db: Db;
+let w: World;
+beforeAll(async () => {
+  db = createDb(process.env.DATABASE_URL, 3);
+  w = await buildWorld(db);
+});
+afterAll(async () => {
+  await stopBoss();
+  await db.destroy();
+  await getDb().destroy();
+});
+
+const as = (key: keyof World["users"]) => w.users[key].id;
+type PlanJson = Awaited<ReturnType<typeof getPlan>>;
+
+describe("a plan from proposal to publication", () => {
+  let planId: string;
+  let planThread: string;
+  let facilityThread: string;
+
+  it("is proposed from a feasible allocation run as a frozen snapshot, visible to planners and leads only", async () => {
+    const p = await planAt(db, w, "draft");
+    planId = p.planId;
+    planThread = p.planThreadId;
+    facilityThread = p.threads.find((t) => t.facility_id !== null)!.id;
+    const read = (userId?: string) => callRoute(planRoute.GET, "GET", { userId, params: { basinId: w.basinId, planId } });
+    const asPlanner = await read(as("planner"));
+    expect(asPlanner.status).toBe(200);
+    const plan = asPlanner.json as PlanJson;
+    expect(plan.status).toBe("draft");
+    expect(plan.allocations).toHaveLength(5);
+    expect(plan.threads).toHaveLength(6);
+    expect((await read(as("stakeholder"))).status).toBe(403);
+    expect((await read(as("discharger"))).status).toBe(403);
+    expect((await read()).status).toBe(401);
+    const list = await callRoute(plansRoute.GET, "GET", { userId: as("stakeholder"), params: { basinId: w.basinId } });
+    expect(list.json).toEqual([]);
+  });
+
+  it("refuses comments before a review period opens", async () => {
+    const res = await callRoute(commentsRoute.POST, "POST", { userId: as("stakeholder"), params: { basinId: w.basinId, threadId: planThread }, body: { body: "Too early?" } });
+    expect(res.status).toBe(409);
+    expect(err(res.json).message).toMatch(/only while the plan's review period is open/);
+  });
+
+  it("opens a review (lead only, explicit time zone), then members and the signed-in public comment", async () => {
+    const now = Date.now();
+    const body = { startsAt: new Date(now - 60_000).toISOString(), endsAt: new Date(now + 86_400_000).toISOString(), timeZone: "America/Chicago" };
+    expect((await callRoute(reviewRoute.POST, "POST", { userId: as("planner"), params: { basinId: w.basinId, planId }, body })).status).toBe(403);
+    const badZone = await callRoute(reviewRoute.POST, "POST", { userId: as("lead"), params: { basinId: w.basinId, planId }, body: { ...body, timeZone: "Mars/Olympus" } });
+    expect(err(badZone.json).details![0].path).toBe("timeZone");
+    const noOffset = await callRoute(reviewRoute.POST, "POST", { userId: as("lead"), params: { basinId: w.basinId, planId }, body: { ...body, startsAt: "2026-12-01T09:00:00" } });
+    expect(err(noOffset.json).details![0].path).toBe("startsAt");
+    expect((await callRoute(reviewRoute.POST, "POST", { userId: as("lead"), params: { basinId: w.basinId, planId }, body })).status).toBe(204);
+
+    const comment = (userId: string, threadId: string, text: string) =>
+      callRoute(commentsRoute.POST, "POST", { userId, params: { basinId: w.basinId, threadId }, body: { body: text } });
+    const byDischarger = await comment(as("discharger"), facilityThread, "Our plant cannot reach this by 2027.\nPlease phase it.");
+    expect(byDischarger.status).toBe(201);
+    expect((byDischarger.json as { role: string }).role).toBe("discharger");
+    const byPublic = await comment(as("outsider"), planThread, "<script>alert(1)</script> keep the river fishable");
+    expect(byPublic.status).toBe(201);
+    expect((byPublic.json as { role: string }).role).toBe("stakeholder (public)");
+    const empty = await comment(as("stakeholder"), planThread, "   ");
+    expect(empty.status).toBe(422);
+
+    const plan = (await callRoute(planRoute.GET, "GET", { userId: as("stakeholder"), params: { basinId: w.basinId, planId } })).json as PlanJson;
+    expect(plan.status).toBe("review");
+    expect(plan.review).toMatchObject({ timeZone: "America/Chicago", open: true });
+    const whole = plan.threads.find((t) => t.id === planThread)!;
+    // stored as the text that was written: shown as text, never as HTML
+    expect(whole.comments[0].body).toBe("<script>alert(1)</script> keep the river fishable");
+    expect(plan.threads.find((t) => t.id === facilityThread)!.comments[0].body).toContain("\n");
+  });
+
+  it("planners answer and mark threads addressed; others cannot", async () => {
+    const answer = (userId: string) =>
+      callRoute(responseRoute.POST, "POST", { userId, params: { basinId: w.basinId, threadId: facilityThread }, body: { response: "A compliance schedule is proposed." } });
+    expect((await answer(as("discharger"))).status).toBe(403);
+    expect((await answer(as("planner"))).status).toBe(204);
+    const plan = await getPlan(db, w.users.planner, w.basinId, planId);
+    expect(plan.threads.find((t) => t.id === facilityThread)).toMatchObject({ status: "addressed", response: "A compliance schedule is proposed." });
+  });
+
+  it("extending needs a reason; the review closes itself at its end and comments stop", async () => {
+    const later = new Date(Date.now() + 2 * 86_400_000).toISOString();
+    const noReason = await callRoute(reviewRoute.PATCH, "PATCH", { userId: as("lead"), params: { basinId: w.basinId, planId }, body: { endsAt: later } });
+    expect(err(noReason.json).details![0].path).toBe("reason");
+    const ok = await callRoute(reviewRoute.PATCH, "PATCH", {
+      userId: as("lead"),
+      params: { basinId: w.basinId, planId },
+      body: { endsAt: later, reason: "Requests from two dischargers for more time" },
+    });
+    expect(ok.status).toBe(204);
+    expect(await closeDueReviews(db, new Date(Date.now() + 86_400_000))).toBe(0);
+    expect(await closeDueReviews(db, new Date(Date.now() + 3 * 86_400_000))).toBeGreaterThanOrEqual(1);
+    expect((await getPlan(db, w.users.lead, w.basinId, planId)).status).toBe("closed");
+    await expect(addComment(db, w.users.stakeholder, w.basinId, planThread, "late")).rejects.toThrow(/review period is open/);
+  });
+
+  it("is published by a lead, then frozen: readable signed out, no edit path, and direct SQL refused by the trigger", async () => {
+    await expect(publishPlan(db, w.users.planner, w.basinId, planId)).rejects.toThrow(/does not allow plan.publish/);
+    await publishPlan(db, w.users.lead, w.basinId, planId);
+    const signedOut = await callRoute(planRoute.GET, "GET", { params: { basinId: w.basinId, planId } });
+    expect(signedOut.status).toBe(200);
+    expect((signedOut.json as PlanJson).status).toBe("published");
+    expect(((await callRoute(plansRoute.GET, "GET", { params: { basinId: w.basinId } })).json as { id: string }[]).map((p) => p.id)).toContain(planId);
+
+    await expect(respondToThread(db, w.users.planner, w.basinId, planThread, "after the fact")).rejects.toThrow(/published/);
+    await expect(withdrawPlan(db, w.users.lead, w.basinId, planId)).rejects.toThrow(/published/);
+    await expect(sql`update plans set title = 'changed' where id = ${planId}`.execute(db)).rejects.toThrow(/published and frozen/);
+    await expect(sql`update plan_allocations set cbodu_kg_day = 1 where plan_id = ${planId}`.execute(db)).rejects.toThrow(/published and frozen/);
+    await expect(sql`delete from comments where thread_id = ${planThread}`.execute(db)).rejects.toThrow(/published and frozen/);
+    await expect(sql`delete from plans where id = ${planId}`.execute(db)).rejects.toThrow(/published and frozen/);
+    await expect(
+      sql`insert into comments (thread_id, author_name, author_role, body) values (${planThread}, 'x', 'x', 'sneaky')`.execute(db),
+    ).rejects.toThrow(/published and frozen/);
+  });
+
+  it("is proposed only from a finished, feasible allocation run", async () => {
+    const other = await buildWorld(db);
+    const { runId } = await planAt(db, other, "draft");
+    const model = await db.selectFrom("runs").select("id").where("basin_id", "=", other.basinId).where("kind", "=", "allocation").executeTakeFirstOrThrow();
+    expect(model.id).toBe(runId);
+    const res = await callRoute(plansRoute.POST, "POST", { userId: other.users.planner.id, params: { basinId: other.basinId }, body: { runId: "00000000-0000-4000-8000-000000000000", title: "Nothing" } });
+    expect(res.status).toBe(404);
+  });
+});

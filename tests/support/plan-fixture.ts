@@ -1,0 +1,30 @@
+import type { Db } from "@/db/client";
+import { closeDueReviews, openReview, proposePlan, publishPlan } from "@/lib/services/plans";
+import { createRun, processRun } from "@/lib/services/runs";
+import { createScenario } from "@/lib/services/scenarios";
+import { scenarioCreateSchema } from "@/lib/validation/scenario";
+import { commitDemo } from "./demo-network";
+import type { World } from "./world";
+
+export type PlanStage = "draft" | "review" | "closed" | "published";
+
+/** A plan of the demo allocation in the world's basin, taken to `stage` by the world's planner and lead. */
+export async function planAt(db: Db, w: World, stage: PlanStage) {
+  await commitDemo(db, w.users.planner, w.basinId);
+  const scenario = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: `Plan basis ${Math.random()}`, inputs: { conditions: [{ name: "7Q10" }] } }));
+  const run = await createRun(db, w.users.planner, w.basinId, scenario.id, "allocation");
+  await processRun(db, run.id);
+  const plan = await proposePlan(db, w.users.planner, w.basinId, { runId: run.id, title: "Tamsel River DO plan" });
+  if (stage !== "draft") {
+    const now = Date.now();
+    await openReview(db, w.users.lead, w.basinId, plan.id, {
+      startsAt: new Date(now - 3_600_000).toISOString(),
+      endsAt: new Date(now + 7 * 86_400_000).toISOString(),
+      timeZone: "America/Chicago",
+    });
+  }
+  if (stage === "closed" || stage === "published") await closeDueReviews(db, new Date(Date.now() + 8 * 86_400_000));
+  if (stage === "published") await publishPlan(db, w.users.lead, w.basinId, plan.id);
+  const threads = await db.selectFrom("threads").select(["id", "facility_id"]).where("plan_id", "=", plan.id).execute();
+  return { planId: plan.id, runId: run.id, planThreadId: threads.find((t) => t.facility_id === null)!.id, threads };
+}
