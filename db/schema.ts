@@ -246,6 +246,31 @@ export interface CommentsTable {
   created_at: CreatedAt;
 }
 
+export type EmailKind = "review_opened" | "thread_reply" | "review_closing" | "plan_published" | "account";
+export type EmailStatus = "pending" | "sending" | "sent" | "failed";
+
+/** The e-mail outbox: written in the event's transaction, delivered by lib/email/sender.ts. */
+export interface EmailOutboxTable {
+  /** BIGSERIAL, read as a string. */
+  id: Generated<string>;
+  basin_id: string | null;
+  to_address: string;
+  subject: string;
+  text_body: string;
+  html_body: string | null;
+  kind: EmailKind;
+  /** Unique: an event queued twice sends once. */
+  dedupe_key: string;
+  status: ColumnType<EmailStatus, EmailStatus | undefined, EmailStatus>;
+  attempts: ColumnType<number, number | undefined, number>;
+  last_error: string | null;
+  /** Pending: when to try next. Sending: when the claim lapses and the row is due again. */
+  next_attempt_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  created_at: CreatedAt;
+  sent_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  message_id: string | null;
+}
+
 export interface Database {
   users: UsersTable;
   basins: BasinsTable;
@@ -266,6 +291,7 @@ export interface Database {
   review_periods: ReviewPeriodsTable;
   threads: ThreadsTable;
   comments: CommentsTable;
+  email_outbox: EmailOutboxTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

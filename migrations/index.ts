@@ -3,6 +3,7 @@ import * as m2026120100 from "./2026120100_foundation";
 import * as m2026120101 from "./2026120101_networks";
 import * as m2026120102 from "./2026120102_scenarios_runs";
 import * as m2026120103 from "./2026120103_plans_reviews";
+import * as m2026120104 from "./2026120104_email_outbox";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -14,6 +15,7 @@ export const migrations: Record<string, Migration> = {
   "2026120101_networks": m2026120101,
   "2026120102_scenarios_runs": m2026120102,
   "2026120103_plans_reviews": m2026120103,
+  "2026120104_email_outbox": m2026120104,
 };
 
 export const migrationProvider: MigrationProvider = {
