@@ -28,11 +28,18 @@ if [ "$MODE" != "--dev" ]; then
   npx next build
 fi
 
-say "Starting the background worker (model and allocation runs)"
+say "Starting the local fake SMTP server (messages kept in .data/mail, listed at /dev/mail)"
+export SAGLINE_SMTP_PORT="${SAGLINE_SMTP_PORT:-2525}"
+export SMTP_URL="${SMTP_URL:-smtp://127.0.0.1:$SAGLINE_SMTP_PORT}"
+export SAGLINE_DEV_PAGES="${SAGLINE_DEV_PAGES:-1}"
+setsid npx tsx scripts/fake-smtp.ts &
+SMTP_PID=$!
+
+say "Starting the background worker (model and allocation runs, e-mail outbox)"
 # its own process group, so stopping it also stops the node process under npx
 setsid npx tsx scripts/worker.ts &
 WORKER_PID=$!
-trap 'kill -- "-$WORKER_PID" 2>/dev/null || true' EXIT INT TERM
+trap 'kill -- "-$WORKER_PID" 2>/dev/null || true; kill -- "-$SMTP_PID" 2>/dev/null || true' EXIT INT TERM
 
 if [ "$MODE" = "--dev" ]; then
   say "Serving (development) on http://127.0.0.1:$PORT"

@@ -1,6 +1,8 @@
 import { getDb } from "@/db/client";
 import { getBoss, RUN_QUEUE, stopBoss } from "@/lib/jobs/queue";
 import { processRun } from "@/lib/services/runs";
+import { sendPending } from "@/lib/email/sender";
+import { smtpUrl } from "@/lib/email/transport";
 
 /**
  * The background worker: takes model and allocation runs off the PostgreSQL
@@ -12,7 +14,26 @@ await boss.work<{ runId: string }>(RUN_QUEUE, { pollingIntervalSeconds: 0.5, bat
 });
 console.log(`Sagline worker listening on queue ${RUN_QUEUE} (pid ${process.pid})`);
 
+// The e-mail outbox: every few seconds, deliver the due messages over SMTP_URL
+// (several workers may run this side by side: rows are claimed with SKIP LOCKED).
+const MAIL_INTERVAL_MS = Number(process.env.SAGLINE_MAIL_INTERVAL_MS ?? 3_000);
+let mailTimer: NodeJS.Timeout | undefined;
+let stopping = false;
+const mailLoop = async () => {
+  try {
+    const report = await sendPending(getDb());
+    if (report.sent + report.retried + report.failed > 0) console.log(`[mail] sent ${report.sent}, retry ${report.retried}, failed ${report.failed}`);
+  } catch (error) {
+    console.error("[mail] outbox run failed:", error instanceof Error ? error.message : error);
+  }
+  if (!stopping) mailTimer = setTimeout(mailLoop, MAIL_INTERVAL_MS);
+};
+mailTimer = setTimeout(mailLoop, 500);
+console.log(`Sagline worker sending the e-mail outbox to ${smtpUrl()} every ${MAIL_INTERVAL_MS} ms`);
+
 const shutdown = async () => {
+  stopping = true;
+  clearTimeout(mailTimer);
   await stopBoss();
   await getDb().destroy();
   process.exit(0);

@@ -1,5 +1,7 @@
 import { spawn, execFileSync, type ChildProcess } from "node:child_process";
-import { existsSync } from "node:fs";
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { TestProject } from "vitest/node";
 import { createDb } from "@/db/client";
@@ -13,6 +15,8 @@ declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
     e2eDatabaseUrl: string;
+    /** Where the fake SMTP server keeps this run's messages (read with readMailbox from lib/email/mailbox). */
+    mailDir: string;
   }
 }
 
@@ -55,6 +59,16 @@ export default async function setup(project: TestProject) {
   }
   const port = Number(process.env.SAGLINE_E2E_PORT ?? 3210);
   const baseUrl = `http://127.0.0.1:${port}`;
+  // the local fake SMTP server, keeping this run's messages in a fresh folder
+  const smtpPort = Number(process.env.SAGLINE_E2E_SMTP_PORT ?? 2535);
+  const mailDir = mkdtempSync(path.join(tmpdir(), "sagline-e2e-mail-"));
+  const mailEnv = { SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, SAGLINE_MAIL_DIR: mailDir, SAGLINE_DEV_PAGES: "1" };
+  const smtp = spawn("npx", ["tsx", "scripts/fake-smtp.ts"], {
+    cwd: ROOT,
+    env: { ...process.env, ...mailEnv, SAGLINE_SMTP_PORT: String(smtpPort) },
+    stdio: ["ignore", "pipe", "pipe"],
+    detached: true,
+  });
   const server = spawn("npx", ["next", "start", "-H", "127.0.0.1", "-p", String(port)], {
     cwd: ROOT,
     env: {
@@ -64,6 +78,7 @@ export default async function setup(project: TestProject) {
       DATABASE_URL: url,
       NEXTAUTH_URL: baseUrl,
       NEXTAUTH_SECRET: "e2e-secret-for-sagline-browser-tests",
+      ...mailEnv,
     },
     stdio: ["ignore", "pipe", "pipe"],
     detached: true,
@@ -71,10 +86,12 @@ export default async function setup(project: TestProject) {
   let log = "";
   server.stdout?.on("data", (d) => (log += d));
   server.stderr?.on("data", (d) => (log += d));
+  smtp.stdout?.on("data", (d) => (log += d));
+  smtp.stderr?.on("data", (d) => (log += d));
   // the background worker that takes runs off the job queue, as the start command runs it
   const worker = spawn("npx", ["tsx", "scripts/worker.ts"], {
     cwd: ROOT,
-    env: { ...process.env, DATABASE_URL: url },
+    env: { ...process.env, DATABASE_URL: url, ...mailEnv, SAGLINE_MAIL_INTERVAL_MS: "1000" },
     stdio: ["ignore", "pipe", "pipe"],
     detached: true,
   });
@@ -88,10 +105,11 @@ export default async function setup(project: TestProject) {
   }
   project.provide("baseUrl", baseUrl);
   project.provide("e2eDatabaseUrl", url);
+  project.provide("mailDir", mailDir);
 
   return async () => {
-    // stop the server and the worker we started, by their process group ids
-    for (const child of [server, worker]) {
+    // stop the server, the worker and the fake SMTP server we started, by their process group ids
+    for (const child of [server, worker, smtp]) {
       if (!child.pid) continue;
       try {
         process.kill(-child.pid, "SIGTERM");
@@ -100,6 +118,9 @@ export default async function setup(project: TestProject) {
       }
     }
     await new Promise((r) => setTimeout(r, 500));
-    if (!process.env.SAGLINE_KEEP_TEST_DB) await dropDatabase(name);
+    if (!process.env.SAGLINE_KEEP_TEST_DB) {
+      await dropDatabase(name);
+      rmSync(mailDir, { recursive: true, force: true });
+    }
   };
 }
