@@ -2,6 +2,7 @@
 import type { FeatureCollection } from "geojson";
 import Link from "next/link";
 import { useMemo, useState } from "react";
+import { ProposePlan } from "@/components/plans/propose-plan";
 import { AllocationTable } from "@/components/results/allocation-table";
 import { BindingTable } from "@/components/results/binding-table";
 import { DiagnosisTable } from "@/components/results/diagnosis-table";
@@ -27,12 +28,14 @@ export function RunResults({
   initial,
   network,
   unitSystem,
+  canPropose = false,
 }: {
   basinId: string;
   basinName: string;
   initial: RunDto;
   network: FeatureCollection;
   unitSystem: UnitSystem;
+  canPropose?: boolean;
 }) {
   const query = useRunQuery(basinId, initial.id);
   const run = query.data ?? initial;
@@ -150,6 +153,9 @@ export function RunResults({
               <h2 className="mb-3">TMDL</h2>
               <TmdlSummary tmdl={allocation.tmdl} unitSystem={unitSystem} />
             </section>
+          )}
+          {allocation.feasible && canPropose && (
+            <ProposePlan basinId={basinId} runId={run.id} defaultTitle={`${basinName}: DO waste-load allocation (${run.scenarioName})`} />
           )}
           {allocation.binding.length > 0 && (
             <section className="card">

@@ -16,6 +16,8 @@ export const queryKeys = {
     scenario: (basinId: string, scenarioId: string) => ["basins", basinId, "scenarios", scenarioId] as const,
     runs: (basinId: string) => ["basins", basinId, "runs"] as const,
     run: (basinId: string, runId: string) => ["basins", basinId, "runs", runId] as const,
+    plans: (basinId: string) => ["basins", basinId, "plans"] as const,
+    plan: (basinId: string, planId: string) => ["basins", basinId, "plans", planId] as const,
   },
   users: () => ["users"] as const,
 };

@@ -72,7 +72,7 @@ describe("each demo role sees what its role allows", () => {
     const page = await pageAs("lead");
     await page.screenshot({ path: `${SHOTS}/basins-lead.png` });
     await openBasin(page, "Tamsel River basin");
-    expect(await tabNames(page)).toEqual(["Overview", "Network", "Scenarios", "Members & facilities", "Settings"]);
+    expect(await tabNames(page)).toEqual(["Overview", "Network", "Scenarios", "Plans", "Members & facilities", "Settings"]);
     await page.screenshot({ path: `${SHOTS}/basin-overview-lead.png`, fullPage: true });
 
     await page.getByRole("link", { name: "Members & facilities" }).click();
@@ -98,7 +98,7 @@ describe("each demo role sees what its role allows", () => {
   it("planner: sees members read-only and no settings", async () => {
     const page = await pageAs("planner");
     await openBasin(page, "Tamsel River basin");
-    expect(await tabNames(page)).toEqual(["Overview", "Network", "Scenarios", "Members & facilities"]);
+    expect(await tabNames(page)).toEqual(["Overview", "Network", "Scenarios", "Plans", "Members & facilities"]);
     await page.getByRole("link", { name: "Members & facilities" }).click();
     await page.getByTestId("members-table").waitFor();
     expect(await page.getByRole("button", { name: "Add member" }).count()).toBe(0);
@@ -113,7 +113,7 @@ describe("each demo role sees what its role allows", () => {
     const names = await page.getByTestId("basin-list").getByRole("link").allTextContents();
     expect(names).toEqual(["Tamsel River basin"]);
     await openBasin(page, "Tamsel River basin");
-    expect(await tabNames(page)).toEqual(["Overview"]);
+    expect(await tabNames(page)).toEqual(["Overview", "Plans"]);
     await page.getByRole("heading", { name: "Your facilities" }).waitFor();
     const rows = await page.locator("table.data-table tbody tr").allTextContents();
     expect(rows).toHaveLength(1);
@@ -131,7 +131,7 @@ describe("each demo role sees what its role allows", () => {
   it("stakeholder: overview only, no facilities", async () => {
     const page = await pageAs("stakeholder");
     await openBasin(page, "Tamsel River basin");
-    expect(await tabNames(page)).toEqual(["Overview"]);
+    expect(await tabNames(page)).toEqual(["Overview", "Plans"]);
     expect(await page.getByRole("heading", { name: /facilities/i }).count()).toBe(0);
     await page.close();
   });

@@ -23,6 +23,7 @@ export default async function BasinLayout({
     { href: `/basins/${basin.id}`, label: "Overview", show: true },
     { href: `/basins/${basin.id}/network`, label: "Network", show: await access.can("scenario.read") },
     { href: `/basins/${basin.id}/scenarios`, label: "Scenarios", show: await access.can("scenario.read") },
+    { href: `/basins/${basin.id}/plans`, label: "Plans", show: true },
     { href: `/basins/${basin.id}/members`, label: "Members & facilities", show: await access.can("members.read") },
     { href: `/basins/${basin.id}/settings`, label: "Settings", show: await access.can("basin.update") },
   ].filter((t) => t.show);

@@ -28,7 +28,7 @@ export default async function RunPage({ params }: { params: Promise<{ basinId: s
       <h2 className="mb-4">
         {run.scenarioName} — {run.kind === "allocation" ? "allocation" : "model"} run
       </h2>
-      <RunResults basinId={access.basin.id} basinName={access.basin.name} initial={run} network={network.geojson} unitSystem={access.basin.unitSystem} />
+      <RunResults basinId={access.basin.id} basinName={access.basin.name} initial={run} network={network.geojson} unitSystem={access.basin.unitSystem} canPropose={await access.can("plan.propose")} />
     </div>
   );
 }

@@ -1,0 +1,239 @@
+"use client";
+import { useState } from "react";
+import { PlanningCaution } from "@/components/results/planning-caution";
+import { Button } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import type { UnitSystem } from "@/db/schema";
+import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { usePlanAction, usePlanQuery, type PlanDto } from "@/lib/queries/plans";
+import { PLAN_STATUS_TEXT } from "./plan-list";
+
+export interface PlanPermissions {
+  signedIn: boolean;
+  manageReview: boolean;
+  publish: boolean;
+  answer: boolean;
+  /** Facilities the viewer represents (highlighted). */
+  myFacilityIds: string[];
+}
+
+const fmtTime = (iso: string, timeZone: string) =>
+  // dateStyle cannot be combined with timeZoneName, so the parts are named one by one
+  new Intl.DateTimeFormat("en-CA", { year: "numeric", month: "short", day: "numeric", hour: "2-digit", minute: "2-digit", timeZone, timeZoneName: "short" }).format(
+    new Date(iso),
+  );
+
+/** A plan: its allocations, its review period, and one comment thread per facility plus one for the whole plan. */
+export function PlanView({ basinId, initial, unitSystem, can }: { basinId: string; initial: PlanDto; unitSystem: UnitSystem; can: PlanPermissions }) {
+  const { data } = usePlanQuery(basinId, initial.id, initial);
+  const plan = data ?? initial;
+  const action = usePlanAction(basinId, plan.id);
+  const [failure, setFailure] = useState<string | null>(null);
+  const act = async (path: string, json?: unknown, method = "POST") => {
+    setFailure(null);
+    try {
+      await action.mutateAsync({ path, json, method });
+      return true;
+    } catch (e) {
+      setFailure(e instanceof Error ? e.message : String(e));
+      return false;
+    }
+  };
+  const load = unitLabel("load", unitSystem);
+  const open = plan.review?.open === true;
+  return (
+    <div className="space-y-6" data-testid="plan-view">
+      <PlanningCaution />
+      {failure && <Notice tone="error">{failure}</Notice>}
+      <div className="flex flex-wrap items-center gap-3">
+        <span className="rounded-full bg-tarn-100 px-3 py-1 text-sm font-semibold text-tarn-900" data-testid="plan-status">
+          {PLAN_STATUS_TEXT[plan.status] ?? plan.status}
+        </span>
+        <span className="text-sm text-ink-soft">
+          Version {plan.version}, proposed {new Date(plan.createdAt).toLocaleDateString("en-CA")}
+          {plan.createdBy ? ` by ${plan.createdBy}` : ""}
+          {plan.publishedAt ? `; published ${new Date(plan.publishedAt).toLocaleDateString("en-CA")}` : ""}
+        </span>
+      </div>
+
+      {plan.review && (
+        <Notice tone={open ? "info" : "warning"} title={open ? "Review period open" : "Review period"}>
+          {fmtTime(plan.review.startsAt, plan.review.timeZone)} to {fmtTime(plan.review.endsAt, plan.review.timeZone)} ({plan.review.timeZone})
+          {plan.review.extensions.length > 0 && (
+            <ul className="mt-1 list-disc pl-5">
+              {plan.review.extensions.map((x, i) => (
+                <li key={i}>
+                  Extended by {x.by}: {x.reason}
+                </li>
+              ))}
+            </ul>
+          )}
+        </Notice>
+      )}
+      <LeadActions basinId={basinId} plan={plan} can={can} act={act} />
+
+      <section className="card">
+        <h2 className="mb-3">Allocations</h2>
+        <table className="data-table" data-testid="plan-allocations">
+          <thead>
+            <tr>
+              <th>Facility</th>
+              <th>Permit id</th>
+              <th className="num">Allocated CBODu ({load})</th>
+              <th className="num">Allocated BOD5 ({load})</th>
+              <th className="num">Effluent BOD5 (mg/L)</th>
+              <th className="num">Today ({load} CBODu)</th>
+              <th className="num">Reduction (%)</th>
+            </tr>
+          </thead>
+          <tbody>
+            {plan.allocations.map((a) => (
+              <tr key={a.facilityId} className={can.myFacilityIds.includes(a.facilityId) ? "!bg-ochre-100 font-semibold" : undefined}>
+                <td>{a.facilityName}</td>
+                <td className="whitespace-nowrap font-mono text-xs">{a.permitId}</td>
+                <td className="num">{formatIn("load", a.cboduKgDay, unitSystem)}</td>
+                <td className="num">{formatIn("load", a.bod5KgDay, unitSystem)}</td>
+                <td className="num">{a.bod5MgL.toFixed(1)}</td>
+                <td className="num">{formatIn("load", a.todayCboduKgDay, unitSystem)}</td>
+                <td className="num">{a.reductionPct === null ? "—" : Math.abs(a.reductionPct) < 0.05 ? "0.0" : a.reductionPct.toFixed(1)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+
+      <section className="space-y-4">
+        <h2>Comments</h2>
+        {!open && <p className="text-sm text-ink-soft">Comments are accepted only while a review period is open.</p>}
+        {plan.threads.map((t) => (
+          <Thread key={t.id} thread={t} canComment={open && can.signedIn} canAnswer={can.answer && plan.status !== "published"} act={act} mine={!!t.facilityId && can.myFacilityIds.includes(t.facilityId)} />
+        ))}
+      </section>
+    </div>
+  );
+}
+
+type Act = (path: string, json?: unknown, method?: string) => Promise<boolean>;
+
+function LeadActions({ basinId, plan, can, act }: { basinId: string; plan: PlanDto; can: PlanPermissions; act: Act }) {
+  const zone = Intl.DateTimeFormat().resolvedOptions().timeZone;
+  const [days, setDays] = useState(30);
+  const [timeZone, setTimeZone] = useState(zone);
+  const [reason, setReason] = useState("");
+  void basinId;
+  if (!can.manageReview && !can.publish) return null;
+  const p = `/plans/${plan.id}`;
+  return (
+    <section className="card space-y-3" aria-label="Lead actions">
+      <h2>Lead actions</h2>
+      {plan.status === "draft" && can.manageReview && (
+        <div className="flex flex-wrap items-end gap-3">
+          <div>
+            <label htmlFor="review-days" className="field-label">
+              Review period from now (days)
+            </label>
+            <input id="review-days" type="number" min={1} max={365} className="field-input w-32" value={days} onChange={(e) => setDays(e.target.valueAsNumber)} />
+          </div>
+          <div>
+            <label htmlFor="review-zone" className="field-label">
+              Time zone
+            </label>
+            <input id="review-zone" className="field-input w-56" value={timeZone} onChange={(e) => setTimeZone(e.target.value)} />
+          </div>
+          <Button
+            onClick={() =>
+              act(`${p}/review`, {
+                startsAt: new Date().toISOString(),
+                endsAt: new Date(Date.now() + days * 86_400_000).toISOString(),
+                timeZone,
+              })
+            }
+          >
+            Open the review
+          </Button>
+        </div>
+      )}
+      {plan.status === "review" && can.manageReview && (
+        <div className="flex flex-wrap items-end gap-3">
+          <div className="grow">
+            <label htmlFor="extend-reason" className="field-label">
+              Extend by 14 days — reason
+            </label>
+            <input id="extend-reason" className="field-input" value={reason} onChange={(e) => setReason(e.target.value)} />
+          </div>
+          <Button
+            variant="secondary"
+            disabled={reason.trim().length < 10}
+            onClick={async () => {
+              const end = new Date(Date.parse(plan.review!.endsAt) + 14 * 86_400_000).toISOString();
+              if (await act(`${p}/review`, { endsAt: end, reason }, "PATCH")) setReason("");
+            }}
+          >
+            Extend the review
+          </Button>
+        </div>
+      )}
+      <div className="flex flex-wrap gap-3">
+        {plan.status === "closed" && can.publish && <Button onClick={() => window.confirm("Publish this plan? It is frozen from then on.") && act(`${p}/publish`)}>Approve and publish</Button>}
+        {(plan.status === "draft" || plan.status === "review" || plan.status === "closed") && can.manageReview && (
+          <Button variant="danger" onClick={() => window.confirm("Withdraw this plan?") && act(`${p}/withdraw`)}>
+            Withdraw
+          </Button>
+        )}
+      </div>
+    </section>
+  );
+}
+
+function Thread({ thread, canComment, canAnswer, act, mine }: { thread: PlanDto["threads"][number]; canComment: boolean; canAnswer: boolean; act: Act; mine: boolean }) {
+  const [text, setText] = useState("");
+  const [response, setResponse] = useState("");
+  const title = thread.facilityName ? `${thread.facilityName} (${thread.permitId})` : "The plan as a whole";
+  return (
+    <article className={`card space-y-3 ${mine ? "ring-2 ring-ochre-500" : ""}`} aria-label={`Thread: ${title}`} data-testid="thread">
+      <div className="flex items-center justify-between">
+        <h3 className="font-semibold">{title}</h3>
+        <span className={`text-xs font-semibold ${thread.status === "addressed" ? "text-reed-700" : "text-ink-faint"}`}>{thread.status}</span>
+      </div>
+      {thread.comments.length === 0 && <p className="text-sm text-ink-faint">No comments.</p>}
+      <ul className="space-y-2">
+        {thread.comments.map((c) => (
+          <li key={c.id} className="rounded-md bg-paper px-3 py-2">
+            <p className="text-xs text-ink-faint">
+              {c.author} · {c.role} · {new Date(c.at).toLocaleString("en-CA", { dateStyle: "medium", timeStyle: "short" })}
+            </p>
+            <p className="whitespace-pre-wrap text-sm">{c.body}</p>
+          </li>
+        ))}
+      </ul>
+      {thread.response && (
+        <div className="rounded-md border-l-4 border-reed-500 bg-reed-100 px-3 py-2 text-sm">
+          <p className="text-xs font-semibold text-reed-700">Response{thread.responder ? ` by ${thread.responder}` : ""}</p>
+          <p className="whitespace-pre-wrap">{thread.response}</p>
+        </div>
+      )}
+      {canComment && (
+        <div className="space-y-2">
+          <label className="sr-only" htmlFor={`comment-${thread.id}`}>
+            Comment on {title}
+          </label>
+          <textarea id={`comment-${thread.id}`} rows={3} className="field-input" value={text} onChange={(e) => setText(e.target.value)} />
+          <Button variant="secondary" disabled={!text.trim()} onClick={async () => (await act(`/threads/${thread.id}/comments`, { body: text })) && setText("")}>
+            Add comment
+          </Button>
+        </div>
+      )}
+      {canAnswer && thread.comments.length > 0 && (
+        <div className="space-y-2 border-t border-rule pt-2">
+          <label className="field-label" htmlFor={`response-${thread.id}`}>
+            Response (marks the thread addressed)
+          </label>
+          <textarea id={`response-${thread.id}`} rows={2} className="field-input" value={response} onChange={(e) => setResponse(e.target.value)} />
+          <Button variant="secondary" disabled={!response.trim()} onClick={async () => (await act(`/threads/${thread.id}/response`, { response })) && setResponse("")}>
+            Respond
+          </Button>
+        </div>
+      )}
+    </article>
+  );
+}
