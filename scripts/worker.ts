@@ -1,5 +1,6 @@
 import { getDb } from "@/db/client";
 import { getBoss, RUN_QUEUE, stopBoss } from "@/lib/jobs/queue";
+import { closeDueReviews } from "@/lib/services/plans";
 import { processRun } from "@/lib/services/runs";
 import { sendPending } from "@/lib/email/sender";
 import { smtpUrl } from "@/lib/email/transport";
@@ -31,9 +32,18 @@ const mailLoop = async () => {
 mailTimer = setTimeout(mailLoop, 500);
 console.log(`Sagline worker sending the e-mail outbox to ${smtpUrl()} every ${MAIL_INTERVAL_MS} ms`);
 
+// Review periods close themselves at their end: checked every 30 s.
+const REVIEW_INTERVAL_MS = Number(process.env.SAGLINE_REVIEW_INTERVAL_MS ?? 30_000);
+const reviewTimer = setInterval(() => {
+  closeDueReviews(getDb())
+    .then((n) => n > 0 && console.log(`[review] closed ${n} review period(s) at their end`))
+    .catch((error) => console.error("[review] closing failed:", error instanceof Error ? error.message : error));
+}, REVIEW_INTERVAL_MS);
+
 const shutdown = async () => {
   stopping = true;
   clearTimeout(mailTimer);
+  clearInterval(reviewTimer);
   await stopBoss();
   await getDb().destroy();
   process.exit(0);

@@ -7,6 +7,7 @@ import type { PlanStatus } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { PlanPropose, ReviewExtend, ReviewOpen } from "@/lib/validation/plan";
+import { noticePlanPublished, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
 import { getRun } from "./runs";
 import { getScenario } from "./scenarios";
 import { findBasinById } from "@/db/queries/basins";
@@ -172,11 +173,13 @@ export async function openReview(db: Db, actor: Actor | null, basinId: string, p
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
   if (plan.status !== "draft") throw conflict(`Only a draft plan can go to review; this one is ${plan.status}`);
   await db.transaction().execute(async (trx) => {
-    await trx
+    const period = await trx
       .insertInto("review_periods")
       .values({ plan_id: plan.id, starts_at: input.startsAt, ends_at: input.endsAt, time_zone: input.timeZone, opened_by: actor!.id })
-      .execute();
+      .returning(["id", "starts_at", "ends_at"])
+      .executeTakeFirstOrThrow();
     await setPlanStatus(trx, plan.id, "review");
+    await noticeReviewOpened(trx, plan, { id: period.id, startsAt: period.starts_at, endsAt: period.ends_at, timeZone: input.timeZone });
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.opened", targetType: "plan", targetId: plan.id, details: { ...input } });
   });
 }
@@ -222,7 +225,10 @@ export async function publishPlan(db: Db, actor: Actor | null, basinId: string, 
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "plan.publish");
   if (plan.status !== "closed") throw conflict(`A plan is published after its review closes; this one is ${plan.status}`);
   await db.transaction().execute(async (trx) => {
-    await setPlanStatus(trx, plan.id, "published", { published_by: actor!.id, published_at: new Date() });
+    const publishedAt = new Date();
+    await setPlanStatus(trx, plan.id, "published", { published_by: actor!.id, published_at: publishedAt });
+    const period = await currentPeriod(trx, plan.id);
+    await noticePlanPublished(trx, plan, publishedAt, period?.time_zone ?? "UTC");
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.published", targetType: "plan", targetId: plan.id, details: { version: plan.version } });
   });
 }
@@ -260,6 +266,16 @@ export async function addComment(db: Db, actor: Actor | null, basinId: string, t
       .values({ thread_id: thread.id, author_id: a.id, author_name: a.name, author_role: role, body })
       .returning(["id", "created_at"])
       .executeTakeFirstOrThrow();
+    const plan = (await findPlan(trx, basin.id, thread.plan_id))!;
+    const facility = thread.facility_id
+      ? await trx.selectFrom("facilities").select(["name", "permit_id"]).where("id", "=", thread.facility_id).executeTakeFirst()
+      : undefined;
+    await noticeThreadReply(
+      trx,
+      plan,
+      { id: thread.id, title: facility ? `${facility.name} (${facility.permit_id})` : "The plan as a whole" },
+      { id: c.id, authorId: a.id, authorName: a.name, authorRole: role, body },
+    );
     await insertAuditEvent(trx, { basinId: basin.id, actorId: a.id, action: "comment.added", targetType: "thread", targetId: thread.id });
     return { id: c.id, at: c.created_at.toISOString(), role };
   });

@@ -67,6 +67,12 @@ describe("a plan from proposal to publication", () => {
     const noOffset = await callRoute(reviewRoute.POST, "POST", { userId: as("lead"), params: { basinId: w.basinId, planId }, body: { ...body, startsAt: "2026-12-01T09:00:00" } });
     expect(err(noOffset.json).details![0].path).toBe("startsAt");
     expect((await callRoute(reviewRoute.POST, "POST", { userId: as("lead"), params: { basinId: w.basinId, planId }, body })).status).toBe(204);
+    // every member is told, once, through the outbox written in the same transaction
+    const opened = await db.selectFrom("email_outbox").select(["to_address", "text_body"]).where("basin_id", "=", w.basinId).where("kind", "=", "review_opened").execute();
+    const members = await db.selectFrom("memberships").select("user_id").where("basin_id", "=", w.basinId).execute();
+    expect(opened).toHaveLength(members.length);
+    expect(opened.map((o) => o.to_address)).toContain(w.users.discharger.email);
+    expect(opened[0].text_body).toMatch(/qualified/);
 
     const comment = (userId: string, threadId: string, text: string) =>
       callRoute(commentsRoute.POST, "POST", { userId, params: { basinId: w.basinId, threadId }, body: { body: text } });
@@ -95,6 +101,10 @@ describe("a plan from proposal to publication", () => {
     expect((await answer(as("planner"))).status).toBe(204);
     const plan = await getPlan(db, w.users.planner, w.basinId, planId);
     expect(plan.threads.find((t) => t.id === facilityThread)).toMatchObject({ status: "addressed", response: "A compliance schedule is proposed." });
+    // a later reply reaches the earlier participants (the discharger and the planner who answered), not its author
+    await addComment(db, w.users.stakeholder, w.basinId, facilityThread, "We support the schedule.");
+    const replies = await db.selectFrom("email_outbox").select("to_address").where("basin_id", "=", w.basinId).where("kind", "=", "thread_reply").execute();
+    expect(replies.map((r) => r.to_address).sort()).toEqual([w.users.discharger.email, w.users.planner.email].sort());
   });
 
   it("extending needs a reason; the review closes itself at its end and comments stop", async () => {
@@ -115,7 +125,12 @@ describe("a plan from proposal to publication", () => {
 
   it("is published by a lead, then frozen: readable signed out, no edit path, and direct SQL refused by the trigger", async () => {
     await expect(publishPlan(db, w.users.planner, w.basinId, planId)).rejects.toThrow(/does not allow plan.publish/);
+    const dp1001 = await db.selectFrom("plan_allocations").select("facility_id").where("plan_id", "=", planId).where("permit_id", "=", "DP-1001").executeTakeFirstOrThrow();
+    await db.insertInto("facility_users").values({ facility_id: dp1001.facility_id, user_id: w.users.discharger.id }).execute();
     await publishPlan(db, w.users.lead, w.basinId, planId);
+    const published = await db.selectFrom("email_outbox").select(["to_address", "text_body"]).where("basin_id", "=", w.basinId).where("kind", "=", "plan_published").execute();
+    expect(published.map((p) => p.to_address)).toEqual([w.users.discharger.email]);
+    expect(published[0].text_body).toMatch(/Quillford Water Reclamation Plant/);
     const signedOut = await callRoute(planRoute.GET, "GET", { params: { basinId: w.basinId, planId } });
     expect(signedOut.status).toBe(200);
     expect((signedOut.json as PlanJson).status).toBe("published");
