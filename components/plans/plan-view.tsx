@@ -1,6 +1,8 @@
 "use client";
 import { useState } from "react";
 import { PlanningCaution } from "@/components/results/planning-caution";
+import { CsvButton, downloadCsv } from "@/components/tables/sortable-table";
+import { RESPONSIVENESS_COLUMNS, responsivenessPreface, responsivenessRows } from "@/lib/results/responsiveness";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
@@ -103,7 +105,20 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
       </section>
 
       <section className="space-y-4">
-        <h2>Comments</h2>
+        <div className="flex items-center justify-between">
+          <h2>Comments</h2>
+          <CsvButton
+            label="Download the responsiveness summary (CSV)"
+            onClick={() =>
+              downloadCsv(
+                `plan-v${plan.version}-responsiveness.csv`,
+                responsivenessRows(plan.threads),
+                RESPONSIVENESS_COLUMNS,
+                responsivenessPreface(plan.title, plan.version),
+              )
+            }
+          />
+        </div>
         {!open && <p className="text-sm text-ink-soft">Comments are accepted only while a review period is open.</p>}
         {plan.threads.map((t) => (
           <Thread key={t.id} thread={t} canComment={open && can.signedIn} canAnswer={can.answer && plan.status !== "published"} act={act} mine={!!t.facilityId && can.myFacilityIds.includes(t.facilityId)} />

@@ -1,4 +1,4 @@
-import { mkdirSync } from "node:fs";
+import { mkdirSync, readFileSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { DEMO_USERS } from "@/db/seed/demo-data";
@@ -83,6 +83,12 @@ describe("a plan under review in the browser", () => {
     await thread.getByLabel(/Response/).fill("A compliance schedule to 2028 is proposed.");
     await thread.getByRole("button", { name: "Respond" }).click();
     await thread.getByText("addressed", { exact: true }).waitFor();
+    const download = planner.waitForEvent("download");
+    await planner.getByRole("button", { name: "Download the responsiveness summary (CSV)" }).click();
+    const csv = readFileSync(await (await download).path(), "utf8");
+    expect(csv.split(/\r?\n/)[0]).toMatch(/^# Planning-level estimates/);
+    expect(csv).toMatch(/We need until 2028 to upgrade/);
+    expect(csv).toMatch(/A compliance schedule to 2028 is proposed/);
     await planner.screenshot({ path: `${SHOTS}/plan-review-planner.png`, fullPage: true });
     await planner.close();
   });
