@@ -1,11 +1,14 @@
 import Link from "next/link";
 import { NameMark } from "@/components/brand/name-mark";
+import { getDb } from "@/db/client";
 import { currentActor } from "@/lib/auth/session";
+import { listPublishedPlans } from "@/lib/services/plans";
 
 export const dynamic = "force-dynamic";
 
 export default async function HomePage() {
   const actor = await currentActor();
+  const published = await listPublishedPlans(getDb());
   return (
     <main className="mx-auto max-w-3xl px-6 py-16">
       <NameMark className="mb-10" />
@@ -30,6 +33,24 @@ export default async function HomePage() {
           Sign in
         </Link>
       )}
+      <section className="mt-12" aria-label="Published plans">
+        <h2 className="mb-3">Published plans</h2>
+        {published.length === 0 ? (
+          <p className="text-sm text-ink-soft">No plan has been published yet.</p>
+        ) : (
+          <ul className="space-y-2" data-testid="published-plans">
+            {published.map((p) => (
+              <li key={p.id}>
+                <Link href={`/published/${p.basinId}/${p.id}`}>{p.title}</Link>{" "}
+                <span className="text-sm text-ink-faint">
+                  — {p.basinName}, version {p.version}
+                  {p.publishedAt ? `, ${new Date(p.publishedAt).toLocaleDateString("en-CA")}` : ""}
+                </span>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
     </main>
   );
 }

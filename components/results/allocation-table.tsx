@@ -42,7 +42,8 @@ export function AllocationTable({
       column<AllocationRow>("today", `Today's CBODu (${load})`, (r) => r.today_cbodu_kg_day, { numeric: true, show: (r) => l(r.today_cbodu_kg_day) }),
       column<AllocationRow>("reduction", "Reduction (%)", (r) => r.reduction_pct, {
         numeric: true,
-        show: (r) => (r.reduction_pct === null ? "—" : r.reduction_pct.toFixed(1)),
+        // a reduction that rounds to zero is shown as 0.0, never as -0.0
+        show: (r) => (r.reduction_pct === null ? "—" : (Math.abs(r.reduction_pct) < 0.05 ? 0 : r.reduction_pct).toFixed(1)),
       }),
     ];
   }, [load, unitSystem]);

@@ -75,3 +75,15 @@ export async function findThread(db: Db, basinId: string, threadId: string) {
     .where("t.id", "=", threadId)
     .executeTakeFirst();
 }
+
+/** Published plans of every basin, newest first (readable by anyone). */
+export async function listPublishedPlans(db: Db, limit = 50) {
+  return db
+    .selectFrom("plans as p")
+    .innerJoin("basins as b", "b.id", "p.basin_id")
+    .select(["p.id", "p.basin_id", "p.title", "p.version", "p.published_at", "b.name as basin_name", "b.unit_system"])
+    .where("p.status", "=", "published")
+    .orderBy("p.published_at", "desc")
+    .limit(limit)
+    .execute();
+}

@@ -2,7 +2,7 @@ import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
 import { findFacilityByPermit } from "@/db/queries/facilities";
 import { findMembershipRole } from "@/db/queries/memberships";
-import { currentPeriod, findPlan, findThread, nextPlanVersion, planAllocations, planQuery, planThreads, setPlanStatus } from "@/db/queries/plans";
+import { currentPeriod, findPlan, findThread, listPublishedPlans as listPublishedRows, nextPlanVersion, planAllocations, planQuery, planThreads, setPlanStatus } from "@/db/queries/plans";
 import type { PlanStatus } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, conflict, notFound } from "@/lib/errors";
@@ -291,4 +291,16 @@ export async function respondToThread(db: Db, actor: Actor | null, basinId: stri
     await trx.updateTable("threads").set({ status: "addressed", response, responded_by: actor!.id, responded_at: new Date() }).where("id", "=", thread.id).execute();
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "thread.addressed", targetType: "thread", targetId: thread.id });
   });
+}
+
+/** Published plans across basins, for the public front page. */
+export async function listPublishedPlans(db: Db) {
+  return (await listPublishedRows(db)).map((p) => ({
+    id: p.id,
+    basinId: p.basin_id,
+    basinName: p.basin_name,
+    title: p.title,
+    version: p.version,
+    publishedAt: p.published_at?.toISOString() ?? null,
+  }));
 }

@@ -1,0 +1,49 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { NameMark } from "@/components/brand/name-mark";
+import { PublicPlan } from "@/components/plans/public-plan";
+import { getDb } from "@/db/client";
+import { findBasinById } from "@/db/queries/basins";
+import { currentActor } from "@/lib/auth/session";
+import { AppError } from "@/lib/errors";
+import type { AllocationResult, ModelFile, RunResult } from "@/lib/model";
+import { getPlan } from "@/lib/services/plans";
+
+export const metadata: Metadata = { title: "Published plan" };
+export const dynamic = "force-dynamic";
+
+interface Snapshot {
+  run: { result: { allocation: AllocationResult; conditions: { run: RunResult }[] }; modelFiles: { file: ModelFile }[] };
+}
+
+/** A published plan, readable without signing in. */
+export default async function PublishedPlanPage({ params }: { params: Promise<{ basinId: string; planId: string }> }) {
+  const { basinId, planId } = await params;
+  const db = getDb();
+  const plan = await getPlan(db, await currentActor(), basinId, planId).catch((e) => {
+    if (e instanceof AppError) return null;
+    throw e;
+  });
+  if (!plan || plan.status !== "published") notFound();
+  const basin = (await findBasinById(db, basinId))!;
+  const snapshot = plan.snapshot as unknown as Snapshot;
+  return (
+    <main className="mx-auto max-w-6xl px-6 py-10">
+      <Link href="/" className="no-underline hover:no-underline" aria-label="Sagline home">
+        <NameMark />
+      </Link>
+      <h1 className="mt-6">{plan.title}</h1>
+      <p className="mb-6 text-sm text-ink-soft">
+        {basin.name} · version {plan.version} · published {plan.publishedAt ? new Date(plan.publishedAt).toLocaleDateString("en-CA") : ""}
+      </p>
+      <PublicPlan
+        allocation={snapshot.run.result.allocation}
+        model={snapshot.run.modelFiles[0].file}
+        run={snapshot.run.result.conditions[0].run}
+        unitSystem={basin.unit_system}
+        fileStem={`${basin.slug}-plan-v${plan.version}`}
+      />
+    </main>
+  );
+}
