@@ -152,3 +152,8 @@ export async function updateOutfallAttributes(db: Db, networkId: string, facilit
     .where("facility_id", "=", facilityId)
     .execute();
 }
+
+/** Lock a network version's row until the transaction ends (serialises edits to it). */
+export async function lockNetwork(db: Db, networkId: string): Promise<void> {
+  await sql`select id from networks where id = ${networkId} for update`.execute(db);
+}

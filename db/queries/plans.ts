@@ -87,3 +87,129 @@ export async function listPublishedPlans(db: Db, limit = 50) {
     .limit(limit)
     .execute();
 }
+
+export async function insertPlan(
+  db: Db,
+  v: { basinId: string; version: number; title: string; runId: string; snapshot: unknown; createdBy: string },
+): Promise<{ id: string }> {
+  return db
+    .insertInto("plans")
+    .values({ basin_id: v.basinId, version: v.version, title: v.title, run_id: v.runId, snapshot: JSON.stringify(v.snapshot), created_by: v.createdBy })
+    .returning("id")
+    .executeTakeFirstOrThrow();
+}
+
+export async function insertPlanAllocation(
+  db: Db,
+  v: { planId: string; facilityId: string; permitId: string; cboduKgDay: number; bod5KgDay: number; bod5MgL: number; todayKgDay: number; reductionPct: number | null; terms: unknown },
+): Promise<void> {
+  await db
+    .insertInto("plan_allocations")
+    .values({
+      plan_id: v.planId,
+      facility_id: v.facilityId,
+      permit_id: v.permitId,
+      cbodu_kg_day: v.cboduKgDay,
+      bod5_kg_day: v.bod5KgDay,
+      bod5_mg_l: v.bod5MgL,
+      today_cbodu_kg_day: v.todayKgDay,
+      reduction_pct: v.reductionPct,
+      terms: JSON.stringify(v.terms),
+    })
+    .execute();
+}
+
+/** One thread for the plan as a whole (facility null) and one per facility. */
+export async function insertThreads(db: Db, planId: string, facilityIds: string[]): Promise<void> {
+  await db
+    .insertInto("threads")
+    .values([{ plan_id: planId, facility_id: null }, ...facilityIds.map((id) => ({ plan_id: planId, facility_id: id }))])
+    .execute();
+}
+
+export async function insertReviewPeriod(db: Db, v: { planId: string; startsAt: string; endsAt: string; timeZone: string; openedBy: string }) {
+  return db
+    .insertInto("review_periods")
+    .values({ plan_id: v.planId, starts_at: v.startsAt, ends_at: v.endsAt, time_zone: v.timeZone, opened_by: v.openedBy })
+    .returning(["id", "starts_at", "ends_at"])
+    .executeTakeFirstOrThrow();
+}
+
+export async function updateReviewPeriod(db: Db, id: string, patch: { ends_at?: string; closed_at?: Date | null; extensions?: unknown[] }) {
+  await db
+    .updateTable("review_periods")
+    .set({
+      ...(patch.ends_at !== undefined ? { ends_at: patch.ends_at } : {}),
+      ...(patch.closed_at !== undefined ? { closed_at: patch.closed_at } : {}),
+      ...(patch.extensions !== undefined ? { extensions: JSON.stringify(patch.extensions) } : {}),
+    })
+    .where("id", "=", id)
+    .execute();
+}
+
+/** Open review periods whose end has passed, locked for closing. */
+export async function dueReviewPeriods(db: Db, now: Date) {
+  return db
+    .selectFrom("review_periods as r")
+    .innerJoin("plans as p", "p.id", "r.plan_id")
+    .select(["r.id", "r.plan_id", "p.basin_id"])
+    .where("p.status", "=", "review")
+    .where("r.closed_at", "is", null)
+    .where("r.ends_at", "<=", now)
+    .forUpdate()
+    .execute();
+}
+
+export async function insertComment(db: Db, v: { threadId: string; authorId: string; authorName: string; authorRole: string; body: string }) {
+  return db
+    .insertInto("comments")
+    .values({ thread_id: v.threadId, author_id: v.authorId, author_name: v.authorName, author_role: v.authorRole, body: v.body })
+    .returning(["id", "created_at"])
+    .executeTakeFirstOrThrow();
+}
+
+export async function markThreadAddressed(db: Db, threadId: string, response: string, userId: string): Promise<void> {
+  await db.updateTable("threads").set({ status: "addressed", response, responded_by: userId, responded_at: new Date() }).where("id", "=", threadId).execute();
+}
+
+/** How a thread is named in messages: its facility, or the plan as a whole. */
+export async function threadTitle(db: Db, facilityId: string | null): Promise<string> {
+  if (!facilityId) return "The plan as a whole";
+  const f = await db.selectFrom("facilities").select(["name", "permit_id"]).where("id", "=", facilityId).executeTakeFirst();
+  return f ? `${f.name} (${f.permit_id})` : "The plan as a whole";
+}
+
+// Recipients of plan notices.
+
+export const basinMembersWithEmail = (db: Db, basinId: string) =>
+  db
+    .selectFrom("memberships as m")
+    .innerJoin("users as u", "u.id", "m.user_id")
+    .select(["u.id", "u.name", "u.email"])
+    .where("m.basin_id", "=", basinId)
+    .execute();
+
+/** Everyone who wrote in a thread or answered it, except `exceptUserId`. */
+export const threadParticipants = (db: Db, threadId: string, exceptUserId: string) =>
+  db
+    .selectFrom("users as u")
+    .select(["u.id", "u.name", "u.email"])
+    .where((eb) =>
+      eb.or([
+        eb("u.id", "in", eb.selectFrom("comments").select("author_id").where("thread_id", "=", threadId).where("author_id", "is not", null).$narrowType<{ author_id: string }>()),
+        eb("u.id", "in", eb.selectFrom("threads").select("responded_by").where("id", "=", threadId).where("responded_by", "is not", null).$narrowType<{ responded_by: string }>()),
+      ]),
+    )
+    .where("u.id", "!=", exceptUserId)
+    .execute();
+
+/** Each linked discharger user with the allocations of its facilities in a plan. */
+export const dischargerAllocations = (db: Db, planId: string) =>
+  db
+    .selectFrom("plan_allocations as a")
+    .innerJoin("facilities as f", "f.id", "a.facility_id")
+    .innerJoin("facility_users as fu", "fu.facility_id", "a.facility_id")
+    .innerJoin("users as u", "u.id", "fu.user_id")
+    .select(["u.id as user_id", "u.name", "u.email", "f.name as facility_name", "a.cbodu_kg_day", "a.today_cbodu_kg_day", "a.bod5_kg_day", "a.bod5_mg_l", "a.reduction_pct"])
+    .where("a.plan_id", "=", planId)
+    .execute();

@@ -108,3 +108,9 @@ export async function unlinkUserFromFacility(
     });
   });
 }
+
+/** The facilities of a basin that the actor represents (empty for everyone else). */
+export async function myFacilityIds(db: Db, actor: Actor | null, basinId: string): Promise<string[]> {
+  if (!actor) return [];
+  return facilityIdsForUser(db, basinId, actor.id);
+}

@@ -1,5 +1,5 @@
-import { sql } from "kysely";
 import { getDb } from "@/db/client";
+import { pingDatabase } from "@/db/queries/health";
 
 export interface DatabaseHealth {
   ok: boolean;
@@ -10,7 +10,7 @@ export interface DatabaseHealth {
 export async function checkDatabase(): Promise<DatabaseHealth> {
   const started = performance.now();
   try {
-    await sql`select 1`.execute(getDb());
+    await pingDatabase(getDb());
     return { ok: true, latencyMs: Math.round(performance.now() - started) };
   } catch (error) {
     const code = (error as { code?: string }).code;

@@ -1,4 +1,3 @@
-import { sql } from "kysely";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
 import {
@@ -6,6 +5,7 @@ import {
   findOutfall,
   findReach,
   latestNetworkId,
+  lockNetwork,
   updateOutfallAttributes,
   updateReach,
 } from "@/db/queries/networks";
@@ -25,7 +25,7 @@ function merge(attributes: Record<string, unknown>, patch: Record<string, unknow
 
 /** Only the newest version takes edits; earlier versions stay as they were saved. */
 async function editableNetwork(db: Db, basinId: string, networkId: string) {
-  await sql`select id from networks where id = ${networkId} for update`.execute(db);
+  await lockNetwork(db, networkId);
   const network = await findNetwork(db, basinId, networkId);
   if (!network) throw notFound("Network");
   if ((await latestNetworkId(db, basinId)) !== network.id) {

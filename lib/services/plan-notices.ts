@@ -1,4 +1,6 @@
 import type { Db } from "@/db/client";
+import { findBasinById } from "@/db/queries/basins";
+import { basinMembersWithEmail, dischargerAllocations, threadParticipants } from "@/db/queries/plans";
 import { queueEmail } from "@/lib/email/outbox";
 import { planPublishedEmail, reviewOpenedEmail, threadReplyEmail } from "@/lib/email/templates";
 
@@ -14,19 +16,13 @@ interface PlanInfo {
 }
 
 async function basinName(db: Db, basinId: string): Promise<string> {
-  const b = await db.selectFrom("basins").select("name").where("id", "=", basinId).executeTakeFirstOrThrow();
-  return b.name;
+  return (await findBasinById(db, basinId))?.name ?? "";
 }
 
 /** Every member of the basin hears that the review opened (queued in the caller's transaction). */
 export async function noticeReviewOpened(trx: Db, plan: PlanInfo, period: { id: string; startsAt: Date; endsAt: Date; timeZone: string }) {
   const name = await basinName(trx, plan.basin_id);
-  const members = await trx
-    .selectFrom("memberships as m")
-    .innerJoin("users as u", "u.id", "m.user_id")
-    .select(["u.id", "u.name", "u.email"])
-    .where("m.basin_id", "=", plan.basin_id)
-    .execute();
+  const members = await basinMembersWithEmail(trx, plan.basin_id);
   for (const m of members) {
     await queueEmail(trx, {
       to: m.email,
@@ -55,17 +51,7 @@ export async function noticeThreadReply(
   comment: { id: string; authorId: string; authorName: string; authorRole: string; body: string },
 ) {
   const name = await basinName(trx, plan.basin_id);
-  const participants = await trx
-    .selectFrom("users as u")
-    .select(["u.id", "u.name", "u.email"])
-    .where((eb) =>
-      eb.or([
-        eb("u.id", "in", eb.selectFrom("comments").select("author_id").where("thread_id", "=", thread.id).where("author_id", "is not", null).$narrowType<{ author_id: string }>()),
-        eb("u.id", "in", eb.selectFrom("threads").select("responded_by").where("id", "=", thread.id).where("responded_by", "is not", null).$narrowType<{ responded_by: string }>()),
-      ]),
-    )
-    .where("u.id", "!=", comment.authorId)
-    .execute();
+  const participants = await threadParticipants(trx, thread.id, comment.authorId);
   for (const p of participants) {
     await queueEmail(trx, {
       to: p.email,
@@ -90,14 +76,7 @@ export async function noticeThreadReply(
 /** Each discharger linked to a facility gets its final allocation when the plan is published. */
 export async function noticePlanPublished(trx: Db, plan: PlanInfo, publishedAt: Date, timeZone: string) {
   const name = await basinName(trx, plan.basin_id);
-  const rows = await trx
-    .selectFrom("plan_allocations as a")
-    .innerJoin("facilities as f", "f.id", "a.facility_id")
-    .innerJoin("facility_users as fu", "fu.facility_id", "a.facility_id")
-    .innerJoin("users as u", "u.id", "fu.user_id")
-    .select(["u.id as user_id", "u.name", "u.email", "f.name as facility_name", "a.cbodu_kg_day", "a.today_cbodu_kg_day", "a.bod5_kg_day", "a.bod5_mg_l", "a.reduction_pct"])
-    .where("a.plan_id", "=", plan.id)
-    .execute();
+  const rows = await dischargerAllocations(trx, plan.id);
   const byUser = new Map<string, typeof rows>();
   for (const r of rows) byUser.set(r.user_id, [...(byUser.get(r.user_id) ?? []), r]);
   for (const [userId, own] of byUser) {

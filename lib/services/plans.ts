@@ -2,7 +2,21 @@ import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
 import { findFacilityByPermit } from "@/db/queries/facilities";
 import { findMembershipRole } from "@/db/queries/memberships";
-import { currentPeriod, findPlan, findThread, listPublishedPlans as listPublishedRows, nextPlanVersion, planAllocations, planQuery, planThreads, setPlanStatus } from "@/db/queries/plans";
+import {
+  currentPeriod,
+  dueReviewPeriods,
+  findPlan,
+  findThread,
+  insertComment,
+  insertPlan,
+  insertPlanAllocation,
+  insertReviewPeriod,
+  insertThreads,
+  listPublishedPlans as listPublishedRows,
+  markThreadAddressed,
+  nextPlanVersion,
+  threadTitle,
+  updateReviewPeriod, planAllocations, planQuery, planThreads, setPlanStatus } from "@/db/queries/plans";
 import type { PlanStatus } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, conflict, notFound } from "@/lib/errors";
@@ -50,42 +64,32 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
   const scenario = await getScenario(db, actor, basin.id, run.scenarioId);
   return db.transaction().execute(async (trx) => {
     const version = await nextPlanVersion(trx, basin.id);
-    const plan = await trx
-      .insertInto("plans")
-      .values({
-        basin_id: basin.id,
-        version,
-        title: input.title,
-        run_id: run.id,
-        snapshot: JSON.stringify({ run, scenario: { id: scenario.id, name: scenario.name, version: run.scenarioVersion, inputs: scenario.inputs } }),
-        created_by: actor!.id,
-      })
-      .returning("id")
-      .executeTakeFirstOrThrow();
+    const plan = await insertPlan(trx, {
+      basinId: basin.id,
+      version,
+      title: input.title,
+      runId: run.id,
+      snapshot: { run, scenario: { id: scenario.id, name: scenario.name, version: run.scenarioVersion, inputs: scenario.inputs } },
+      createdBy: actor!.id,
+    });
     const facilityIds: string[] = [];
     for (const a of allocation.allocations) {
       const facility = await findFacilityByPermit(trx, basin.id, a.id);
       if (!facility) throw new AppError("invalid", `Discharger ${a.id} is not a facility of this basin`, [{ path: "runId", message: a.id }]);
       facilityIds.push(facility.id);
-      await trx
-        .insertInto("plan_allocations")
-        .values({
-          plan_id: plan.id,
-          facility_id: facility.id,
-          permit_id: a.id,
-          cbodu_kg_day: a.cbodu_kg_day,
-          bod5_kg_day: a.bod5_kg_day,
-          bod5_mg_l: a.bod5_mg_l,
-          today_cbodu_kg_day: a.today_cbodu_kg_day,
-          reduction_pct: a.reduction_pct,
-          terms: JSON.stringify(a),
-        })
-        .execute();
+      await insertPlanAllocation(trx, {
+        planId: plan.id,
+        facilityId: facility.id,
+        permitId: a.id,
+        cboduKgDay: a.cbodu_kg_day,
+        bod5KgDay: a.bod5_kg_day,
+        bod5MgL: a.bod5_mg_l,
+        todayKgDay: a.today_cbodu_kg_day,
+        reductionPct: a.reduction_pct,
+        terms: a,
+      });
     }
-    await trx
-      .insertInto("threads")
-      .values([{ plan_id: plan.id, facility_id: null }, ...facilityIds.map((id) => ({ plan_id: plan.id, facility_id: id }))])
-      .execute();
+    await insertThreads(trx, plan.id, facilityIds);
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.proposed", targetType: "plan", targetId: plan.id, details: { version, runId: run.id } });
     return { id: plan.id, version };
   });
@@ -173,11 +177,7 @@ export async function openReview(db: Db, actor: Actor | null, basinId: string, p
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
   if (plan.status !== "draft") throw conflict(`Only a draft plan can go to review; this one is ${plan.status}`);
   await db.transaction().execute(async (trx) => {
-    const period = await trx
-      .insertInto("review_periods")
-      .values({ plan_id: plan.id, starts_at: input.startsAt, ends_at: input.endsAt, time_zone: input.timeZone, opened_by: actor!.id })
-      .returning(["id", "starts_at", "ends_at"])
-      .executeTakeFirstOrThrow();
+    const period = await insertReviewPeriod(trx, { planId: plan.id, startsAt: input.startsAt, endsAt: input.endsAt, timeZone: input.timeZone, openedBy: actor!.id });
     await setPlanStatus(trx, plan.id, "review");
     await noticeReviewOpened(trx, plan, { id: period.id, startsAt: period.starts_at, endsAt: period.ends_at, timeZone: input.timeZone });
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.opened", targetType: "plan", targetId: plan.id, details: { ...input } });
@@ -194,7 +194,7 @@ export async function extendReview(db: Db, actor: Actor | null, basinId: string,
   }
   const extensions = [...period.extensions, { at: new Date().toISOString(), by: actor!.name, from: period.ends_at.toISOString(), to: input.endsAt, reason: input.reason }];
   await db.transaction().execute(async (trx) => {
-    await trx.updateTable("review_periods").set({ ends_at: input.endsAt, closed_at: null, extensions: JSON.stringify(extensions) }).where("id", "=", period.id).execute();
+    await updateReviewPeriod(trx, period.id, { ends_at: input.endsAt, closed_at: null, extensions });
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.extended", targetType: "plan", targetId: plan.id, details: { ...input } });
   });
 }
@@ -202,17 +202,9 @@ export async function extendReview(db: Db, actor: Actor | null, basinId: string,
 /** Close review periods whose end has passed (the scheduled job); returns how many closed. */
 export async function closeDueReviews(db: Db, now = new Date()): Promise<number> {
   return db.transaction().execute(async (trx) => {
-    const due = await trx
-      .selectFrom("review_periods as r")
-      .innerJoin("plans as p", "p.id", "r.plan_id")
-      .select(["r.id", "r.plan_id", "p.basin_id"])
-      .where("p.status", "=", "review")
-      .where("r.closed_at", "is", null)
-      .where("r.ends_at", "<=", now)
-      .forUpdate()
-      .execute();
+    const due = await dueReviewPeriods(trx, now);
     for (const d of due) {
-      await trx.updateTable("review_periods").set({ closed_at: now }).where("id", "=", d.id).execute();
+      await updateReviewPeriod(trx, d.id, { closed_at: now });
       await setPlanStatus(trx, d.plan_id, "closed");
       await insertAuditEvent(trx, { basinId: d.basin_id, actorId: null, action: "review.closed", targetType: "plan", targetId: d.plan_id, details: { by: "schedule" } });
     }
@@ -261,19 +253,12 @@ export async function addComment(db: Db, actor: Actor | null, basinId: string, t
   }
   const role = (await findMembershipRole(db, basin.id, a.id)) ?? "stakeholder (public)";
   return db.transaction().execute(async (trx) => {
-    const c = await trx
-      .insertInto("comments")
-      .values({ thread_id: thread.id, author_id: a.id, author_name: a.name, author_role: role, body })
-      .returning(["id", "created_at"])
-      .executeTakeFirstOrThrow();
+    const c = await insertComment(trx, { threadId: thread.id, authorId: a.id, authorName: a.name, authorRole: role, body });
     const plan = (await findPlan(trx, basin.id, thread.plan_id))!;
-    const facility = thread.facility_id
-      ? await trx.selectFrom("facilities").select(["name", "permit_id"]).where("id", "=", thread.facility_id).executeTakeFirst()
-      : undefined;
     await noticeThreadReply(
       trx,
       plan,
-      { id: thread.id, title: facility ? `${facility.name} (${facility.permit_id})` : "The plan as a whole" },
+      { id: thread.id, title: await threadTitle(trx, thread.facility_id) },
       { id: c.id, authorId: a.id, authorName: a.name, authorRole: role, body },
     );
     await insertAuditEvent(trx, { basinId: basin.id, actorId: a.id, action: "comment.added", targetType: "thread", targetId: thread.id });
@@ -288,7 +273,7 @@ export async function respondToThread(db: Db, actor: Actor | null, basinId: stri
   if (!thread) throw notFound("Thread");
   if (thread.plan_status === "published" || thread.plan_status === "withdrawn") throw conflict(`This plan is ${thread.plan_status}; its threads are closed`);
   await db.transaction().execute(async (trx) => {
-    await trx.updateTable("threads").set({ status: "addressed", response, responded_by: actor!.id, responded_at: new Date() }).where("id", "=", thread.id).execute();
+    await markThreadAddressed(trx, thread.id, response, actor!.id);
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "thread.addressed", targetType: "thread", targetId: thread.id });
   });
 }
@@ -303,4 +288,15 @@ export async function listPublishedPlans(db: Db) {
     version: p.version,
     publishedAt: p.published_at?.toISOString() ?? null,
   }));
+}
+
+/** A published plan with its basin's name and units, for the public page; null when not published. */
+export async function getPublishedPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
+  const plan = await getPlan(db, actor, basinId, planId).catch((e) => {
+    if (e instanceof AppError) return null;
+    throw e;
+  });
+  if (!plan || plan.status !== "published") return null;
+  const basin = (await findBasinById(db, basinId))!;
+  return { plan, basin: { name: basin.name, slug: basin.slug, unitSystem: basin.unit_system } };
 }

@@ -4,11 +4,9 @@ import { notFound } from "next/navigation";
 import { NameMark } from "@/components/brand/name-mark";
 import { PublicPlan } from "@/components/plans/public-plan";
 import { getDb } from "@/db/client";
-import { findBasinById } from "@/db/queries/basins";
 import { currentActor } from "@/lib/auth/session";
-import { AppError } from "@/lib/errors";
 import type { AllocationResult, ModelFile, RunResult } from "@/lib/model";
-import { getPlan } from "@/lib/services/plans";
+import { getPublishedPlan } from "@/lib/services/plans";
 
 export const metadata: Metadata = { title: "Published plan" };
 export const dynamic = "force-dynamic";
@@ -20,13 +18,9 @@ interface Snapshot {
 /** A published plan, readable without signing in. */
 export default async function PublishedPlanPage({ params }: { params: Promise<{ basinId: string; planId: string }> }) {
   const { basinId, planId } = await params;
-  const db = getDb();
-  const plan = await getPlan(db, await currentActor(), basinId, planId).catch((e) => {
-    if (e instanceof AppError) return null;
-    throw e;
-  });
-  if (!plan || plan.status !== "published") notFound();
-  const basin = (await findBasinById(db, basinId))!;
+  const found = await getPublishedPlan(getDb(), await currentActor(), basinId, planId);
+  if (!found) notFound();
+  const { plan, basin } = found;
   const snapshot = plan.snapshot as unknown as Snapshot;
   return (
     <main className="mx-auto max-w-6xl px-6 py-10">
@@ -41,7 +35,7 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
         allocation={snapshot.run.result.allocation}
         model={snapshot.run.modelFiles[0].file}
         run={snapshot.run.result.conditions[0].run}
-        unitSystem={basin.unit_system}
+        unitSystem={basin.unitSystem}
         fileStem={`${basin.slug}-plan-v${plan.version}`}
       />
     </main>

@@ -3,9 +3,9 @@ import { notFound } from "next/navigation";
 import { PlanView } from "@/components/plans/plan-view";
 import { Denied } from "@/components/ui/denied";
 import { getDb } from "@/db/client";
-import { facilityIdsForUser } from "@/db/queries/facilities";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { AppError } from "@/lib/errors";
+import { myFacilityIds } from "@/lib/services/facilities";
 import { getPlan } from "@/lib/services/plans";
 
 export const metadata: Metadata = { title: "Plan" };
@@ -35,7 +35,7 @@ export default async function PlanPage({ params }: { params: Promise<{ basinId: 
           manageReview: await access.can("review.manage"),
           publish: await access.can("plan.publish"),
           answer: await access.can("comment.answer"),
-          myFacilityIds: await facilityIdsForUser(db, access.basin.id, access.actor.id),
+          myFacilityIds: await myFacilityIds(db, access.actor, access.basin.id),
         }}
       />
     </div>
