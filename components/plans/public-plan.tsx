@@ -2,11 +2,11 @@
 import { useMemo, useState } from "react";
 import { AllocationTable } from "@/components/results/allocation-table";
 import { PlanningCaution } from "@/components/results/planning-caution";
-import { ProfileChart } from "@/components/results/profile-chart";
+import { ProfileSection } from "@/components/results/profile-section";
 import { TmdlSummary } from "@/components/results/tmdl-table";
 import type { UnitSystem } from "@/db/schema";
 import type { AllocationResult, ModelFile, RunResult } from "@/lib/model";
-import { headwaterReaches, profileSeries } from "@/lib/results";
+import { headwaterReaches } from "@/lib/results";
 
 /** What a published plan shows to anyone: allocations (with CSV), TMDL, the DO profile, and the caution. */
 export function PublicPlan({
@@ -24,7 +24,6 @@ export function PublicPlan({
 }) {
   const heads = useMemo(() => headwaterReaches(model), [model]);
   const [from, setFrom] = useState(heads[0]);
-  const series = useMemo(() => profileSeries(run, model, from, unitSystem), [run, model, from, unitSystem]);
   return (
     <div className="space-y-6" data-testid="public-plan">
       <PlanningCaution />
@@ -38,24 +37,7 @@ export function PublicPlan({
           <TmdlSummary tmdl={allocation.tmdl} unitSystem={unitSystem} />
         </section>
       )}
-      <section className="card space-y-3">
-        <div className="flex flex-wrap items-end gap-3">
-          <h2 className="grow">Dissolved oxygen with the allocated loads</h2>
-          <div>
-            <label htmlFor="public-from" className="field-label">
-              From
-            </label>
-            <select id="public-from" className="field-input" value={from} onChange={(e) => setFrom(e.target.value)}>
-              {model.reaches.map((r) => (
-                <option key={r.id} value={r.id}>
-                  {r.id}
-                </option>
-              ))}
-            </select>
-          </div>
-        </div>
-        <ProfileChart series={series} />
-      </section>
+      <ProfileSection run={run} model={model} unitSystem={unitSystem} from={from} onFrom={setFrom} title="Dissolved oxygen with the allocated loads" />
     </div>
   );
 }

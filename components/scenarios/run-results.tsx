@@ -9,8 +9,7 @@ import { DiagnosisTable } from "@/components/results/diagnosis-table";
 import { DoLegend } from "@/components/results/do-legend";
 import { DoMapLazy } from "@/components/results/do-map-lazy";
 import { PlanningCaution } from "@/components/results/planning-caution";
-import { ProfileChart } from "@/components/results/profile-chart";
-import { ProfileCsvButton } from "@/components/results/profile-csv-button";
+import { ProfileSection } from "@/components/results/profile-section";
 import { ReachResultsTable } from "@/components/results/reach-results-table";
 import { ResultsGeoJsonButton } from "@/components/results/results-geojson-button";
 import { TmdlSummary } from "@/components/results/tmdl-table";
@@ -18,7 +17,7 @@ import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { useRunQuery } from "@/lib/queries/scenarios";
-import { headwaterReaches, profileSeries } from "@/lib/results";
+import { headwaterReaches } from "@/lib/results";
 import type { RunDto } from "@/lib/services/runs";
 
 /** Everything a finished run shows: map, profile, tables, allocation, exports, and the caution. */
@@ -47,14 +46,13 @@ export function RunResults({
   const model = run.modelFiles[Math.min(conditionIndex, run.modelFiles.length - 1)].file;
   const heads = useMemo(() => headwaterReaches(model), [model]);
   const from = startReach ?? heads[0];
-  const series = useMemo(() => (condition ? profileSeries(condition.run, model, from, unitSystem) : null), [condition, model, from, unitSystem]);
   const about = [`${basinName} — scenario "${run.scenarioName}" v${run.scenarioVersion}`, `run ${run.id} (${run.kind}), ${run.finishedAt ?? ""}`];
   const stem = `${run.scenarioName.replace(/[^\w-]+/g, "-").toLowerCase()}-${run.kind}`;
 
   if (run.status === "queued" || run.status === "running") {
     return <Notice tone="info">This run is {run.status} ({Math.round(run.progress * 100)}%). The page updates by itself.</Notice>;
   }
-  if (run.status === "failed" || !result || !condition || !series) {
+  if (run.status === "failed" || !result || !condition) {
     return (
       <Notice tone="error" title="This run failed">
         {run.error ?? "No result was stored."}
@@ -111,27 +109,9 @@ export function RunResults({
         <DoLegend criterionMgL={r.criterion_do_mg_l} />
       </section>
 
-      <section className="card space-y-3">
-        <div className="flex flex-wrap items-end gap-3">
-          <h2 className="grow">DO along the river</h2>
-          <div>
-            <label htmlFor="profile-start" className="field-label">
-              From
-            </label>
-            <select id="profile-start" className="field-input" value={from} onChange={(e) => setStartReach(e.target.value)}>
-              {model.reaches.map((x) => (
-                <option key={x.id} value={x.id}>
-                  {x.id}
-                  {heads.includes(x.id) ? " (headwater)" : ""}
-                </option>
-              ))}
-            </select>
-          </div>
-          <ProfileCsvButton series={series} fileName={`${stem}-profile-${from}.csv`} about={about} />
-        </div>
+      <ProfileSection run={r} model={model} unitSystem={unitSystem} from={from} onFrom={setStartReach} csv={{ fileStem: stem, about }}>
         <p className="text-sm text-ink-soft">Click a reach on the map, or choose one, to follow its water to the outlet.</p>
-        <ProfileChart series={series} />
-      </section>
+      </ProfileSection>
 
       <section className="card">
         <h2 className="mb-3">Reaches</h2>

@@ -1,0 +1,58 @@
+"use client";
+import { useMemo, type ReactNode } from "react";
+import type { UnitSystem } from "@/db/schema";
+import type { ModelFile, RunResult } from "@/lib/model";
+import { headwaterReaches, profileSeries } from "@/lib/results";
+import { ProfileChart } from "./profile-chart";
+import { ProfileCsvButton } from "./profile-csv-button";
+
+/**
+ * The DO-versus-distance card: a start-reach picker, the chart, and (when a
+ * file stem is given) the profile CSV. The start reach is the caller's state
+ * so a map click can set it too.
+ */
+export function ProfileSection({
+  run,
+  model,
+  unitSystem,
+  from,
+  onFrom,
+  title = "DO along the river",
+  csv,
+  children,
+}: {
+  run: RunResult;
+  model: ModelFile;
+  unitSystem: UnitSystem;
+  from: string;
+  onFrom: (reachId: string) => void;
+  title?: string;
+  csv?: { fileStem: string; about: string[] };
+  children?: ReactNode;
+}) {
+  const heads = useMemo(() => headwaterReaches(model), [model]);
+  const series = useMemo(() => profileSeries(run, model, from, unitSystem), [run, model, from, unitSystem]);
+  return (
+    <section className="card space-y-3">
+      <div className="flex flex-wrap items-end gap-3">
+        <h2 className="grow">{title}</h2>
+        <div>
+          <label htmlFor="profile-start" className="field-label">
+            From
+          </label>
+          <select id="profile-start" className="field-input" value={from} onChange={(e) => onFrom(e.target.value)}>
+            {model.reaches.map((x) => (
+              <option key={x.id} value={x.id}>
+                {x.id}
+                {heads.includes(x.id) ? " (headwater)" : ""}
+              </option>
+            ))}
+          </select>
+        </div>
+        {csv && <ProfileCsvButton series={series} fileName={`${csv.fileStem}-profile-${from}.csv`} about={csv.about} />}
+      </div>
+      {children}
+      <ProfileChart series={series} />
+    </section>
+  );
+}
