@@ -2,103 +2,46 @@ import { readdirSync, statSync } from "node:fs";
 import { join, relative } from "node:path";
 import { fileURLToPath } from "node:url";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createDb, getDb, type Db } from "@/db/client";
-import { DEMO_DISCHARGER_MAPPING, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
-import { createRun, processRun } from "@/lib/services/runs";
-import { createScenario } from "@/lib/services/scenarios";
-import { scenarioCreateSchema } from "@/lib/validation/scenario";
+import { createDb, getDb } from "@/db/client";
 import { stopBoss } from "@/lib/jobs/queue";
 import { callRoute } from "../support/call-route";
-import { planAt, type PlanStage } from "../support/plan-fixture";
-import { commitDemo, demoForm, uploadDemo } from "../support/demo-network";
-import { buildWorld, type World } from "../support/world";
+import { commitDemo, demoForm } from "../support/demo-network";
+import { buildWorld } from "../support/world";
+import { DEMO_DISCHARGER_MAPPING } from "@/db/seed/demo-gis";
+import {
+  CALLERS,
+  SCENARIO,
+  all,
+  basin,
+  denied,
+  draftOf,
+  lead,
+  matrix,
+  period,
+  plan,
+  planOf,
+  planners,
+  runOf,
+  scenarioOf,
+  signedIn,
+  threadOf,
+  uniq,
+  withAllocationRun,
+  withDraft,
+  withRun,
+  withScenario,
+  type Entry,
+  type Expect,
+} from "./access/kit";
 
 /**
  * Every API route × every kind of caller → the expected status. The first
  * test fails when a route file or an exported method has no entry here, so a
  * new route cannot ship without its access rules being written down.
+ * Shared builders (callers, expectations, worlds at a plan stage) are in
+ * ./access/kit.ts.
  */
-type Caller = "anon" | "admin" | "lead" | "planner" | "discharger" | "stakeholder" | "outsider";
-const CALLERS: Caller[] = ["anon", "admin", "lead", "planner", "discharger", "stakeholder", "outsider"];
-
-type Expect = Record<Caller, number>;
-const all = (status: number, overrides: Partial<Expect> = {}): Expect => ({
-  anon: status,
-  admin: status,
-  lead: status,
-  planner: status,
-  discharger: status,
-  stakeholder: status,
-  outsider: status,
-  ...overrides,
-});
-/** Signed-in only: anon gets 401, the rest as given. */
-const signedIn = (status: number, overrides: Partial<Expect> = {}) => all(status, { anon: 401, ...overrides });
-const denied = (overrides: Partial<Expect>) => signedIn(403, overrides);
-
-interface Case {
-  expect: Expect;
-  /** Builds what the request needs (an upload, a network) as the world's planner. */
-  prepare?: (w: World) => Promise<Record<string, string>>;
-  params?: (w: World, prepared: Record<string, string>) => Record<string, string>;
-  body?: (w: World, prepared: Record<string, string>) => unknown;
-}
-type RouteModule = Record<string, unknown>;
-interface Entry {
-  load: () => Promise<RouteModule>;
-  methods: Record<string, Case>;
-  /** Routes not built with lib/api/route (third-party handlers) say why they are skipped. */
-  skip?: string;
-}
-
-const basin = (w: World) => ({ basinId: w.basinId });
-/** Planner-and-lead work (scenario.read / network.import): admins look after settings, not models. */
-const planners = (ok: number) => denied({ lead: ok, planner: ok });
-const withDraft = async (w: World) => {
-  const draft = await uploadDemo(db, w.users.planner, w.basinId);
-  return { reachImportId: draft.reachImportId, dischargerImportId: draft.dischargerImportId! };
-};
-const SCENARIO = { name: "Matrix scenario", inputs: { conditions: [{ name: "7Q10" }] } };
-const withScenario = async (w: World) => {
-  await commitDemo(db, w.users.planner, w.basinId);
-  const s = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse(SCENARIO));
-  return { scenarioId: s.id };
-};
-const withRun = async (w: World) => {
-  const { scenarioId } = await withScenario(w);
-  const run = await createRun(db, w.users.planner, w.basinId, scenarioId, "model");
-  await processRun(db, run.id);
-  return { scenarioId, runId: run.id };
-};
-const scenarioOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, scenarioId: p.scenarioId });
-const planOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, planId: p.planId });
-const threadOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, threadId: p.planThreadId });
-const plan = (stage: PlanStage) => async (w: World) => {
-  const p = await planAt(db, w, stage);
-  return { planId: p.planId, planThreadId: p.planThreadId };
-};
-const withAllocationRun = async (w: World) => {
-  const { scenarioId } = await withScenario(w);
-  const run = await createRun(db, w.users.planner, w.basinId, scenarioId, "allocation");
-  await processRun(db, run.id);
-  return { runId: run.id };
-};
-const lead = (ok: number) => denied({ lead: ok });
-const period = () => ({
-  startsAt: new Date(Date.now() - 60_000).toISOString(),
-  endsAt: new Date(Date.now() + 86_400_000).toISOString(),
-  timeZone: "Europe/Dublin",
-});
-const runOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, runId: p.runId });
-const draftOf = (p: Record<string, string>) => ({
-  reachImportId: p.reachImportId,
-  reachMapping: DEMO_REACH_MAPPING,
-  dischargerImportId: p.dischargerImportId,
-  dischargerMapping: DEMO_DISCHARGER_MAPPING,
-});
-const uniq = () => Math.random().toString(36).slice(2, 8);
-
-const TABLE: Record<string, Entry> = {
+const CORE: Record<string, Entry> = {
   "app/api/auth/[...nextauth]/route.ts": {
     load: () => import("@/app/api/auth/[...nextauth]/route"),
     methods: {},
@@ -227,7 +170,7 @@ const TABLE: Record<string, Entry> = {
     methods: {
       GET: {
         expect: planners(200),
-        prepare: async (w) => ({ networkId: (await commitDemo(db, w.users.planner, w.basinId)).network.id }),
+        prepare: async (w) => ({ networkId: (await commitDemo(matrix.db, w.users.planner, w.basinId)).network.id }),
         params: (w, p) => ({ basinId: w.basinId, networkId: p.networkId }),
       },
     },
@@ -237,7 +180,7 @@ const TABLE: Record<string, Entry> = {
     methods: {
       PATCH: {
         expect: planners(204),
-        prepare: async (w) => ({ networkId: (await commitDemo(db, w.users.planner, w.basinId)).network.id }),
+        prepare: async (w) => ({ networkId: (await commitDemo(matrix.db, w.users.planner, w.basinId)).network.id }),
         params: (w, p) => ({ basinId: w.basinId, networkId: p.networkId, reachId: "TR-03" }),
         body: () => ({ depthM: 0.5 }),
       },
@@ -249,8 +192,8 @@ const TABLE: Record<string, Entry> = {
       PATCH: {
         expect: planners(204),
         prepare: async (w) => {
-          const { network } = await commitDemo(db, w.users.planner, w.basinId);
-          const f = await db.selectFrom("outfalls").select("facility_id").where("network_id", "=", network.id).executeTakeFirstOrThrow();
+          const { network } = await commitDemo(matrix.db, w.users.planner, w.basinId);
+          const f = await matrix.db.selectFrom("outfalls").select("facility_id").where("network_id", "=", network.id).executeTakeFirstOrThrow();
           return { networkId: network.id, facilityId: f.facility_id };
         },
         params: (w, p) => ({ basinId: w.basinId, networkId: p.networkId, facilityId: p.facilityId }),
@@ -275,7 +218,7 @@ const TABLE: Record<string, Entry> = {
       GET: { expect: planners(200), params: basin },
       POST: {
         expect: planners(201),
-        prepare: async (w) => ({ networkId: (await commitDemo(db, w.users.planner, w.basinId)).network.id }),
+        prepare: async (w) => ({ networkId: (await commitDemo(matrix.db, w.users.planner, w.basinId)).network.id }),
         params: basin,
         body: () => SCENARIO,
       },
@@ -379,13 +322,25 @@ function routeFiles(dir: string): string[] {
 }
 const HTTP_METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"];
 
-let db: Db;
+/**
+ * Each area's routes may live in its own table, tests/db/access/routes-*.ts,
+ * exporting `routes`; they are merged with the core table here.
+ */
+const AREA_TABLES = import.meta.glob<{ routes: Record<string, Entry> }>("./access/routes-*.ts", { eager: true });
+const TABLE: Record<string, Entry> = { ...CORE };
+for (const [file, mod] of Object.entries(AREA_TABLES)) {
+  for (const [route, entry] of Object.entries(mod.routes)) {
+    if (route in TABLE) throw new Error(`${file}: ${route} is listed twice`);
+    TABLE[route] = entry;
+  }
+}
+
 beforeAll(() => {
-  db = createDb(process.env.DATABASE_URL, 3);
+  matrix.db = createDb(process.env.DATABASE_URL, 3);
 });
 afterAll(async () => {
   await stopBoss();
-  await db.destroy();
+  await matrix.db.destroy();
   await getDb().destroy();
 });
 
@@ -409,7 +364,7 @@ describe("API access matrix", () => {
         const got: Partial<Expect> = {};
         for (const caller of CALLERS) {
           // a fresh world per caller: mutations by one caller never change what the next one sees
-          const w = await buildWorld(db);
+          const w = await buildWorld(matrix.db);
           const prepared = c.prepare ? await c.prepare(w) : {};
           const res = await callRoute(handler, method, {
             userId: caller === "anon" ? undefined : w.users[caller].id,
