@@ -120,3 +120,28 @@ export function anoxicStretches(series: Pick<ProfileSeries, "points">): Array<{ 
   if (open) out.push(open);
   return out;
 }
+
+/**
+ * The part of a series at and below one outfall (a discharger on the path), with
+ * distances measured from the outfall: what a discharger's load does downstream.
+ * The first reach's critical point is kept only when it lies below the outfall.
+ * Also returns the lowest DO on that stretch and where it is. Throws when the
+ * discharger is not on the series' path.
+ */
+export function downstreamOf(series: ProfileSeries, dischargerId: string) {
+  const outfall = series.dischargers.find((d) => d.id === dischargerId);
+  if (!outfall) throw new RangeError(`Discharger "${dischargerId}" is not on the path from ${series.path[0]}`);
+  const at = outfall.distance;
+  const shift = <T extends { distance: number }>(x: T): T => ({ ...x, distance: x.distance - at });
+  const points = series.points.filter((p) => p.distance >= at - 1e-9).map(shift);
+  const lowest = points.reduce<SeriesPoint | null>((low, p) => (low === null || p.do_mg_l < low.do_mg_l ? p : low), null);
+  const out: ProfileSeries = {
+    ...series,
+    reaches: series.reaches.filter((r) => r.to > at + 1e-9).map((r) => ({ id: r.id, from: Math.max(0, r.from - at), to: r.to - at })),
+    points,
+    dischargers: series.dischargers.filter((d) => d.distance >= at - 1e-9).map(shift),
+    criticals: series.criticals.filter((c) => c.distance >= at - 1e-9).map(shift),
+    length: series.length - at,
+  };
+  return { series: out, lowest };
+}

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { runModel } from "@/lib/model";
 import { MI_TO_KM } from "@/lib/model/units";
-import { anoxicStretches, profileSeries } from "@/lib/results/profile-series";
+import { anoxicStretches, downstreamOf, profileSeries } from "@/lib/results/profile-series";
 import { chainFile, example } from "./fixtures";
 
 describe("DO-versus-distance series", () => {
@@ -99,5 +99,35 @@ describe("anoxic stretches", () => {
       { from: 4, to: 4 },
     ]);
     expect(anoxicStretches({ points: [pt(0, false)] } as never)).toEqual([]);
+  });
+});
+
+describe("the stretch below an outfall", () => {
+  const f = chainFile();
+  const run = runModel(f);
+  const full = profileSeries(run, f, "R1", "SI");
+
+  it("starts at the outfall (distance 0) and keeps every point below it, shifted", () => {
+    const { series, lowest } = downstreamOf(full, "F1");
+    // F1 is 1.5 km into R2, which starts 3 km down the path: the outfall sits at 4.5
+    const below = full.points.filter((p) => p.distance >= 4.5);
+    expect(series.points).toHaveLength(below.length);
+    series.points.forEach((p, i) => {
+      expect(p.distance).toBeCloseTo(below[i].distance - 4.5, 12);
+      expect(p.do_mg_l).toBe(below[i].do_mg_l);
+    });
+    expect(series.points[0].distance).toBeCloseTo(0, 12);
+    expect(series.length).toBeCloseTo(12 - 4.5, 12);
+    expect(series.reaches.map((r) => r.id)).toEqual(["R2", "R3"]);
+    expect(series.reaches[0]).toEqual({ id: "R2", from: 0, to: 2.5 });
+    expect(series.dischargers).toEqual([{ id: "F1", reach: "R2", km: 1.5, distance: 0 }]);
+    // the lowest DO below the outfall is the minimum over exactly those points
+    expect(lowest!.do_mg_l).toBe(Math.min(...below.map((p) => p.do_mg_l)));
+    // R1's critical point lies above the outfall and is dropped
+    expect(series.criticals.every((c) => c.reach !== "R1")).toBe(true);
+  });
+
+  it("refuses a discharger that is not on the path", () => {
+    expect(() => downstreamOf(full, "NOPE")).toThrow(/not on the path/);
   });
 });
