@@ -15,6 +15,8 @@ export interface UsersTable {
   is_admin: Generated<boolean>;
   created_at: CreatedAt;
   updated_at: UpdatedAt;
+  /** Null until the address is confirmed (self-registered accounts); unverified accounts cannot sign in. */
+  email_verified_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
 }
 
 export interface BasinsTable {
@@ -292,6 +294,9 @@ export interface Database {
   threads: ThreadsTable;
   comments: CommentsTable;
   email_outbox: EmailOutboxTable;
+  account_tokens: AccountTokensTable;
+  invitations: InvitationsTable;
+  basin_follows: BasinFollowsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;
@@ -300,3 +305,40 @@ export type BasinRow = Selectable<BasinsTable>;
 export type NewBasin = Insertable<BasinsTable>;
 export type BasinUpdate = Updateable<BasinsTable>;
 export type FacilityRow = Selectable<FacilitiesTable>;
+
+export type AccountTokenKind = "verify" | "reset";
+type Moment = ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+
+/** Single-use e-mail links (verification, password reset); only the SHA-256 of the token is stored. */
+export interface AccountTokensTable {
+  id: Generated<string>;
+  user_id: string;
+  kind: AccountTokenKind;
+  token_hash: string;
+  expires_at: ColumnType<Date, Date | string, Date | string>;
+  used_at: Moment;
+  created_at: CreatedAt;
+}
+
+/** A lead's invitation of an e-mail address into a basin with a role (dischargers: one facility). */
+export interface InvitationsTable {
+  id: Generated<string>;
+  basin_id: string;
+  email: string;
+  role: BasinRole;
+  facility_id: string | null;
+  invited_by: string | null;
+  token_hash: string;
+  expires_at: ColumnType<Date, Date | string, Date | string>;
+  accepted_at: Moment;
+  accepted_by: ColumnType<string | null, string | null | undefined, string | null>;
+  revoked_at: Moment;
+  created_at: CreatedAt;
+}
+
+/** Someone who asked for a basin's notices (review opened or closing, plan published). */
+export interface BasinFollowsTable {
+  basin_id: string;
+  user_id: string;
+  created_at: CreatedAt;
+}

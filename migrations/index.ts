@@ -4,6 +4,7 @@ import * as m2026120101 from "./2026120101_networks";
 import * as m2026120102 from "./2026120102_scenarios_runs";
 import * as m2026120103 from "./2026120103_plans_reviews";
 import * as m2026120104 from "./2026120104_email_outbox";
+import * as m2026120105 from "./2026120105_accounts";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -16,6 +17,7 @@ export const migrations: Record<string, Migration> = {
   "2026120102_scenarios_runs": m2026120102,
   "2026120103_plans_reviews": m2026120103,
   "2026120104_email_outbox": m2026120104,
+  "2026120105_accounts": m2026120105,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -10,8 +10,37 @@ export async function findUserByEmail(db: Db, email: string): Promise<UserRow | 
   return db.selectFrom("users").selectAll().where("email", "=", email.trim().toLowerCase()).executeTakeFirst();
 }
 
+/**
+ * Inserts an account. Its e-mail address counts as confirmed now unless the
+ * caller passes `email_verified_at: null` (self-registration does): accounts
+ * made by an administrator, an invitation or the seed need no confirmation.
+ */
 export async function insertUser(db: Db, user: NewUser): Promise<UserRow> {
-  return db.insertInto("users").values(user).returningAll().executeTakeFirstOrThrow();
+  return db
+    .insertInto("users")
+    .values({ email_verified_at: new Date(), ...user })
+    .returningAll()
+    .executeTakeFirstOrThrow();
+}
+
+/** Sets a new password hash; returns false when the user does not exist. */
+export async function updateUserPassword(db: Db, userId: string, passwordHash: string): Promise<boolean> {
+  const res = await db
+    .updateTable("users")
+    .set({ password_hash: passwordHash, updated_at: new Date() })
+    .where("id", "=", userId)
+    .executeTakeFirst();
+  return res.numUpdatedRows > 0n;
+}
+
+/** Marks the address confirmed (keeps the first confirmation time). */
+export async function markUserVerified(db: Db, userId: string, at: Date): Promise<void> {
+  await db
+    .updateTable("users")
+    .set({ email_verified_at: at, updated_at: at })
+    .where("id", "=", userId)
+    .where("email_verified_at", "is", null)
+    .execute();
 }
 
 export async function listUsers(db: Db): Promise<UserRow[]> {

@@ -1,7 +1,8 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { getDb } from "@/db/client";
-import { verifyCredentials } from "@/lib/services/users";
+import { checkSignIn } from "@/lib/services/users";
+import { EMAIL_NOT_CONFIRMED } from "@/lib/validation/account";
 import { signInSchema } from "@/lib/validation/user";
 
 /**
@@ -22,8 +23,10 @@ export const authOptions: NextAuthOptions = {
       async authorize(credentials) {
         const parsed = signInSchema.safeParse(credentials ?? {});
         if (!parsed.success) return null;
-        const user = await verifyCredentials(getDb(), parsed.data.email, parsed.data.password);
-        return user ? { id: user.id, email: user.email, name: user.name } : null;
+        const check = await checkSignIn(getDb(), parsed.data.email, parsed.data.password);
+        // next-auth v4 passes a thrown error's message to the client as signIn()'s `error`
+        if (!check.ok && check.reason === "unverified") throw new Error(EMAIL_NOT_CONFIRMED);
+        return check.ok ? { id: check.user.id, email: check.user.email, name: check.user.name } : null;
       },
     }),
   ],

@@ -18,11 +18,24 @@ export async function hashPassword(password: string): Promise<string> {
 // e-mail and a wrong password take the same time.
 const DUMMY_HASH = "$2b$10$CwTycUXWue0Thq9StjUM0uJ8.jV1oXh0ZiYy6Yq0Qx1J7o7bqf9cK";
 
-/** Check e-mail and password; returns the user or null (never says which was wrong). */
-export async function verifyCredentials(db: Db, email: string, password: string): Promise<UserDto | null> {
+export type SignInCheck = { ok: true; user: UserDto } | { ok: false; reason: "mismatch" | "unverified" };
+
+/**
+ * Check e-mail and password. A mismatch never says which of the two was
+ * wrong; "unverified" is told only to someone who knows the password.
+ */
+export async function checkSignIn(db: Db, email: string, password: string): Promise<SignInCheck> {
   const user = await findUserByEmail(db, email);
   const ok = await bcrypt.compare(password, user?.password_hash ?? DUMMY_HASH);
-  return user && ok ? userDto(user) : null;
+  if (!user || !ok) return { ok: false, reason: "mismatch" };
+  if (!user.email_verified_at) return { ok: false, reason: "unverified" };
+  return { ok: true, user: userDto(user) };
+}
+
+/** Check e-mail and password; returns the user or null (wrong either way, or the address is not confirmed yet). */
+export async function verifyCredentials(db: Db, email: string, password: string): Promise<UserDto | null> {
+  const check = await checkSignIn(db, email, password);
+  return check.ok ? check.user : null;
 }
 
 /** Admin: create an account. 409 when the e-mail is taken. */
@@ -38,6 +51,8 @@ export async function createUser(db: Db, actor: Actor | null, input: UserCreateI
       name: input.name,
       password_hash: passwordHash,
       is_admin: input.isAdmin,
+      // an administrator vouches for the address
+      email_verified_at: new Date(),
     });
     await insertAuditEvent(trx, {
       basinId: null,
