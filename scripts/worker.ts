@@ -1,6 +1,6 @@
 import { getDb } from "@/db/client";
 import { getBoss, RUN_QUEUE, stopBoss } from "@/lib/jobs/queue";
-import { closeDueReviews } from "@/lib/services/plans";
+import { closeDueReviews, sendClosingSoonNotices } from "@/lib/services/plans";
 import { processRun } from "@/lib/services/runs";
 import { sendPending } from "@/lib/email/sender";
 import { smtpUrl } from "@/lib/email/transport";
@@ -32,9 +32,13 @@ const mailLoop = async () => {
 mailTimer = setTimeout(mailLoop, 500);
 console.log(`Sagline worker sending the e-mail outbox to ${smtpUrl()} every ${MAIL_INTERVAL_MS} ms`);
 
-// Review periods close themselves at their end: checked every 30 s.
+// Review periods close themselves at their end, and announce that they close
+// soon before it: checked every 30 s.
 const REVIEW_INTERVAL_MS = Number(process.env.SAGLINE_REVIEW_INTERVAL_MS ?? 30_000);
 const reviewTimer = setInterval(() => {
+  sendClosingSoonNotices(getDb())
+    .then((n) => n > 0 && console.log(`[review] queued ${n} "closing soon" notice(s)`))
+    .catch((error) => console.error("[review] closing-soon notices failed:", error instanceof Error ? error.message : error));
   closeDueReviews(getDb())
     .then((n) => n > 0 && console.log(`[review] closed ${n} review period(s) at their end`))
     .catch((error) => console.error("[review] closing failed:", error instanceof Error ? error.message : error));

@@ -19,6 +19,7 @@ export default async function WorkspaceLayout({ children }: { children: ReactNod
           </Link>
           <nav className="flex gap-4 text-sm">
             <Link href="/basins">Basins</Link>
+            <Link href="/reviews">Plans under review</Link>
             {actor.isAdmin && <Link href="/admin/users">Users</Link>}
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">

@@ -29,18 +29,7 @@ const fmtTime = (iso: string, timeZone: string) =>
 export function PlanView({ basinId, initial, unitSystem, can }: { basinId: string; initial: PlanDto; unitSystem: UnitSystem; can: PlanPermissions }) {
   const { data } = usePlanQuery(basinId, initial.id, initial);
   const plan = data ?? initial;
-  const action = usePlanAction(basinId, plan.id);
-  const [failure, setFailure] = useState<string | null>(null);
-  const act = async (path: string, json?: unknown, method = "POST") => {
-    setFailure(null);
-    try {
-      await action.mutateAsync({ path, json, method });
-      return true;
-    } catch (e) {
-      setFailure(e instanceof Error ? e.message : String(e));
-      return false;
-    }
-  };
+  const { act, failure } = usePlanActs(basinId, plan.id);
   const load = unitLabel("load", unitSystem);
   const open = plan.review?.open === true;
   return (
@@ -128,7 +117,24 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
   );
 }
 
-type Act = (path: string, json?: unknown, method?: string) => Promise<boolean>;
+export type Act = (path: string, json?: unknown, method?: string) => Promise<boolean>;
+
+/** Plan actions (review, comments, responses) with the last failure's message; `act` resolves to whether it worked. */
+export function usePlanActs(basinId: string, planId: string): { act: Act; failure: string | null } {
+  const action = usePlanAction(basinId, planId);
+  const [failure, setFailure] = useState<string | null>(null);
+  const act: Act = async (path, json, method = "POST") => {
+    setFailure(null);
+    try {
+      await action.mutateAsync({ path, json, method });
+      return true;
+    } catch (e) {
+      setFailure(e instanceof Error ? e.message : String(e));
+      return false;
+    }
+  };
+  return { act, failure };
+}
 
 function LeadActions({ basinId, plan, can, act }: { basinId: string; plan: PlanDto; can: PlanPermissions; act: Act }) {
   const zone = Intl.DateTimeFormat().resolvedOptions().timeZone;
@@ -200,7 +206,7 @@ function LeadActions({ basinId, plan, can, act }: { basinId: string; plan: PlanD
   );
 }
 
-function Thread({ thread, canComment, canAnswer, act, mine }: { thread: PlanDto["threads"][number]; canComment: boolean; canAnswer: boolean; act: Act; mine: boolean }) {
+export function Thread({ thread, canComment, canAnswer, act, mine }: { thread: PlanDto["threads"][number]; canComment: boolean; canAnswer: boolean; act: Act; mine: boolean }) {
   const [text, setText] = useState("");
   const [response, setResponse] = useState("");
   const title = thread.facilityName ? `${thread.facilityName} (${thread.permitId})` : "The plan as a whole";

@@ -23,14 +23,26 @@ export async function insertAuditEvent(db: Db, e: AuditInput): Promise<void> {
     .execute();
 }
 
-export async function listAuditEvents(db: Db, basinId: string, limit = 200) {
-  return db
+export interface AuditFilter {
+  /** Keep events whose action starts with one of these (e.g. "plan." ), when given. */
+  prefixes?: string[];
+  /** Only events recorded before this one (its id; paging backwards). */
+  beforeId?: string;
+  limit?: number;
+}
+
+export async function listAuditEvents(db: Db, basinId: string, filter: AuditFilter = {}) {
+  let q = db
     .selectFrom("audit_events as a")
     .leftJoin("users as u", "u.id", "a.actor_id")
     .select(["a.id", "a.action", "a.target_type", "a.target_id", "a.details", "a.created_at", "u.name as actor_name"])
-    .where("a.basin_id", "=", basinId)
-    .orderBy("a.created_at", "desc")
+    .where("a.basin_id", "=", basinId);
+  const { prefixes, beforeId } = filter;
+  if (prefixes && prefixes.length > 0) q = q.where((eb) => eb.or(prefixes.map((p) => eb("a.action", "like", `${p.replace(/[%_\\]/g, "\\$&")}%`))));
+  if (beforeId) q = q.where("a.id", "<", beforeId);
+  // ids follow the order events were written; created_at is the time of their transaction
+  return q
     .orderBy("a.id", "desc")
-    .limit(limit)
+    .limit(filter.limit ?? 200)
     .execute();
 }

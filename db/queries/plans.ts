@@ -213,3 +213,49 @@ export const dischargerAllocations = (db: Db, planId: string) =>
     .select(["u.id as user_id", "u.name", "u.email", "f.name as facility_name", "a.cbodu_kg_day", "a.today_cbodu_kg_day", "a.bod5_kg_day", "a.bod5_mg_l", "a.reduction_pct"])
     .where("a.plan_id", "=", planId)
     .execute();
+
+/**
+ * Open review periods that end within `withinMs` of `now` — or within half of
+ * the period's length when that is shorter, so a short review is not announced
+ * as closing the moment it opens.
+ */
+export async function reviewsClosingSoon(db: Db, now: Date, withinMs: number) {
+  return db
+    .selectFrom("review_periods as r")
+    .innerJoin("plans as p", "p.id", "r.plan_id")
+    .select(["r.id", "r.plan_id", "r.ends_at", "r.time_zone", "p.basin_id", "p.title", "p.version"])
+    .where("p.status", "=", "review")
+    .where("r.closed_at", "is", null)
+    .where("r.starts_at", "<=", now)
+    .where("r.ends_at", ">", now)
+    .where(sql<boolean>`r.ends_at <= ${now}::timestamptz + least(${withinMs} * interval '1 millisecond', (r.ends_at - r.starts_at) / 2)`)
+    .execute();
+}
+
+/** Everyone who commented anywhere on a plan (members of the public included). */
+export const planCommenters = (db: Db, planId: string) =>
+  db
+    .selectFrom("users as u")
+    .select(["u.id", "u.name", "u.email"])
+    .where("u.id", "in", (eb) =>
+      eb
+        .selectFrom("comments as c")
+        .innerJoin("threads as t", "t.id", "c.thread_id")
+        .select("c.author_id")
+        .where("t.plan_id", "=", planId)
+        .where("c.author_id", "is not", null)
+        .$narrowType<{ author_id: string }>(),
+    )
+    .execute();
+
+/** Plans in review or with a closed review awaiting publication, across basins, with their current period. */
+export async function listPlansUnderReview(db: Db) {
+  return db
+    .selectFrom("plans as p")
+    .innerJoin("basins as b", "b.id", "p.basin_id")
+    .leftJoin("review_periods as r", (j) => j.onRef("r.plan_id", "=", "p.id"))
+    .select(["p.id", "p.basin_id", "p.title", "p.version", "p.status", "b.name as basin_name", "r.starts_at", "r.ends_at", "r.time_zone", "r.closed_at"])
+    .where("p.status", "in", ["review", "closed"])
+    .orderBy("r.ends_at", "asc")
+    .execute();
+}

@@ -1,12 +1,13 @@
 import type { Db } from "@/db/client";
 import { findBasinById } from "@/db/queries/basins";
-import { basinMembersWithEmail, dischargerAllocations, threadParticipants } from "@/db/queries/plans";
+import { basinMembersWithEmail, dischargerAllocations, planCommenters, threadParticipants } from "@/db/queries/plans";
 import { queueEmail } from "@/lib/email/outbox";
-import { planPublishedEmail, reviewOpenedEmail, threadReplyEmail } from "@/lib/email/templates";
+import { planPublishedEmail, reviewClosingEmail, reviewOpenedEmail, threadReplyEmail } from "@/lib/email/templates";
 
 /** The app's public address, for links in e-mails. */
 const appUrl = () => (process.env.NEXTAUTH_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
-const planUrl = (basinId: string, planId: string) => `${appUrl()}/basins/${basinId}/plans/${planId}`;
+/** Works for everyone signed in: members are sent on to the workspace page, others read the plan there. */
+const planUrl = (basinId: string, planId: string) => `${appUrl()}/reviews/${basinId}/${planId}`;
 
 interface PlanInfo {
   id: string;
@@ -41,6 +42,36 @@ export async function noticeReviewOpened(trx: Db, plan: PlanInfo, period: { id: 
       }),
     });
   }
+}
+
+/**
+ * The review closes soon: members and everyone who has commented on the plan
+ * hear of it once per end time (an extension earns a fresh notice).
+ */
+export async function noticeReviewClosingSoon(trx: Db, plan: PlanInfo, period: { id: string; endsAt: Date; timeZone: string }): Promise<number> {
+  const name = await basinName(trx, plan.basin_id);
+  const people = new Map<string, { id: string; name: string; email: string }>();
+  for (const p of [...(await basinMembersWithEmail(trx, plan.basin_id)), ...(await planCommenters(trx, plan.id))]) people.set(p.id, p);
+  let queued = 0;
+  for (const p of people.values()) {
+    const added = await queueEmail(trx, {
+      to: p.email,
+      kind: "review_closing",
+      basinId: plan.basin_id,
+      dedupeKey: `review_closing:${period.id}:${period.endsAt.toISOString()}:${p.id}`,
+      ...reviewClosingEmail({
+        recipientName: p.name,
+        basinName: name,
+        planTitle: plan.title,
+        planVersion: plan.version,
+        url: planUrl(plan.basin_id, plan.id),
+        endsAt: period.endsAt,
+        timeZone: period.timeZone,
+      }),
+    });
+    if (added) queued += 1;
+  }
+  return queued;
 }
 
 /** Everyone who already wrote in a thread (and the planner who answered it) hears of a new comment, except its author. */

@@ -12,16 +12,18 @@ import {
   insertPlanAllocation,
   insertReviewPeriod,
   insertThreads,
+  listPlansUnderReview,
   listPublishedPlans as listPublishedRows,
   markThreadAddressed,
   nextPlanVersion,
+  reviewsClosingSoon,
   threadTitle,
   updateReviewPeriod, planAllocations, planQuery, planThreads, setPlanStatus } from "@/db/queries/plans";
 import type { PlanStatus } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { PlanPropose, ReviewExtend, ReviewOpen } from "@/lib/validation/plan";
-import { noticePlanPublished, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
+import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
 import { getRun } from "./runs";
 import { getScenario } from "./scenarios";
 import { findBasinById } from "@/db/queries/basins";
@@ -212,6 +214,20 @@ export async function closeDueReviews(db: Db, now = new Date()): Promise<number>
   });
 }
 
+/** How long before a review's end its "closing soon" notice goes out (less for short reviews). */
+export const CLOSING_SOON_MS = 48 * 3_600_000;
+
+/** Queue the "review closing soon" notices that are due (the scheduled job); returns how many e-mails were queued. */
+export async function sendClosingSoonNotices(db: Db, now = new Date()): Promise<number> {
+  let queued = 0;
+  for (const r of await reviewsClosingSoon(db, now, CLOSING_SOON_MS)) {
+    queued += await db.transaction().execute((trx) =>
+      noticeReviewClosingSoon(trx, { id: r.plan_id, basin_id: r.basin_id, title: r.title, version: r.version }, { id: r.id, endsAt: r.ends_at, timeZone: r.time_zone }),
+    );
+  }
+  return queued;
+}
+
 /** Approve and publish a plan whose review has closed (lead). The plan is frozen from then on. */
 export async function publishPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "plan.publish");
@@ -292,11 +308,33 @@ export async function listPublishedPlans(db: Db) {
 
 /** A published plan with its basin's name and units, for the public page; null when not published. */
 export async function getPublishedPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
-  const plan = await getPlan(db, actor, basinId, planId).catch((e) => {
+  const found = await getPlanForReader(db, actor, basinId, planId).catch((e) => {
     if (e instanceof AppError) return null;
     throw e;
   });
-  if (!plan || plan.status !== "published") return null;
+  return found?.plan.status === "published" ? found : null;
+}
+
+/** Plans in review (and closed reviews awaiting publication) across basins: anyone signed in may read and, while open, comment. */
+export async function listReviews(db: Db, actor: Actor | null, now = new Date()) {
+  requireActor(actor);
+  return (await listPlansUnderReview(db)).map((p) => ({
+    id: p.id,
+    basinId: p.basin_id,
+    basinName: p.basin_name,
+    title: p.title,
+    version: p.version,
+    status: p.status,
+    startsAt: p.starts_at?.toISOString() ?? null,
+    endsAt: p.ends_at?.toISOString() ?? null,
+    timeZone: p.time_zone ?? "UTC",
+    open: p.starts_at !== null && p.ends_at !== null && isOpen({ starts_at: p.starts_at, ends_at: p.ends_at, closed_at: p.closed_at }, now),
+  }));
+}
+
+/** A plan with its basin's name and units, for a reader outside the basin (the plan's own rules decide who may read it). */
+export async function getPlanForReader(db: Db, actor: Actor | null, basinId: string, planId: string) {
+  const plan = await getPlan(db, actor, basinId, planId);
   const basin = (await findBasinById(db, basinId))!;
-  return { plan, basin: { name: basin.name, slug: basin.slug, unitSystem: basin.unit_system } };
+  return { plan, basin: { id: basin.id, name: basin.name, slug: basin.slug, unitSystem: basin.unit_system } };
 }

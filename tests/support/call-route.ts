@@ -9,6 +9,8 @@ export interface CallOptions {
   params?: Record<string, string>;
   /** A value to send as JSON, or a raw string sent as is. */
   body?: unknown;
+  /** Query-string parameters. */
+  query?: Record<string, string>;
 }
 
 /**
@@ -18,7 +20,7 @@ export interface CallOptions {
 export async function callRoute(
   handler: Handler,
   method: string,
-  { userId, params = {}, body }: CallOptions = {},
+  { userId, params = {}, body, query }: CallOptions = {},
 ): Promise<{ status: number; json: unknown; headers: Headers }> {
   const headers = new Headers();
   if (userId) {
@@ -32,7 +34,9 @@ export async function callRoute(
     payload = typeof body === "string" ? body : JSON.stringify(body);
     headers.set("content-type", "application/json");
   }
-  const req = new NextRequest("http://127.0.0.1/api/test", { method, headers, body: payload });
+  const url = new URL("http://127.0.0.1/api/test");
+  for (const [k, v] of Object.entries(query ?? {})) url.searchParams.set(k, v);
+  const req = new NextRequest(url, { method, headers, body: payload });
   const res = await handler(req, { params: Promise.resolve(params) });
   const text = await res.text();
   const json = (res.headers.get("content-type") ?? "").includes("json") && text ? JSON.parse(text) : text || null;

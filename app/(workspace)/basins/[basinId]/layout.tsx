@@ -3,7 +3,9 @@ import type { ReactNode } from "react";
 import { BasinTabs } from "@/components/layout/basin-tabs";
 import { Denied } from "@/components/ui/denied";
 import { RoleBadge } from "@/components/ui/role-badge";
+import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
+import { myFacilityIds } from "@/lib/services/facilities";
 
 export default async function BasinLayout({
   children,
@@ -24,7 +26,9 @@ export default async function BasinLayout({
     { href: `/basins/${basin.id}/network`, label: "Network", show: await access.can("scenario.read") },
     { href: `/basins/${basin.id}/scenarios`, label: "Scenarios", show: await access.can("scenario.read") },
     { href: `/basins/${basin.id}/plans`, label: "Plans", show: true },
+    { href: `/basins/${basin.id}/my-facilities`, label: "My facilities", show: (await myFacilityIds(getDb(), access.actor, basin.id)).length > 0 },
     { href: `/basins/${basin.id}/members`, label: "Members & facilities", show: await access.can("members.read") },
+    { href: `/basins/${basin.id}/audit`, label: "Audit trail", show: await access.can("audit.read") },
     { href: `/basins/${basin.id}/settings`, label: "Settings", show: await access.can("basin.update") },
   ].filter((t) => t.show);
   return (

@@ -1,0 +1,47 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound, redirect } from "next/navigation";
+import { PlanView } from "@/components/plans/plan-view";
+import { Denied } from "@/components/ui/denied";
+import { getDb } from "@/db/client";
+import { basinPageAccess } from "@/lib/auth/page-access";
+import { currentActor } from "@/lib/auth/session";
+import { AppError } from "@/lib/errors";
+import { getPlanForReader } from "@/lib/services/plans";
+
+export const metadata: Metadata = { title: "Plan under review" };
+
+/**
+ * A plan as a reader outside its basin sees it: the allocations, the review
+ * period and the threads, with a comment box while the review is open.
+ * Members go on to the plan in their workspace; published plans to the public page.
+ */
+export default async function ReviewPlanPage({ params }: { params: Promise<{ basinId: string; planId: string }> }) {
+  const { basinId, planId } = await params;
+  if ((await basinPageAccess(basinId, "basin.read")).ok) redirect(`/basins/${basinId}/plans/${planId}`);
+  let found;
+  try {
+    found = await getPlanForReader(getDb(), await currentActor(), basinId, planId);
+  } catch (e) {
+    if (e instanceof AppError && e.status === 404) notFound();
+    if (e instanceof AppError) return <Denied message={e.message} />;
+    throw e;
+  }
+  const { plan, basin } = found;
+  if (plan.status === "published") redirect(`/published/${basin.id}/${plan.id}`);
+  return (
+    <div>
+      <p className="text-sm text-ink-soft">
+        <Link href="/reviews">Plans under review</Link> · {basin.name}
+      </p>
+      <h1 className="mb-1">{plan.title}</h1>
+      <p className="mb-4 text-sm text-ink-soft">You are reading this plan as a member of the public; your comments show your name and that role.</p>
+      <PlanView
+        basinId={basin.id}
+        initial={plan}
+        unitSystem={basin.unitSystem}
+        can={{ signedIn: true, manageReview: false, publish: false, answer: false, myFacilityIds: [] }}
+      />
+    </div>
+  );
+}

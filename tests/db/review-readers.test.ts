@@ -1,0 +1,207 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as auditRoute from "@/app/api/basins/[basinId]/audit/route";
+import { createDb, getDb, type Db } from "@/db/client";
+import { findFacilityByPermit, linkFacilityUser } from "@/db/queries/facilities";
+import { stopBoss } from "@/lib/jobs/queue";
+import { listBasinAudit } from "@/lib/services/audit";
+import { getMyFacilities } from "@/lib/services/my-facilities";
+import {
+  CLOSING_SOON_MS,
+  addComment,
+  extendReview,
+  getPlanForReader,
+  listReviews,
+  openReview,
+  proposePlan,
+  sendClosingSoonNotices,
+} from "@/lib/services/plans";
+import { callRoute } from "../support/call-route";
+import { err } from "../support/errors";
+import { planAt } from "../support/plan-fixture";
+import { buildWorld, type World } from "../support/world";
+
+let db: Db;
+beforeAll(() => {
+  db = createDb(process.env.DATABASE_URL, 3);
+});
+afterAll(async () => {
+  await stopBoss();
+  await db.destroy();
+  await getDb().destroy();
+});
+
+const HOUR = 3_600_000;
+const DAY = 24 * HOUR;
+
+const closingMail = (basinId: string) =>
+  db.selectFrom("email_outbox").select(["to_address", "dedupe_key", "text_body"]).where("basin_id", "=", basinId).where("kind", "=", "review_closing").execute();
+
+describe("review closing soon", () => {
+  let w: World;
+  let plan: Awaited<ReturnType<typeof planAt>>;
+  let opened: number;
+  beforeAll(async () => {
+    w = await buildWorld(db);
+    opened = Date.now();
+    // the fixture's review runs from an hour ago for seven days
+    plan = await planAt(db, w, "review");
+    await addComment(db, w.users.outsider, w.basinId, plan.planThreadId, "A comment from outside the basin");
+  });
+
+  it("says nothing while the end is more than two days away", async () => {
+    expect(await sendClosingSoonNotices(db, new Date(opened + 4 * DAY))).toBe(0);
+    expect(await closingMail(w.basinId)).toHaveLength(0);
+  });
+
+  it("tells every member and everyone who commented once the end is within two days, once", async () => {
+    const at = new Date(opened + 7 * DAY - CLOSING_SOON_MS + 10 * 60_000);
+    const members = ["lead", "planner", "discharger", "stakeholder", "spareDischarger", "target"] as const;
+    const expected = [...members.map((k) => w.users[k].email), w.users.outsider.email].sort();
+    expect(await sendClosingSoonNotices(db, at)).toBe(expected.length);
+    const mail = await closingMail(w.basinId);
+    expect(mail.map((m) => m.to_address).sort()).toEqual(expected);
+    expect(mail[0].text_body).toMatch(/closes at/);
+    expect(mail[0].text_body).toContain(`/reviews/${w.basinId}/${plan.planId}`);
+    // the job runs every 30 s: running again queues nothing more
+    expect(await sendClosingSoonNotices(db, new Date(at.getTime() + 60_000))).toBe(0);
+    expect(await closingMail(w.basinId)).toHaveLength(expected.length);
+  });
+
+  it("announces the new end again after an extension, when that end draws near", async () => {
+    const before = (await closingMail(w.basinId)).length;
+    const newEnd = new Date(opened + 14 * DAY);
+    await extendReview(db, w.users.lead, w.basinId, plan.planId, { endsAt: newEnd.toISOString(), reason: "Dischargers asked for two more weeks" });
+    expect(await sendClosingSoonNotices(db, new Date(opened + 7 * DAY))).toBe(0);
+    expect(await sendClosingSoonNotices(db, new Date(newEnd.getTime() - DAY))).toBe(before);
+    expect((await closingMail(w.basinId)).filter((m) => m.dedupe_key.includes(newEnd.toISOString()))).toHaveLength(before);
+  });
+
+  it("waits until the second half of a short review", async () => {
+    const w2 = await buildWorld(db);
+    const draft = await planAt(db, w2, "draft");
+    const start = Date.now();
+    // a 6-hour review: the notice is due in its last 3 hours, not the moment it opens
+    const other = await proposePlan(db, w2.users.planner, w2.basinId, { runId: draft.runId, title: "Short review" });
+    await openReview(db, w2.users.lead, w2.basinId, other.id, {
+      startsAt: new Date(start).toISOString(),
+      endsAt: new Date(start + 6 * HOUR).toISOString(),
+      timeZone: "UTC",
+    });
+    expect(await sendClosingSoonNotices(db, new Date(start + 2 * HOUR))).toBe(0);
+    expect(await sendClosingSoonNotices(db, new Date(start + 3 * HOUR + 60_000))).toBeGreaterThan(0);
+  });
+});
+
+describe("readers outside the basin", () => {
+  let w: World;
+  let review: Awaited<ReturnType<typeof planAt>>;
+  beforeAll(async () => {
+    w = await buildWorld(db);
+    review = await planAt(db, w, "review");
+  });
+
+  it("lists plans under review to anyone signed in, and no drafts", async () => {
+    const draft = await planAt(db, w, "draft");
+    const listed = await listReviews(db, w.users.outsider);
+    const ours = listed.filter((r) => r.basinId === w.basinId);
+    expect(ours.map((r) => r.id)).toEqual([review.planId]);
+    expect(ours[0]).toMatchObject({ status: "review", open: true, timeZone: "America/Chicago" });
+    expect(listed.some((r) => r.id === draft.planId)).toBe(false);
+    await expect(listReviews(db, null)).rejects.toMatchObject({ status: 401 });
+  });
+
+  it("lets a signed-in non-member read a plan in review, but not a draft", async () => {
+    const found = await getPlanForReader(db, w.users.outsider, w.basinId, review.planId);
+    expect(found.basin.id).toBe(w.basinId);
+    expect(found.plan.threads.length).toBeGreaterThan(1);
+    const draft = await planAt(db, w, "draft");
+    await expect(getPlanForReader(db, w.users.outsider, w.basinId, draft.planId)).rejects.toMatchObject({ status: 403 });
+    await expect(getPlanForReader(db, null, w.basinId, review.planId)).rejects.toMatchObject({ status: 401 });
+  });
+});
+
+describe("a discharger's own facilities", () => {
+  let w: World;
+  let facilityId: string;
+  beforeAll(async () => {
+    w = await buildWorld(db);
+  });
+
+  it("is empty for a member who represents no facility", async () => {
+    const v = await getMyFacilities(db, w.users.stakeholder, w.basinId);
+    expect(v).toEqual({ facilities: [], plans: [], plan: null });
+  });
+
+  it("offers no plan while the only plan is a draft", async () => {
+    await planAt(db, w, "draft");
+    const f = await findFacilityByPermit(db, w.basinId, "DP-1001");
+    facilityId = f!.id;
+    await linkFacilityUser(db, facilityId, w.users.discharger.id);
+    const v = await getMyFacilities(db, w.users.discharger, w.basinId);
+    // the world's own facility and the demo network's DP-1001
+    expect(v.facilities.map((x) => x.id).sort()).toEqual([w.facilityId, facilityId].sort());
+    expect(v.plans).toEqual([]);
+    expect(v.plan).toBeNull();
+  });
+
+  it("shows the newest plan in review with the facility's allocation and its thread", async () => {
+    const review = await planAt(db, w, "review");
+    const v = await getMyFacilities(db, w.users.discharger, w.basinId);
+    expect(v.plans.map((p) => p.id)).toEqual([review.planId]);
+    expect(v.plan!.id).toBe(review.planId);
+    const mine = v.plan!.allocations.find((a) => a.facilityId === facilityId)!;
+    expect(mine.permitId).toBe("DP-1001");
+    expect(v.plan!.threads.some((t) => t.facilityId === facilityId)).toBe(true);
+    // the snapshot carries what the page draws: the allocation entry and the outfall's reach
+    const snapshot = v.plan!.snapshot as { run: { result: { allocation: { allocations: { id: string }[] } }; modelFiles: { file: { dischargers: { id: string; reach: string }[] } }[] } };
+    expect(snapshot.run.result.allocation.allocations.some((a) => a.id === "DP-1001")).toBe(true);
+    expect(snapshot.run.modelFiles[0].file.dischargers.find((d) => d.id === "DP-1001")?.reach).toBeTruthy();
+  });
+
+  it("refuses a plan version it does not offer", async () => {
+    const draft = await planAt(db, w, "draft");
+    await expect(getMyFacilities(db, w.users.discharger, w.basinId, draft.planId)).rejects.toMatchObject({ status: 404 });
+  });
+
+  it("is for members only", async () => {
+    await expect(getMyFacilities(db, w.users.outsider, w.basinId)).rejects.toMatchObject({ status: 403 });
+  });
+});
+
+describe("the audit trail", () => {
+  let w: World;
+  beforeAll(async () => {
+    w = await buildWorld(db);
+    await planAt(db, w, "published");
+  });
+
+  it("records the plan's life and filters by area", async () => {
+    const plans = await listBasinAudit(db, w.users.lead, w.basinId, { area: "plans" });
+    const actions = plans.map((e) => e.action);
+    expect(actions).toEqual(expect.arrayContaining(["plan.proposed", "review.opened", "review.closed", "plan.published"]));
+    expect(actions.every((a) => /^(plan|review|comment|thread)\./.test(a))).toBe(true);
+    const network = await listBasinAudit(db, w.users.lead, w.basinId, { area: "network" });
+    expect(network.length).toBeGreaterThan(0);
+    expect(network.every((e) => /^(import|network)\./.test(e.action))).toBe(true);
+    // the scheduled close has no person behind it
+    expect(plans.find((e) => e.action === "review.closed")!.actor).toBeNull();
+  });
+
+  it("pages backwards by event id without gaps or repeats", async () => {
+    const all = await listBasinAudit(db, w.users.lead, w.basinId);
+    const first = await listBasinAudit(db, w.users.lead, w.basinId, { limit: 3 });
+    const rest = await listBasinAudit(db, w.users.lead, w.basinId, { beforeId: first[2].id });
+    expect([...first, ...rest].map((e) => e.id)).toEqual(all.map((e) => e.id));
+  });
+
+  it("refuses an unknown area or cursor, naming the parameter", async () => {
+    const area = await callRoute(auditRoute.GET, "GET", { userId: w.users.lead.id, params: { basinId: w.basinId }, query: { area: "everything" } });
+    expect(area.status).toBe(422);
+    expect(err(area.json).details?.[0].path).toBe("area");
+    const before = await callRoute(auditRoute.GET, "GET", { userId: w.users.lead.id, params: { basinId: w.basinId }, query: { before: "yesterday" } });
+    expect(before.status).toBe(422);
+    expect(err(before.json).details?.[0].path).toBe("before");
+    const ok = await callRoute(auditRoute.GET, "GET", { userId: w.users.lead.id, params: { basinId: w.basinId }, query: { area: "plans" } });
+    expect(ok.status).toBe(200);
+  });
+});
