@@ -13,6 +13,11 @@ if [ ! -x /usr/bin/chromium ] && [ -z "${CHROMIUM_PATH:-}" ]; then
   apt_install chromium
 fi
 
+if ! command -v pdftotext >/dev/null 2>&1; then
+  say "Installing Debian's poppler-utils (pdftotext) for the PDF report tests"
+  apt_install poppler-utils
+fi
+
 say "Starting the test PostgreSQL cluster (separate data folder and port, fsync off)"
 SAGLINE_PGDATA="$ROOT/.data/pg-test" SAGLINE_PGPORT="${SAGLINE_TEST_PGPORT:-54330}" SAGLINE_PG_FSYNC=off \
   bash scripts/db.sh start

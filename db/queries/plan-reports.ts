@@ -1,0 +1,23 @@
+import type { Db } from "../client";
+import { isUuid } from "./users";
+
+/**
+ * The reach lines of the network version a plan was computed on: plan → its run →
+ * the run's scenario → that scenario's network version. A scenario never changes
+ * network version, and a committed version's geometry is never edited (inline
+ * edits touch names, lengths and attributes of the newest version only), so these
+ * are the lines the plan's results were drawn on.
+ */
+export async function planReachLines(db: Db, planId: string) {
+  if (!isUuid(planId)) return [];
+  return db
+    .selectFrom("plans as p")
+    .innerJoin("runs as r", "r.id", "p.run_id")
+    .innerJoin("scenarios as s", "s.id", "r.scenario_id")
+    .innerJoin("networks as n", "n.id", "s.network_id")
+    .innerJoin("reaches as x", "x.network_id", "n.id")
+    .select(["n.id as network_id", "n.version as network_version", "x.reach_key", "x.name", "x.downstream_key", "x.coordinates"])
+    .where("p.id", "=", planId)
+    .orderBy("x.reach_key")
+    .execute();
+}

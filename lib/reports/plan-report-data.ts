@@ -1,0 +1,293 @@
+import type { FeatureCollection } from "geojson";
+import type { UnitSystem } from "@/db/schema";
+import { formatIn, unitLabel } from "@/lib/format/quantities";
+import type { AllocationResult } from "@/lib/model/allocation/types";
+import type { RunResult } from "@/lib/model/network/run";
+import type { ModelFile } from "@/lib/model/types";
+import { PLANNING_CAUTION } from "@/lib/results/caution";
+import { formatDo } from "@/lib/results/do-scale";
+import { headwaterReaches, pathToOutlet } from "@/lib/results/path";
+import { profileSeries } from "@/lib/results/profile-series";
+import { resultsGeoJson } from "@/lib/results/results-geojson";
+import type { ThreadForSummary } from "@/lib/results/responsiveness";
+import type { ScenarioInputs } from "@/lib/validation/scenario";
+import { mapFigure, profileFigure, type MapFigure, type ProfileFigure } from "./figures";
+import { nameOf, OBJECTIVE_NAMES, REAERATION_NAMES } from "./labels";
+
+/** What a plan's snapshot holds (lib/services/plans.ts proposePlan): the run as proposed and the scenario inputs. */
+export interface PlanSnapshot {
+  run: {
+    id: string;
+    modelVersion: string;
+    inputsHash: string;
+    methods: Record<string, unknown>;
+    finishedAt: string | null;
+    result: { warnings: string[]; conditions: { name: string; run: RunResult }[]; allocation?: AllocationResult };
+    modelFiles: { name: string; file: ModelFile }[];
+  };
+  scenario: { id: string; name: string; version: number; inputs: ScenarioInputs };
+}
+
+/** The plan as the plans service returns it (only what a report reads). */
+export interface ReportPlanInput {
+  title: string;
+  version: number;
+  status: string;
+  createdAt: string;
+  createdBy: string | null;
+  publishedAt: string | null;
+  snapshot: Record<string, unknown>;
+  allocations: Array<{
+    facilityName: string;
+    permitId: string;
+    cboduKgDay: number;
+    bod5KgDay: number;
+    bod5MgL: number;
+    todayCboduKgDay: number;
+    reductionPct: number | null;
+  }>;
+  review: { startsAt: string; endsAt: string; timeZone: string; closedAt: string | null } | null;
+  threads: Array<ThreadForSummary & { respondedAt: string | null }>;
+}
+
+export interface ReportBasinInput {
+  name: string;
+  unitSystem: UnitSystem;
+}
+
+export interface ReportTable {
+  columns: string[];
+  /** Which columns hold numbers (right-aligned). */
+  numeric: boolean[];
+  rows: string[][];
+}
+
+export interface ReportThread {
+  topic: string;
+  status: string;
+  comments: Array<{ author: string; role: string; at: string; body: string }>;
+  response: string | null;
+  responder: string | null;
+  respondedAt: string | null;
+}
+
+/** Everything the PDF prints, already formatted in the basin's units. */
+export interface PlanReport {
+  title: string;
+  basinName: string;
+  version: number;
+  published: boolean;
+  /** "Published 2026-12-02" or "DRAFT — not published (status: review)". */
+  statusLine: string;
+  generatedAt: string;
+  caution: readonly string[];
+  summary: Array<{ label: string; value: string }>;
+  allocations: ReportTable;
+  tmdl: ReportTable | null;
+  tmdlNote: string | null;
+  methods: Array<{ heading: string; items: Array<{ label: string; value: string }> }>;
+  warnings: string[];
+  responsiveness: ReportThread[];
+  reviewLine: string | null;
+  profile: (ProfileFigure & { caption: string }) | null;
+  map: (MapFigure & { caption: string }) | null;
+}
+
+/** "2026-12-02 14:05 UTC" */
+export const utcMinute = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
+const day = (iso: string) => iso.slice(0, 10);
+const pct = (fraction: number) => `${(fraction * 100).toFixed(1)} %`;
+const num = (x: number | null | undefined, digits: number) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(digits));
+
+/**
+ * The headwater whose water travels farthest to the outlet (the "most upstream" one);
+ * ties go to the first in file order. Null when the model has no reaches.
+ */
+export function farthestHeadwater(model: ModelFile): string | null {
+  const lengths = new Map(model.reaches.map((r) => [r.id, r.length_km]));
+  let best: { id: string; km: number } | null = null;
+  for (const id of headwaterReaches(model)) {
+    const km = pathToOutlet(model, id).reduce((s, r) => s + (lengths.get(r) ?? 0), 0);
+    if (!best || km > best.km + 1e-9) best = { id, km };
+  }
+  return best?.id ?? null;
+}
+
+/** Parse the plan's snapshot into the typed shape; throws when it lacks the run or its allocation. */
+export function readSnapshot(snapshot: Record<string, unknown>): PlanSnapshot & { allocation: AllocationResult; run: PlanSnapshot["run"] } {
+  const s = snapshot as unknown as PlanSnapshot;
+  const allocation = s?.run?.result?.allocation;
+  if (!allocation || !s.run.modelFiles?.length || !s.run.result.conditions?.length) {
+    throw new Error("The plan's snapshot has no allocation run result");
+  }
+  return { ...s, allocation };
+}
+
+function allocationTable(plan: ReportPlanInput, model: ModelFile, system: UnitSystem): ReportTable {
+  const u = unitLabel("load", system);
+  const flows = new Map(model.dischargers.map((d) => [d.id, d.flow_m3_s]));
+  const rows = [...plan.allocations]
+    .sort((a, b) => a.facilityName.localeCompare(b.facilityName))
+    .map((a) => [
+      a.facilityName,
+      a.permitId,
+      formatIn("flow", flows.get(a.permitId), system),
+      formatIn("load", a.cboduKgDay, system),
+      formatIn("load", a.bod5KgDay, system),
+      num(a.bod5MgL, 1),
+      formatIn("load", a.todayCboduKgDay, system),
+      a.reductionPct === null ? "—" : (Math.abs(a.reductionPct) < 0.05 ? 0 : a.reductionPct).toFixed(1),
+    ]);
+  return {
+    columns: ["Facility", "Permit", `Design flow (${unitLabel("flow", system)})`, `Allocated CBODu (${u})`, `Allocated BOD5 (${u})`, "Effluent BOD5 (mg/L)", `Today's CBODu (${u})`, "Reduction (%)"],
+    numeric: [false, false, true, true, true, true, true, true],
+    rows,
+  };
+}
+
+function tmdlTable(allocation: AllocationResult, system: UnitSystem): ReportTable | null {
+  const t = allocation.tmdl;
+  if (!t) return null;
+  const l = (kg: number) => formatIn("load", kg, system);
+  return {
+    columns: ["Part", "What it covers", `CBODu (${unitLabel("load", system)})`],
+    numeric: [false, false, true],
+    rows: [
+      ["ΣWLA", "point sources (waste-load allocations)", l(t.wla_kg_day)],
+      ["ΣLA", "headwaters, tributaries and other nonpoint or background loads", l(t.la_kg_day)],
+      ["MOS", "margin of safety held as load", l(t.mos_kg_day)],
+      ["Reserve", "capacity kept for growth", l(t.rc_kg_day)],
+      ["TMDL", "loading capacity at the design condition", l(t.tmdl_kg_day)],
+    ],
+  };
+}
+
+function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, system: UnitSystem): PlanReport["methods"] {
+  const i = s.scenario.inputs;
+  const k = i.kinetics;
+  const t = (c: number | null | undefined) => (c === null || c === undefined ? "each reach's own" : `${formatIn("temperature", c, system)} ${unitLabel("temperature", system)}`);
+  const used = new Map<string, number>();
+  for (const list of Object.values((s.run.methods.reaeration ?? {}) as Record<string, string[]>)) for (const m of list) used.set(m, (used.get(m) ?? 0) + 1);
+  const usedText = [...used.entries()]
+    .sort((a, b) => b[1] - a[1])
+    .map(([m, n]) => `${nameOf(REAERATION_NAMES, m)} (${n} reach${n === 1 ? "" : "es"})`)
+    .join("; ");
+  return [
+    {
+      heading: "Model and scenario",
+      items: [
+        { label: "Model version", value: s.run.modelVersion },
+        { label: "Scenario", value: `${s.scenario.name}, version ${s.scenario.version}` },
+        { label: "Run", value: `${s.run.id}${s.run.finishedAt ? `, finished ${utcMinute(s.run.finishedAt)}` : ""}` },
+        { label: "Inputs hash (SHA-256)", value: s.run.inputsHash.replace(/(.{16})(?=.)/g, "$1 ") },
+        { label: "DO criterion", value: `${run.criterion_do_mg_l.toFixed(2)} mg/L` },
+        { label: "Profile spacing", value: `${formatIn("length", i.stepKm, system)} ${unitLabel("length", system)}` },
+        { label: "DO saturation", value: String(s.run.methods.saturation ?? "—") },
+      ],
+    },
+    {
+      heading: "Critical conditions",
+      items: i.conditions.map((c) => ({
+        label: c.name,
+        value: `design flow × ${c.flowScale}${Object.keys(c.reachFlowsM3s ?? {}).length ? `, ${Object.keys(c.reachFlowsM3s).length} reach flow(s) set by hand` : ""}; temperature ${t(c.temperatureC)}`,
+      })),
+    },
+    {
+      heading: "Kinetics (rates at 20 °C)",
+      items: [
+        { label: "Deoxygenation k_d", value: `${num(k.kd20PerDay, 3)} 1/d` },
+        { label: "Reaeration method", value: `${nameOf(REAERATION_NAMES, k.kaMethod)}${k.kaFloor ? ", with a minimum rate" : ""}` },
+        { label: "Reaeration formulas used", value: usedText || "—" },
+        { label: "Settling k_s", value: `${num(k.ks20PerDay, 3)} 1/d` },
+        { label: "Sediment oxygen demand", value: `${num(k.sod20GPerM2Day, 2)} g/m²/d` },
+        { label: "Nitrogenous k_n", value: `${num(k.kn20PerDay, 3)} 1/d` },
+        { label: "Temperature correction", value: `${k.thetaRule === "piecewise" ? "piecewise" : "constant"} theta rule` },
+        { label: "Reaches with their own kinetics", value: String(Object.keys(i.reachOverrides ?? {}).length) },
+      ],
+    },
+    {
+      heading: "Headwater and tributary water",
+      items: [
+        { label: "CBODu / NBODu", value: `${num(i.headwater.cbodUMgL, 2)} / ${num(i.headwater.nbodUMgL, 2)} mg/L` },
+        { label: "DO", value: `${num(i.headwater.doMgL, 2)} mg/L` },
+        { label: "Temperature", value: t(i.headwater.temperatureC) },
+        { label: "Inflows with their own quality", value: String(Object.keys(i.inflowOverrides ?? {}).length) },
+      ],
+    },
+    {
+      heading: "Allocation",
+      items: [
+        { label: "Objective", value: nameOf(OBJECTIVE_NAMES, allocation.objective) },
+        { label: "Technology floor", value: i.allocation.floorBod5MgL === null ? "none" : `effluent BOD5 ${num(i.allocation.floorBod5MgL, 1)} mg/L at design flow` },
+        { label: "Margin of safety", value: `${num(i.allocation.mosDoMgL, 2)} mg/L DO and ${pct(i.allocation.mosFraction)} of the loading capacity` },
+        { label: "Reserve capacity", value: pct(i.allocation.reserveFraction) },
+        { label: "Conditions checked", value: i.conditions.map((c) => c.name).join(", ") },
+        { label: "Checkpoints", value: `${allocation.checkpoints} (${allocation.iterations} round${allocation.iterations === 1 ? "" : "s"})` },
+      ],
+    },
+  ];
+}
+
+/**
+ * Everything the plan report prints, from the plan (as the plans service returns it),
+ * its basin, and the network's reach lines (map features with properties.kind "reach";
+ * null leaves the map out). Pure: the same input gives the same report, except
+ * `generatedAt`, which is `now`.
+ */
+export function planReport(plan: ReportPlanInput, basin: ReportBasinInput, network: FeatureCollection | null, now = new Date()): PlanReport {
+  const s = readSnapshot(plan.snapshot);
+  const system = basin.unitSystem;
+  const model = s.run.modelFiles[0].file;
+  const run = s.run.result.conditions[0].run;
+  const allocation = s.allocation;
+  const published = plan.status === "published";
+  const head = farthestHeadwater(model);
+  const series = head ? profileSeries(run, model, head, system) : null;
+  const results = network ? resultsGeoJson({ run, model, network }) : null;
+  const map = results ? mapFigure(results, run.criterion_do_mg_l, { width: 250, height: 200 }) : null;
+  const totalWla = plan.allocations.reduce((sum, a) => sum + a.cboduKgDay, 0);
+  return {
+    title: plan.title,
+    basinName: basin.name,
+    version: plan.version,
+    published,
+    statusLine: published && plan.publishedAt ? `Published ${day(plan.publishedAt)}` : `DRAFT — not published (status: ${plan.status})`,
+    generatedAt: utcMinute(now.toISOString()),
+    caution: PLANNING_CAUTION,
+    summary: [
+      { label: "DO criterion", value: `${run.criterion_do_mg_l.toFixed(1)} mg/L` },
+      { label: `Lowest DO (${s.run.result.conditions[0].name})`, value: run.minimum.do_mg_l < 0 ? "anoxic" : `${formatDo(run.minimum.do_mg_l)} mg/L in ${run.minimum.reach}` },
+      { label: "Facilities", value: String(plan.allocations.length) },
+      { label: `Total allocated CBODu`, value: `${formatIn("load", totalWla, system)} ${unitLabel("load", system)}` },
+    ],
+    allocations: allocationTable(plan, model, system),
+    tmdl: tmdlTable(allocation, system),
+    tmdlNote:
+      allocation.tmdl && allocation.tmdl.mos_do_mg_l > 0
+        ? `A further margin of safety of ${allocation.tmdl.mos_do_mg_l.toFixed(2)} mg/L DO was added to the criterion; it is implicit in the loads above.`
+        : null,
+    methods: methods(s, run, allocation, system),
+    warnings: s.run.result.warnings ?? [],
+    responsiveness: [...plan.threads]
+      .sort((a, b) => (a.facilityName === null ? -1 : b.facilityName === null ? 1 : a.facilityName.localeCompare(b.facilityName)))
+      .filter((t) => t.comments.length > 0 || t.response)
+      .map((t) => ({
+        topic: t.facilityName ? `${t.facilityName}${t.permitId ? ` (${t.permitId})` : ""}` : "The plan as a whole",
+        status: t.status,
+        comments: [...t.comments].sort((a, b) => a.at.localeCompare(b.at)).map((c) => ({ author: c.author, role: c.role, at: utcMinute(c.at), body: c.body })),
+        response: t.response,
+        responder: t.responder,
+        respondedAt: t.respondedAt ? utcMinute(t.respondedAt) : null,
+      })),
+    reviewLine: plan.review
+      ? `Review period ${utcMinute(plan.review.startsAt)} to ${utcMinute(plan.review.closedAt ?? plan.review.endsAt)} (the basin's time zone is ${plan.review.timeZone}).`
+      : null,
+    profile: series
+      ? {
+          ...profileFigure(series, { width: 515, height: 210 }),
+          caption: `Dissolved oxygen with the allocated loads (${s.run.result.conditions[0].name}) from the head of ${head} to the outlet: ${series.path.join(" › ")}. Dashed: the ${run.criterion_do_mg_l.toFixed(1)} mg/L criterion; dotted: saturation.`,
+        }
+      : null,
+    map: map ? { ...map, caption: "Reaches coloured by their dissolved oxygen with the allocated loads." } : null,
+  };
+}

@@ -1,0 +1,106 @@
+import type { Feature, FeatureCollection } from "geojson";
+import type { Db } from "@/db/client";
+import { insertAuditEvent } from "@/db/queries/audit";
+import { findBasinById } from "@/db/queries/basins";
+import { planReachLines } from "@/db/queries/plan-reports";
+import type { Actor } from "@/lib/auth/guard";
+import { csvText } from "@/lib/reports/csv-text";
+import type { PlanDownload } from "@/lib/reports/download";
+import { renderPlanPdf } from "@/lib/reports/plan-pdf";
+import { planReport, readSnapshot } from "@/lib/reports/plan-report-data";
+import { PLANNING_CAUTION } from "@/lib/results/caution";
+import { allocationCsv } from "@/lib/results/csv-rows";
+import { reachResultsExport } from "@/lib/results/results-geojson";
+import { getPlan, getPublishedPlan } from "./plans";
+
+export type PlanExportFormat = "pdf" | "csv" | "geojson";
+
+
+type PlanDto = Awaited<ReturnType<typeof getPlan>>;
+
+/**
+ * The plan (through getPlan, which decides who may read it: published plans anyone,
+ * plans in or after review anyone signed in, drafts planners and leads) and its basin.
+ */
+async function readPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
+  const plan = await getPlan(db, actor, basinId, planId);
+  const basin = (await findBasinById(db, basinId))!;
+  const stem = `${basin.slug}-plan-v${plan.version}${plan.status === "published" ? "" : "-draft"}`;
+  return { plan, basin, stem };
+}
+
+/** A published plan is public; any other export is recorded (who took which copy of an unpublished plan). */
+async function recordExport(db: Db, actor: Actor | null, basinId: string, plan: PlanDto, format: PlanExportFormat) {
+  if (plan.status === "published") return;
+  await insertAuditEvent(db, {
+    basinId,
+    actorId: actor?.id ?? null,
+    action: "plan.exported",
+    targetType: "plan",
+    targetId: plan.id,
+    details: { format, version: plan.version, status: plan.status },
+  });
+}
+
+/** The reach lines of the network version the plan was computed on, as map features. */
+async function planNetwork(db: Db, planId: string): Promise<FeatureCollection> {
+  const rows = await planReachLines(db, planId);
+  const features: Feature[] = rows.map((r) => ({
+    type: "Feature",
+    id: `reach:${r.reach_key}`,
+    geometry: { type: "LineString", coordinates: r.coordinates },
+    properties: { kind: "reach", id: r.reach_key, name: r.name, downstreamId: r.downstream_key },
+  }));
+  return { type: "FeatureCollection", features };
+}
+
+const about = (basinName: string, plan: PlanDto) => [
+  `${basinName}: ${plan.title}, version ${plan.version}`,
+  plan.status === "published" && plan.publishedAt ? `Published ${plan.publishedAt.slice(0, 10)}` : `DRAFT — not published (status: ${plan.status})`,
+];
+
+/** The plan report as PDF (see lib/reports/plan-pdf.tsx). */
+export async function planReportPdf(db: Db, actor: Actor | null, basinId: string, planId: string, now = new Date()): Promise<PlanDownload> {
+  const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
+  const network = await planNetwork(db, plan.id);
+  const report = planReport(plan, { name: basin.name, unitSystem: basin.unit_system }, network.features.length ? network : null, now);
+  const bytes = await renderPlanPdf(report);
+  await recordExport(db, actor, basin.id, plan, "pdf");
+  return { body: new Uint8Array(bytes), contentType: "application/pdf", fileName: `${stem}.pdf` };
+}
+
+/** The allocation table as CSV, loads in the basin's unit, the caution in the leading `#` lines. */
+export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: string, planId: string): Promise<PlanDownload> {
+  const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
+  const s = readSnapshot(plan.snapshot);
+  const text = csvText(allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unit_system, about(basin.name, plan)));
+  await recordExport(db, actor, basin.id, plan, "csv");
+  return { body: text, contentType: "text/csv; charset=utf-8", fileName: `${stem}-allocations.csv` };
+}
+
+/**
+ * Reaches with their results under the allocated loads (reachResultsExport: one feature
+ * per reach with its lowest DO, plus the DO-coloured pieces, critical points and
+ * dischargers), the caution and what the file is as foreign members.
+ */
+export async function planReachesGeoJson(db: Db, actor: Actor | null, basinId: string, planId: string): Promise<PlanDownload> {
+  const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
+  const s = readSnapshot(plan.snapshot);
+  const network = await planNetwork(db, plan.id);
+  const collection = reachResultsExport({ run: s.run.result.conditions[0].run, model: s.run.modelFiles[0].file, network, caution: [...PLANNING_CAUTION] });
+  const json = {
+    type: collection.type,
+    caution: collection.caution,
+    plan: { title: plan.title, basin: basin.name, version: plan.version, status: plan.status, publishedAt: plan.publishedAt, condition: s.run.result.conditions[0].name },
+    features: collection.features,
+  };
+  await recordExport(db, actor, basin.id, plan, "geojson");
+  return { body: JSON.stringify(json), contentType: "application/geo+json", fileName: `${stem}-reaches.geojson` };
+}
+
+/** The public page's plan (null unless published) with the reach lines its DO map is drawn on. */
+export async function getPublishedPlanWithMap(db: Db, actor: Actor | null, basinId: string, planId: string) {
+  const found = await getPublishedPlan(db, actor, basinId, planId);
+  if (!found) return null;
+  return { ...found, network: await planNetwork(db, found.plan.id) };
+}

@@ -1,0 +1,183 @@
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import type { FeatureCollection } from "geojson";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as csvRoute from "@/app/api/basins/[basinId]/plans/[planId]/csv/route";
+import * as geojsonRoute from "@/app/api/basins/[basinId]/plans/[planId]/geojson/route";
+import * as reportRoute from "@/app/api/basins/[basinId]/plans/[planId]/report/route";
+import { createDb, getDb, type Db } from "@/db/client";
+import { findBasinById, updateBasin } from "@/db/queries/basins";
+import { formatIn } from "@/lib/format/quantities";
+import { stopBoss } from "@/lib/jobs/queue";
+import { PLANNING_CAUTION } from "@/lib/results/caution";
+import { planReportPdf } from "@/lib/services/plan-reports";
+import { addComment, closeDueReviews, getPlan, publishPlan, respondToThread } from "@/lib/services/plans";
+import { callRoute } from "../support/call-route";
+import { err } from "../support/errors";
+import { planAt } from "../support/plan-fixture";
+import { buildWorld, type World } from "../support/world";
+
+let db: Db;
+let dir: string;
+beforeAll(async () => {
+  db = createDb(process.env.DATABASE_URL, 3);
+  dir = mkdtempSync(join(tmpdir(), "sagline-report-"));
+});
+afterAll(async () => {
+  rmSync(dir, { recursive: true, force: true });
+  await stopBoss();
+  await db.destroy();
+  await getDb().destroy();
+});
+
+/** The text of a PDF as poppler's pdftotext reads it, white space collapsed. */
+function pdfText(bytes: Uint8Array, name: string): string {
+  const file = join(dir, `${name}.pdf`);
+  writeFileSync(file, bytes);
+  return execFileSync("pdftotext", ["-enc", "UTF-8", file, "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
+}
+
+const exportEvents = (planId: string) =>
+  db.selectFrom("audit_events").select(["actor_id", "details"]).where("action", "=", "plan.exported").where("target_id", "=", planId).execute();
+
+describe("the report of a published plan (US units) with a comment and its response", () => {
+  let w: World;
+  let planId: string;
+  const COMMENT = "Please phase the Lower Brack reduction over two permit cycles.";
+  const RESPONSE = "Agreed in part: the permit schedule allows two steps; the final load is unchanged.";
+
+  beforeAll(async () => {
+    w = await buildWorld(db);
+    await updateBasin(db, w.basinId, { unit_system: "US" });
+    const p = await planAt(db, w, "review");
+    planId = p.planId;
+    const facilityThread = p.threads.find((t) => t.facility_id !== null)!.id;
+    await addComment(db, w.users.stakeholder, w.basinId, facilityThread, COMMENT);
+    await respondToThread(db, w.users.planner, w.basinId, facilityThread, RESPONSE);
+    await closeDueReviews(db, new Date(Date.now() + 8 * 86_400_000));
+    await publishPlan(db, w.users.lead, w.basinId, planId);
+  }, 120_000);
+
+  it("downloads signed out as an attachment named after the basin and version", async () => {
+    const res = await callRoute(reportRoute.GET, "GET", { params: { basinId: w.basinId, planId } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/pdf");
+    const basin = (await findBasinById(db, w.basinId))!;
+    const plan = await getPlan(db, null, w.basinId, planId);
+    expect(res.headers.get("content-disposition")).toBe(`attachment; filename="${basin.slug}-plan-v${plan.version}.pdf"`);
+  });
+
+  it("prints title, status, cautions, allocations in the basin's unit, TMDL, methods and the responsiveness summary", async () => {
+    const plan = await getPlan(db, null, w.basinId, planId);
+    const pdf = await planReportPdf(db, null, w.basinId, planId);
+    expect(Buffer.from(pdf.body as Uint8Array).subarray(0, 5).toString()).toBe("%PDF-");
+    const text = pdfText(pdf.body as Uint8Array, "published");
+    expect(text).toContain(plan.title);
+    expect(text).toContain(`Published ${plan.publishedAt!.slice(0, 10)}`);
+    expect(text).not.toContain("DRAFT");
+    for (const line of PLANNING_CAUTION) expect(text).toContain(line);
+    // loads in lb/d, never kg/d; each facility's row: name, permit, (the rest of a wrapped name,) design flow, then its allocated CBODu as formatted
+    expect(text).toContain("CBODu (lb/d)");
+    expect(text).not.toContain("kg/d");
+    for (const a of plan.allocations) {
+      const load = formatIn("load", a.cboduKgDay, "US");
+      expect(text).toContain(a.facilityName.split(" ").slice(0, 2).join(" "));
+      expect(text, a.facilityName).toMatch(new RegExp(`${a.permitId}(?: [A-Za-z]+)* \\d+\\.\\d+ ${load.replace(".", "\\.")} `));
+    }
+    expect(text).toContain("TMDL = ΣWLA + ΣLA + MOS + reserve");
+    expect(text).toContain("Methods and parameters");
+    expect(text).toContain("Chosen per reach by depth and velocity");
+    expect(text).toMatch(/Reaeration formulas used (O'Connor–Dobbins|Churchill–Elmore–Buckingham|Owens–Edwards–Gibbs|Tsivoglou–Neal|Given rate coefficient) \(\d+ reach/);
+    expect(text).toContain((plan.snapshot as { run: { modelVersion: string } }).run.modelVersion);
+    expect(text).toContain("Most total load");
+    expect(text).toContain(COMMENT);
+    expect(text).toContain(RESPONSE);
+    expect(text).toMatch(new RegExp(`${w.users.stakeholder.name} \\(stakeholder\\), \\d{4}-\\d{2}-\\d{2} \\d{2}:\\d{2} UTC`));
+    expect(text).toContain(`Response by ${w.users.planner.name}`);
+    // the caution on the first page and in every page's footer
+    const pages = Number(/Page 1 of (\d+)/.exec(text)![1]);
+    expect(text.split(PLANNING_CAUTION[1]).length - 1).toBe(pages + 1);
+  });
+
+  it("is a public copy: exporting a published plan records no audit event", async () => {
+    await planReportPdf(db, w.users.stakeholder, w.basinId, planId);
+    expect(await exportEvents(planId)).toEqual([]);
+  });
+
+  it("GeoJSON: a FeatureCollection with the caution and one feature per reach carrying its DO result", async () => {
+    const res = await callRoute(geojsonRoute.GET, "GET", { params: { basinId: w.basinId, planId } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/geo+json");
+    const json = res.json as FeatureCollection & { caution: string[]; plan: { status: string } };
+    expect(json.plan.status).toBe("published");
+    expect(json.type).toBe("FeatureCollection");
+    expect(json.caution).toEqual([...PLANNING_CAUTION]);
+    const plan = await getPlan(db, null, w.basinId, planId);
+    const runReaches = (plan.snapshot as { run: { result: { conditions: { run: { reaches: { id: string; critical: { do_mg_l: number } }[] } }[] } } }).run.result.conditions[0].run.reaches;
+    const reaches = json.features.filter((f) => f.properties?.kind === "reach");
+    expect(reaches.map((f) => f.properties!.id).sort()).toEqual(runReaches.map((r) => r.id).sort());
+    for (const f of reaches) {
+      expect(f.geometry.type).toBe("LineString");
+      const r = runReaches.find((x) => x.id === f.properties!.id)!;
+      expect(f.properties!.min_do_mg_l).toBe(r.critical.do_mg_l);
+      expect(typeof f.properties!.below_criterion).toBe("boolean");
+    }
+    expect(json.features.some((f) => f.properties?.kind === "reach-piece")).toBe(true);
+  });
+
+  it("CSV: the caution first, then one row per facility in lb/d", async () => {
+    const res = await callRoute(csvRoute.GET, "GET", { params: { basinId: w.basinId, planId } });
+    expect(res.status).toBe(200);
+    const lines = (res.json as string).split("\r\n");
+    expect(lines.slice(0, 2)).toEqual(PLANNING_CAUTION.map((l) => `# ${l}`));
+    const header = lines.find((l) => !l.startsWith("#"))!;
+    expect(header).toContain("allocated CBODu (lb/d)");
+    const plan = await getPlan(db, null, w.basinId, planId);
+    const rows = lines.filter((l) => l && !l.startsWith("#") && l !== header);
+    expect(rows).toHaveLength(plan.allocations.length);
+  });
+});
+
+describe("the report of a draft", () => {
+  let w: World;
+  let planId: string;
+  beforeAll(async () => {
+    w = await buildWorld(db);
+    planId = (await planAt(db, w, "draft")).planId;
+  }, 120_000);
+
+  it("is refused to anyone who may not read the draft", async () => {
+    for (const route of [reportRoute, geojsonRoute, csvRoute]) {
+      const anon = await callRoute(route.GET, "GET", { params: { basinId: w.basinId, planId } });
+      expect(anon.status).toBe(401);
+      for (const who of ["stakeholder", "discharger", "outsider"] as const) {
+        const res = await callRoute(route.GET, "GET", { userId: w.users[who].id, params: { basinId: w.basinId, planId } });
+        expect(res.status, who).toBe(403);
+        expect(err(res.json).code).toBe("forbidden");
+      }
+    }
+    expect(await exportEvents(planId)).toEqual([]);
+  });
+
+  it("is marked DRAFT and its export by a planner is recorded", async () => {
+    const res = await callRoute(reportRoute.GET, "GET", { userId: w.users.planner.id, params: { basinId: w.basinId, planId } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-disposition")).toMatch(/-plan-v\d+-draft\.pdf"$/);
+    const events = await exportEvents(planId);
+    expect(events).toHaveLength(1);
+    expect(events[0]).toMatchObject({ actor_id: w.users.planner.id, details: { format: "pdf", status: "draft" } });
+
+    const pdf = await planReportPdf(db, w.users.lead, w.basinId, planId);
+    const text = pdfText(pdf.body as Uint8Array, "draft");
+    expect(text).toContain("DRAFT — not published (status: draft)");
+    expect(text).toContain("No comments were received on this plan.");
+    expect(text).toContain("CBODu (kg/d)");
+    expect(await exportEvents(planId)).toHaveLength(2);
+
+    await callRoute(geojsonRoute.GET, "GET", { userId: w.users.lead.id, params: { basinId: w.basinId, planId } });
+    await callRoute(csvRoute.GET, "GET", { userId: w.users.planner.id, params: { basinId: w.basinId, planId } });
+    expect((await exportEvents(planId)).map((e) => (e.details as { format: string }).format).sort()).toEqual(["csv", "geojson", "pdf", "pdf"]);
+  });
+});
