@@ -6,7 +6,7 @@ import { PublicPlan } from "@/components/plans/public-plan";
 import { getDb } from "@/db/client";
 import { currentActor } from "@/lib/auth/session";
 import type { AllocationResult, ModelFile, RunResult } from "@/lib/model";
-import { getPublishedPlan } from "@/lib/services/plans";
+import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
 
 export const metadata: Metadata = { title: "Published plan" };
 export const dynamic = "force-dynamic";
@@ -18,9 +18,9 @@ interface Snapshot {
 /** A published plan, readable without signing in. */
 export default async function PublishedPlanPage({ params }: { params: Promise<{ basinId: string; planId: string }> }) {
   const { basinId, planId } = await params;
-  const found = await getPublishedPlan(getDb(), await currentActor(), basinId, planId);
+  const found = await getPublishedPlanWithMap(getDb(), await currentActor(), basinId, planId);
   if (!found) notFound();
-  const { plan, basin } = found;
+  const { plan, basin, network } = found;
   const snapshot = plan.snapshot as unknown as Snapshot;
   return (
     <main className="mx-auto max-w-6xl px-6 py-10">
@@ -32,6 +32,9 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
         {basin.name} · version {plan.version} · published {plan.publishedAt ? new Date(plan.publishedAt).toLocaleDateString("en-CA") : ""}
       </p>
       <PublicPlan
+        basinId={basinId}
+        planId={plan.id}
+        network={network}
         allocation={snapshot.run.result.allocation}
         model={snapshot.run.modelFiles[0].file}
         run={snapshot.run.result.conditions[0].run}
