@@ -1,12 +1,14 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
+import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { EMAIL_NOT_CONFIRMED } from "@/lib/validation/account";
 import { signInSchema, type SignInInput } from "@/lib/validation/user";
 
 export function SignInForm({ next }: { next: string }) {
@@ -22,7 +24,11 @@ export function SignInForm({ next }: { next: string }) {
     setFailure(null);
     const res = await signIn("credentials", { ...values, redirect: false });
     if (!res || res.error) {
-      setFailure("That e-mail and password do not match an account.");
+      setFailure(
+        res?.error === EMAIL_NOT_CONFIRMED
+          ? "Confirm your e-mail address first: open the link we e-mailed you when you created the account."
+          : "That e-mail and password do not match an account.",
+      );
       return;
     }
     router.push(next);
@@ -43,6 +49,10 @@ export function SignInForm({ next }: { next: string }) {
       <Button type="submit" className="w-full" disabled={isSubmitting}>
         {isSubmitting ? "Signing in…" : "Sign in"}
       </Button>
+      <p className="flex justify-between text-sm">
+        <Link href="/register">Create an account</Link>
+        <Link href="/forgot-password">Forgot your password?</Link>
+      </p>
     </form>
   );
 }

@@ -1,7 +1,9 @@
 "use client";
 import { useCallback, useState } from "react";
 import { AddFacilityForm } from "@/components/forms/add-facility-form";
+import { PendingInvitations } from "@/components/basins/pending-invitations";
 import { AddMemberForm } from "@/components/forms/add-member-form";
+import { InviteMemberForm } from "@/components/forms/invite-member-form";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import type { BasinRole } from "@/db/schema";
@@ -71,6 +73,21 @@ export function MembersPanel({
           </div>
         )}
       </section>
+
+      {canManage && (
+        <section className="card">
+          <h2 className="mb-1">Invitations</h2>
+          <p className="mb-3 text-sm text-ink-soft">
+            Invite anyone by e-mail, with or without a Sagline account. The link works once, for 14 days; a discharger
+            invitation links the person to the facility you choose.
+          </p>
+          <InviteMemberForm basinId={basinId} facilities={facilities.data ?? []} />
+          <div className="mt-6 border-t border-rule pt-4">
+            <h3 className="mb-2 text-sm font-semibold">Open invitations</h3>
+            <PendingInvitations basinId={basinId} />
+          </div>
+        </section>
+      )}
 
       <section className="card">
         <h2 className="mb-1">Facilities and their discharger contacts</h2>

@@ -10,7 +10,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   return (
     <div className="card">
       <h1 className="mb-1">Sign in</h1>
-      <p className="mb-6 text-sm text-ink-soft">Use the e-mail address your basin lead or administrator registered.</p>
+      <p className="mb-6 text-sm text-ink-soft">Use the e-mail address of your Sagline account.</p>
       <SignInForm next={next} />
     </div>
   );

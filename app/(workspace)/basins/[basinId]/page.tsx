@@ -2,6 +2,8 @@ import { basinPageAccess } from "@/lib/auth/page-access";
 import { getDb } from "@/db/client";
 import { listFacilities } from "@/lib/services/facilities";
 import { Notice } from "@/components/ui/notice";
+import { FollowButton } from "@/components/basins/follow-button";
+import { followState } from "@/lib/services/follows";
 
 const ROLE_HELP = {
   lead: "You lead this basin: you manage its members and settings, open review periods and publish final plans.",
@@ -17,6 +19,7 @@ export default async function BasinOverviewPage({ params }: { params: Promise<{ 
   const { basin, role, actor } = access;
   const facilities = (await access.can("facilities.read")) ? await listFacilities(getDb(), actor, basin.id) : null;
   const us = basin.unitSystem === "US";
+  const follow = await followState(getDb(), actor, basin.id);
   return (
     <div className="grid gap-6 lg:grid-cols-3">
       <section className="card lg:col-span-2">
@@ -40,6 +43,9 @@ export default async function BasinOverviewPage({ params }: { params: Promise<{ 
         <p className="text-sm text-ink-soft">
           {role ? ROLE_HELP[role] : "You are a site administrator: you look after this basin's settings and members."}
         </p>
+        <div className="mt-4 border-t border-rule pt-4">
+          <FollowButton basinId={basin.id} followed={follow.followed} />
+        </div>
       </section>
       {facilities && (
         <section className="card lg:col-span-3">

@@ -1,0 +1,35 @@
+"use client";
+import { useMutation } from "@tanstack/react-query";
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { apiFetch } from "@/lib/queries/fetcher";
+import type { FollowDto } from "@/lib/services/follows";
+
+/**
+ * Follow or unfollow a basin for its e-mail notices (review opened or closing,
+ * plan published). For signed-in users; `followed` is the state the page read.
+ */
+export function FollowButton({ basinId, followed: initial }: { basinId: string; followed: boolean }) {
+  const [followed, setFollowed] = useState(initial);
+  const toggle = useMutation({
+    mutationFn: (follow: boolean) => apiFetch<FollowDto>(`/api/basins/${basinId}/follow`, { method: follow ? "PUT" : "DELETE" }),
+    onSuccess: (res) => setFollowed(res.followed),
+  });
+  return (
+    <div className="space-y-2" data-testid="follow-basin">
+      <p className="text-sm text-ink-soft">
+        {followed
+          ? "You follow this basin: we e-mail you when a review opens or closes soon and when a plan is published."
+          : "Follow this basin to be e-mailed when a review opens or closes soon and when a plan is published."}
+      </p>
+      <Button variant={followed ? "secondary" : "primary"} disabled={toggle.isPending} onClick={() => toggle.mutate(!followed)}>
+        {followed ? "Unfollow" : "Follow this basin"}
+      </Button>
+      {toggle.error && (
+        <p role="alert" className="field-error">
+          {toggle.error.message}
+        </p>
+      )}
+    </div>
+  );
+}

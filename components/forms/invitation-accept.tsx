@@ -1,0 +1,104 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { signIn } from "next-auth/react";
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { applyApiError } from "@/components/ui/form-error";
+import { Notice } from "@/components/ui/notice";
+import { apiFetch } from "@/lib/queries/fetcher";
+import { PASSWORD_MIN, invitationRegisterSchema, type InvitationRegisterInput } from "@/lib/validation/account";
+
+interface Accepted {
+  basinId: string;
+  email: string;
+}
+
+/** Signed in as the invited address: one button joins the basin. */
+export function AcceptInvitationButton({ token }: { token: string }) {
+  const router = useRouter();
+  const [busy, setBusy] = useState(false);
+  const [failure, setFailure] = useState<string | null>(null);
+  const accept = async () => {
+    setBusy(true);
+    setFailure(null);
+    try {
+      const done = await apiFetch<Accepted>(`/api/invitations/${token}/accept`, { method: "POST" });
+      router.push(`/basins/${done.basinId}`);
+      router.refresh();
+    } catch (error) {
+      setFailure(error instanceof Error ? error.message : String(error));
+      setBusy(false);
+    }
+  };
+  return (
+    <div className="space-y-3">
+      {failure && <Notice tone="error">{failure}</Notice>}
+      <Button className="w-full" onClick={accept} disabled={busy}>
+        {busy ? "Joining…" : "Accept and join the basin"}
+      </Button>
+    </div>
+  );
+}
+
+/** No account for the invited address yet: create it here (the invitation confirms the address), join, sign in. */
+export function InvitationRegisterForm({ token, email }: { token: string; email: string }) {
+  const router = useRouter();
+  const [failure, setFailure] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<InvitationRegisterInput>({
+    resolver: zodResolver(invitationRegisterSchema),
+    defaultValues: { name: "", password: "", confirmPassword: "" },
+  });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFailure(null);
+    let done: Accepted;
+    try {
+      done = await apiFetch<Accepted>(`/api/invitations/${token}/register`, { method: "POST", json: values });
+    } catch (error) {
+      const message = applyApiError(error, setError as never, ["name", "password", "confirmPassword"]);
+      if (message) setFailure(message);
+      return;
+    }
+    const res = await signIn("credentials", { email: done.email, password: values.password, redirect: false });
+    router.push(res && !res.error ? `/basins/${done.basinId}` : "/signin");
+    router.refresh();
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Create your account and join">
+      {failure && <Notice tone="error">{failure}</Notice>}
+      <Field label="E-mail" type="email" value={email} readOnly disabled />
+      <Field label="Your name" autoComplete="name" error={errors.name?.message} {...register("name")} />
+      <Field
+        label="Password"
+        type="password"
+        autoComplete="new-password"
+        hint={`At least ${PASSWORD_MIN} characters.`}
+        error={errors.password?.message}
+        {...register("password")}
+      />
+      <Field
+        label="Password again"
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirmPassword?.message}
+        {...register("confirmPassword")}
+      />
+      <Button type="submit" className="w-full" disabled={isSubmitting}>
+        {isSubmitting ? "Joining…" : "Create account and join"}
+      </Button>
+      <p className="text-center text-sm text-ink-soft">
+        <Link href={`/signin?callbackUrl=${encodeURIComponent(`/invite?token=${token}`)}`}>I already have an account</Link>
+      </p>
+    </form>
+  );
+}

@@ -1,0 +1,89 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm, useWatch } from "react-hook-form";
+import { useInviteMutation } from "@/components/basins/invitation-queries";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { applyApiError } from "@/components/ui/form-error";
+import { Notice } from "@/components/ui/notice";
+import { BASIN_ROLES } from "@/lib/auth/permissions";
+import type { FacilityDto } from "@/lib/services/dto";
+import { invitationCreateSchema, type InvitationCreateInput } from "@/lib/validation/account";
+
+/** A lead invites an address by e-mail; a discharger invitation names one of the basin's facilities. */
+export function InviteMemberForm({ basinId, facilities }: { basinId: string; facilities: FacilityDto[] }) {
+  const invite = useInviteMutation(basinId);
+  const [failure, setFailure] = useState<string | null>(null);
+  const [sent, setSent] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    reset,
+    control,
+    formState: { errors, isSubmitting },
+  } = useForm<InvitationCreateInput>({
+    resolver: zodResolver(invitationCreateSchema),
+    defaultValues: { email: "", role: "stakeholder", facilityId: null },
+  });
+  const role = useWatch({ control, name: "role" });
+
+  const submit = handleSubmit(async (values) => {
+    setFailure(null);
+    setSent(null);
+    try {
+      const inv = await invite.mutateAsync({ ...values, facilityId: values.role === "discharger" ? values.facilityId : null });
+      setSent(inv.email);
+      reset();
+    } catch (error) {
+      const message = applyApiError(error, setError as never, ["email", "role", "facilityId"]);
+      if (message) setFailure(message);
+    }
+  });
+
+  return (
+    <form onSubmit={submit} noValidate className="space-y-3" aria-label="Invite by e-mail">
+      {failure && <Notice tone="error">{failure}</Notice>}
+      {sent && <Notice tone="success">Invitation sent to {sent}. The link works for 14 days.</Notice>}
+      <div className="grid gap-3 sm:grid-cols-[1fr_10rem_14rem_auto] sm:items-start">
+        <Field label="E-mail to invite" id="invite-email" type="email" error={errors.email?.message} {...register("email")} />
+        <div>
+          <label htmlFor="invite-role" className="field-label">
+            Role
+          </label>
+          <select id="invite-role" className="field-input" {...register("role")}>
+            {BASIN_ROLES.map((r) => (
+              <option key={r} value={r}>
+                {r}
+              </option>
+            ))}
+          </select>
+        </div>
+        <div>
+          <label htmlFor="invite-facility" className="field-label">
+            Facility (dischargers)
+          </label>
+          <select
+            id="invite-facility"
+            className="field-input"
+            disabled={role !== "discharger"}
+            aria-invalid={errors.facilityId ? true : undefined}
+            {...register("facilityId", { setValueAs: (v: string | null) => (v ? v : null) })}
+          >
+            <option value="">{facilities.length ? "Choose…" : "No facilities yet"}</option>
+            {facilities.map((f) => (
+              <option key={f.id} value={f.id}>
+                {f.name} ({f.permitId})
+              </option>
+            ))}
+          </select>
+          {errors.facilityId && <p className="field-error">{errors.facilityId.message}</p>}
+        </div>
+        <Button type="submit" className="sm:mt-6" disabled={isSubmitting}>
+          Send invitation
+        </Button>
+      </div>
+    </form>
+  );
+}
