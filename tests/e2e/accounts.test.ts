@@ -1,6 +1,7 @@
 import { mkdirSync } from "node:fs";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { DEMO_USERS } from "@/db/seed/demo-data";
 import { readMailbox } from "@/lib/email/mailbox";
 import { launchBrowser, signInAs } from "./support/browser";
 
@@ -73,5 +74,52 @@ describe("a member of the public creates an account", () => {
     await signInAs(page, baseUrl, email, password);
     expect(page.url()).toBe(`${baseUrl}/basins`);
     await page.close();
+  });
+});
+
+describe("a lead invites a discharger by e-mail", () => {
+  it("sends the invitation from the members page; the invitee creates the account and joins, linked to the facility", async () => {
+    const lead = DEMO_USERS.find((u) => u.key === "lead")!;
+    const email = `oona.faircloth.${Date.now().toString(36)}@example.test`;
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, baseUrl, lead.email, lead.password);
+    // the smaller demo basin, so the other browser tests' member lists stay as seeded
+    await page.getByRole("link", { name: "Kestle Water basin" }).click();
+    await page.getByRole("heading", { name: "About this basin" }).waitFor();
+    await page.getByRole("link", { name: "Members & facilities" }).click();
+    const form = page.getByRole("form", { name: "Invite by e-mail" });
+    await form.waitFor();
+    await form.getByLabel("E-mail to invite").fill(email);
+    await form.getByLabel("Role").selectOption("discharger");
+    await form.getByRole("button", { name: "Send invitation" }).click();
+    // a discharger invitation must name its facility
+    await page.getByText("Choose the facility this discharger represents").waitFor();
+    await form.getByLabel("Facility (dischargers)").selectOption({ label: "Kestle Village Lagoons (KW-0001)" });
+    await form.getByRole("button", { name: "Send invitation" }).click();
+    await page.getByText(`Invitation sent to ${email}`).waitFor();
+    const listed = page.getByTestId("invitations-table");
+    await listed.getByText(email).waitFor();
+    await page.screenshot({ path: `${SHOTS}/members-invitations.png`, fullPage: true });
+    await page.close();
+
+    const mail = await waitForMail(email);
+    expect(mail.subject).toContain("Kestle Water basin");
+    const link = mail.text.match(/https?:\/\/\S+\/invite\?token=[A-Za-z0-9_-]+/)?.[0];
+    expect(link, mail.text).toBeDefined();
+
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const invitee = await context.newPage();
+    await invitee.goto(link!);
+    await invitee.getByRole("heading", { name: "Join Kestle Water basin" }).waitFor();
+    await invitee.getByLabel("Your name").fill("Oona Faircloth");
+    await invitee.getByLabel("Password", { exact: true }).fill("lagoon-keeper-77");
+    await invitee.getByLabel("Password again").fill("lagoon-keeper-77");
+    await invitee.getByRole("button", { name: "Create account and join" }).click();
+    await invitee.getByRole("heading", { name: "Your facilities" }).waitFor();
+    expect(await invitee.locator("table.data-table tbody tr").allTextContents()).toEqual([
+      expect.stringContaining("Kestle Village Lagoons"),
+    ]);
+    await invitee.screenshot({ path: `${SHOTS}/invitation-joined.png`, fullPage: true });
+    await context.close();
   });
 });
