@@ -1,13 +1,17 @@
 "use client";
-import { useState } from "react";
+import { useMemo, useState } from "react";
 import { PlanningCaution } from "@/components/results/planning-caution";
+import { ProfileSection } from "@/components/results/profile-section";
 import { CsvButton, downloadCsv } from "@/components/tables/sortable-table";
 import { RESPONSIVENESS_COLUMNS, responsivenessPreface, responsivenessRows } from "@/lib/results/responsiveness";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
+import type { ModelFile, RunResult } from "@/lib/model";
+import { headwaterReaches } from "@/lib/results";
 import { usePlanAction, usePlanQuery, type PlanDto } from "@/lib/queries/plans";
+import { PlanDownloads } from "./plan-downloads";
 import { PLAN_STATUS_TEXT } from "./plan-list";
 
 export interface PlanPermissions {
@@ -93,6 +97,9 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
         </table>
       </section>
 
+      <PlanProfile plan={plan} unitSystem={unitSystem} />
+      <PlanDownloads basinId={basinId} planId={plan.id} published={plan.status === "published"} />
+
       <section className="space-y-4">
         <div className="flex items-center justify-between">
           <h2>Comments</h2>
@@ -114,6 +121,28 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
         ))}
       </section>
     </div>
+  );
+}
+
+interface PlanSnapshot {
+  run: { result: { conditions: { run: RunResult }[] }; modelFiles: { file: ModelFile }[] };
+}
+
+/** DO along the river with every discharger at its proposed allocation: why the allocations are what they are. */
+function PlanProfile({ plan, unitSystem }: { plan: PlanDto; unitSystem: UnitSystem }) {
+  const snapshot = plan.snapshot as unknown as PlanSnapshot;
+  const model = snapshot.run.modelFiles[0].file;
+  const heads = useMemo(() => headwaterReaches(model), [model]);
+  const [from, setFrom] = useState(heads[0]);
+  return (
+    <ProfileSection
+      run={snapshot.run.result.conditions[0].run}
+      model={model}
+      unitSystem={unitSystem}
+      from={from}
+      onFrom={setFrom}
+      title="Dissolved oxygen with the proposed loads"
+    />
   );
 }
 

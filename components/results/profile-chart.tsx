@@ -57,7 +57,7 @@ export function ProfileChart({ series, height = 360 }: { series: ProfileSeries; 
   const criterion = series.criterion_mg_l;
   const top = Math.ceil(Math.max(criterion + 1, ...series.points.map((p) => p.do_sat_mg_l)) + 0.5);
   return (
-    <div data-testid="profile-chart" className="w-full" style={{ height }} role="img" aria-label={`DO profile from ${series.path[0]} to the outlet`}>
+    <div data-testid="profile-chart" className="w-full" style={{ height }} role="img" aria-label={`DO profile from ${series.origin ?? series.path[0]} to the outlet`}>
       <ResponsiveContainer width="100%" height="100%">
         <ComposedChart data={series.points} margin={{ top: 22, right: 24, bottom: 28, left: 8 }}>
           <CartesianGrid stroke={RULE} strokeDasharray="2 4" />
@@ -66,7 +66,7 @@ export function ProfileChart({ series, height = 360 }: { series: ProfileSeries; 
             dataKey="distance"
             domain={[0, series.length]}
             tickFormatter={(v: number) => v.toFixed(1)}
-            label={{ value: `Distance from the head of ${series.path[0]} (${series.unit})`, position: "insideBottom", offset: -16, fill: FAINT }}
+            label={{ value: `Distance from ${series.origin ?? `the head of ${series.path[0]}`} (${series.unit})`, position: "insideBottom", offset: -16, fill: FAINT }}
             stroke={FAINT}
           />
           <YAxis

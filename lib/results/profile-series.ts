@@ -45,6 +45,8 @@ export interface ProfileSeries {
   criticals: Array<SeriesMarker & { do_mg_l: number; do_shown_mg_l: number; anoxic: boolean; below: boolean }>;
   /** Length of the path, in the series' unit. */
   length: number;
+  /** What distance 0 is, when not the head of the path's first reach (e.g. "outfall DP-1"). */
+  origin?: string;
 }
 
 /**
@@ -142,6 +144,7 @@ export function downstreamOf(series: ProfileSeries, dischargerId: string) {
     dischargers: series.dischargers.filter((d) => d.distance >= at - 1e-9).map(shift),
     criticals: series.criticals.filter((c) => c.distance >= at - 1e-9).map(shift),
     length: series.length - at,
+    origin: `outfall ${dischargerId}`,
   };
   return { series: out, lowest };
 }

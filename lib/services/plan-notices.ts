@@ -1,5 +1,6 @@
 import type { Db } from "@/db/client";
 import { findBasinById } from "@/db/queries/basins";
+import { basinFollowersWithEmail } from "@/db/queries/follows";
 import { basinMembersWithEmail, dischargerAllocations, planCommenters, threadParticipants } from "@/db/queries/plans";
 import { queueEmail } from "@/lib/email/outbox";
 import { planPublishedEmail, reviewClosingEmail, reviewOpenedEmail, threadReplyEmail } from "@/lib/email/templates";
@@ -20,10 +21,23 @@ async function basinName(db: Db, basinId: string): Promise<string> {
   return (await findBasinById(db, basinId))?.name ?? "";
 }
 
-/** Every member of the basin hears that the review opened (queued in the caller's transaction). */
+interface Person {
+  id: string;
+  name: string;
+  email: string;
+}
+
+/** People from several lists, each once. */
+function everyone(...lists: Person[][]): Person[] {
+  const byId = new Map<string, Person>();
+  for (const list of lists) for (const p of list) if (!byId.has(p.id)) byId.set(p.id, p);
+  return [...byId.values()];
+}
+
+/** Every member and follower of the basin hears that the review opened (queued in the caller's transaction). */
 export async function noticeReviewOpened(trx: Db, plan: PlanInfo, period: { id: string; startsAt: Date; endsAt: Date; timeZone: string }) {
   const name = await basinName(trx, plan.basin_id);
-  const members = await basinMembersWithEmail(trx, plan.basin_id);
+  const members = everyone(await basinMembersWithEmail(trx, plan.basin_id), await basinFollowersWithEmail(trx, plan.basin_id));
   for (const m of members) {
     await queueEmail(trx, {
       to: m.email,
@@ -45,15 +59,18 @@ export async function noticeReviewOpened(trx: Db, plan: PlanInfo, period: { id: 
 }
 
 /**
- * The review closes soon: members and everyone who has commented on the plan
- * hear of it once per end time (an extension earns a fresh notice).
+ * The review closes soon: members, followers and everyone who has commented on
+ * the plan hear of it once per end time (an extension earns a fresh notice).
  */
 export async function noticeReviewClosingSoon(trx: Db, plan: PlanInfo, period: { id: string; endsAt: Date; timeZone: string }): Promise<number> {
   const name = await basinName(trx, plan.basin_id);
-  const people = new Map<string, { id: string; name: string; email: string }>();
-  for (const p of [...(await basinMembersWithEmail(trx, plan.basin_id)), ...(await planCommenters(trx, plan.id))]) people.set(p.id, p);
+  const people = everyone(
+    await basinMembersWithEmail(trx, plan.basin_id),
+    await basinFollowersWithEmail(trx, plan.basin_id),
+    await planCommenters(trx, plan.id),
+  );
   let queued = 0;
-  for (const p of people.values()) {
+  for (const p of people) {
     const added = await queueEmail(trx, {
       to: p.email,
       kind: "review_closing",
@@ -104,20 +121,27 @@ export async function noticeThreadReply(
   }
 }
 
-/** Each discharger linked to a facility gets its final allocation when the plan is published. */
+/**
+ * Each discharger linked to a facility gets its final allocation when the plan
+ * is published; the basin's other followers hear that it was published.
+ */
 export async function noticePlanPublished(trx: Db, plan: PlanInfo, publishedAt: Date, timeZone: string) {
   const name = await basinName(trx, plan.basin_id);
   const rows = await dischargerAllocations(trx, plan.id);
   const byUser = new Map<string, typeof rows>();
   for (const r of rows) byUser.set(r.user_id, [...(byUser.get(r.user_id) ?? []), r]);
-  for (const [userId, own] of byUser) {
+  const recipients = [
+    ...[...byUser].map(([userId, own]) => ({ userId, person: { id: userId, name: own[0].name, email: own[0].email }, own })),
+    ...(await basinFollowersWithEmail(trx, plan.basin_id)).filter((f) => !byUser.has(f.id)).map((f) => ({ userId: f.id, person: f, own: [] as typeof rows })),
+  ];
+  for (const { userId, person, own } of recipients) {
     await queueEmail(trx, {
-      to: own[0].email,
+      to: person.email,
       kind: "plan_published",
       basinId: plan.basin_id,
       dedupeKey: `plan_published:${plan.id}:${userId}`,
       ...planPublishedEmail({
-        recipientName: own[0].name,
+        recipientName: person.name,
         basinName: name,
         planTitle: plan.title,
         planVersion: plan.version,

@@ -4,15 +4,18 @@ import { createDb, getDb, type Db } from "@/db/client";
 import { findFacilityByPermit, linkFacilityUser } from "@/db/queries/facilities";
 import { stopBoss } from "@/lib/jobs/queue";
 import { listBasinAudit } from "@/lib/services/audit";
+import { followBasin } from "@/lib/services/follows";
 import { getMyFacilities } from "@/lib/services/my-facilities";
 import {
   CLOSING_SOON_MS,
   addComment,
+  closeDueReviews,
   extendReview,
   getPlanForReader,
   listReviews,
   openReview,
   proposePlan,
+  publishPlan,
   sendClosingSoonNotices,
 } from "@/lib/services/plans";
 import { callRoute } from "../support/call-route";
@@ -89,6 +92,29 @@ describe("review closing soon", () => {
     });
     expect(await sendClosingSoonNotices(db, new Date(start + 2 * HOUR))).toBe(0);
     expect(await sendClosingSoonNotices(db, new Date(start + 3 * HOUR + 60_000))).toBeGreaterThan(0);
+  });
+});
+
+describe("followers", () => {
+  it("hear that a review opened, that it closes soon and that the plan was published; only dischargers get allocations", async () => {
+    const w = await buildWorld(db);
+    await followBasin(db, w.users.outsider, w.basinId);
+    await followBasin(db, w.users.lead, w.basinId); // a member who also follows: still one message each
+    const plan = await planAt(db, w, "review");
+    const mail = (kind: string) =>
+      db.selectFrom("email_outbox").select(["to_address", "text_body"]).where("basin_id", "=", w.basinId).where("kind", "=", kind as "review_opened").execute();
+    const opened = await mail("review_opened");
+    expect(opened.filter((m) => m.to_address === w.users.outsider.email)).toHaveLength(1);
+    expect(opened.filter((m) => m.to_address === w.users.lead.email)).toHaveLength(1);
+    await sendClosingSoonNotices(db, new Date(Date.now() + 6 * DAY));
+    expect((await mail("review_closing")).filter((m) => m.to_address === w.users.outsider.email)).toHaveLength(1);
+    await closeDueReviews(db, new Date(Date.now() + 8 * DAY));
+    await publishPlan(db, w.users.lead, w.basinId, plan.planId);
+    const published = await mail("plan_published");
+    const outsider = published.filter((m) => m.to_address === w.users.outsider.email);
+    expect(outsider).toHaveLength(1);
+    expect(outsider[0].text_body).toMatch(/was published/);
+    expect(outsider[0].text_body).not.toMatch(/Final allocation/);
   });
 });
 

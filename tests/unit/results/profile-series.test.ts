@@ -118,6 +118,7 @@ describe("the stretch below an outfall", () => {
     });
     expect(series.points[0].distance).toBeCloseTo(0, 12);
     expect(series.length).toBeCloseTo(12 - 4.5, 12);
+    expect(series.origin).toBe("outfall F1");
     expect(series.reaches.map((r) => r.id)).toEqual(["R2", "R3"]);
     expect(series.reaches[0]).toEqual({ id: "R2", from: 0, to: 2.5 });
     expect(series.dischargers).toEqual([{ id: "F1", reach: "R2", km: 1.5, distance: 0 }]);

@@ -1,12 +1,14 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound, redirect } from "next/navigation";
+import { FollowButton } from "@/components/basins/follow-button";
 import { PlanView } from "@/components/plans/plan-view";
 import { Denied } from "@/components/ui/denied";
 import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { currentActor } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
+import { followState } from "@/lib/services/follows";
 import { getPlanForReader } from "@/lib/services/plans";
 
 export const metadata: Metadata = { title: "Plan under review" };
@@ -19,9 +21,11 @@ export const metadata: Metadata = { title: "Plan under review" };
 export default async function ReviewPlanPage({ params }: { params: Promise<{ basinId: string; planId: string }> }) {
   const { basinId, planId } = await params;
   if ((await basinPageAccess(basinId, "basin.read")).ok) redirect(`/basins/${basinId}/plans/${planId}`);
+  const db = getDb();
+  const actor = await currentActor();
   let found;
   try {
-    found = await getPlanForReader(getDb(), await currentActor(), basinId, planId);
+    found = await getPlanForReader(db, actor, basinId, planId);
   } catch (e) {
     if (e instanceof AppError && e.status === 404) notFound();
     if (e instanceof AppError) return <Denied message={e.message} />;
@@ -35,7 +39,12 @@ export default async function ReviewPlanPage({ params }: { params: Promise<{ bas
         <Link href="/reviews">Plans under review</Link> · {basin.name}
       </p>
       <h1 className="mb-1">{plan.title}</h1>
-      <p className="mb-4 text-sm text-ink-soft">You are reading this plan as a member of the public; your comments show your name and that role.</p>
+      <div className="mb-4 flex flex-wrap items-start justify-between gap-4">
+        <p className="max-w-xl text-sm text-ink-soft">You are reading this plan as a member of the public; your comments show your name and that role.</p>
+        <div className="max-w-sm">
+          <FollowButton basinId={basin.id} followed={(await followState(db, actor, basin.id)).followed} />
+        </div>
+      </div>
       <PlanView
         basinId={basin.id}
         initial={plan}
