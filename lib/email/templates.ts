@@ -4,15 +4,16 @@
  * become <br>. Every notice about a plan carries the planning caution.
  */
 
+import { PLANNING_CAUTION as CAUTION_LINES } from "@/lib/results/caution";
+
 export interface RenderedEmail {
   subject: string;
   text: string;
   html: string;
 }
 
-export const PLANNING_CAUTION =
-  "Allocations are planning estimates: they must be confirmed with a calibrated model and by a qualified engineer, " +
-  "and the jurisdiction's water-quality standards and permitting rules take precedence.";
+/** The one planning caution (lib/results/caution.ts), as a paragraph. */
+export const PLANNING_CAUTION = CAUTION_LINES.join(" ");
 
 const KG_TO_LB = 2.20462262185;
 

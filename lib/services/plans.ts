@@ -282,14 +282,21 @@ export async function addComment(db: Db, actor: Actor | null, basinId: string, t
   });
 }
 
-/** A planner's response marks the thread addressed. */
+/** A planner's response marks the thread addressed; everyone who wrote in the thread hears of it. */
 export async function respondToThread(db: Db, actor: Actor | null, basinId: string, threadId: string, response: string) {
-  const { basin } = await requireBasinAction(db, actor, basinId, "comment.answer");
+  const { basin, role } = await requireBasinAction(db, actor, basinId, "comment.answer");
   const thread = await findThread(db, basin.id, threadId);
   if (!thread) throw notFound("Thread");
   if (thread.plan_status === "published" || thread.plan_status === "withdrawn") throw conflict(`This plan is ${thread.plan_status}; its threads are closed`);
   await db.transaction().execute(async (trx) => {
     await markThreadAddressed(trx, thread.id, response, actor!.id);
+    const plan = (await findPlan(trx, basin.id, thread.plan_id))!;
+    await noticeThreadReply(
+      trx,
+      plan,
+      { id: thread.id, title: await threadTitle(trx, thread.facility_id) },
+      { id: `${thread.id}:response:${Date.now()}`, authorId: actor!.id, authorName: actor!.name, authorRole: `${role ?? "admin"}, responding`, body: response },
+    );
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "thread.addressed", targetType: "thread", targetId: thread.id });
   });
 }

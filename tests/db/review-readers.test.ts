@@ -16,6 +16,7 @@ import {
   openReview,
   proposePlan,
   publishPlan,
+  respondToThread,
   sendClosingSoonNotices,
 } from "@/lib/services/plans";
 import { callRoute } from "../support/call-route";
@@ -115,6 +116,25 @@ describe("followers", () => {
     expect(outsider).toHaveLength(1);
     expect(outsider[0].text_body).toMatch(/was published/);
     expect(outsider[0].text_body).not.toMatch(/Final allocation/);
+  });
+});
+
+describe("a planner's response", () => {
+  it("is e-mailed to everyone who wrote in the thread, not to the responder", async () => {
+    const w = await buildWorld(db);
+    const plan = await planAt(db, w, "review");
+    await addComment(db, w.users.discharger, w.basinId, plan.planThreadId, "Our load is already low");
+    await addComment(db, w.users.outsider, w.basinId, plan.planThreadId, "So is ours");
+    await respondToThread(db, w.users.planner, w.basinId, plan.planThreadId, "Noted: the allocation keeps today's load");
+    const replies = await db
+      .selectFrom("email_outbox")
+      .select(["to_address", "text_body"])
+      .where("basin_id", "=", w.basinId)
+      .where("kind", "=", "thread_reply")
+      .where("text_body", "like", "%the allocation keeps today%")
+      .execute();
+    expect(replies.map((m) => m.to_address).sort()).toEqual([w.users.discharger.email, w.users.outsider.email].sort());
+    expect(replies[0].text_body).toMatch(/\(planner, responding\)/);
   });
 });
 

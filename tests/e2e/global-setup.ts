@@ -91,7 +91,8 @@ export default async function setup(project: TestProject) {
   // the background worker that takes runs off the job queue, as the start command runs it
   const worker = spawn("npx", ["tsx", "scripts/worker.ts"], {
     cwd: ROOT,
-    env: { ...process.env, DATABASE_URL: url, ...mailEnv, SAGLINE_MAIL_INTERVAL_MS: "1000" },
+    // links in e-mails point at this server; reviews are checked for their end every 2 s
+    env: { ...process.env, DATABASE_URL: url, NEXTAUTH_URL: baseUrl, ...mailEnv, SAGLINE_MAIL_INTERVAL_MS: "1000", SAGLINE_REVIEW_INTERVAL_MS: "2000" },
     stdio: ["ignore", "pipe", "pipe"],
     detached: true,
   });

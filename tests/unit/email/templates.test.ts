@@ -46,8 +46,8 @@ describe("notices about plans", () => {
       expect(email.text).toContain(plan.url);
     }
     expect(PLANNING_CAUTION).toMatch(/calibrated model/);
-    expect(PLANNING_CAUTION).toMatch(/qualified engineer/);
-    expect(PLANNING_CAUTION).toMatch(/standards and permitting rules take precedence/);
+    expect(PLANNING_CAUTION).toMatch(/qualified \(licensed\) engineer/);
+    expect(PLANNING_CAUTION).toMatch(/standards and permitting rules of the jurisdiction take precedence/);
   });
 
   it("account notices do not talk about allocations", () => {
