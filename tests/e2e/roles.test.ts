@@ -72,7 +72,7 @@ describe("each demo role sees what its role allows", () => {
     const page = await pageAs("lead");
     await page.screenshot({ path: `${SHOTS}/basins-lead.png` });
     await openBasin(page, "Tamsel River basin");
-    expect(await tabNames(page)).toEqual(["Overview", "Network", "Scenarios", "Plans", "Members & facilities", "Settings"]);
+    expect(await tabNames(page)).toEqual(["Overview", "Network", "Scenarios", "Plans", "Members & facilities", "Audit trail", "Settings"]);
     await page.screenshot({ path: `${SHOTS}/basin-overview-lead.png`, fullPage: true });
 
     await page.getByRole("link", { name: "Members & facilities" }).click();
@@ -113,7 +113,7 @@ describe("each demo role sees what its role allows", () => {
     const names = await page.getByTestId("basin-list").getByRole("link").allTextContents();
     expect(names).toEqual(["Tamsel River basin"]);
     await openBasin(page, "Tamsel River basin");
-    expect(await tabNames(page)).toEqual(["Overview", "Plans"]);
+    expect(await tabNames(page)).toEqual(["Overview", "Plans", "My facilities"]);
     await page.getByRole("heading", { name: "Your facilities" }).waitFor();
     const rows = await page.locator("table.data-table tbody tr").allTextContents();
     expect(rows).toHaveLength(1);
