@@ -127,7 +127,7 @@ describe("sendPending with the SMTP server down, then up", () => {
       expect(got).toHaveLength(1);
       expect(got[0].subject).toBe(row.subject);
       expect(got[0].messageId).toBe(row.message_id);
-      expect(got[0].text).toContain("planning estimates");
+      expect(got[0].text).toContain("Planning-level estimates");
     }
   });
 
