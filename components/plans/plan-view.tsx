@@ -11,6 +11,7 @@ import { formatIn, unitLabel } from "@/lib/format/quantities";
 import type { ModelFile, RunResult } from "@/lib/model";
 import { headwaterReaches } from "@/lib/results";
 import { usePlanAction, usePlanQuery, type PlanDto } from "@/lib/queries/plans";
+import { LeadActions } from "./lead-actions";
 import { PlanDownloads } from "./plan-downloads";
 import { PLAN_STATUS_TEXT } from "./plan-list";
 
@@ -65,7 +66,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
           )}
         </Notice>
       )}
-      <LeadActions basinId={basinId} plan={plan} can={can} act={act} />
+      <LeadActions plan={plan} can={can} act={act} />
 
       <section className="card">
         <h2 className="mb-3">Allocations</h2>
@@ -163,76 +164,6 @@ export function usePlanActs(basinId: string, planId: string): { act: Act; failur
     }
   };
   return { act, failure };
-}
-
-function LeadActions({ basinId, plan, can, act }: { basinId: string; plan: PlanDto; can: PlanPermissions; act: Act }) {
-  const zone = Intl.DateTimeFormat().resolvedOptions().timeZone;
-  const [days, setDays] = useState(30);
-  const [timeZone, setTimeZone] = useState(zone);
-  const [reason, setReason] = useState("");
-  void basinId;
-  if (!can.manageReview && !can.publish) return null;
-  const p = `/plans/${plan.id}`;
-  return (
-    <section className="card space-y-3" aria-label="Lead actions">
-      <h2>Lead actions</h2>
-      {plan.status === "draft" && can.manageReview && (
-        <div className="flex flex-wrap items-end gap-3">
-          <div>
-            <label htmlFor="review-days" className="field-label">
-              Review period from now (days)
-            </label>
-            <input id="review-days" type="number" min={1} max={365} className="field-input w-32" value={days} onChange={(e) => setDays(e.target.valueAsNumber)} />
-          </div>
-          <div>
-            <label htmlFor="review-zone" className="field-label">
-              Time zone
-            </label>
-            <input id="review-zone" className="field-input w-56" value={timeZone} onChange={(e) => setTimeZone(e.target.value)} />
-          </div>
-          <Button
-            onClick={() =>
-              act(`${p}/review`, {
-                startsAt: new Date().toISOString(),
-                endsAt: new Date(Date.now() + days * 86_400_000).toISOString(),
-                timeZone,
-              })
-            }
-          >
-            Open the review
-          </Button>
-        </div>
-      )}
-      {plan.status === "review" && can.manageReview && (
-        <div className="flex flex-wrap items-end gap-3">
-          <div className="grow">
-            <label htmlFor="extend-reason" className="field-label">
-              Extend by 14 days — reason
-            </label>
-            <input id="extend-reason" className="field-input" value={reason} onChange={(e) => setReason(e.target.value)} />
-          </div>
-          <Button
-            variant="secondary"
-            disabled={reason.trim().length < 10}
-            onClick={async () => {
-              const end = new Date(Date.parse(plan.review!.endsAt) + 14 * 86_400_000).toISOString();
-              if (await act(`${p}/review`, { endsAt: end, reason }, "PATCH")) setReason("");
-            }}
-          >
-            Extend the review
-          </Button>
-        </div>
-      )}
-      <div className="flex flex-wrap gap-3">
-        {plan.status === "closed" && can.publish && <Button onClick={() => window.confirm("Publish this plan? It is frozen from then on.") && act(`${p}/publish`)}>Approve and publish</Button>}
-        {(plan.status === "draft" || plan.status === "review" || plan.status === "closed") && can.manageReview && (
-          <Button variant="danger" onClick={() => window.confirm("Withdraw this plan?") && act(`${p}/withdraw`)}>
-            Withdraw
-          </Button>
-        )}
-      </div>
-    </section>
-  );
 }
 
 export function Thread({ thread, canComment, canAnswer, act, mine }: { thread: PlanDto["threads"][number]; canComment: boolean; canAnswer: boolean; act: Act; mine: boolean }) {

@@ -74,13 +74,17 @@ describe("from a proposed plan to a published one", () => {
   it("the lead opens the review, and the members are e-mailed a link to it", async () => {
     const lead = await demo("lead");
     await lead.goto(planUrl);
-    await lead.getByLabel("Time zone").fill("America/Chicago");
+    await lead.getByLabel("Time zone").selectOption("America/Chicago");
+    // opens now (the default start), closes on a wall-clock time in Chicago
+    await lead.getByLabel("Review closes").fill("2031-03-14T17:00");
     await lead.getByRole("button", { name: "Open the review" }).click();
     await lead.getByTestId("plan-status").filter({ hasText: "in review" }).waitFor();
     await lead.close();
     for (const key of ["discharger", "stakeholder", "planner"]) {
       const mail = await waitForMail(mailDir, user(key).email, (m) => m.subject.startsWith("Review open:"));
       expect(mail.text).toMatch(/America\/Chicago/);
+      // the wall-clock end as typed, in summer time (from the second Sunday of March, 9 March 2031): UTC−5
+      expect(mail.text).toMatch(/14 Mar 2031, 17:00 GMT-5 \(America\/Chicago\)/);
       expect(mail.text).toMatch(/qualified \(licensed\) engineer/);
     }
   });
