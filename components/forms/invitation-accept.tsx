@@ -7,10 +7,11 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { NewPasswordFields } from "./new-password-fields";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { apiFetch } from "@/lib/queries/fetcher";
-import { PASSWORD_MIN, invitationRegisterSchema, type InvitationRegisterInput } from "@/lib/validation/account";
+import { invitationRegisterSchema, type InvitationRegisterInput } from "@/lib/validation/account";
 
 interface Accepted {
   basinId: string;
@@ -78,20 +79,11 @@ export function InvitationRegisterForm({ token, email }: { token: string; email:
       {failure && <Notice tone="error">{failure}</Notice>}
       <Field label="E-mail" type="email" value={email} readOnly disabled />
       <Field label="Your name" autoComplete="name" error={errors.name?.message} {...register("name")} />
-      <Field
+      <NewPasswordFields
         label="Password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN} characters.`}
-        error={errors.password?.message}
-        {...register("password")}
-      />
-      <Field
-        label="Password again"
-        type="password"
-        autoComplete="new-password"
-        error={errors.confirmPassword?.message}
-        {...register("confirmPassword")}
+        password={register("password")}
+        confirm={register("confirmPassword")}
+        errors={{ password: errors.password?.message, confirm: errors.confirmPassword?.message }}
       />
       <Button type="submit" className="w-full" disabled={isSubmitting}>
         {isSubmitting ? "Joining…" : "Create account and join"}

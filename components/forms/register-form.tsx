@@ -5,10 +5,11 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { NewPasswordFields } from "./new-password-fields";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { apiFetch } from "@/lib/queries/fetcher";
-import { PASSWORD_MIN, registerSchema, type RegisterInput } from "@/lib/validation/account";
+import { registerSchema, type RegisterInput } from "@/lib/validation/account";
 
 /** Self-registration: the account signs in once the e-mailed link confirms the address. */
 export function RegisterForm() {
@@ -49,20 +50,11 @@ export function RegisterForm() {
       {failure && <Notice tone="error">{failure}</Notice>}
       <Field label="Your name" autoComplete="name" error={errors.name?.message} {...register("name")} />
       <Field label="E-mail" type="email" autoComplete="email" error={errors.email?.message} {...register("email")} />
-      <Field
+      <NewPasswordFields
         label="Password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN} characters.`}
-        error={errors.password?.message}
-        {...register("password")}
-      />
-      <Field
-        label="Password again"
-        type="password"
-        autoComplete="new-password"
-        error={errors.confirmPassword?.message}
-        {...register("confirmPassword")}
+        password={register("password")}
+        confirm={register("confirmPassword")}
+        errors={{ password: errors.password?.message, confirm: errors.confirmPassword?.message }}
       />
       <Button type="submit" className="w-full" disabled={isSubmitting}>
         {isSubmitting ? "Creating…" : "Create account"}

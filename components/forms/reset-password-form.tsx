@@ -4,11 +4,11 @@ import Link from "next/link";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { Field } from "@/components/ui/field";
+import { NewPasswordFields } from "./new-password-fields";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { apiFetch } from "@/lib/queries/fetcher";
-import { PASSWORD_MIN, newPasswordSchema } from "@/lib/validation/account";
+import { newPasswordSchema } from "@/lib/validation/account";
 
 type NewPassword = { password: string; confirmPassword: string };
 
@@ -47,20 +47,11 @@ export function ResetPasswordForm({ token }: { token: string }) {
           {failure} <Link href="/forgot-password">Ask for a new link</Link>.
         </Notice>
       )}
-      <Field
+      <NewPasswordFields
         label="New password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN} characters.`}
-        error={errors.password?.message}
-        {...register("password")}
-      />
-      <Field
-        label="New password again"
-        type="password"
-        autoComplete="new-password"
-        error={errors.confirmPassword?.message}
-        {...register("confirmPassword")}
+        password={register("password")}
+        confirm={register("confirmPassword")}
+        errors={{ password: errors.password?.message, confirm: errors.confirmPassword?.message }}
       />
       <Button type="submit" className="w-full" disabled={isSubmitting}>
         {isSubmitting ? "Saving…" : "Set the new password"}
