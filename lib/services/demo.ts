@@ -7,13 +7,34 @@ import { DEMO_DISCHARGER_MAPPING, DEMO_GIS_FILES, DEMO_REACH_MAPPING } from "@/d
 import { DEMO_BASINS, DEMO_USERS } from "@/db/seed/demo-data";
 import { loadActor } from "@/lib/auth/guard";
 import { findUserByEmail } from "@/db/queries/users";
+import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { uploadImport } from "./imports";
 import { commitNetwork } from "./networks";
+import { createScenario } from "./scenarios";
+
+/**
+ * A demo scenario where the river does not meet the criterion at today's
+ * loads: East Penhallow grown to 0.6 m³/s, Dunmere's effluent at 120 mg/L
+ * BOD5, a hot summer (27.5 °C) and three quarters of the design low flow. An
+ * allocation run on it asks for real reductions. (Invented, for the demo only.)
+ */
+export const DEMO_STRESS_SCENARIO = {
+  name: "Growth to 2035, hot and dry summer",
+  description: "",
+  inputs: {
+    conditions: [{ name: "Hot, dry 7Q10", flowScale: 0.75, temperatureC: 27.5 }],
+    dischargers: {
+      "DP-1003": { designFlowM3s: 0.6, bod5MgL: 45 },
+      "DP-1004": { designFlowM3s: 0.2, bod5MgL: 120 },
+    },
+  },
+};
 
 /**
  * Load the demo basin's network from the demo GIS files through the same
- * upload → validate → commit path a planner uses. Skipped when the basin
- * already has a network. Returns the new version number, or null.
+ * upload → validate → commit path a planner uses, with one ready scenario
+ * (DEMO_STRESS_SCENARIO). Skipped when the basin already has a network.
+ * Returns the new version number, or null.
  */
 export async function loadDemoNetwork(db: Db, root: string): Promise<number | null> {
   const basin = await findBasinBySlug(db, DEMO_BASINS[0].slug);
@@ -34,5 +55,6 @@ export async function loadDemoNetwork(db: Db, root: string): Promise<number | nu
     note: "Demo network loaded from the Tamsel River shapefile and discharger CSV",
     acceptReport: true,
   });
+  await createScenario(db, planner, basin.id, scenarioCreateSchema.parse(DEMO_STRESS_SCENARIO));
   return network.version;
 }
