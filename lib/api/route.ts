@@ -23,6 +23,11 @@ interface Spec<P extends z.ZodType, B extends z.ZodType> {
    * `body`, and the one file field named here arrives as `ctx.file`.
    */
   fileField?: string;
+  /**
+   * With fileField: the most bytes the whole upload may have. A request whose
+   * Content-Length says more is refused before any of it is read.
+   */
+  maxUploadBytes?: () => number;
   /** HTTP status of a successful response (default 200). */
   status?: number;
 }
@@ -99,6 +104,13 @@ export function route<P extends z.ZodType = z.ZodType<Record<string, string>>, B
       let body = undefined as z.infer<B>;
       let file: RouteContext<unknown, unknown>["file"] = null;
       if (spec.fileField) {
+        const declared = Number(req.headers.get("content-length") ?? NaN);
+        const limit = spec.maxUploadBytes?.();
+        if (limit !== undefined && Number.isFinite(declared) && declared > limit) {
+          throw new AppError("too_large", `The upload is larger than the ${Math.floor(limit / 1048576)} MB limit`, [
+            { path: spec.fileField, message: "File too large" },
+          ]);
+        }
         const form = await readForm(req);
         const entry = form.get(spec.fileField);
         if (!(entry instanceof File)) {

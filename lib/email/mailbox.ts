@@ -110,7 +110,8 @@ export async function startMailServer(options: { host?: string; port?: number; d
 export async function readMailbox(dir: string = mailDir(), limit = 200): Promise<KeptMessage[]> {
   let names: string[];
   try {
-    names = await readdir(dir);
+    // the folder is chosen at run time (SAGLINE_MAIL_DIR): nothing for the build to trace
+    names = await readdir(/* turbopackIgnore: true */ dir);
   } catch {
     return [];
   }
@@ -118,7 +119,7 @@ export async function readMailbox(dir: string = mailDir(), limit = 200): Promise
   const messages: KeptMessage[] = [];
   for (const name of files) {
     try {
-      messages.push(JSON.parse(await readFile(path.join(dir, name), "utf8")) as KeptMessage);
+      messages.push(JSON.parse(await readFile(/* turbopackIgnore: true */ path.join(dir, name), "utf8")) as KeptMessage);
     } catch {
       // a file being written or not ours: skip it
     }

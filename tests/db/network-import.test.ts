@@ -136,6 +136,23 @@ describe("uploads", () => {
     expect(await count("imports")).toBe(before);
   });
 
+  it("refuse an upload whose declared length is over the limit before reading it", async () => {
+    process.env.SAGLINE_UPLOAD_LIMIT_MB = "0.001";
+    try {
+      // not even multipart: reading it would fail differently, so a 413 shows nothing was read
+      const res = await callRoute(importsRoute.POST, "POST", {
+        userId: w.users.planner.id,
+        params: { basinId: w.basinId },
+        body: "x".repeat(200_000),
+        headers: { "content-type": "multipart/form-data; boundary=none", "content-length": "200000" },
+      });
+      expect(res.status).toBe(413);
+      expect(err(res.json).details?.[0].path).toBe("file");
+    } finally {
+      delete process.env.SAGLINE_UPLOAD_LIMIT_MB;
+    }
+  });
+
   it("refuse a request without a file, naming the field", async () => {
     const form = new FormData();
     form.set("layer", "reaches");

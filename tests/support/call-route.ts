@@ -11,6 +11,8 @@ export interface CallOptions {
   body?: unknown;
   /** Query-string parameters. */
   query?: Record<string, string>;
+  /** Extra request headers. */
+  headers?: Record<string, string>;
 }
 
 /**
@@ -20,9 +22,9 @@ export interface CallOptions {
 export async function callRoute(
   handler: Handler,
   method: string,
-  { userId, params = {}, body, query }: CallOptions = {},
+  { userId, params = {}, body, query, headers: extra }: CallOptions = {},
 ): Promise<{ status: number; json: unknown; headers: Headers }> {
-  const headers = new Headers();
+  const headers = new Headers(extra);
   if (userId) {
     const token = await encode({ token: { sub: userId }, secret: process.env.NEXTAUTH_SECRET! });
     headers.set("cookie", `next-auth.session-token=${token}`);

@@ -1,5 +1,5 @@
 import { route } from "@/lib/api/route";
-import { listBasinImports, uploadImport } from "@/lib/services/imports";
+import { listBasinImports, uploadImport, uploadLimitBytes } from "@/lib/services/imports";
 import { uploadFieldsSchema } from "@/lib/validation/network";
 import { basinParams } from "@/lib/validation/params";
 
@@ -9,6 +9,14 @@ export const GET = route({ access: { basin: "scenario.read" }, params: basinPara
 
 /** multipart/form-data: file + layer (reaches | dischargers), optional epsg and CSV column names. */
 export const POST = route(
-  { access: { basin: "network.import" }, params: basinParams, body: uploadFieldsSchema, fileField: "file", status: 201 },
+  {
+    access: { basin: "network.import" },
+    params: basinParams,
+    body: uploadFieldsSchema,
+    fileField: "file",
+    // the file itself is checked against the limit again; this refuses an oversized request unread (form fields add a little)
+    maxUploadBytes: () => uploadLimitBytes() + 64 * 1024,
+    status: 201,
+  },
   ({ db, actor, params, body, file }) => uploadImport(db, actor, params.basinId, file!, body),
 );
