@@ -1,17 +1,19 @@
 /**
- * Unit conversions for imported attributes, to SI. One table; exact definitions:
- * 1 ft = 0.3048 m and 1 mi = 1609.344 m (international foot and mile, 1959),
- * 1 US gallon = 231 in³ = 3.785411784 L, 1 MGD = 10⁶ US gal/d.
- * Kept in geo/ so the importer never depends on the model's own unit module.
+ * Unit conversions for imported attributes, to SI, on the one table of
+ * exact definitions in lib/model/units.ts (international foot and mile,
+ * US gallon = 231 in³, MGD = 10⁶ US gal/d). The names here are the
+ * importer's; the numbers are that table's.
  */
-export const METRES_PER_FOOT = 0.3048;
-export const KILOMETRES_PER_MILE = 1.609344;
-export const CUBIC_METRES_PER_US_GALLON = 0.003785411784;
-export const SECONDS_PER_DAY = 86_400;
+import { FT3_TO_M3, FT_TO_M, MGD_TO_M3_S, MI_TO_KM, SECONDS_PER_DAY as DAY_S, US_GAL_TO_L } from "@/lib/model/units";
+
+export const METRES_PER_FOOT = FT_TO_M;
+export const KILOMETRES_PER_MILE = MI_TO_KM;
+export const CUBIC_METRES_PER_US_GALLON = US_GAL_TO_L / 1000;
+export const SECONDS_PER_DAY = DAY_S;
 /** 1 ft³/s in m³/s: 0.3048³ = 0.028316846592 (exact). */
-export const CUBIC_METRES_PER_SECOND_PER_CFS = METRES_PER_FOOT ** 3;
+export const CUBIC_METRES_PER_SECOND_PER_CFS = FT3_TO_M3;
 /** 1 MGD in m³/s: 10⁶ × 0.003785411784 / 86 400 ≈ 0.0438126364. */
-export const CUBIC_METRES_PER_SECOND_PER_MGD = (1e6 * CUBIC_METRES_PER_US_GALLON) / SECONDS_PER_DAY;
+export const CUBIC_METRES_PER_SECOND_PER_MGD = MGD_TO_M3_S;
 
 export const FLOW_UNITS = ["m3/s", "cfs", "MGD"] as const;
 export const DEPTH_UNITS = ["m", "ft"] as const;
