@@ -45,6 +45,7 @@ export default async function HomePage() {
                 <span className="text-sm text-ink-faint">
                   — {p.basinName}, version {p.version}
                   {p.publishedAt ? `, ${new Date(p.publishedAt).toLocaleDateString("en-CA")}` : ""}
+                  {p.superseded ? " — superseded by a later version" : ""}
                 </span>
               </li>
             ))}

@@ -16,6 +16,25 @@ export const planQuery = (db: Db, basinId: string) =>
     .select(["p.id", "p.basin_id", "p.version", "p.title", "p.run_id", "p.status", "p.created_at", "p.published_at", "u.name as created_by_name"])
     .where("p.basin_id", "=", basinId);
 
+/**
+ * A basin's plans, newest first, as one kind of reader may list them:
+ * planners and leads every plan; anyone signed in the plans in or after review
+ * (withdrawn ones too when they had been reviewed); the public published plans.
+ */
+export async function listBasinPlans(db: Db, basinId: string, reader: "planner" | "signedIn" | "public") {
+  let q = planQuery(db, basinId);
+  if (reader === "public") q = q.where("p.status", "=", "published");
+  if (reader === "signedIn") {
+    q = q.where((eb) =>
+      eb.or([
+        eb("p.status", "in", ["review", "closed", "published"]),
+        eb.and([eb("p.status", "=", "withdrawn"), eb.exists(eb.selectFrom("review_periods as r").select("r.id").whereRef("r.plan_id", "=", "p.id"))]),
+      ]),
+    );
+  }
+  return q.orderBy("p.version", "desc").execute();
+}
+
 export async function findPlan(db: Db, basinId: string, planId: string, withSnapshot = false) {
   if (!isUuid(planId)) return undefined;
   const q = planQuery(db, basinId).where("p.id", "=", planId);
@@ -258,4 +277,17 @@ export async function listPlansUnderReview(db: Db) {
     .where("p.status", "in", ["review", "closed"])
     .orderBy("r.ends_at", "asc")
     .execute();
+}
+
+/** The newest plan of a basin published after `version`, if any. */
+export async function newerPublishedPlan(db: Db, basinId: string, version: number) {
+  return db
+    .selectFrom("plans")
+    .select(["id", "version", "published_at"])
+    .where("basin_id", "=", basinId)
+    .where("status", "=", "published")
+    .where("version", ">", version)
+    .orderBy("version", "desc")
+    .limit(1)
+    .executeTakeFirst();
 }

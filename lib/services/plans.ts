@@ -15,10 +15,11 @@ import {
   listPlansUnderReview,
   listPublishedPlans as listPublishedRows,
   markThreadAddressed,
+  newerPublishedPlan,
   nextPlanVersion,
   reviewsClosingSoon,
   threadTitle,
-  updateReviewPeriod, planAllocations, planQuery, planThreads, setPlanStatus } from "@/db/queries/plans";
+  updateReviewPeriod, planAllocations, listBasinPlans, planThreads, setPlanStatus } from "@/db/queries/plans";
 import type { PlanStatus } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, conflict, notFound } from "@/lib/errors";
@@ -38,12 +39,13 @@ async function basinOr404(db: Db, basinId: string) {
 }
 
 /**
- * Who may read a plan: drafts and withdrawn plans only planners and leads;
- * plans in or after review any signed-in person; published plans everyone.
+ * Who may read a plan: drafts only planners and leads; plans in or after
+ * review any signed-in person (also once withdrawn, when they had been
+ * reviewed: the comments stay on the record); published plans everyone.
  */
-async function requirePlanRead(db: Db, actor: Actor | null, basinId: string, status: PlanStatus): Promise<void> {
+async function requirePlanRead(db: Db, actor: Actor | null, basinId: string, status: PlanStatus, reviewed: boolean): Promise<void> {
   if (status === "published") return;
-  if (PUBLIC_READ.includes(status)) {
+  if (PUBLIC_READ.includes(status) || (status === "withdrawn" && reviewed)) {
     requireActor(actor);
     return;
   }
@@ -100,9 +102,7 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
 export async function listPlans(db: Db, actor: Actor | null, basinId: string) {
   const basin = await basinOr404(db, basinId);
   const seesDrafts = await canInBasin(db, actor, basin.id, "scenario.read");
-  let q = planQuery(db, basin.id);
-  if (!seesDrafts) q = actor ? q.where("p.status", "in", PUBLIC_READ) : q.where("p.status", "=", "published");
-  const rows = await q.orderBy("p.version", "desc").execute();
+  const rows = await listBasinPlans(db, basin.id, seesDrafts ? "planner" : actor ? "signedIn" : "public");
   return rows.map((p) => ({
     id: p.id,
     version: p.version,
@@ -119,8 +119,9 @@ export async function getPlan(db: Db, actor: Actor | null, basinId: string, plan
   const basin = await basinOr404(db, basinId);
   const plan = await findPlan(db, basin.id, planId, true);
   if (!plan) throw notFound("Plan");
-  await requirePlanRead(db, actor, basin.id, plan.status);
-  const [allocations, period, threads] = await Promise.all([planAllocations(db, plan.id), currentPeriod(db, plan.id), planThreads(db, plan.id)]);
+  const period = await currentPeriod(db, plan.id);
+  await requirePlanRead(db, actor, basin.id, plan.status, period !== undefined);
+  const [allocations, threads] = await Promise.all([planAllocations(db, plan.id), planThreads(db, plan.id)]);
   return {
     id: plan.id,
     version: plan.version,
@@ -303,7 +304,12 @@ export async function respondToThread(db: Db, actor: Actor | null, basinId: stri
 
 /** Published plans across basins, for the public front page. */
 export async function listPublishedPlans(db: Db) {
-  return (await listPublishedRows(db)).map((p) => ({
+  const rows = await listPublishedRows(db);
+  const newest = new Map<string, number>();
+  for (const p of rows) newest.set(p.basin_id, Math.max(newest.get(p.basin_id) ?? 0, p.version));
+  return rows.map((p) => ({
+    /** A later version of the basin's plan has been published since. */
+    superseded: p.version < newest.get(p.basin_id)!,
     id: p.id,
     basinId: p.basin_id,
     basinName: p.basin_name,
@@ -319,7 +325,9 @@ export async function getPublishedPlan(db: Db, actor: Actor | null, basinId: str
     if (e instanceof AppError) return null;
     throw e;
   });
-  return found?.plan.status === "published" ? found : null;
+  if (found?.plan.status !== "published") return null;
+  const newer = await newerPublishedPlan(db, basinId, found.plan.version);
+  return { ...found, supersededBy: newer ? { id: newer.id, version: newer.version } : null };
 }
 
 /** Plans in review (and closed reviews awaiting publication) across basins: anyone signed in may read and, while open, comment. */

@@ -11,13 +11,18 @@ import {
   addComment,
   closeDueReviews,
   extendReview,
+  getPlan,
   getPlanForReader,
+  getPublishedPlan,
+  listPlans,
+  listPublishedPlans,
   listReviews,
   openReview,
   proposePlan,
   publishPlan,
   respondToThread,
   sendClosingSoonNotices,
+  withdrawPlan,
 } from "@/lib/services/plans";
 import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
@@ -163,6 +168,41 @@ describe("readers outside the basin", () => {
     const draft = await planAt(db, w, "draft");
     await expect(getPlanForReader(db, w.users.outsider, w.basinId, draft.planId)).rejects.toMatchObject({ status: 403 });
     await expect(getPlanForReader(db, null, w.basinId, review.planId)).rejects.toMatchObject({ status: 401 });
+  });
+});
+
+describe("versions", () => {
+  it("a plan withdrawn after its review stays readable with its comments; a withdrawn draft does not", async () => {
+    const w = await buildWorld(db);
+    const reviewed = await planAt(db, w, "review");
+    await addComment(db, w.users.stakeholder, w.basinId, reviewed.planThreadId, "Kept on the record");
+    await withdrawPlan(db, w.users.lead, w.basinId, reviewed.planId);
+    const read = await getPlan(db, w.users.outsider, w.basinId, reviewed.planId);
+    expect(read.status).toBe("withdrawn");
+    expect(read.threads.flatMap((t) => t.comments.map((c) => c.body))).toContain("Kept on the record");
+    const draft = await planAt(db, w, "draft");
+    await withdrawPlan(db, w.users.lead, w.basinId, draft.planId);
+    await expect(getPlan(db, w.users.stakeholder, w.basinId, draft.planId)).rejects.toMatchObject({ status: 403 });
+    const listed = (await listPlans(db, w.users.stakeholder, w.basinId)).map((p) => p.id);
+    expect(listed).toContain(reviewed.planId);
+    expect(listed).not.toContain(draft.planId);
+    // signed out: published plans only
+    expect(await listPlans(db, null, w.basinId)).toEqual([]);
+  });
+
+  it("a published plan says when a later version has been published", async () => {
+    const w = await buildWorld(db);
+    const first = await planAt(db, w, "published");
+    expect((await getPublishedPlan(db, null, w.basinId, first.planId))!.supersededBy).toBeNull();
+    const second = await planAt(db, w, "published");
+    const old = (await getPublishedPlan(db, null, w.basinId, first.planId))!;
+    expect(old.supersededBy?.id).toBe(second.planId);
+    expect((await getPublishedPlan(db, null, w.basinId, second.planId))!.supersededBy).toBeNull();
+    const front = (await listPublishedPlans(db)).filter((p) => p.basinId === w.basinId);
+    expect(front.map((p) => [p.id, p.superseded])).toEqual([
+      [second.planId, false],
+      [first.planId, true],
+    ]);
   });
 });
 

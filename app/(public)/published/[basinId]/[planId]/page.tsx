@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { NameMark } from "@/components/brand/name-mark";
 import { PublicPlan } from "@/components/plans/public-plan";
+import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db/client";
 import { currentActor } from "@/lib/auth/session";
 import type { AllocationResult, ModelFile, RunResult } from "@/lib/model";
@@ -31,6 +32,15 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
       <p className="mb-6 text-sm text-ink-soft">
         {basin.name} · version {plan.version} · published {plan.publishedAt ? new Date(plan.publishedAt).toLocaleDateString("en-CA") : ""}
       </p>
+      {found.supersededBy && (
+        <div className="mb-6">
+          <Notice tone="warning" title="Superseded">
+            A later version of this plan has been published:{" "}
+            <Link href={`/published/${basinId}/${found.supersededBy.id}`}>version {found.supersededBy.version}</Link>. This version stays readable as it was
+            published.
+          </Notice>
+        </div>
+      )}
       <PublicPlan
         basinId={basinId}
         planId={plan.id}
