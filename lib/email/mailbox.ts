@@ -119,7 +119,7 @@ export async function readMailbox(dir: string = mailDir(), limit = 200): Promise
   const messages: KeptMessage[] = [];
   for (const name of files) {
     try {
-      messages.push(JSON.parse(await readFile(/* turbopackIgnore: true */ path.join(dir, name), "utf8")) as KeptMessage);
+      messages.push(JSON.parse(await readFile(/* turbopackIgnore: true */ path.join(/* turbopackIgnore: true */ dir, name), "utf8")) as KeptMessage);
     } catch {
       // a file being written or not ours: skip it
     }

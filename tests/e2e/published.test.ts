@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDb, type Db } from "@/db/client";
 import { stopBoss } from "@/lib/jobs/queue";
 import { launchBrowser } from "./support/browser";
+import { inkPixels } from "./support/pixels";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld } from "../support/world";
 
@@ -45,6 +46,21 @@ describe("a published plan", () => {
     await page.getByRole("button", { name: "Download CSV" }).first().click();
     const csv = readFileSync(await (await download).path(), "utf8");
     expect(csv.split(/\r?\n/)[0]).toMatch(/^# Planning-level estimates/);
+    // the map of DO along the plan's reaches is drawn
+    const map = '[aria-label="Map of dissolved oxygen"] [data-ready="true"]';
+    await page.locator(map).waitFor({ timeout: 30_000 });
+    expect(await inkPixels(page, map)).toBeGreaterThan(2000);
+    // the plain download links work signed out
+    const fileFrom = async (name: string) => {
+      const d = page.waitForEvent("download");
+      await page.getByRole("link", { name }).click();
+      return readFileSync(await (await d).path(), "utf8");
+    };
+    expect((await fileFrom("Allocations (CSV)")).split(/\r?\n/)[0]).toMatch(/^# Planning-level estimates/);
+    const geo = JSON.parse(await fileFrom("Reaches with results (GeoJSON)")) as { type: string; caution: string[]; features: unknown[] };
+    expect(geo.type).toBe("FeatureCollection");
+    expect(geo.caution.join(" ")).toMatch(/qualified \(licensed\) engineer/);
+    expect(geo.features.length).toBeGreaterThan(10);
     await page.screenshot({ path: "test-results/screens/published-plan-signed-out.png", fullPage: true });
     await page.close();
   });

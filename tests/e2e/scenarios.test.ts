@@ -1,8 +1,8 @@
 import { mkdirSync, readFileSync } from "node:fs";
-import { PNG } from "pngjs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { DEMO_USERS } from "@/db/seed/demo-data";
+import { inkPixels } from "./support/pixels";
 import { launchBrowser, signInAs } from "./support/browser";
 
 const baseUrl = inject("baseUrl");
@@ -24,17 +24,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-/** Count of non-background pixels in an element's screenshot (proof something was drawn). */
-async function inkPixels(selector: string): Promise<number> {
-  const png = PNG.sync.read(await page.locator(selector).first().screenshot());
-  let n = 0;
-  for (let i = 0; i < png.data.length; i += 4) {
-    const [r, g, b] = [png.data[i], png.data[i + 1], png.data[i + 2]];
-    if (Math.max(r, g, b) - Math.min(r, g, b) > 40 || r + g + b < 300) n++;
-  }
-  return n;
-}
 
 async function runAndOpen(kind: "model" | "allocation"): Promise<void> {
   await page.getByRole("button", { name: kind === "model" ? "Run the model on today's loads" : "Run the allocation" }).click();
@@ -71,10 +60,10 @@ describe("scenarios, runs and results in the browser", () => {
   it("runs the model: the map and the DO profile are drawn, with the caution", async () => {
     await runAndOpen("model");
     expect(await page.getByTestId("planning-caution").textContent()).toMatch(/qualified \(licensed\) engineer/);
-    expect(await inkPixels('[data-testid="run-results"] [data-ready="true"]')).toBeGreaterThan(2000);
+    expect(await inkPixels(page, '[data-testid="run-results"] [data-ready="true"]')).toBeGreaterThan(2000);
     const chart = page.getByTestId("profile-chart");
     await chart.locator("svg path").first().waitFor();
-    expect(await inkPixels('[data-testid="profile-chart"]')).toBeGreaterThan(1500);
+    expect(await inkPixels(page, '[data-testid="profile-chart"]')).toBeGreaterThan(1500);
     await page.screenshot({ path: `${SHOTS}/run-model-results.png`, fullPage: true });
   });
 
