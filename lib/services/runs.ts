@@ -1,3 +1,4 @@
+import { LRUCache } from "lru-cache";
 import { createHash } from "node:crypto";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
@@ -242,9 +243,21 @@ export async function getRunStatus(db: Db, actor: Actor | null, basinId: string,
  */
 export async function getRunJson(db: Db, actor: Actor | null, basinId: string, runId: string): Promise<{ json: string; etag: string }> {
   const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  // the small row first: it proves the run exists in this basin and says whether it can change
+  const brief = await findRun(db, basin.id, runId, false);
+  if (!brief) throw notFound("Run");
+  const etag = `"${brief.id}-${brief.status}-${brief.finished_at?.getTime() ?? 0}"`;
+  const final = brief.status === "done" || brief.status === "failed";
+  const cached = final ? finishedRunJson.get(etag) : undefined;
+  if (cached) return { json: cached, etag };
   const row = await findRunJsonText(db, basin.id, runId);
   if (!row) throw notFound("Run");
   const head = JSON.stringify(summary(row));
   const json = `${head.slice(0, -1)},"result":${row.result_text ?? "null"},"modelFiles":${row.files_text}}`;
-  return { json, etag: `"${row.id}-${row.status}-${row.finished_at?.getTime() ?? 0}"` };
+  // a finished run never changes (its ETag names its final state), so its text is kept for the next reader
+  if (final && row.status === brief.status) finishedRunJson.set(etag, json);
+  return { json, etag };
 }
+
+/** Finished runs' JSON documents by ETag, up to 64 MiB: rendering one from PostgreSQL's jsonb costs more than all the rest of a read. */
+const finishedRunJson = new LRUCache<string, string>({ maxSize: 64 * 1024 * 1024, sizeCalculation: (json) => Math.max(1, json.length) });

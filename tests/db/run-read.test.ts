@@ -1,0 +1,43 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createDb, getDb, type Db } from "@/db/client";
+import { stopBoss } from "@/lib/jobs/queue";
+import { createRun, getRun, getRunJson, processRun } from "@/lib/services/runs";
+import { createScenario } from "@/lib/services/scenarios";
+import { scenarioCreateSchema } from "@/lib/validation/scenario";
+import { commitDemo } from "../support/demo-network";
+import { buildWorld, type World } from "../support/world";
+
+let db: Db;
+let w: World;
+beforeAll(async () => {
+  db = createDb(process.env.DATABASE_URL, 3);
+  w = await buildWorld(db);
+  await commitDemo(db, w.users.planner, w.basinId);
+});
+afterAll(async () => {
+  await stopBoss();
+  await db.destroy();
+  await getDb().destroy();
+});
+
+describe("reading a stored run as JSON text", () => {
+  it("follows the run from queued to done, then serves the finished document unchanged, still checking who asks", async () => {
+    const scenario = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Read me", inputs: { conditions: [{ name: "7Q10" }] } }));
+    const run = await createRun(db, w.users.planner, w.basinId, scenario.id, "model");
+    const queued = await getRunJson(db, w.users.planner, w.basinId, run.id);
+    expect(JSON.parse(queued.json)).toMatchObject({ id: run.id, status: "queued", result: null });
+
+    await processRun(db, run.id);
+    const first = await getRunJson(db, w.users.planner, w.basinId, run.id);
+    expect(first.etag).not.toBe(queued.etag);
+    // the same document getRun builds by parsing
+    expect(JSON.parse(first.json)).toEqual(JSON.parse(JSON.stringify(await getRun(db, w.users.planner, w.basinId, run.id))));
+    const again = await getRunJson(db, w.users.lead, w.basinId, run.id);
+    expect(again).toEqual(first);
+    // a kept document is never handed to someone who may not read it
+    await expect(getRunJson(db, w.users.stakeholder, w.basinId, run.id)).rejects.toMatchObject({ status: 403 });
+    await expect(getRunJson(db, w.users.outsider, w.basinId, run.id)).rejects.toMatchObject({ status: 403 });
+    // nor under another basin's name
+    await expect(getRunJson(db, w.users.outsider, w.otherBasinId, run.id)).rejects.toMatchObject({ status: 404 });
+  });
+});
