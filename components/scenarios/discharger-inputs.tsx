@@ -2,6 +2,7 @@
 import type { Control, FieldValues, Path } from "react-hook-form";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { formKey } from "@/lib/scenarios/form-keys";
 import { UnitField } from "./unit-field";
 
 export interface OutfallRow {
@@ -27,7 +28,7 @@ export function DischargerInputs<T extends FieldValues>({
   system: UnitSystem;
 }) {
   if (outfalls.length === 0) return null;
-  const field = (permitId: string, key: string) => `inputs.dischargers.${permitId}.${key}` as Path<T>;
+  const field = (permitId: string, key: string) => `inputs.dischargers.${formKey(permitId)}.${key}` as Path<T>;
   return (
     <section className="card space-y-3">
       <h2>Dischargers</h2>

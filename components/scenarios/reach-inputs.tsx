@@ -3,6 +3,7 @@ import { useState } from "react";
 import type { Control, FieldValues, Path } from "react-hook-form";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { formKey } from "@/lib/scenarios/form-keys";
 import { UnitField } from "./unit-field";
 
 export interface ReachRow {
@@ -85,7 +86,7 @@ export function ReachInputs<T extends FieldValues>({
                       <td key={i} className="num">
                         <UnitField
                           control={control}
-                          name={path(`inputs.conditions.${i}.reachFlowsM3s.${r.id}`)}
+                          name={path(`inputs.conditions.${i}.reachFlowsM3s.${formKey(r.id)}`)}
                           label={`Design flow of ${r.id} under ${c.name}`}
                           kind="flow"
                           system={system}
@@ -108,7 +109,7 @@ export function ReachInputs<T extends FieldValues>({
                     <td key={key} className="num">
                       <UnitField
                         control={control}
-                        name={path(`inputs.reachOverrides.${r.id}.${key}`)}
+                        name={path(`inputs.reachOverrides.${formKey(r.id)}.${key}`)}
                         label={`${label} of ${r.id}`}
                         system={system}
                         nullable
@@ -126,7 +127,7 @@ export function ReachInputs<T extends FieldValues>({
                     <td key={key} className="num">
                       <UnitField
                         control={control}
-                        name={path(`inputs.inflowOverrides.${r.id}.${key}`)}
+                        name={path(`inputs.inflowOverrides.${formKey(r.id)}.${key}`)}
                         label={`${label} of ${r.id}`}
                         system={system}
                         nullable

@@ -9,6 +9,7 @@ import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
 import { ApiError } from "@/lib/queries/fetcher";
+import { fromFormKeys, toFormKeys } from "@/lib/scenarios/form-keys";
 import { useScenarioQuery, useStartRunMutation, useUpdateScenarioMutation } from "@/lib/queries/scenarios";
 import type { ScenarioDto } from "@/lib/services/scenarios";
 import { OBJECTIVES, scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
@@ -41,9 +42,34 @@ function formValues(s: ScenarioDto, outfalls: OutfallRow[], reaches: ReachRow[])
   for (const r of reaches) inflowOverrides[r.id] = { ...slots(INFLOW_OVERRIDE_FIELDS), ...inflowOverrides[r.id] };
   const conditions = s.inputs.conditions.map((c) => ({
     ...c,
-    reachFlowsM3s: { ...Object.fromEntries(reaches.map((r) => [r.id, null])), ...c.reachFlowsM3s },
+    reachFlowsM3s: toFormKeys({ ...Object.fromEntries(reaches.map((r) => [r.id, null])), ...c.reachFlowsM3s }),
   }));
-  return { name: s.name, description: s.description, inputs: { ...s.inputs, dischargers, reachOverrides, inflowOverrides, conditions } };
+  // ids are keyed by form keys inside the form (lib/scenarios/form-keys.ts)
+  return {
+    name: s.name,
+    description: s.description,
+    inputs: {
+      ...s.inputs,
+      dischargers: toFormKeys(dischargers),
+      reachOverrides: toFormKeys(reachOverrides),
+      inflowOverrides: toFormKeys(inflowOverrides),
+      conditions,
+    },
+  };
+}
+
+/** The form's values as the API takes them: records keyed by ids again. */
+function fromFormValues(v: FormValues): FormValues {
+  return {
+    ...v,
+    inputs: {
+      ...v.inputs,
+      dischargers: fromFormKeys(v.inputs.dischargers),
+      reachOverrides: fromFormKeys(v.inputs.reachOverrides),
+      inflowOverrides: fromFormKeys(v.inputs.inflowOverrides),
+      conditions: v.inputs.conditions.map((c) => ({ ...c, reachFlowsM3s: fromFormKeys(c.reachFlowsM3s) })),
+    },
+  };
 }
 
 const OBJECTIVE_LABELS: Record<(typeof OBJECTIVES)[number], string> = {
@@ -96,7 +122,7 @@ export function ScenarioEditor({
   const save = handleSubmit(async (values) => {
     setNotice(null);
     try {
-      const saved = await update.mutateAsync({ version: scenario.version, ...values });
+      const saved = await update.mutateAsync({ version: scenario.version, ...fromFormValues(values) });
       reset(formValues(saved, outfalls, reaches));
       setNotice({ tone: "success", text: `Saved (version ${saved.version}).` });
     } catch (e) {
@@ -155,7 +181,7 @@ export function ScenarioEditor({
                 conditions.append({
                   name: `Condition ${conditions.fields.length + 1}`,
                   flowScale: 1,
-                  reachFlowsM3s: Object.fromEntries(reaches.map((r) => [r.id, null])),
+                  reachFlowsM3s: toFormKeys(Object.fromEntries(reaches.map((r) => [r.id, null]))),
                   temperatureC: null,
                 })
               }
