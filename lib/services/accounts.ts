@@ -11,6 +11,7 @@ import { insertAuditEvent } from "@/db/queries/audit";
 import { findUserByEmail, insertUser, markUserVerified, updateUserPassword } from "@/db/queries/users";
 import type { AccountTokenKind } from "@/db/schema";
 import { passwordResetEmail, verifyAddressEmail } from "@/lib/email/account-templates";
+import { appUrl } from "@/lib/email/app-url";
 import { queueEmail } from "@/lib/email/outbox";
 import { AppError, conflict } from "@/lib/errors";
 import type { RegisterInput, ResetConfirmInput } from "@/lib/validation/account";
@@ -19,9 +20,6 @@ import { hashPassword } from "./users";
 const HOUR_MS = 60 * 60 * 1000;
 /** How long each kind of e-mailed link works. */
 export const TOKEN_LIFETIME_MS = { verify: 48 * HOUR_MS, reset: 1 * HOUR_MS, invite: 14 * 24 * HOUR_MS } as const;
-
-/** The app's public address, for links in e-mails (as lib/services/plan-notices.ts builds them). */
-export const appUrl = () => (process.env.NEXTAUTH_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
 
 /** A fresh random token for an e-mailed link and the SHA-256 hash that is stored instead of it. */
 export function newToken(): { token: string; hash: string } {

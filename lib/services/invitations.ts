@@ -20,7 +20,8 @@ import { queueEmail } from "@/lib/email/outbox";
 import { requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import type { InvitationCreateInput, InvitationRegisterInput } from "@/lib/validation/account";
-import { TOKEN_LIFETIME_MS, appUrl, hashToken, newToken } from "./accounts";
+import { appUrl } from "@/lib/email/app-url";
+import { TOKEN_LIFETIME_MS, hashToken, newToken } from "./accounts";
 import { hashPassword } from "./users";
 
 export type InvitationStatus = "pending" | "expired" | "accepted" | "revoked";

@@ -2,11 +2,10 @@ import type { Db } from "@/db/client";
 import { findBasinById } from "@/db/queries/basins";
 import { basinFollowersWithEmail } from "@/db/queries/follows";
 import { basinMembersWithEmail, dischargerAllocations, planCommenters, threadParticipants } from "@/db/queries/plans";
+import { appUrl } from "@/lib/email/app-url";
 import { queueEmail } from "@/lib/email/outbox";
 import { planPublishedEmail, reviewClosingEmail, reviewOpenedEmail, threadReplyEmail } from "@/lib/email/templates";
 
-/** The app's public address, for links in e-mails. */
-const appUrl = () => (process.env.NEXTAUTH_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
 /** Works for everyone signed in: members are sent on to the workspace page, others read the plan there. */
 const planUrl = (basinId: string, planId: string) => `${appUrl()}/reviews/${basinId}/${planId}`;
 
