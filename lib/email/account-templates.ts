@@ -1,4 +1,4 @@
-import { escapeHtml, formatWhen, type RenderedEmail } from "./templates";
+import { formatWhen, render as renderLayout, type RenderedEmail } from "./templates";
 
 /**
  * E-mails about accounts: confirm an address, reset a password, join a basin.
@@ -15,38 +15,15 @@ interface Message {
   footnote: string;
 }
 
-function linkOf(url: string): string {
-  const parsed = new URL(url);
-  if (parsed.protocol !== "http:" && parsed.protocol !== "https:") throw new Error(`e-mail link must be http(s): ${url}`);
-  return parsed.toString();
-}
-
-function render(m: Message): RenderedEmail {
-  const url = linkOf(m.action.url);
-  const until = `The link works once, until ${formatWhen(m.expiresAt, "UTC")}.`;
-  const text = [
-    m.greeting,
-    "",
-    ...m.paragraphs.flatMap((p) => [p, ""]),
-    `${m.action.label}: ${url}`,
-    "",
-    until,
-    m.footnote,
-    "",
-    "-- ",
-    "Sagline",
-  ].join("\n");
-  const html = [
-    `<!doctype html><html><body style="font-family: sans-serif; color: #1f2933; line-height: 1.5">`,
-    `<p>${escapeHtml(m.greeting)}</p>`,
-    ...m.paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`),
-    `<p><a href="${escapeHtml(url)}">${escapeHtml(m.action.label)}</a></p>`,
-    `<p style="font-size: 0.9em; color: #52606d">${escapeHtml(until)} ${escapeHtml(m.footnote)}</p>`,
-    `<p style="font-size: 0.8em; color: #7b8794">Sagline</p>`,
-    `</body></html>`,
-  ].join("\n");
-  return { subject: m.subject, text, html };
-}
+/** The shared layout, without the planning caution, with how long the link works. */
+const render = (m: Message): RenderedEmail =>
+  renderLayout(m.subject, {
+    greeting: m.greeting,
+    paragraphs: m.paragraphs,
+    action: m.action,
+    caution: false,
+    footnote: `The link works once, until ${formatWhen(m.expiresAt, "UTC")}. ${m.footnote}`,
+  });
 
 export function verifyAddressEmail(p: { name: string; url: string; expiresAt: Date }): RenderedEmail {
   return render({

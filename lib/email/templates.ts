@@ -56,7 +56,7 @@ function fmt(value: number, digits = 1): string {
   return value.toLocaleString("en-US", { maximumFractionDigits: digits, minimumFractionDigits: 0 });
 }
 
-interface Layout {
+export interface Layout {
   greeting: string;
   paragraphs: string[];
   /** Already-escaped HTML blocks shown after the paragraphs. */
@@ -64,9 +64,12 @@ interface Layout {
   textExtra?: string;
   action: { label: string; url: string };
   caution: boolean;
+  /** Small print after the action (e.g. how long a link works). */
+  footnote?: string;
 }
 
-function render(subject: string, l: Layout): RenderedEmail {
+/** One e-mail in Sagline's plain layout: greeting, paragraphs, one link, then the caution or small print. */
+export function render(subject: string, l: Layout): RenderedEmail {
   const url = safeUrl(l.action.url);
   const text = [
     l.greeting,
@@ -75,6 +78,7 @@ function render(subject: string, l: Layout): RenderedEmail {
     ...(l.textExtra ? [l.textExtra, ""] : []),
     `${l.action.label}: ${url}`,
     ...(l.caution ? ["", PLANNING_CAUTION] : []),
+    ...(l.footnote ? ["", l.footnote] : []),
     "",
     "-- ",
     "Sagline",
@@ -86,6 +90,7 @@ function render(subject: string, l: Layout): RenderedEmail {
     l.htmlExtra ?? "",
     `<p><a href="${escapeHtml(url)}">${escapeHtml(l.action.label)}</a></p>`,
     l.caution ? `<p style="font-size: 0.9em; color: #52606d"><em>${escapeHtml(PLANNING_CAUTION)}</em></p>` : "",
+    l.footnote ? `<p style="font-size: 0.9em; color: #52606d">${escapeHtml(l.footnote)}</p>` : "",
     `<p style="font-size: 0.8em; color: #7b8794">Sagline</p>`,
     `</body></html>`,
   ].join("\n");
@@ -195,34 +200,5 @@ export function planPublishedEmail(
     htmlExtra,
     action: { label: "Read the published plan", url: p.url },
     caution: true,
-  });
-}
-
-export type AccountPurpose = "verify" | "reset" | "invite";
-
-export function accountEmail(p: { recipientName: string; purpose: AccountPurpose; url: string; basinName?: string; expiresAt?: Date; timeZone?: string }): RenderedEmail {
-  const expiry = p.expiresAt ? ` The link works until ${formatWhen(p.expiresAt, p.timeZone ?? "UTC")}.` : "";
-  const content = {
-    verify: {
-      subject: "Confirm your e-mail address for Sagline",
-      paragraph: "Please confirm your e-mail address to finish setting up your Sagline account.",
-      label: "Confirm your e-mail address",
-    },
-    reset: {
-      subject: "Reset your Sagline password",
-      paragraph: "Someone asked to reset the password of your Sagline account. If it was not you, ignore this message.",
-      label: "Choose a new password",
-    },
-    invite: {
-      subject: `Invitation to ${p.basinName ?? "a basin"} on Sagline`,
-      paragraph: `You are invited to take part in the planning of ${p.basinName ?? "a basin"} on Sagline.`,
-      label: "Accept the invitation",
-    },
-  }[p.purpose];
-  return render(content.subject, {
-    greeting: `Hello ${p.recipientName},`,
-    paragraphs: [content.paragraph + expiry],
-    action: { label: content.label, url: p.url },
-    caution: false,
   });
 }

@@ -1,6 +1,6 @@
+import { passwordResetEmail } from "@/lib/email/account-templates";
 import { describe, expect, it } from "vitest";
 import {
-  accountEmail,
   escapeHtml,
   formatWhen,
   planPublishedEmail,
@@ -50,10 +50,13 @@ describe("notices about plans", () => {
     expect(PLANNING_CAUTION).toMatch(/standards and permitting rules of the jurisdiction take precedence/);
   });
 
-  it("account notices do not talk about allocations", () => {
-    const email = accountEmail({ recipientName: "Mira", purpose: "reset", url: "http://127.0.0.1:3000/reset/abc" });
+  it("account notices do not talk about allocations, and say how long their link works", () => {
+    const email = passwordResetEmail({ name: "Mira <b>", url: "http://127.0.0.1:3000/reset-password?token=abc", expiresAt: new Date("2027-01-04T10:00:00Z") });
     expect(email.text).not.toContain(PLANNING_CAUTION);
-    expect(email.subject).toBe("Reset your Sagline password");
+    expect(email.subject).toBe("Choose a new Sagline password");
+    expect(email.text).toContain("The link works once, until 4 Jan 2027, 10:00 UTC.");
+    expect(email.html).toContain("Mira &lt;b&gt;");
+    expect(email.html).not.toContain("<b>");
   });
 
   it("states times with their time zone", () => {
