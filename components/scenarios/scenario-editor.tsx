@@ -9,6 +9,7 @@ import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
 import { ApiError } from "@/lib/queries/fetcher";
+import { OBJECTIVE_NAMES, REAERATION_NAMES } from "@/lib/format/labels";
 import { fromFormKeys, toFormKeys } from "@/lib/scenarios/form-keys";
 import { useScenarioQuery, useStartRunMutation, useUpdateScenarioMutation } from "@/lib/queries/scenarios";
 import type { ScenarioDto } from "@/lib/services/scenarios";
@@ -72,20 +73,13 @@ function fromFormValues(v: FormValues): FormValues {
   };
 }
 
-const OBJECTIVE_LABELS: Record<(typeof OBJECTIVES)[number], string> = {
-  "max-total": "Most total load",
-  "min-removal": "Least total removal",
-  "equal-percent": "Equal percent removal",
-  "equal-concentration": "Equal effluent concentration",
-  "max-min-share": "Most even share",
-};
-const KA_LABELS: Record<string, string> = {
-  "depth-velocity": "Chosen by depth and velocity",
-  "oconnor-dobbins": "O'Connor–Dobbins",
-  churchill: "Churchill–Elmore–Buckingham",
-  "owens-gibbs": "Owens–Edwards–Gibbs",
-  "tsivoglou-neal": "Tsivoglou–Neal (needs slope)",
-};
+const OBJECTIVE_LABELS = OBJECTIVE_NAMES;
+/** The reaeration choices the editor offers ("given" rates come per reach, not from this list). */
+const KA_LABELS: Record<string, string> = Object.fromEntries(
+  Object.entries(REAERATION_NAMES)
+    .filter(([k]) => k !== "given")
+    .map(([k, v]) => [k, k === "tsivoglou-neal" ? `${v} (needs slope)` : v]),
+);
 
 export function ScenarioEditor({
   basinId,

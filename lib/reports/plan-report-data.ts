@@ -12,7 +12,7 @@ import { resultsGeoJson } from "@/lib/results/results-geojson";
 import type { ThreadForSummary } from "@/lib/results/responsiveness";
 import type { ScenarioInputs } from "@/lib/validation/scenario";
 import { mapFigure, profileFigure, type MapFigure, type ProfileFigure } from "./figures";
-import { nameOf, OBJECTIVE_NAMES, REAERATION_NAMES } from "./labels";
+import { nameOf, OBJECTIVE_NAMES, REAERATION_NAMES } from "@/lib/format/labels";
 
 /** What a plan's snapshot holds (lib/services/plans.ts proposePlan): the run as proposed and the scenario inputs. */
 export interface PlanSnapshot {

@@ -1,4 +1,4 @@
-/** Plain-word names of the scenario choices, for reports (the editor shows the same choices). */
+/** Plain-word names of the scenario choices, shared by the scenario editor and the reports. */
 export const OBJECTIVE_NAMES: Record<string, string> = {
   "max-total": "Most total load",
   "min-removal": "Least total removal",
