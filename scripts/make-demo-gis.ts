@@ -15,7 +15,8 @@ type XY = [number, number];
 
 const EPSG = 32616;
 const ZONE = 16;
-const ORIGIN: XY = [600_000, 4_200_000];
+// in the northern wetlands near 52.4° N 86.1° W (UTM 16N), far from any town: the basin is invented
+const ORIGIN: XY = [560_000, 5_800_000];
 
 /** Network nodes, metres east/north of ORIGIN. */
 const NODE: Record<string, XY> = {
