@@ -22,6 +22,7 @@ export function PublicPlan({
   network,
   unitSystem,
   fileStem,
+  names,
 }: {
   basinId: string;
   planId: string;
@@ -32,6 +33,8 @@ export function PublicPlan({
   network: FeatureCollection;
   unitSystem: UnitSystem;
   fileStem: string;
+  /** Facility names by permit id. */
+  names?: Record<string, string>;
 }) {
   const heads = useMemo(() => headwaterReaches(model), [model]);
   const [from, setFrom] = useState(heads[0]);
@@ -40,7 +43,7 @@ export function PublicPlan({
       <PlanningCaution />
       <section className="card space-y-3">
         <h2>Waste-load allocations</h2>
-        <AllocationTable allocation={allocation} model={model} unitSystem={unitSystem} fileName={`${fileStem}-allocations.csv`} />
+        <AllocationTable allocation={allocation} model={model} unitSystem={unitSystem} fileName={`${fileStem}-allocations.csv`} names={names} />
       </section>
       {allocation.tmdl && (
         <section className="card">

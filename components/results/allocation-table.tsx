@@ -19,19 +19,31 @@ export function AllocationTable({
   unitSystem,
   fileName = "allocation.csv",
   about = [],
+  names,
 }: {
   allocation: AllocationResult;
   model: ModelFile;
   unitSystem: UnitSystem;
   fileName?: string;
   about?: string[];
+  /** Facility names by permit id: shown beside each permit id and added to the CSV. */
+  names?: Record<string, string>;
 }) {
   const rows = useMemo(() => allocationRows(allocation, model), [allocation, model]);
   const load = unitLabel("load", unitSystem);
   const columns = useMemo(() => {
     const l = (v: number) => formatIn("load", v, unitSystem);
     return [
-      column<AllocationRow>("id", "Facility", (r) => r.id),
+      column<AllocationRow>("id", "Facility", (r) => (names?.[r.id] ? `${names[r.id]} ${r.id}` : r.id), {
+        show: (r) =>
+          names?.[r.id] ? (
+            <span>
+              {names[r.id]} <span className="font-mono text-xs text-ink-faint">{r.id}</span>
+            </span>
+          ) : (
+            r.id
+          ),
+      }),
       column<AllocationRow>("flow", `Design flow (${unitLabel("flow", unitSystem)})`, (r) => r.design_flow_m3_s, {
         numeric: true,
         show: (r) => formatIn("flow", r.design_flow_m3_s, unitSystem),
@@ -46,10 +58,10 @@ export function AllocationTable({
         show: (r) => (r.reduction_pct === null ? "—" : (Math.abs(r.reduction_pct) < 0.05 ? 0 : r.reduction_pct).toFixed(1)),
       }),
     ];
-  }, [load, unitSystem]);
+  }, [load, unitSystem, names]);
   if (!allocation.feasible) return <p className="text-sm text-ink-soft">No allocation meets the criterion; see the diagnosis.</p>;
   const csv = () => {
-    const t = allocationCsv(allocation, model, unitSystem, about);
+    const t = allocationCsv(allocation, model, unitSystem, about, names);
     downloadCsv(fileName, t.rows, t.columns, t.preface);
   };
   return (

@@ -38,13 +38,21 @@ export function allocationRows(allocation: AllocationResult, model: ModelFile): 
  * The allocation table as CSV (loads in kg/d or lb/d as the basin shows them).
  * The preface holds the caution, then `about` lines (basin, scenario, run).
  */
-export function allocationCsv(allocation: AllocationResult, model: ModelFile, system: UnitSystem, about: string[] = []): CsvTable<AllocationRow> {
+export function allocationCsv(
+  allocation: AllocationResult,
+  model: ModelFile,
+  system: UnitSystem,
+  about: string[] = [],
+  /** Facility names by permit id, when known: adds a "facility name" column. */
+  names?: Record<string, string>,
+): CsvTable<AllocationRow> {
   const u = loadUnit(system);
   return {
     preface: exportPreface(...about, `Objective: ${allocation.objective}; feasible: ${allocation.feasible ? "yes" : "no"}`),
     rows: allocationRows(allocation, model),
     columns: [
       { header: "facility", value: (r) => r.id },
+      ...(names ? [{ header: "facility name", value: (r: AllocationRow) => names[r.id] ?? "" }] : []),
       { header: `allocated CBODu (${u})`, value: (r) => load(r.cbodu_kg_day, system) },
       { header: `allocated BOD5 (${u})`, value: (r) => load(r.bod5_kg_day, system) },
       { header: "effluent BOD5 at design flow (mg/L)", value: (r) => round(r.bod5_mg_l, 2) },

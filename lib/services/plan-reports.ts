@@ -73,7 +73,8 @@ export async function planReportPdf(db: Db, actor: Actor | null, basinId: string
 export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: string, planId: string): Promise<PlanDownload> {
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const s = readSnapshot(plan.snapshot);
-  const text = csvText(allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unit_system, about(basin.name, plan)));
+  const names = Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]));
+  const text = csvText(allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unit_system, about(basin.name, plan), names));
   await recordExport(db, actor, basin.id, plan, "csv");
   return { body: text, contentType: "text/csv; charset=utf-8", fileName: `${stem}-allocations.csv` };
 }

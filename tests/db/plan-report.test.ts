@@ -137,6 +137,9 @@ describe("the report of a published plan (US units) with a comment and its respo
     const plan = await getPlan(db, null, w.basinId, planId);
     const rows = lines.filter((l) => l && !l.startsWith("#") && l !== header);
     expect(rows).toHaveLength(plan.allocations.length);
+    // each row names its facility beside the permit id
+    expect(header.split(",").slice(0, 2)).toEqual(["facility", "facility name"]);
+    for (const a of plan.allocations) expect(rows.some((r) => r.startsWith(`${a.permitId},${a.facilityName},`) || r.startsWith(`${a.permitId},"${a.facilityName}",`))).toBe(true);
   });
 });
 

@@ -50,6 +50,7 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
         run={snapshot.run.result.conditions[0].run}
         unitSystem={basin.unitSystem}
         fileStem={`${basin.slug}-plan-v${plan.version}`}
+        names={Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]))}
       />
     </main>
   );
