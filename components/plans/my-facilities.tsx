@@ -153,7 +153,9 @@ function AllocationTerms({ entry, model, permitId, unitSystem }: { entry: Alloca
         </dd>
         <dt className="text-ink-soft">Allowed range</dt>
         <dd>
-          {formatIn("load", entry.min_kg_day, unitSystem)}–{formatIn("load", entry.max_kg_day, unitSystem)} {load} CBODu
+          {entry.max_kg_day - entry.min_kg_day <= 1e-6 * Math.max(1, entry.max_kg_day)
+            ? "held at today's load (already at or below the technology floor)"
+            : `${formatIn("load", entry.min_kg_day, unitSystem)}–${formatIn("load", entry.max_kg_day, unitSystem)} ${load} CBODu (floor to today's load)`}
         </dd>
       </dl>
     </div>
