@@ -8,6 +8,7 @@ import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import type { AllocationEntry, AllocationResult, ModelFile, RunResult } from "@/lib/model";
 import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
+import { isBelowCriterion } from "@/lib/results/do-scale";
 import { downstreamOf, profileSeries } from "@/lib/results/profile-series";
 import { PLAN_STATUS_TEXT } from "./plan-list";
 import { Thread, usePlanActs } from "./plan-view";
@@ -177,7 +178,7 @@ function BelowOutfall({ run, model, permitId, unitSystem }: { run: RunResult; mo
         <p className="text-sm" data-testid="lowest-below-outfall">
           Lowest DO downstream: <strong>{lowest.do_mg_l < 0 ? "anoxic" : `${lowest.do_mg_l.toFixed(2)} mg/L`}</strong>,{" "}
           {lowest.distance.toFixed(1)} {series.unit} below the outfall in reach {lowest.reach} (criterion {criterion.toFixed(1)} mg/L
-          {lowest.do_mg_l >= criterion ? ", met" : ", not met"}).
+          {isBelowCriterion(lowest.do_mg_l, criterion) ? ", not met" : ", met"}).
         </p>
       )}
       <ProfileChart series={series} height={300} />

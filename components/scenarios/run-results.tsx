@@ -18,6 +18,7 @@ import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { useRunQuery } from "@/lib/queries/scenarios";
 import { headwaterReaches } from "@/lib/results";
+import { isBelowCriterion } from "@/lib/results/do-scale";
 import type { RunDto } from "@/lib/services/runs";
 
 /** Everything a finished run shows: map, profile, tables, allocation, exports, and the caution. */
@@ -60,6 +61,8 @@ export function RunResults({
     );
   }
   const r = condition.run;
+  // points a hair under the criterion are the allocation's binding checkpoints, held to the solver's tolerance
+  const below = r.below_criterion.filter((b) => isBelowCriterion(b.do_mg_l, r.criterion_do_mg_l));
   const allocation = result.allocation;
   return (
     <div className="space-y-6" data-testid="run-results">
@@ -86,10 +89,9 @@ export function RunResults({
           </div>
         )}
       </div>
-      {r.below_criterion.length > 0 ? (
+      {below.length > 0 ? (
         <Notice tone="warning">
-          DO falls below the criterion at {r.below_criterion.length} point(s) in{" "}
-          {[...new Set(r.below_criterion.map((b) => b.reach))].join(", ")}.
+          DO falls below the criterion at {below.length} point(s) in {[...new Set(below.map((b) => b.reach))].join(", ")}.
         </Notice>
       ) : (
         <Notice tone="success">DO stays at or above the criterion everywhere under “{condition.name}”.</Notice>

@@ -31,6 +31,16 @@ export const DO_BAND_COLOURS: Record<DoBand, string> = {
   ample: "#3d8184",
 };
 
+/**
+ * DO within this much under the criterion counts as meeting it on screens and in
+ * exports: an allocation holds DO at the criterion to the LP's tolerance (1e-6 mg/L
+ * by default), so its binding checkpoints may land a hair below it.
+ */
+export const CRITERION_TOLERANCE_MG_L = 1e-4;
+
+/** Whether DO is below the criterion by more than the solver's tolerance. */
+export const isBelowCriterion = (doMgL: number, criterionMgL: number): boolean => doMgL < criterionMgL - CRITERION_TOLERANCE_MG_L;
+
 function edges(criterionMgL: number, o: DoScaleOptions) {
   const near = o.near_mg_l ?? 1;
   const ample = o.ample_mg_l ?? 2;
@@ -46,7 +56,7 @@ function edges(criterionMgL: number, o: DoScaleOptions) {
 export function doBand(doMgL: number, criterionMgL: number, options: DoScaleOptions = {}): DoBand {
   const e = edges(criterionMgL, options);
   if (doMgL < 0) return "anoxic";
-  if (doMgL < e.criterion) return "below";
+  if (isBelowCriterion(doMgL, e.criterion)) return "below";
   if (doMgL < e.near) return "near";
   if (doMgL < e.ample) return "meets";
   return "ample";

@@ -2,6 +2,7 @@ import type { UnitSystem } from "@/db/schema";
 import { kmToMi } from "@/lib/model/units";
 import type { RunResult } from "@/lib/model/network/run";
 import type { ModelFile } from "@/lib/model/types";
+import { isBelowCriterion } from "./do-scale";
 import { pathToOutlet } from "./path";
 
 export type DistanceUnit = "km" | "mi";
@@ -94,7 +95,7 @@ export function profileSeries(run: RunResult, model: ModelFile, startReach: stri
       do_mg_l: c.do_mg_l,
       do_shown_mg_l: Math.max(0, c.do_mg_l),
       anoxic: c.do_mg_l < 0,
-      below: c.do_mg_l < criterion,
+      below: isBelowCriterion(c.do_mg_l, criterion),
     });
     headKm += lengthKm;
   }

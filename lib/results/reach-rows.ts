@@ -1,3 +1,4 @@
+import { isBelowCriterion } from "./do-scale";
 import type { KaFormula } from "@/lib/model/reaeration";
 import type { RunResult } from "@/lib/model/network/run";
 
@@ -32,7 +33,7 @@ export function reachRows(run: RunResult): ReachRow[] {
       min_do_mg_l: r.critical.do_mg_l,
       min_do_km: r.critical.km,
       anoxic: r.anoxic,
-      below_criterion: r.critical.do_mg_l < run.criterion_do_mg_l,
+      below_criterion: isBelowCriterion(r.critical.do_mg_l, run.criterion_do_mg_l),
       length_km: last.km - first.km,
       travel_time_day: last.t_day - first.t_day,
       ka_min_per_day: Math.min(...ka),

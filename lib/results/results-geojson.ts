@@ -1,7 +1,7 @@
 import type { Feature, FeatureCollection, LineString, Position } from "geojson";
 import type { RunResult } from "@/lib/model/network/run";
 import type { ModelFile } from "@/lib/model/types";
-import { doBand, type DoScaleOptions } from "./do-scale";
+import { doBand, isBelowCriterion, type DoScaleOptions } from "./do-scale";
 import { MeasuredLine } from "./line-cut";
 
 export interface ResultsGeoJsonInput {
@@ -87,7 +87,7 @@ export function resultsGeoJson({ run, model, network, scale }: ResultsGeoJsonInp
         do_mg_l: c.do_mg_l,
         deficit_mg_l: c.deficit_mg_l,
         band: doBand(c.do_mg_l, criterion, scale),
-        below: c.do_mg_l < criterion,
+        below: isBelowCriterion(c.do_mg_l, criterion),
         anoxic: c.do_mg_l < 0,
       },
     });
@@ -126,7 +126,7 @@ export function reachResultsExport(input: ResultsGeoJsonInput & { caution: strin
         min_do_mg_l: r.critical.do_mg_l,
         min_do_km: r.critical.km,
         band: doBand(r.critical.do_mg_l, criterion, input.scale),
-        below_criterion: r.critical.do_mg_l < criterion,
+        below_criterion: isBelowCriterion(r.critical.do_mg_l, criterion),
         anoxic: r.anoxic,
         criterion_do_mg_l: criterion,
       },

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { DO_BAND_COLOURS, doBand, doColour, doLegend, formatDo } from "@/lib/results/do-scale";
+import { CRITERION_TOLERANCE_MG_L, DO_BAND_COLOURS, doBand, doColour, doLegend, formatDo, isBelowCriterion } from "@/lib/results/do-scale";
 
 describe("DO colour scale", () => {
   it("puts values in bands relative to the criterion (edges belong to the band above)", () => {
@@ -13,6 +13,15 @@ describe("DO colour scale", () => {
     expect(doBand(7, 5)).toBe("ample");
     expect(doBand(6.5, 6, { near_mg_l: 0.25, ample_mg_l: 0.5 })).toBe("ample");
     expect(doBand(6.3, 6, { near_mg_l: 0.25, ample_mg_l: 0.5 })).toBe("meets");
+  });
+
+  it("counts DO within the solver's tolerance under the criterion as meeting it (an allocation's binding checkpoints)", () => {
+    expect(isBelowCriterion(5 - 1e-6, 5)).toBe(false);
+    expect(doBand(5 - 1e-6, 5)).toBe("near");
+    expect(isBelowCriterion(5 - 2 * CRITERION_TOLERANCE_MG_L, 5)).toBe(true);
+    expect(isBelowCriterion(4.99, 5)).toBe(true);
+    // the allocation's own default tolerance (1e-6 mg/L) is well inside it
+    expect(CRITERION_TOLERANCE_MG_L).toBeGreaterThan(1e-6);
   });
 
   it("rejects a scale whose bands would overlap", () => {
