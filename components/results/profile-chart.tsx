@@ -98,7 +98,8 @@ export function ProfileChart({ series, height = 360 }: { series: ProfileSeries; 
             name="critical point"
             data={series.criticals}
             dataKey="do_shown_mg_l"
-            fill="#ffffff"
+            // the marks draw themselves (CriticalMark); this colour is the legend's
+            fill={FAINT}
             stroke={INK}
             legendType="diamond"
             isAnimationActive={false}
