@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as registerRoute from "@/app/api/account/register/route";
 import * as resetConfirmRoute from "@/app/api/account/password-reset/confirm/route";
 import * as resetRequestRoute from "@/app/api/account/password-reset/route";
@@ -9,25 +9,18 @@ import * as invitationRoute from "@/app/api/basins/[basinId]/invitations/[invita
 import * as acceptRoute from "@/app/api/invitations/[token]/accept/route";
 import * as previewRoute from "@/app/api/invitations/[token]/route";
 import * as inviteRegisterRoute from "@/app/api/invitations/[token]/register/route";
-import { createDb, getDb, type Db } from "@/db/client";
 import { basinFollowersWithEmail } from "@/db/queries/follows";
 import { findUserByEmail, insertUser } from "@/db/queries/users";
-import { stopBoss } from "@/lib/jobs/queue";
 import { checkSignIn, verifyCredentials } from "@/lib/services/users";
+import { fileDb } from "../support/file-db";
 import { callRoute } from "../support/call-route";
 import { buildWorld, WORLD_PASSWORD, type World } from "../support/world";
 
-let db: Db;
+const db = fileDb();
 let w: World;
 
 beforeAll(async () => {
-  db = createDb(process.env.DATABASE_URL, 3);
   w = await buildWorld(db);
-});
-afterAll(async () => {
-  await stopBoss();
-  await db.destroy();
-  await getDb().destroy();
 });
 
 const uniq = () => Math.random().toString(36).slice(2, 10);

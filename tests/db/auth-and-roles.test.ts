@@ -1,22 +1,17 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as basinRoute from "@/app/api/basins/[basinId]/route";
 import * as basinsRoute from "@/app/api/basins/route";
-import { createDb, getDb, type Db } from "@/db/client";
 import { seedDemo } from "@/db/seed/demo";
 import { DEMO_BASINS, DEMO_USERS } from "@/db/seed/demo-data";
 import { findBasinBySlug } from "@/db/queries/basins";
 import { deleteMembership } from "@/db/queries/memberships";
 import { hashPassword, verifyCredentials } from "@/lib/services/users";
+import { fileDb } from "../support/file-db";
 import { callRoute } from "../support/call-route";
 
-let db: Db;
+const db = fileDb();
 beforeAll(async () => {
-  db = createDb(process.env.DATABASE_URL, 3);
   await seedDemo(db, hashPassword);
-});
-afterAll(async () => {
-  await db.destroy();
-  await getDb().destroy();
 });
 
 describe("demo data", () => {

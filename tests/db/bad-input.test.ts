@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as basinRoute from "@/app/api/basins/[basinId]/route";
 import * as basinsRoute from "@/app/api/basins/route";
 import * as memberRoute from "@/app/api/basins/[basinId]/members/[userId]/route";
@@ -6,20 +6,15 @@ import * as membersRoute from "@/app/api/basins/[basinId]/members/route";
 import * as facilitiesRoute from "@/app/api/basins/[basinId]/facilities/route";
 import * as linkRoute from "@/app/api/basins/[basinId]/facilities/[facilityId]/users/route";
 import * as usersRoute from "@/app/api/users/route";
-import { createDb, getDb, type Db } from "@/db/client";
+import { fileDb } from "../support/file-db";
 import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
 import { buildWorld, type World } from "../support/world";
 
-let db: Db;
+const db = fileDb();
 let w: World;
 beforeAll(async () => {
-  db = createDb(process.env.DATABASE_URL, 3);
   w = await buildWorld(db);
-});
-afterAll(async () => {
-  await db.destroy();
-  await getDb().destroy();
 });
 
 const validBasin = { name: "Fresh basin", slug: "fresh-basin", description: "", doCriterionMgL: 5, unitSystem: "SI" };

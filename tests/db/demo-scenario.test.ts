@@ -1,22 +1,13 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createDb, getDb, type Db } from "@/db/client";
-import { stopBoss } from "@/lib/jobs/queue";
+import { describe, expect, it } from "vitest";
 import { DEMO_STRESS_SCENARIO } from "@/lib/services/demo";
 import { createRun, getRun, processRun } from "@/lib/services/runs";
 import { createScenario } from "@/lib/services/scenarios";
 import { scenarioCreateSchema } from "@/lib/validation/scenario";
+import { fileDb } from "../support/file-db";
 import { commitDemo } from "../support/demo-network";
 import { buildWorld } from "../support/world";
 
-let db: Db;
-beforeAll(() => {
-  db = createDb(process.env.DATABASE_URL, 3);
-});
-afterAll(async () => {
-  await stopBoss();
-  await db.destroy();
-  await getDb().destroy();
-});
+const db = fileDb();
 
 /** The demo ships a scenario meant to show allocation at work: it must keep doing so. */
 describe("the demo's stressed scenario", () => {

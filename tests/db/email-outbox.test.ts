@@ -1,13 +1,13 @@
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
-import { createDb, type Db } from "@/db/client";
+import { afterAll, beforeEach, describe, expect, it } from "vitest";
 import { listOutbox } from "@/db/queries/email";
 import { startMailServer, type MailServer } from "@/lib/email/mailbox";
 import { queueEmail } from "@/lib/email/outbox";
 import { outboxMessageId, retryDelayMs, sendPending } from "@/lib/email/sender";
 import { reviewOpenedEmail } from "@/lib/email/templates";
 import { createMailer } from "@/lib/email/transport";
+import { fileDb } from "../support/file-db";
 
-let db: Db;
+const db = fileDb();
 
 const notice = (n: number) =>
   reviewOpenedEmail({
@@ -29,12 +29,6 @@ async function queue(n: number, dedupeKey = `review_opened:test:${n}`) {
 
 const rows = () => listOutbox(db);
 
-beforeAll(() => {
-  db = createDb(process.env.DATABASE_URL, 3);
-});
-afterAll(async () => {
-  await db.destroy();
-});
 // this file is the only one writing the outbox; each test starts from an empty one
 beforeEach(async () => {
   await db.deleteFrom("email_outbox").execute();

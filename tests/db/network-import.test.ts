@@ -1,32 +1,27 @@
 import { createHash } from "node:crypto";
 import { iter } from "but-unzip";
 import fc from "fast-check";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as fileRoute from "@/app/api/basins/[basinId]/imports/[importId]/file/route";
 import * as importsRoute from "@/app/api/basins/[basinId]/imports/route";
 import * as networkRoute from "@/app/api/basins/[basinId]/networks/[networkId]/route";
 import * as networksRoute from "@/app/api/basins/[basinId]/networks/route";
 import * as validateRoute from "@/app/api/basins/[basinId]/networks/validate/route";
 import * as mappingsRoute from "@/app/api/basins/[basinId]/field-mappings/route";
-import { createDb, getDb, type Db } from "@/db/client";
 import { DEMO_DISCHARGER_MAPPING, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
 import { writeZip } from "@/scripts/lib/zip-writer";
 import type { NetworkDto, NetworkSummaryDto } from "@/lib/services/networks";
 import type { ImportDto } from "@/lib/services/imports";
+import { fileDb } from "../support/file-db";
 import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
 import { demoFile, demoForm, uploadDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
 
-let db: Db;
+const db = fileDb();
 let w: World;
 beforeAll(async () => {
-  db = createDb(process.env.DATABASE_URL, 3);
   w = await buildWorld(db);
-});
-afterAll(async () => {
-  await db.destroy();
-  await getDb().destroy();
 });
 
 const count = async (table: "imports" | "networks" | "reaches" | "outfalls" | "facilities") =>

@@ -7,29 +7,24 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as csvRoute from "@/app/api/basins/[basinId]/plans/[planId]/csv/route";
 import * as geojsonRoute from "@/app/api/basins/[basinId]/plans/[planId]/geojson/route";
 import * as reportRoute from "@/app/api/basins/[basinId]/plans/[planId]/report/route";
-import { createDb, getDb, type Db } from "@/db/client";
 import { findBasinById, updateBasin } from "@/db/queries/basins";
 import { formatIn } from "@/lib/format/quantities";
-import { stopBoss } from "@/lib/jobs/queue";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { planReportPdf } from "@/lib/services/plan-reports";
 import { addComment, closeDueReviews, getPlan, publishPlan, respondToThread } from "@/lib/services/plans";
 import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
 import { planAt } from "../support/plan-fixture";
+import { fileDb } from "../support/file-db";
 import { buildWorld, type World } from "../support/world";
 
-let db: Db;
+const db = fileDb();
 let dir: string;
 beforeAll(async () => {
-  db = createDb(process.env.DATABASE_URL, 3);
   dir = mkdtempSync(join(tmpdir(), "sagline-report-"));
 });
 afterAll(async () => {
   rmSync(dir, { recursive: true, force: true });
-  await stopBoss();
-  await db.destroy();
-  await getDb().destroy();
 });
 
 /** The text of a PDF as poppler's pdftotext reads it, white space collapsed. */

@@ -1,28 +1,21 @@
 import { sql } from "kysely";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as planRoute from "@/app/api/basins/[basinId]/plans/[planId]/route";
 import * as plansRoute from "@/app/api/basins/[basinId]/plans/route";
 import * as reviewRoute from "@/app/api/basins/[basinId]/plans/[planId]/review/route";
 import * as commentsRoute from "@/app/api/basins/[basinId]/threads/[threadId]/comments/route";
 import * as responseRoute from "@/app/api/basins/[basinId]/threads/[threadId]/response/route";
-import { createDb, getDb, type Db } from "@/db/client";
-import { stopBoss } from "@/lib/jobs/queue";
 import { addComment, closeDueReviews, getPlan, publishPlan, respondToThread, withdrawPlan } from "@/lib/services/plans";
+import { fileDb } from "../support/file-db";
 import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
 
-let db: Db;
+const db = fileDb();
 let w: World;
 beforeAll(async () => {
-  db = createDb(process.env.DATABASE_URL, 3);
   w = await buildWorld(db);
-});
-afterAll(async () => {
-  await stopBoss();
-  await db.destroy();
-  await getDb().destroy();
 });
 
 const as = (key: keyof World["users"]) => w.users[key].id;

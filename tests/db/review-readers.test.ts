@@ -1,8 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as auditRoute from "@/app/api/basins/[basinId]/audit/route";
-import { createDb, getDb, type Db } from "@/db/client";
 import { findFacilityByPermit, linkFacilityUser } from "@/db/queries/facilities";
-import { stopBoss } from "@/lib/jobs/queue";
 import { listBasinAudit } from "@/lib/services/audit";
 import { followBasin } from "@/lib/services/follows";
 import { getMyFacilities } from "@/lib/services/my-facilities";
@@ -24,20 +22,13 @@ import {
   sendClosingSoonNotices,
   withdrawPlan,
 } from "@/lib/services/plans";
+import { fileDb } from "../support/file-db";
 import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
 
-let db: Db;
-beforeAll(() => {
-  db = createDb(process.env.DATABASE_URL, 3);
-});
-afterAll(async () => {
-  await stopBoss();
-  await db.destroy();
-  await getDb().destroy();
-});
+const db = fileDb();
 
 const HOUR = 3_600_000;
 const DAY = 24 * HOUR;

@@ -1,23 +1,16 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createDb, getDb, type Db } from "@/db/client";
-import { stopBoss } from "@/lib/jobs/queue";
+import { beforeAll, describe, expect, it } from "vitest";
 import { createRun, getRun, getRunJson, processRun } from "@/lib/services/runs";
 import { createScenario } from "@/lib/services/scenarios";
 import { scenarioCreateSchema } from "@/lib/validation/scenario";
+import { fileDb } from "../support/file-db";
 import { commitDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
 
-let db: Db;
+const db = fileDb();
 let w: World;
 beforeAll(async () => {
-  db = createDb(process.env.DATABASE_URL, 3);
   w = await buildWorld(db);
   await commitDemo(db, w.users.planner, w.basinId);
-});
-afterAll(async () => {
-  await stopBoss();
-  await db.destroy();
-  await getDb().destroy();
 });
 
 describe("reading a stored run as JSON text", () => {

@@ -1,31 +1,25 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as runRoute from "@/app/api/basins/[basinId]/runs/[runId]/route";
 import * as modelFileRoute from "@/app/api/basins/[basinId]/runs/[runId]/model-file/route";
 import * as scenarioRoute from "@/app/api/basins/[basinId]/scenarios/[scenarioId]/route";
 import * as scenarioRunsRoute from "@/app/api/basins/[basinId]/scenarios/[scenarioId]/runs/route";
 import * as scenariosRoute from "@/app/api/basins/[basinId]/scenarios/route";
 import * as duplicateRoute from "@/app/api/basins/[basinId]/scenarios/[scenarioId]/duplicate/route";
-import { createDb, getDb, type Db } from "@/db/client";
-import { getBoss, RUN_QUEUE, stopBoss } from "@/lib/jobs/queue";
+import { getBoss, RUN_QUEUE } from "@/lib/jobs/queue";
 import { allocate, runModel, type ModelFile } from "@/lib/model";
 import { getRun, processRun, type RunDto, type RunSummaryDto } from "@/lib/services/runs";
 import type { ScenarioDto } from "@/lib/services/scenarios";
+import { fileDb } from "../support/file-db";
 import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
 import { commitDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
 
-let db: Db;
+const db = fileDb();
 let w: World;
 beforeAll(async () => {
-  db = createDb(process.env.DATABASE_URL, 3);
   w = await buildWorld(db);
   await commitDemo(db, w.users.planner, w.basinId);
-});
-afterAll(async () => {
-  await stopBoss();
-  await db.destroy();
-  await getDb().destroy();
 });
 
 const as = (key: keyof World["users"]) => w.users[key].id;
