@@ -3,7 +3,7 @@ import { useMemo, useState } from "react";
 import { PlanningCaution } from "@/components/results/planning-caution";
 import { ProfileSection } from "@/components/results/profile-section";
 import { CsvButton, downloadCsv } from "@/components/tables/sortable-table";
-import { RESPONSIVENESS_COLUMNS, responsivenessPreface, responsivenessRows } from "@/lib/results/responsiveness";
+import { RESPONSIVENESS_COLUMNS, awaitsResponse, responsivenessPreface, responsivenessRows } from "@/lib/results/responsiveness";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
@@ -37,6 +37,9 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
   const { act, failure } = usePlanActs(basinId, plan.id);
   const load = unitLabel("load", unitSystem);
   const open = plan.review?.open === true;
+  const [onlyWaiting, setOnlyWaiting] = useState(false);
+  const waiting = plan.threads.filter(awaitsResponse);
+  const commentCount = plan.threads.reduce((n, t) => n + t.comments.length, 0);
   return (
     <div className="space-y-6" data-testid="plan-view">
       <PlanningCaution />
@@ -117,7 +120,17 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
           />
         </div>
         {!open && <p className="text-sm text-ink-soft">Comments are accepted only while a review period is open.</p>}
-        {plan.threads.map((t) => (
+        <div className="flex flex-wrap items-center gap-4 text-sm" data-testid="comment-counts">
+          <span>
+            {commentCount} comment{commentCount === 1 ? "" : "s"} in {plan.threads.filter((t) => t.comments.length > 0).length} of {plan.threads.length} threads;{" "}
+            <strong>{waiting.length}</strong> awaiting a response
+          </span>
+          <label className="flex items-center gap-2">
+            <input type="checkbox" checked={onlyWaiting} onChange={(e) => setOnlyWaiting(e.target.checked)} />
+            Show only threads awaiting a response
+          </label>
+        </div>
+        {(onlyWaiting ? waiting : plan.threads).map((t) => (
           <Thread key={t.id} thread={t} canComment={open && can.signedIn} canAnswer={can.answer && plan.status !== "published"} act={act} mine={!!t.facilityId && can.myFacilityIds.includes(t.facilityId)} />
         ))}
       </section>
@@ -174,7 +187,11 @@ export function Thread({ thread, canComment, canAnswer, act, mine }: { thread: P
     <article className={`card space-y-3 ${mine ? "ring-2 ring-ochre-500" : ""}`} aria-label={`Thread: ${title}`} data-testid="thread">
       <div className="flex items-center justify-between">
         <h3 className="font-semibold">{title}</h3>
-        <span className={`text-xs font-semibold ${thread.status === "addressed" ? "text-reed-700" : "text-ink-faint"}`}>{thread.status}</span>
+        {awaitsResponse(thread) ? (
+          <span className="text-xs font-semibold text-ochre-700">{thread.response ? "addressed; new comments since" : "awaiting a response"}</span>
+        ) : (
+          <span className={`text-xs font-semibold ${thread.status === "addressed" ? "text-reed-700" : "text-ink-faint"}`}>{thread.comments.length === 0 ? "no comments" : thread.status}</span>
+        )}
       </div>
       {thread.comments.length === 0 && <p className="text-sm text-ink-faint">No comments.</p>}
       <ul className="space-y-2">

@@ -58,3 +58,14 @@ export const RESPONSIVENESS_COLUMNS: CsvColumn<ResponsivenessRow>[] = [
 ];
 
 export const responsivenessPreface = (planTitle: string, version: number) => exportPreface(`Responsiveness summary: ${planTitle}, version ${version}`);
+
+/**
+ * Whether a thread waits for a planner: it has a comment and no response yet,
+ * or a comment written after the last response.
+ */
+export function awaitsResponse(thread: { comments: { at: string }[]; respondedAt: string | null }): boolean {
+  if (thread.comments.length === 0) return false;
+  if (!thread.respondedAt) return true;
+  const answered = Date.parse(thread.respondedAt);
+  return thread.comments.some((c) => Date.parse(c.at) > answered);
+}

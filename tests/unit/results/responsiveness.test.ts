@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
-import { responsivenessPreface, responsivenessRows } from "@/lib/results/responsiveness";
+import { awaitsResponse, responsivenessPreface, responsivenessRows } from "@/lib/results/responsiveness";
 
 const c = (author: string, at: string, body = "text") => ({ author, role: "stakeholder", body, at });
 
@@ -24,5 +24,15 @@ describe("responsiveness summary", () => {
     const preface = responsivenessPreface("Tamsel River plan", 2);
     expect(preface.slice(0, PLANNING_CAUTION.length)).toEqual([...PLANNING_CAUTION]);
     expect(preface.at(-1)).toMatch(/version 2/);
+  });
+});
+
+describe("threads awaiting a response", () => {
+  const at = (when: string) => ({ at: when });
+  it("waits when commented and unanswered, or commented again after the response", () => {
+    expect(awaitsResponse({ comments: [], respondedAt: null })).toBe(false);
+    expect(awaitsResponse({ comments: [at("2027-01-05T10:00:00Z")], respondedAt: null })).toBe(true);
+    expect(awaitsResponse({ comments: [at("2027-01-05T10:00:00Z")], respondedAt: "2027-01-06T09:00:00Z" })).toBe(false);
+    expect(awaitsResponse({ comments: [at("2027-01-05T10:00:00Z"), at("2027-01-07T08:00:00Z")], respondedAt: "2027-01-06T09:00:00Z" })).toBe(true);
   });
 });
