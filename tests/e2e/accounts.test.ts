@@ -2,8 +2,8 @@ import { mkdirSync } from "node:fs";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { DEMO_USERS } from "@/db/seed/demo-data";
-import { readMailbox } from "@/lib/email/mailbox";
 import { launchBrowser, signInAs } from "./support/browser";
+import { waitForMail } from "./support/mail";
 
 const baseUrl = inject("baseUrl");
 const mailDir = inject("mailDir");
@@ -17,17 +17,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-/** Waits for the worker to deliver a message to `address` through the fake SMTP server. */
-async function waitForMail(address: string, timeoutMs = 30_000) {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    const found = (await readMailbox(mailDir)).find((m) => m.to.includes(address));
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 500));
-  }
-  throw new Error(`no e-mail reached ${address} within ${timeoutMs} ms`);
-}
 
 describe("a member of the public creates an account", () => {
   it("registers, is told to confirm first, confirms through the e-mailed link and signs in", async () => {
@@ -55,7 +44,7 @@ describe("a member of the public creates an account", () => {
     await alert.waitFor();
     expect(await alert.textContent()).toMatch(/Confirm your e-mail address first/);
 
-    const mail = await waitForMail(email);
+    const mail = await waitForMail(mailDir, email);
     expect(mail.subject).toMatch(/Confirm your e-mail address/);
     const link = mail.text.match(/https?:\/\/\S+\/verify\?token=[A-Za-z0-9_-]+/)?.[0];
     expect(link, mail.text).toBeDefined();
@@ -102,7 +91,7 @@ describe("a lead invites a discharger by e-mail", () => {
     await page.screenshot({ path: `${SHOTS}/members-invitations.png`, fullPage: true });
     await page.close();
 
-    const mail = await waitForMail(email);
+    const mail = await waitForMail(mailDir, email);
     expect(mail.subject).toContain("Kestle Water basin");
     const link = mail.text.match(/https?:\/\/\S+\/invite\?token=[A-Za-z0-9_-]+/)?.[0];
     expect(link, mail.text).toBeDefined();
