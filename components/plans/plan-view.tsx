@@ -30,6 +30,15 @@ const fmtTime = (iso: string, timeZone: string) =>
     new Date(iso),
   );
 
+/** "closes in 3 days" / "closes in 5 hours" / "closes within the hour", from now. */
+function closesIn(endsAt: string): string {
+  const left = Date.parse(endsAt) - Date.now();
+  const hours = left / 3_600_000;
+  if (hours >= 48) return `closes in ${Math.floor(hours / 24)} days`;
+  if (hours >= 1) return `closes in ${Math.floor(hours)} hour${Math.floor(hours) === 1 ? "" : "s"}`;
+  return "closes within the hour";
+}
+
 /** A plan: its allocations, its review period, and one comment thread per facility plus one for the whole plan. */
 export function PlanView({ basinId, initial, unitSystem, can }: { basinId: string; initial: PlanDto; unitSystem: UnitSystem; can: PlanPermissions }) {
   const { data } = usePlanQuery(basinId, initial.id, initial);
@@ -58,6 +67,12 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
       {plan.review && (
         <Notice tone={open ? "info" : "warning"} title={open ? "Review period open" : "Review period"}>
           {fmtTime(plan.review.startsAt, plan.review.timeZone)} to {fmtTime(plan.review.endsAt, plan.review.timeZone)} ({plan.review.timeZone})
+          {open && (
+            <span suppressHydrationWarning className="font-semibold">
+              {" "}
+              — {closesIn(plan.review.endsAt)}
+            </span>
+          )}
           {plan.review.extensions.length > 0 && (
             <ul className="mt-1 list-disc pl-5">
               {plan.review.extensions.map((x, i) => (
@@ -182,6 +197,8 @@ export function usePlanActs(basinId: string, planId: string): { act: Act; failur
 export function Thread({ thread, canComment, canAnswer, act, mine }: { thread: PlanDto["threads"][number]; canComment: boolean; canAnswer: boolean; act: Act; mine: boolean }) {
   const [text, setText] = useState("");
   const [response, setResponse] = useState("");
+  // the box is open on one's own facility and on the plan as a whole; elsewhere one click away
+  const [writing, setWriting] = useState(mine || thread.facilityId === null);
   const title = thread.facilityName ? `${thread.facilityName} (${thread.permitId})` : "The plan as a whole";
   return (
     <article className={`card space-y-3 ${mine ? "ring-2 ring-ochre-500" : ""}`} aria-label={`Thread: ${title}`} data-testid="thread">
@@ -210,7 +227,12 @@ export function Thread({ thread, canComment, canAnswer, act, mine }: { thread: P
           <p className="whitespace-pre-wrap">{thread.response}</p>
         </div>
       )}
-      {canComment && (
+      {canComment && !writing && (
+        <Button variant="quiet" className="px-2 py-1" onClick={() => setWriting(true)}>
+          {thread.facilityId ? "Comment on this allocation" : "Comment on the plan"}
+        </Button>
+      )}
+      {canComment && writing && (
         <div className="space-y-2">
           <label className="sr-only" htmlFor={`comment-${thread.id}`}>
             Comment on {title}
