@@ -25,13 +25,21 @@ export default async function HomePage() {
         and the jurisdiction&apos;s water-quality standards and permitting rules take precedence.
       </p>
       {actor ? (
-        <Link href="/basins" className="rounded-md bg-tarn-600 px-4 py-2 font-medium text-white no-underline hover:bg-tarn-700 hover:no-underline">
-          Go to your basins
-        </Link>
+        <div className="flex flex-wrap items-center gap-4">
+          <Link href="/basins" className="rounded-md bg-tarn-600 px-4 py-2 font-medium text-white no-underline hover:bg-tarn-700 hover:no-underline">
+            Go to your basins
+          </Link>
+          <Link href="/reviews">Plans under review</Link>
+        </div>
       ) : (
-        <Link href="/signin" className="rounded-md bg-tarn-600 px-4 py-2 font-medium text-white no-underline hover:bg-tarn-700 hover:no-underline">
-          Sign in
-        </Link>
+        <div className="flex flex-wrap items-center gap-4">
+          <Link href="/signin" className="rounded-md bg-tarn-600 px-4 py-2 font-medium text-white no-underline hover:bg-tarn-700 hover:no-underline">
+            Sign in
+          </Link>
+          <span className="text-sm text-ink-soft">
+            No account? <Link href="/register">Create one</Link> to read plans under review and comment on them.
+          </span>
+        </div>
       )}
       <section className="mt-12" aria-label="Published plans">
         <h2 className="mb-3">Published plans</h2>
