@@ -16,7 +16,7 @@ export async function planReachLines(db: Db, planId: string) {
     .innerJoin("scenarios as s", "s.id", "r.scenario_id")
     .innerJoin("networks as n", "n.id", "s.network_id")
     .innerJoin("reaches as x", "x.network_id", "n.id")
-    .select(["n.id as network_id", "n.version as network_version", "x.reach_key", "x.name", "x.downstream_key", "x.coordinates"])
+    .select(["n.id as network_id", "n.version as network_version", "x.reach_key", "x.name", "x.length_km", "x.downstream_key", "x.coordinates"])
     .where("p.id", "=", planId)
     .orderBy("x.reach_key")
     .execute();

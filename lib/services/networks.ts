@@ -218,6 +218,16 @@ export interface NetworkDto extends NetworkSummaryDto {
   geojson: FeatureCollection;
 }
 
+/** A stored reach as a map feature (the maps key reaches by `reach:<id>`). */
+export function reachFeature(r: { reach_key: string; name: string | null; length_km: number; downstream_key: string | null; coordinates: number[][] }): Feature {
+  return {
+    type: "Feature",
+    id: `reach:${r.reach_key}`,
+    geometry: { type: "LineString", coordinates: r.coordinates },
+    properties: { kind: "reach", id: r.reach_key, name: r.name, lengthKm: r.length_km, downstreamId: r.downstream_key },
+  };
+}
+
 /** One network version with its reaches, nodes and outfalls (tables and map GeoJSON). */
 export async function getNetwork(db: Db, actor: Actor | null, basinId: string, networkId: string | "latest"): Promise<NetworkDto> {
   const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
@@ -226,14 +236,7 @@ export async function getNetwork(db: Db, actor: Actor | null, basinId: string, n
   if (!n) throw notFound("Network");
   const [nodes, reaches, outfalls] = await Promise.all([networkNodes(db, n.id), networkReaches(db, n.id), networkOutfalls(db, n.id)]);
   const features: Feature[] = [
-    ...reaches.map(
-      (r): Feature => ({
-        type: "Feature",
-        id: `reach:${r.reach_key}`,
-        geometry: { type: "LineString", coordinates: r.coordinates },
-        properties: { kind: "reach", id: r.reach_key, name: r.name, lengthKm: r.length_km, downstreamId: r.downstream_key },
-      }),
-    ),
+    ...reaches.map(reachFeature),
     ...nodes.map(
       (x): Feature => ({
         type: "Feature",

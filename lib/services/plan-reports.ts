@@ -1,4 +1,4 @@
-import type { Feature, FeatureCollection } from "geojson";
+import type { FeatureCollection } from "geojson";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
 import { findBasinById } from "@/db/queries/basins";
@@ -11,10 +11,10 @@ import { planReport, readSnapshot } from "@/lib/reports/plan-report-data";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { allocationCsv } from "@/lib/results/csv-rows";
 import { reachResultsExport } from "@/lib/results/results-geojson";
+import { reachFeature } from "./networks";
 import { getPlan, getPublishedPlan } from "./plans";
 
 export type PlanExportFormat = "pdf" | "csv" | "geojson";
-
 
 type PlanDto = Awaited<ReturnType<typeof getPlan>>;
 
@@ -44,14 +44,7 @@ async function recordExport(db: Db, actor: Actor | null, basinId: string, plan: 
 
 /** The reach lines of the network version the plan was computed on, as map features. */
 async function planNetwork(db: Db, planId: string): Promise<FeatureCollection> {
-  const rows = await planReachLines(db, planId);
-  const features: Feature[] = rows.map((r) => ({
-    type: "Feature",
-    id: `reach:${r.reach_key}`,
-    geometry: { type: "LineString", coordinates: r.coordinates },
-    properties: { kind: "reach", id: r.reach_key, name: r.name, downstreamId: r.downstream_key },
-  }));
-  return { type: "FeatureCollection", features };
+  return { type: "FeatureCollection", features: (await planReachLines(db, planId)).map(reachFeature) };
 }
 
 const about = (basinName: string, plan: PlanDto) => [
