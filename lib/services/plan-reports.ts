@@ -1,7 +1,6 @@
 import type { FeatureCollection } from "geojson";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
-import { findBasinById } from "@/db/queries/basins";
 import { planReachLines } from "@/db/queries/plan-reports";
 import type { Actor } from "@/lib/auth/guard";
 import { csvText } from "@/lib/reports/csv-text";
@@ -12,7 +11,7 @@ import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { allocationCsv } from "@/lib/results/csv-rows";
 import { reachResultsExport } from "@/lib/results/results-geojson";
 import { reachFeature } from "./networks";
-import { getPlan, getPublishedPlan } from "./plans";
+import { getPlan, getPlanForReader, getPublishedPlan } from "./plans";
 
 export type PlanExportFormat = "pdf" | "csv" | "geojson";
 
@@ -23,8 +22,7 @@ type PlanDto = Awaited<ReturnType<typeof getPlan>>;
  * plans in or after review anyone signed in, drafts planners and leads) and its basin.
  */
 async function readPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
-  const plan = await getPlan(db, actor, basinId, planId);
-  const basin = (await findBasinById(db, basinId))!;
+  const { plan, basin } = await getPlanForReader(db, actor, basinId, planId);
   const stem = `${basin.slug}-plan-v${plan.version}${plan.status === "published" ? "" : "-draft"}`;
   return { plan, basin, stem };
 }
@@ -56,7 +54,7 @@ const about = (basinName: string, plan: PlanDto) => [
 export async function planReportPdf(db: Db, actor: Actor | null, basinId: string, planId: string, now = new Date()): Promise<PlanDownload> {
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const network = await planNetwork(db, plan.id);
-  const report = planReport(plan, { name: basin.name, unitSystem: basin.unit_system }, network.features.length ? network : null, now);
+  const report = planReport(plan, { name: basin.name, unitSystem: basin.unitSystem }, network.features.length ? network : null, now);
   const bytes = await renderPlanPdf(report);
   await recordExport(db, actor, basin.id, plan, "pdf");
   return { body: new Uint8Array(bytes), contentType: "application/pdf", fileName: `${stem}.pdf` };
@@ -67,7 +65,7 @@ export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: s
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const s = readSnapshot(plan.snapshot);
   const names = Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]));
-  const text = csvText(allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unit_system, about(basin.name, plan), names));
+  const text = csvText(allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unitSystem, about(basin.name, plan), names));
   await recordExport(db, actor, basin.id, plan, "csv");
   return { body: text, contentType: "text/csv; charset=utf-8", fileName: `${stem}-allocations.csv` };
 }
