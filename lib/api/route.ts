@@ -14,10 +14,12 @@ export type Access =
   | { site: SiteAction }
   | { basin: BasinAction };
 
-interface Spec<P extends z.ZodType, B extends z.ZodType> {
+interface Spec<P extends z.ZodType, B extends z.ZodType, Q extends z.ZodType> {
   access: Access;
   params?: P;
   body?: B;
+  /** The query string (each parameter once, as text); a bad one is a 422 naming it. */
+  query?: Q;
   /**
    * multipart/form-data instead of JSON: the text fields are validated by
    * `body`, and the one file field named here arrives as `ctx.file`.
@@ -32,19 +34,20 @@ interface Spec<P extends z.ZodType, B extends z.ZodType> {
   status?: number;
 }
 
-export interface RouteContext<P, B> {
+export interface RouteContext<P, B, Q = Record<string, string>> {
   db: Db;
   req: NextRequest;
   actor: Actor | null;
   params: P;
   body: B;
+  query: Q;
   /** Set when access is { basin: … }: the basin and the actor's role in it. */
   access: BasinAccess | null;
   /** The uploaded file, when the spec names a fileField. */
   file: { name: string; bytes: Buffer } | null;
 }
 
-type Handler<P, B> = (ctx: RouteContext<P, B>) => Promise<unknown>;
+type Handler<P, B, Q> = (ctx: RouteContext<P, B, Q>) => Promise<unknown>;
 
 async function readJson(req: NextRequest): Promise<unknown> {
   const text = await req.text();
@@ -72,10 +75,11 @@ async function readForm(req: NextRequest): Promise<FormData> {
  * The only way to write an API route: session → permission → params/body
  * validation → service → JSON, with every error mapped in one place.
  */
-export function route<P extends z.ZodType = z.ZodType<Record<string, string>>, B extends z.ZodType = z.ZodType<undefined>>(
-  spec: Spec<P, B>,
-  handler: Handler<z.infer<P>, z.infer<B>>,
-) {
+export function route<
+  P extends z.ZodType = z.ZodType<Record<string, string>>,
+  B extends z.ZodType = z.ZodType<undefined>,
+  Q extends z.ZodType = z.ZodType<Record<string, string>>,
+>(spec: Spec<P, B, Q>, handler: Handler<z.infer<P>, z.infer<B>, z.infer<Q>>) {
   return async (req: NextRequest, ctx: { params: Promise<Record<string, string | string[]>> }): Promise<Response> => {
     try {
       const db = getDb();
@@ -101,8 +105,15 @@ export function route<P extends z.ZodType = z.ZodType<Record<string, string>>, B
         access = await requireBasinAction(db, actor, basinId, spec.access.basin);
       }
 
+      let query = Object.fromEntries(req.nextUrl.searchParams) as z.infer<Q>;
+      if (spec.query) {
+        const parsed = spec.query.safeParse(query);
+        if (!parsed.success) throw invalid(parsed.error, "query string");
+        query = parsed.data;
+      }
+
       let body = undefined as z.infer<B>;
-      let file: RouteContext<unknown, unknown>["file"] = null;
+      let file: RouteContext<unknown, unknown, unknown>["file"] = null;
       if (spec.fileField) {
         const declared = Number(req.headers.get("content-length") ?? NaN);
         const limit = spec.maxUploadBytes?.();
@@ -132,7 +143,7 @@ export function route<P extends z.ZodType = z.ZodType<Record<string, string>>, B
         body = parsed.data;
       }
 
-      const result = await handler({ db, req, actor, params, body, access, file });
+      const result = await handler({ db, req, actor, params, body, query, access, file });
       if (result instanceof Response) return result;
       const status = spec.status ?? 200;
       if (status === 204 || result === undefined) return new NextResponse(null, { status: 204 });

@@ -1,7 +1,7 @@
 import type { Db } from "@/db/client";
 import { listAuditEvents } from "@/db/queries/audit";
 import { requireBasinAction, type Actor } from "@/lib/auth/guard";
-import { AppError } from "@/lib/errors";
+import type { AuditQuery } from "@/lib/validation/audit";
 
 export interface AuditEventDto {
   id: string;
@@ -13,31 +13,27 @@ export interface AuditEventDto {
   actor: string | null;
 }
 
+type AuditArea = NonNullable<AuditQuery["area"]>;
+
 /** The audit trail's areas, each a set of action prefixes. */
-export const AUDIT_AREAS = {
+export const AUDIT_AREAS: Record<AuditArea, { label: string; prefixes: readonly string[] }> = {
   plans: { label: "Plans and review", prefixes: ["plan.", "review.", "comment.", "thread."] },
   members: { label: "Basin, members and facilities", prefixes: ["basin.", "member.", "facility.", "invitation.", "user."] },
   network: { label: "Imports and network", prefixes: ["import.", "network."] },
   scenarios: { label: "Scenarios and runs", prefixes: ["scenario.", "run."] },
-} as const;
-export type AuditArea = keyof typeof AUDIT_AREAS;
+};
 
-export const isAuditArea = (value: unknown): value is AuditArea => typeof value === "string" && value in AUDIT_AREAS;
-
-/** A page of the basin's audit trail, newest first (leads and admins). */
+/** A page of the basin's audit trail, newest first (leads and admins); `options` as auditQuerySchema checks them. */
 export async function listBasinAudit(
   db: Db,
   actor: Actor | null,
   basinId: string,
-  options: { area?: AuditArea; beforeId?: string; limit?: number } = {},
+  options: AuditQuery & { limit?: number } = {},
 ): Promise<AuditEventDto[]> {
   const { basin } = await requireBasinAction(db, actor, basinId, "audit.read");
-  if (options.beforeId !== undefined && !/^[1-9]\d{0,17}$/.test(options.beforeId)) {
-    throw new AppError("invalid", "Not an audit event id", [{ path: "before", message: "Give the id of an audit event" }]);
-  }
   const rows = await listAuditEvents(db, basin.id, {
     prefixes: options.area ? [...AUDIT_AREAS[options.area].prefixes] : undefined,
-    beforeId: options.beforeId,
+    beforeId: options.before,
     limit: options.limit,
   });
   return rows.map((r) => ({

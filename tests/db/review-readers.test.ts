@@ -267,7 +267,7 @@ describe("the audit trail", () => {
   it("pages backwards by event id without gaps or repeats", async () => {
     const all = await listBasinAudit(db, w.users.lead, w.basinId);
     const first = await listBasinAudit(db, w.users.lead, w.basinId, { limit: 3 });
-    const rest = await listBasinAudit(db, w.users.lead, w.basinId, { beforeId: first[2].id });
+    const rest = await listBasinAudit(db, w.users.lead, w.basinId, { before: first[2].id });
     expect([...first, ...rest].map((e) => e.id)).toEqual(all.map((e) => e.id));
   });
 

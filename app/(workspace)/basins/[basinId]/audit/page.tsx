@@ -4,7 +4,8 @@ import { AuditTable } from "@/components/tables/audit-table";
 import { Denied } from "@/components/ui/denied";
 import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
-import { AUDIT_AREAS, isAuditArea, listBasinAudit } from "@/lib/services/audit";
+import { AUDIT_AREAS, listBasinAudit } from "@/lib/services/audit";
+import { auditQuerySchema } from "@/lib/validation/audit";
 
 export const metadata: Metadata = { title: "Audit trail" };
 
@@ -22,9 +23,10 @@ export default async function AuditPage({
   const query = await searchParams;
   const access = await basinPageAccess(basinId, "audit.read");
   if (!access.ok) return <Denied message={access.message} />;
-  const area = isAuditArea(query.area) ? query.area : undefined;
-  const before = query.before && /^[1-9]\d{0,17}$/.test(query.before) ? query.before : undefined;
-  const events = await listBasinAudit(getDb(), access.actor, access.basin.id, { area, beforeId: before, limit: PAGE });
+  // a hand-edited address that does not parse shows the newest events of every area
+  const parsed = auditQuerySchema.safeParse(query);
+  const { area, before } = parsed.success ? parsed.data : {};
+  const events = await listBasinAudit(getDb(), access.actor, access.basin.id, { area, before, limit: PAGE });
   const base = `/basins/${access.basin.id}/audit`;
   const href = (a?: string, b?: string) => {
     const q = new URLSearchParams();
