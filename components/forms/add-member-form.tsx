@@ -3,10 +3,10 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
+import { RoleSelect } from "./role-select";
 import { Field } from "@/components/ui/field";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
-import { BASIN_ROLES } from "@/lib/auth/permissions";
 import { useAddMemberMutation } from "@/lib/queries/members";
 import { memberAddSchema, type MemberAddInput } from "@/lib/validation/member";
 
@@ -35,18 +35,7 @@ export function AddMemberForm({ basinId }: { basinId: string }) {
       {failure && <Notice tone="error">{failure}</Notice>}
       <div className="grid gap-3 sm:grid-cols-[1fr_12rem_auto] sm:items-start">
         <Field label="E-mail of an existing account" type="email" error={errors.email?.message} {...register("email")} />
-        <div>
-          <label htmlFor="member-role" className="field-label">
-            Role
-          </label>
-          <select id="member-role" className="field-input" {...register("role")}>
-            {BASIN_ROLES.map((r) => (
-              <option key={r} value={r}>
-                {r}
-              </option>
-            ))}
-          </select>
-        </div>
+        <RoleSelect id="member-role" field={register("role")} />
         <Button type="submit" className="sm:mt-6" disabled={isSubmitting}>
           Add member
         </Button>

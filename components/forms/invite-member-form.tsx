@@ -4,10 +4,10 @@ import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { useInviteMutation } from "@/components/basins/invitation-queries";
 import { Button } from "@/components/ui/button";
+import { RoleSelect } from "./role-select";
 import { Field } from "@/components/ui/field";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
-import { BASIN_ROLES } from "@/lib/auth/permissions";
 import type { FacilityDto } from "@/lib/services/dto";
 import { invitationCreateSchema, type InvitationCreateInput } from "@/lib/validation/account";
 
@@ -48,18 +48,7 @@ export function InviteMemberForm({ basinId, facilities }: { basinId: string; fac
       {sent && <Notice tone="success">Invitation sent to {sent}. The link works for 14 days.</Notice>}
       <div className="grid gap-3 sm:grid-cols-[1fr_10rem_14rem_auto] sm:items-start">
         <Field label="E-mail to invite" id="invite-email" type="email" error={errors.email?.message} {...register("email")} />
-        <div>
-          <label htmlFor="invite-role" className="field-label">
-            Role
-          </label>
-          <select id="invite-role" className="field-input" {...register("role")}>
-            {BASIN_ROLES.map((r) => (
-              <option key={r} value={r}>
-                {r}
-              </option>
-            ))}
-          </select>
-        </div>
+        <RoleSelect id="invite-role" field={register("role")} />
         <div>
           <label htmlFor="invite-facility" className="field-label">
             Facility (dischargers)
