@@ -35,10 +35,10 @@ const ACTION_TEXT: Record<string, string> = {
   "thread.addressed": "Thread answered",
 };
 
-export const actionText = (action: string) => ACTION_TEXT[action] ?? action;
+const actionText = (action: string) => ACTION_TEXT[action] ?? action;
 
 /** "key: value" pairs of an event's details, on one line. */
-export function detailText(details: Record<string, unknown>): string {
+function detailText(details: Record<string, unknown>): string {
   return Object.entries(details)
     .map(([k, v]) => `${k}: ${typeof v === "object" && v !== null ? JSON.stringify(v) : String(v)}`)
     .join("; ");
