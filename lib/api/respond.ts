@@ -1,5 +1,6 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
+import { isDatabaseUnavailable, noteDatabaseDown } from "@/db/client";
 import { AppError, type FieldIssue } from "@/lib/errors";
 
 /** zod issues → `{ path, message }` with dotted paths ("" becomes "body"). */
@@ -12,6 +13,15 @@ export function errorResponse(error: unknown): NextResponse {
     return NextResponse.json(
       { error: { code: error.code, message: error.message, ...(error.details ? { details: error.details } : {}) } },
       { status: error.status },
+    );
+  }
+  // PostgreSQL down or restarting: not the caller's fault and worth trying again
+  // shortly. Logged once per outage (db/client), not once per request.
+  if (isDatabaseUnavailable(error)) {
+    noteDatabaseDown("api", error);
+    return NextResponse.json(
+      { error: { code: "unavailable", message: "The database is not reachable right now; try again in a minute" } },
+      { status: 503, headers: { "retry-after": "10" } },
     );
   }
   // Unexpected: log it here, once, and tell the caller nothing internal.

@@ -2,9 +2,11 @@ import { LRUCache } from "lru-cache";
 import { createHash } from "node:crypto";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
-import { findDoneRunByHash, findRun, findRunJsonText, findScenario, insertRun, listRuns as listRunRows, runForWork, setRunState } from "@/db/queries/scenarios";
+import { isDatabaseUnavailable } from "@/db/client";
+import { listUnfinishedRuns, setUnfinishedRunState } from "@/db/queries/run-faults";
+import { findDoneRunByHash, findRun, findRunJsonText, findScenario, insertRun, listRuns as listRunRows, runForWork } from "@/db/queries/scenarios";
 import type { RunKind } from "@/db/schema";
-import { enqueueRun } from "@/lib/jobs/queue";
+import { enqueueRun, findRunJob, runTimeLimitSeconds } from "@/lib/jobs/queue";
 import { allocate, ModelInputError, runModel, type AllocationResult, type ModelFile, type RunResult } from "@/lib/model";
 import { requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, notFound } from "@/lib/errors";
@@ -139,14 +141,10 @@ export async function createRun(
       targetId: run.id,
       details: { scenario: scenario.name, kind },
     });
+    // the job is written in this transaction: no run row without its job, and no job without its run
+    await enqueueRun(run.id, trx);
     return run;
   });
-  try {
-    await enqueueRun(id);
-  } catch (error) {
-    await setRunState(db, id, { status: "failed", error: "The job queue could not be reached; try again", finished: true });
-    console.error("[runs] enqueue failed", error);
-  }
   return { ...summary((await findRun(db, basin.id, id, false))!), reused: false };
 }
 
@@ -180,11 +178,17 @@ export function withAllocatedLoads(file: ModelFile, allocation: AllocationResult
   };
 }
 
-/** The job: compute a queued run and store its result or its failure reason. */
+/**
+ * The job: compute a queued run and store its result or its failure reason.
+ * Every write applies only while the run is unfinished, so a run the sweeper
+ * has failed stays failed. A lost database connection is thrown (nothing can
+ * be stored; the worker tries again when the database is back); any other
+ * error fails the run with a readable reason and is logged once with its stack.
+ */
 export async function processRun(db: Db, runId: string): Promise<void> {
   const run = await runForWork(db, runId);
-  if (!run || run.status === "done") return;
-  await setRunState(db, runId, { status: "running", progress: 0.05, started: true });
+  if (!run || run.status === "done" || run.status === "failed") return;
+  if (!(await setUnfinishedRunState(db, runId, { status: "running", progress: 0.05, started: true }))) return;
   try {
     const inputs = run.model_file as unknown as RunInputs;
     let payload: RunResultPayload;
@@ -192,18 +196,18 @@ export async function processRun(db: Db, runId: string): Promise<void> {
       const conditions: RunResultPayload["conditions"] = [];
       for (const [i, f] of inputs.files.entries()) {
         conditions.push({ name: f.name, run: runModel(f.file) });
-        await setRunState(db, runId, { status: "running", progress: 0.05 + (0.9 * (i + 1)) / inputs.files.length });
+        await setUnfinishedRunState(db, runId, { status: "running", progress: 0.05 + (0.9 * (i + 1)) / inputs.files.length });
       }
       payload = { warnings: inputs.warnings, conditions };
     } else {
       const { name, file } = inputs.files[0];
       const allocation = allocate(file);
-      await setRunState(db, runId, { status: "running", progress: 0.7 });
+      await setUnfinishedRunState(db, runId, { status: "running", progress: 0.7 });
       const { allocation: _a, ...plain } = file;
       const after = allocation.feasible ? runModel(withAllocatedLoads(plain, allocation)) : runModel(plain);
       payload = { warnings: inputs.warnings, conditions: [{ name, run: after }], allocation };
     }
-    await setRunState(db, runId, {
+    await setUnfinishedRunState(db, runId, {
       status: "done",
       progress: 1,
       result: payload,
@@ -211,8 +215,62 @@ export async function processRun(db: Db, runId: string): Promise<void> {
       finished: true,
     });
   } catch (error) {
-    await setRunState(db, runId, { status: "failed", error: failureReason(error), finished: true });
+    if (isDatabaseUnavailable(error)) throw error;
+    if (!(error instanceof ModelInputError)) console.error(`[runs] run ${runId} failed`, error);
+    await setUnfinishedRunState(db, runId, { status: "failed", error: failureReason(error), finished: true });
   }
+}
+
+/** What the queue knows of a run's job (lib/jobs/queue findRunJob; replaceable in tests). */
+export type RunJobLookup = (runId: string) => Promise<{ state: string; output: unknown } | null>;
+
+/** How long a run's job may be missing from the queue before its run is failed (covers a queue being reset). */
+const MISSING_JOB_GRACE_MS = 60_000;
+
+function jobFailureMessage(output: unknown): string {
+  const o = output as { message?: unknown; value?: { message?: unknown } } | null;
+  const m = o?.message ?? o?.value?.message;
+  return typeof m === "string" ? m : "";
+}
+
+/** The reason a planner reads when a run's job ended without the run finishing. */
+export function reasonForJob(job: { state: string; output: unknown } | null, limitSeconds = runTimeLimitSeconds()): string | null {
+  const limit = limitSeconds >= 120 ? `${Math.round(limitSeconds / 60)} minutes` : `${limitSeconds} seconds`;
+  if (!job) return "The run's job is no longer on the queue (the queue was cleared), so it will not be computed. Run it again.";
+  if (job.state === "cancelled") return "The run's job was cancelled before it finished. Run it again.";
+  if (job.state === "completed") return "The worker finished the run's job without storing a result. Run it again.";
+  if (job.state !== "failed") return null;
+  const message = jobFailureMessage(job.output);
+  if (/timeout|exceeded/i.test(message)) return `The run did not finish within its time limit of ${limit}, also when tried again. Run it again; if it keeps happening, tell the operator.`;
+  if (isDatabaseUnavailable({ message })) return "The worker lost its database connection while computing this run, also when tried again. Run it again.";
+  return "The worker could not finish this run, also when tried again. Run it again; if it keeps happening, tell the operator.";
+}
+
+/**
+ * The worker's sweep: fail every run that will never finish on its own —
+ * its job failed (error or time limit, retries spent), was cancelled, or is
+ * gone from the queue, or it has been running longer than the time limit
+ * with a job nobody is working (its worker died). Each failure gets a reason
+ * for the planner and one log line for the operator. Returns how many it failed.
+ */
+export async function sweepStuckRuns(db: Db, lookupJob: RunJobLookup = findRunJob, now = new Date()): Promise<number> {
+  const limitMs = runTimeLimitSeconds() * 1000;
+  let failed = 0;
+  for (const run of await listUnfinishedRuns(db, now)) {
+    const job = await lookupJob(run.id);
+    let reason = reasonForJob(job);
+    if (!job && now.getTime() - run.created_at.getTime() < MISSING_JOB_GRACE_MS) reason = null;
+    // an active job past its limit is failed by pg-boss's maintenance; this catches a worker gone without it
+    if (!reason && job?.state === "active" && run.status === "running" && run.started_at && now.getTime() - run.started_at.getTime() > limitMs + MISSING_JOB_GRACE_MS) {
+      reason = "The worker stopped while computing this run (it may have been restarted). Run it again.";
+    }
+    if (!reason) continue;
+    if (await setUnfinishedRunState(db, run.id, { status: "failed", error: reason, finished: true })) {
+      failed += 1;
+      console.error(`[runs] run ${run.id} failed by the sweeper: job ${job ? job.state : "missing"}${jobFailureMessage(job?.output) ? ` (${jobFailureMessage(job?.output)})` : ""}`);
+    }
+  }
+  return failed;
 }
 
 export async function listRuns(db: Db, actor: Actor | null, basinId: string, scenarioId?: string): Promise<RunSummaryDto[]> {
