@@ -35,9 +35,26 @@ export SAGLINE_DEV_PAGES="${SAGLINE_DEV_PAGES:-1}"
 setsid npx tsx scripts/fake-smtp.ts &
 SMTP_PID=$!
 
-say "Starting the background worker (model and allocation runs, e-mail outbox)"
-# its own process group, so stopping it also stops the node process under npx
-setsid npx tsx scripts/worker.ts &
+# Run a command again whenever it exits (a crash, an out-of-memory kill), waiting
+# 1, 2, 4 … up to 30 s between tries; after a minute of running the wait starts
+# again at 1 s. Stopping the loop's process group stops the loop and the command.
+supervise() {
+  local name="$1" delay=1 started status
+  shift
+  while true; do
+    started=$SECONDS
+    status=0
+    "$@" || status=$?
+    if (( SECONDS - started >= 60 )); then delay=1; fi
+    echo "[start] the $name exited (status $status); starting it again in $delay s" >&2
+    sleep "$delay"
+    delay=$(( delay * 2 > 30 ? 30 : delay * 2 ))
+  done
+}
+
+say "Starting the background worker (model and allocation runs, e-mail outbox), restarted if it exits"
+# its own process group, so stopping it also stops the loop and the node process under npx
+setsid bash -c "$(declare -f supervise); supervise worker npx tsx scripts/worker.ts" &
 WORKER_PID=$!
 trap 'kill -- "-$WORKER_PID" 2>/dev/null || true; kill -- "-$SMTP_PID" 2>/dev/null || true' EXIT INT TERM
 
