@@ -7,7 +7,7 @@ import * as scenariosRoute from "@/app/api/basins/[basinId]/scenarios/route";
 import * as duplicateRoute from "@/app/api/basins/[basinId]/scenarios/[scenarioId]/duplicate/route";
 import { getBoss, RUN_QUEUE } from "@/lib/jobs/queue";
 import { allocate, runModel, type ModelFile } from "@/lib/model";
-import { getRun, processRun, type RunDto, type RunSummaryDto } from "@/lib/services/runs";
+import { getRun, processRun, sweepStuckRuns, type RunDto, type RunSummaryDto } from "@/lib/services/runs";
 import type { ScenarioDto } from "@/lib/services/scenarios";
 import { fileDb } from "../support/file-db";
 import { callRoute } from "../support/call-route";
@@ -170,6 +170,62 @@ describe("runs", () => {
     expect(res.status).toBe(422);
     expect(err(res.json).details![0].path).toMatch(/SR-01/);
     expect(await db.selectFrom("runs").select("id").where("basin_id", "=", other.basinId).execute()).toEqual([]);
+  });
+
+  it("a run that cannot finish on its own is failed by the sweeper with a reason; a finished one is never touched", async () => {
+    // inputs no other test uses: equal inputs would be served from an earlier finished run
+    const s = await createScenario("Swept", { stepKm: 0.37 });
+    const ids: string[] = [];
+    for (let i = 0; i < 5; i++) ids.push(((await queueRun(s.id, "model")).json as RunSummaryDto).id);
+    expect(new Set(ids).size).toBe(5);
+    const [lost, fresh, dead, timedOut, retrying] = ids;
+    const ago = (ms: number) => new Date(Date.now() - ms);
+    await db.updateTable("runs").set({ created_at: ago(10 * 60_000) }).where("id", "in", [lost, dead, timedOut, retrying]).execute();
+    // the worker died mid-run: still "running", started past the time limit, its job still active
+    await db.updateTable("runs").set({ status: "running", started_at: ago(3 * 3600_000) }).where("id", "in", [dead, retrying]).execute();
+    const jobs: Record<string, { state: string; output: unknown } | null> = {
+      [lost]: null,
+      [fresh]: null,
+      [dead]: { state: "active", output: null },
+      [timedOut]: { state: "failed", output: { value: { message: "job failed by timeout in active state" } } },
+      [retrying]: { state: "retry", output: null },
+    };
+    const failed = await sweepStuckRuns(db, async (id) => (id in jobs ? jobs[id] : { state: "created", output: null }));
+    expect(failed).toBe(3);
+    const rows = Object.fromEntries(
+      (await db.selectFrom("runs").select(["id", "status", "error", "finished_at"]).where("id", "in", ids).execute()).map((r) => [r.id, r]),
+    );
+    expect(rows[lost]).toMatchObject({ status: "failed", error: expect.stringMatching(/no longer on the queue.*Run it again/) });
+    expect(rows[dead]).toMatchObject({ status: "failed", error: expect.stringMatching(/worker stopped while computing/) });
+    expect(rows[timedOut]).toMatchObject({ status: "failed", error: expect.stringMatching(/did not finish within its time limit of 10 minutes/) });
+    expect(rows[lost].finished_at).not.toBeNull();
+    // a job just queued may not be visible yet, and a job waiting for its retry will run again
+    expect(rows[fresh].status).toBe("queued");
+    expect(rows[retrying].status).toBe("running");
+
+    // a late worker cannot overwrite the failure it was given
+    await processRun(db, dead);
+    expect((await readRun(dead)).status).toBe("failed");
+
+    // the planner runs it again: a new run (a failed one is never served for equal inputs), computed anew
+    const again = (await queueRun(s.id, "model")).json as RunSummaryDto & { reused: boolean };
+    expect(again.reused).toBe(false);
+    expect(ids).not.toContain(again.id);
+    await processRun(db, again.id);
+    expect((await readRun(again.id)).status).toBe("done");
+    // and once done, equal inputs are served from it; the sweeper leaves it alone
+    const third = (await queueRun(s.id, "model")).json as RunSummaryDto & { reused: boolean };
+    expect(third).toMatchObject({ id: again.id, reused: true });
+    await sweepStuckRuns(db, async (id) => (id === again.id ? null : { state: "created", output: null }), new Date(Date.now() + 86_400_000));
+    expect((await readRun(again.id)).status).toBe("done");
+  });
+
+  it("a run's job is queued under the run's id, with one retry and a time limit", async () => {
+    const s = await createScenario("Job id", { stepKm: 0.41 });
+    const summary = (await queueRun(s.id, "model")).json as RunSummaryDto;
+    const job = await (await getBoss(process.env.DATABASE_URL)).getJobById(RUN_QUEUE, summary.id);
+    expect(job).toMatchObject({ id: summary.id, data: { runId: summary.id }, retryLimit: 1 });
+    expect(job!.expireInSeconds).toBe(600);
   });
 
   it("runs off the request thread on the PostgreSQL job queue", async () => {
