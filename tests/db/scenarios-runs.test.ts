@@ -1,3 +1,4 @@
+import { sql } from "kysely";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as runRoute from "@/app/api/basins/[basinId]/runs/[runId]/route";
 import * as modelFileRoute from "@/app/api/basins/[basinId]/runs/[runId]/model-file/route";
@@ -180,7 +181,8 @@ describe("runs", () => {
     expect(new Set(ids).size).toBe(5);
     const [lost, fresh, dead, timedOut, retrying] = ids;
     const ago = (ms: number) => new Date(Date.now() - ms);
-    await db.updateTable("runs").set({ created_at: ago(10 * 60_000) }).where("id", "in", [lost, dead, timedOut, retrying]).execute();
+    // created_at is not updatable through the app's types: queued ten minutes ago
+    await sql`update runs set created_at = now() - interval '10 minutes' where id = any(${[lost, dead, timedOut, retrying]}::uuid[])`.execute(db);
     // the worker died mid-run: still "running", started past the time limit, its job still active
     await db.updateTable("runs").set({ status: "running", started_at: ago(3 * 3600_000) }).where("id", "in", [dead, retrying]).execute();
     const jobs: Record<string, { state: string; output: unknown } | null> = {
