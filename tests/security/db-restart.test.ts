@@ -117,8 +117,19 @@ describe("a PostgreSQL restart under a running worker", () => {
     worker.kill("SIGSTOP");
     const before = await queue(1, "allocation");
     expect(before.status).toBe("queued");
+    // a connection open across the shutdown: the server ends it (57P01 admin_shutdown)
+    const held = new pg.Client({ connectionString: url });
+    const heldErrors: unknown[] = [];
+    held.on("error", (e) => heldErrors.push(e));
+    await held.connect();
     cluster("stop");
     worker.kill("SIGCONT");
+    const cut = await held.query("select 1").then(
+      () => null,
+      (e: unknown) => e,
+    );
+    expect([...heldErrors, cut].some((e) => (e as { code?: string })?.code === "57P01"), String(heldErrors)).toBe(true);
+    for (const e of [...heldErrors, cut]) expect(errorResponse(e).status, String(e)).toBe(503);
 
     // the web side while the database is down
     const status = await callRoute(runStatusRoute.GET, "GET", { userId: w.users.planner.id, params: { basinId: w.basinId, runId: before.id } });
