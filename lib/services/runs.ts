@@ -1,8 +1,7 @@
 import { LRUCache } from "lru-cache";
 import { createHash } from "node:crypto";
-import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
-import { isDatabaseUnavailable } from "@/db/client";
+import { isDatabaseUnavailable, type Db } from "@/db/client";
 import { listUnfinishedRuns, setUnfinishedRunState } from "@/db/queries/run-faults";
 import { findDoneRunByHash, findRun, findRunJsonText, findScenario, insertRun, listRuns as listRunRows, runForWork } from "@/db/queries/scenarios";
 import type { RunKind } from "@/db/schema";
