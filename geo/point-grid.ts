@@ -39,7 +39,7 @@ export class PointGrid {
     for (let dx = -1; dx <= 1; dx++) {
       for (let dy = -1; dy <= 1; dy++) {
         const bucket = this.cells.get(this.key(x + dx, y + dy));
-        if (bucket) out.push(...bucket);
+        if (bucket) for (const i of bucket) out.push(i);
       }
     }
     return out;

@@ -67,3 +67,11 @@ export function nameList(names: readonly string[], max = 10): string {
   if (names.length <= max) return names.join(", ");
   return `${names.slice(0, max).join(", ")} and ${names.length - max} more`;
 }
+
+/**
+ * Appends `items` to `target` one by one. `target.push(...items)` passes every item as an
+ * argument and overflows the call stack past ~100k items (a 200k-row CSV did).
+ */
+export function appendAll<T>(target: T[], ...lists: ReadonlyArray<readonly T[]>): void {
+  for (const items of lists) for (const item of items) target.push(item);
+}

@@ -1,7 +1,8 @@
-import { distance, kinks, length, lineString } from "@turf/turf";
+import { distance, length, lineString } from "@turf/turf";
 import type { Geometry, MultiPoint } from "geojson";
 import { coordinateProblem } from "./coordinates";
 import { error, warning, type Problem } from "./problems";
+import { selfCrossings } from "./self-crossings";
 import type { LngLat } from "./types";
 
 export interface PreparedLine {
@@ -71,10 +72,11 @@ export function prepareReachLine(geometry: Geometry | null, who: string, toleran
     return error("zero_length", `${who} has zero length`, [who], at ? { geometry: { type: "Point", coordinates: at } } : {});
   }
   const problems: Problem[] = [];
-  const crossings = coordinates.length >= 4 ? kinks(lineString(coordinates)).features : [];
-  if (crossings.length > 0) {
-    const at: MultiPoint = { type: "MultiPoint", coordinates: crossings.map((f) => f.geometry.coordinates) };
-    problems.push(warning("self_crossing", `${who} crosses itself at ${crossings.length} point(s); check the digitising`, [who], { geometry: at }));
+  const crossings = selfCrossings(coordinates);
+  if (crossings.points.length > 0) {
+    const at: MultiPoint = { type: "MultiPoint", coordinates: crossings.points };
+    const count = `${crossings.truncated ? "at least " : ""}${crossings.points.length}`;
+    problems.push(warning("self_crossing", `${who} crosses itself at ${count} point(s); check the digitising`, [who], { geometry: at }));
   }
   return { coordinates, lengthKm, problems };
 }

@@ -1,6 +1,5 @@
-import { lengthToDegrees, lineString, nearestPointOnLine } from "@turf/turf";
-import type { LineString } from "geojson";
 import { error, warning, type Problem } from "./problems";
+import { SegmentIndex, type SegmentHit } from "./segment-index";
 import type { LngLat } from "./types";
 
 /** A reach as the snapping sees it: oriented head first, with its geometric and model lengths. */
@@ -41,43 +40,11 @@ export interface SnappedPoint {
   assignment: "nearest" | "reassigned" | "unplaced";
 }
 
-const RADIANS_PER_DEGREE = Math.PI / 180;
-
-interface Box {
-  minLon: number;
-  minLat: number;
-  maxLon: number;
-  maxLat: number;
-}
-
-const boxOf = (cs: readonly LngLat[]): Box =>
-  cs.reduce(
-    (b, [lon, lat]) => ({
-      minLon: Math.min(b.minLon, lon),
-      minLat: Math.min(b.minLat, lat),
-      maxLon: Math.max(b.maxLon, lon),
-      maxLat: Math.max(b.maxLat, lat),
-    }),
-    { minLon: Infinity, minLat: Infinity, maxLon: -Infinity, maxLat: -Infinity },
-  );
-
-/**
- * A cheap estimate (degrees of arc) that does not exceed the distance from `p` to anything
- * inside box `b` by more than the 10 % margin on longitude, used only to skip far reaches.
- */
-function boxGap(p: LngLat, b: Box): number {
-  const dLat = Math.max(0, b.minLat - p[1], p[1] - b.maxLat);
-  const dLon = Math.max(0, b.minLon - p[0], p[0] - b.maxLon);
-  const maxLat = Math.max(Math.abs(p[1]), Math.abs(b.minLat), Math.abs(b.maxLat));
-  return Math.max(dLat, 0.9 * dLon * Math.cos(Math.min(maxLat, 89.9) * RADIANS_PER_DEGREE));
-}
-
-function snapTo(line: LineString, reach: SnapReach, p: LngLat) {
-  const hit = nearestPointOnLine(line, p, { units: "kilometers" });
-  const chainageKm = Math.min(hit.properties.totalDistance, reach.lengthKm);
+function snapped(reach: SnapReach, hit: SegmentHit) {
+  const chainageKm = Math.min(hit.alongKm, reach.lengthKm);
   return {
-    snapped: hit.geometry.coordinates as LngLat,
-    distanceM: hit.properties.pointDistance * 1000,
+    snapped: hit.snapped,
+    distanceM: hit.distanceKm * 1000,
     chainageKm,
     modelChainageKm: reach.lengthKm > 0 ? (chainageKm * reach.modelLengthKm) / reach.lengthKm : 0,
   };
@@ -96,18 +63,22 @@ export function snapPoints(
   options: SnapOptions = {},
 ): { snapped: SnappedPoint[]; problems: Problem[] } {
   const maxM = options.maxSnapDistanceM ?? 500;
-  const lines: LineString[] = reaches.map((r) => lineString(r.coordinates).geometry);
-  const boxes = reaches.map((r) => boxOf(r.coordinates));
+  const index = new SegmentIndex(reaches.map((r) => r.coordinates));
+  const byName = new Map<string, number>();
+  reaches.forEach((r, i) => {
+    if (!byName.has(r.name)) byName.set(r.name, i);
+  });
   const problems: Problem[] = [];
-  const snapped = points.map((pt): SnappedPoint => {
+  const placed = points.map((pt): SnappedPoint => {
     const wanted = options.reassign?.[pt.name];
     if (wanted !== undefined) {
-      const r = reaches.findIndex((x) => x.name === wanted);
-      if (r < 0) {
+      const r = byName.get(wanted) ?? -1;
+      const hit = r >= 0 ? index.nearest(pt.position, r) : undefined;
+      if (!hit) {
         problems.push(error("reassign_unknown_reach", `${pt.name} is assigned to reach ${wanted}, which is not in the network`, [pt.name]));
         return { name: pt.name, assignment: "unplaced" };
       }
-      const s = snapTo(lines[r], reaches[r], pt.position);
+      const s = snapped(reaches[r], hit);
       if (s.distanceM > maxM) {
         problems.push(
           warning("discharger_reassigned", `${pt.name} is assigned to reach ${wanted}, ${Math.round(s.distanceM)} m away (beyond the ${maxM} m limit)`, [pt.name], {
@@ -118,22 +89,10 @@ export function snapPoints(
       return { name: pt.name, reach: r, reachName: wanted, ...s, assignment: "reassigned" };
     }
     if (reaches.length === 0) return { name: pt.name, assignment: "unplaced" };
-    const gaps = new Float64Array(boxes.length);
-    let best = 0;
-    boxes.forEach((b, r) => {
-      gaps[r] = boxGap(pt.position, b);
-      if (gaps[r] < gaps[best]) best = r;
-    });
-    let bestSnap = snapTo(lines[best], reaches[best], pt.position);
-    let reachDeg = lengthToDegrees(bestSnap.distanceM, "meters");
-    gaps.forEach((gap, r) => {
-      if (r === best || gap > reachDeg) return;
-      const s = snapTo(lines[r], reaches[r], pt.position);
-      if (s.distanceM < bestSnap.distanceM) {
-        [best, bestSnap] = [r, s];
-        reachDeg = lengthToDegrees(s.distanceM, "meters");
-      }
-    });
+    const hit = index.nearest(pt.position);
+    if (!hit) return { name: pt.name, assignment: "unplaced" };
+    const best = hit.reach;
+    const bestSnap = snapped(reaches[best], hit);
     if (bestSnap.distanceM > maxM) {
       problems.push(
         error(
@@ -147,5 +106,5 @@ export function snapPoints(
     }
     return { name: pt.name, reach: best, reachName: reaches[best].name, ...bestSnap, assignment: "nearest" };
   });
-  return { snapped, problems };
+  return { snapped: placed, problems };
 }

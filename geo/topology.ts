@@ -2,7 +2,7 @@ import { distance, lengthToDegrees, nearestPointOnLine } from "@turf/turf";
 import { BoxGrid } from "./box-grid";
 import type { LineString, MultiLineString } from "geojson";
 import { PointGrid } from "./point-grid";
-import { error, nameList, warning, type Problem } from "./problems";
+import { appendAll, error, nameList, warning, type Problem } from "./problems";
 import type { LngLat } from "./types";
 import { UnionFind } from "./union-find";
 import { suggestOutlet, type Graph } from "./outlet";
@@ -198,7 +198,9 @@ function cycleProblems(lines: readonly TopologyLine[], g: Graph, parentEdge: Int
       return;
     }
     const key = `${Math.min(a, b)}-${Math.max(a, b)}`;
-    byPair.set(key, [...(byPair.get(key) ?? []), e]);
+    const pair = byPair.get(key);
+    if (pair) pair.push(e);
+    else byPair.set(key, [e]);
   });
   const inBraid = new Set<number>();
   for (const edges of byPair.values()) {
@@ -266,7 +268,7 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
   const g: Graph = { from, to, adjacency };
   const endCount = new Int32Array(nodeCount);
   nodeOf.forEach((n) => endCount[n]++);
-  problems.push(...endsMidReach(lines, nodeOf, endCount, toleranceM, gapM));
+  appendAll(problems, endsMidReach(lines, nodeOf, endCount, toleranceM, gapM));
   const nodeIds = positions.map((_, k) => `N${k + 1}`);
 
   // First pass: parts and cycles, on a spanning tree rooted at each part's first node.
@@ -284,7 +286,7 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
     }
     parts.push(order);
   }
-  problems.push(...cycleProblems(lines, g, parentEdge, depth));
+  appendAll(problems, cycleProblems(lines, g, parentEdge, depth));
   const partOf = new Int32Array(nodeCount);
   parts.forEach((order, c) => order.forEach((v) => (partOf[v] = c)));
 

@@ -9,7 +9,7 @@ import {
   type ReachAttributes,
   type ReachMapping,
 } from "./field-mapping";
-import { error, nameList, warning, type Problem } from "./problems";
+import { appendAll, error, nameList, warning, type Problem } from "./problems";
 import { prepareReachLine } from "./reach-line";
 import { snapPoints, type SnapOptions } from "./snapping";
 import { buildTopology, type NodeKind, type TopologyOptions } from "./topology";
@@ -100,7 +100,10 @@ function duplicates<A>(items: readonly Mapped<A>[], idOf: (a: A) => string, what
   const groups = new Map<string, Mapped<A>[]>();
   for (const m of items) {
     const id = idOf(m.attributes);
-    if (id) groups.set(id, [...(groups.get(id) ?? []), m]);
+    if (!id) continue;
+    const group = groups.get(id);
+    if (group) group.push(m);
+    else groups.set(id, [m]);
   }
   return [...groups]
     .filter(([, ms]) => ms.length > 1)
@@ -130,7 +133,7 @@ function usableLines(mapped: Mapped<ReachAttributes>[], toleranceM: number, prob
       lineProblems.push({ ...r, features: [name] });
       continue;
     }
-    lineProblems.push(...r.problems.map((p) => ({ ...p, features: [name] })));
+    appendAll(lineProblems, r.problems.map((p) => ({ ...p, features: [name] })));
     usable.push({ m, name, coordinates: r.coordinates, lengthKm: r.lengthKm });
   }
   const wrongType = lineProblems.filter((p) => p.code === "wrong_geometry_type");
@@ -138,7 +141,7 @@ function usableLines(mapped: Mapped<ReachAttributes>[], toleranceM: number, prob
     const types = [...new Set(mapped.map((m) => m.feature.geometry?.type))].join(", ");
     problems.push(error("wrong_geometry_type", `The reach file holds ${types} features, not lines; reaches must be LineString or MultiLineString`, []));
   } else {
-    problems.push(...lineProblems);
+    appendAll(problems, lineProblems);
   }
   return usable;
 }
@@ -211,7 +214,7 @@ function placeDischargers(input: ImportInput, network: ImportNetwork, o: Validat
     return [];
   }
   const mapped = mapDischargers(input.dischargers, input.dischargerMapping);
-  problems.push(...mapped.problems, ...duplicates(mapped.dischargers, (a) => a.permitId, "Permit", input.dischargerMapping.permitId));
+  appendAll(problems, mapped.problems, duplicates(mapped.dischargers, (a) => a.permitId, "Permit", input.dischargerMapping.permitId));
   const placed: Array<{ m: Mapped<DischargerAttributes>; id: string; position: LngLat }> = [];
   for (const m of mapped.dischargers) {
     const id = m.attributes.permitId || m.feature.label;
@@ -229,7 +232,7 @@ function placeDischargers(input: ImportInput, network: ImportNetwork, o: Validat
   }
   const snapReaches = network.reaches.map((r) => ({ name: r.id, coordinates: r.coordinates, lengthKm: r.geometryLengthKm, modelLengthKm: r.lengthKm }));
   const { snapped, problems: snapProblems } = snapPoints(snapReaches, placed.map((d) => ({ name: d.id, position: d.position })), o);
-  problems.push(...snapProblems);
+  appendAll(problems, snapProblems);
   return placed.map((d, i) => {
     const s = snapped[i];
     return {
@@ -260,13 +263,13 @@ export function validateImport(input: ImportInput, options: ValidateOptions = {}
     problems.push(error("empty_layer", "The reach file has no features", []));
   } else {
     const mapped = mapReaches(input.reaches, input.reachMapping);
-    problems.push(...mapped.problems, ...duplicates(mapped.reaches, (a) => a.id, "Reach", input.reachMapping.reachId));
+    appendAll(problems, mapped.problems, duplicates(mapped.reaches, (a) => a.id, "Reach", input.reachMapping.reachId));
     const usable = usableLines(mapped.reaches, network.toleranceM, problems);
     const topo = buildTopology(
       usable.map((u) => ({ name: u.name, coordinates: u.coordinates, downstreamName: u.m.attributes.downstreamId })),
       options,
     );
-    problems.push(...topo.problems);
+    appendAll(problems, topo.problems);
     const nameOf = (i: number | undefined) => (i === undefined ? undefined : usable[i].name);
     network.reaches = topo.reaches.map((t) => {
       const u = usable[t.index];
