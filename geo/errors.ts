@@ -16,7 +16,12 @@ export type GeoErrorCode =
   | "csv_invalid"
   | "csv_missing_column"
   | "zip_too_large"
-  | "mapping_invalid";
+  | "mapping_invalid"
+  | "too_many_features"
+  | "line_too_many_vertices"
+  | "too_many_vertices"
+  | "empty_layer"
+  | "wrong_geometry_type";
 
 /** A problem with an uploaded file, named so a planner can act on it. */
 export class GeoError extends Error {

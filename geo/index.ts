@@ -13,3 +13,6 @@ export { prepareReachLine, type PreparedLine } from "./reach-line";
 export * from "./topology";
 export * from "./snapping";
 export * from "./validate";
+export { IMPORT_LIMITS, checkLimits } from "./limits";
+export { readUploadLayer, type ReadOptions, type UploadLayer } from "./read-upload";
+export { selfCrossings } from "./self-crossings";

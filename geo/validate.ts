@@ -88,6 +88,9 @@ export interface ImportNetwork {
   totalLengthKm: number;
 }
 
+/** Told where a long validation has got to: a stage name and the fraction of it done (0–1). */
+export type ValidateProgress = (stage: "lines" | "network" | "dischargers", fraction: number) => void;
+
 /** The validation result: errors block a commit, warnings don't. */
 export interface ImportReport {
   errors: Problem[];
@@ -123,10 +126,11 @@ function emptyNetwork(o: ValidateOptions): ImportNetwork {
 }
 
 /** Lines from the mapped reaches; features that cannot be used become errors. */
-function usableLines(mapped: Mapped<ReachAttributes>[], toleranceM: number, problems: Problem[]) {
+function usableLines(mapped: Mapped<ReachAttributes>[], toleranceM: number, problems: Problem[], progress?: ValidateProgress) {
   const usable: Array<{ m: Mapped<ReachAttributes>; name: string; coordinates: LngLat[]; lengthKm: number }> = [];
   const lineProblems: Problem[] = [];
-  for (const m of mapped) {
+  for (const [i, m] of mapped.entries()) {
+    if (progress && i % 256 === 0) progress("lines", i / mapped.length);
     const name = m.attributes.id || m.feature.label;
     const r = prepareReachLine(m.feature.geometry, m.attributes.id ? `reach ${name}` : name, toleranceM);
     if ("code" in r) {
@@ -256,7 +260,7 @@ function placeDischargers(input: ImportInput, network: ImportNetwork, o: Validat
  * dischargers, and returns `{ errors, warnings, network }`. Throws only `GeoError`
  * (mapping_invalid) when the field mapping itself is unusable.
  */
-export function validateImport(input: ImportInput, options: ValidateOptions = {}): ImportReport {
+export function validateImport(input: ImportInput, options: ValidateOptions = {}, progress?: ValidateProgress): ImportReport {
   const problems: Problem[] = [];
   const network = emptyNetwork(options);
   if (input.reaches.features.length === 0) {
@@ -264,7 +268,8 @@ export function validateImport(input: ImportInput, options: ValidateOptions = {}
   } else {
     const mapped = mapReaches(input.reaches, input.reachMapping);
     appendAll(problems, mapped.problems, duplicates(mapped.reaches, (a) => a.id, "Reach", input.reachMapping.reachId));
-    const usable = usableLines(mapped.reaches, network.toleranceM, problems);
+    const usable = usableLines(mapped.reaches, network.toleranceM, problems, progress);
+    progress?.("network", 0);
     const topo = buildTopology(
       usable.map((u) => ({ name: u.name, coordinates: u.coordinates, downstreamName: u.m.attributes.downstreamId })),
       options,
@@ -300,6 +305,7 @@ export function validateImport(input: ImportInput, options: ValidateOptions = {}
     if (input.reachMapping.downstreamId) crossCheckDownstream(network.reaches, problems);
     lengthChecks(network.reaches, options, problems);
   }
+  progress?.("dischargers", 0);
   network.dischargers = placeDischargers(input, network, options, problems);
   return {
     errors: problems.filter((p) => p.severity === "error"),

@@ -1,3 +1,4 @@
+import { sql } from "kysely";
 import type { Db } from "../client";
 import type { ImportLayer, ImportFormat } from "../schema";
 import { isUuid } from "./users";
@@ -33,8 +34,15 @@ const META = [
   "uploaded_at",
 ] as const;
 
+/**
+ * Uploads travel to and from PostgreSQL in pieces of this many bytes: pg turns a bytea into
+ * hex text on the event loop (and back), which for a 30 MB file is a stall of the whole
+ * server; a piece at a time lets other requests run in between.
+ */
+const CONTENT_CHUNK = 2 * 1024 * 1024;
+
 export async function insertImport(db: Db, i: NewImport) {
-  return db
+  const row = await db
     .insertInto("imports")
     .values({
       basin_id: i.basinId,
@@ -43,7 +51,7 @@ export async function insertImport(db: Db, i: NewImport) {
       file_name: i.fileName,
       size_bytes: i.content.byteLength,
       sha256: i.sha256,
-      content: i.content,
+      content: i.content.subarray(0, CONTENT_CHUNK),
       crs: JSON.stringify(i.crs),
       read_options: JSON.stringify(i.readOptions),
       feature_count: i.featureCount,
@@ -52,6 +60,31 @@ export async function insertImport(db: Db, i: NewImport) {
     })
     .returning(META)
     .executeTakeFirstOrThrow();
+  for (let at = CONTENT_CHUNK; at < i.content.byteLength; at += CONTENT_CHUNK) {
+    const piece = i.content.subarray(at, at + CONTENT_CHUNK);
+    await db.updateTable("imports").set({ content: sql<Buffer>`content || ${piece}` }).where("id", "=", row.id).execute();
+  }
+  return row;
+}
+
+/** An upload's metadata without its bytes. */
+export async function findImportMeta(db: Db, basinId: string, id: string) {
+  if (!isUuid(id)) return undefined;
+  return db.selectFrom("imports").select(META).where("basin_id", "=", basinId).where("id", "=", id).executeTakeFirst();
+}
+
+/** An upload's bytes, read a piece at a time (see CONTENT_CHUNK). */
+export async function readImportContent(db: Db, id: string, sizeBytes: number): Promise<Buffer> {
+  const out = Buffer.alloc(sizeBytes);
+  for (let at = 0; at < sizeBytes; at += CONTENT_CHUNK) {
+    const { piece } = await db
+      .selectFrom("imports")
+      .select(sql<Buffer>`substring(content from ${at + 1} for ${CONTENT_CHUNK})`.as("piece"))
+      .where("id", "=", id)
+      .executeTakeFirstOrThrow();
+    piece.copy(out, at);
+  }
+  return out;
 }
 
 export type ImportMeta = Awaited<ReturnType<typeof insertImport>>;

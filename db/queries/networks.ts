@@ -157,3 +157,32 @@ export async function updateOutfallAttributes(db: Db, networkId: string, facilit
 export async function lockNetwork(db: Db, networkId: string): Promise<void> {
   await sql`select id from networks where id = ${networkId} for update`.execute(db);
 }
+
+/** Facility ids of a basin by permit id, for the given permits (one query per 5 000). */
+export async function facilityIdsByPermit(db: Db, basinId: string, permits: readonly string[]): Promise<Map<string, string>> {
+  const out = new Map<string, string>();
+  for (let i = 0; i < permits.length; i += 5000) {
+    const rows = await db
+      .selectFrom("facilities")
+      .select(["id", "permit_id"])
+      .where("basin_id", "=", basinId)
+      .where(sql<boolean>`permit_id = any(${permits.slice(i, i + 5000)}::text[])`)
+      .execute();
+    for (const r of rows) out.set(r.permit_id, r.id);
+  }
+  return out;
+}
+
+/** New facilities (name, permit id) of a basin in chunks; returns their ids by permit id. */
+export async function insertFacilitiesByPermit(db: Db, basinId: string, rows: ReadonlyArray<{ name: string; permitId: string }>): Promise<Map<string, string>> {
+  const out = new Map<string, string>();
+  await insertChunked([...rows], 2000, async (c) => {
+    const made = await db
+      .insertInto("facilities")
+      .values(c.map((r) => ({ basin_id: basinId, name: r.name, permit_id: r.permitId })))
+      .returning(["id", "permit_id"])
+      .execute();
+    for (const m of made) out.set(m.permit_id, m.id);
+  });
+  return out;
+}

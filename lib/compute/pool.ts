@@ -50,7 +50,7 @@ function revive(e: SerializedError): Error {
  * started through a small bootstrap that registers tsx's ESM loader inside the worker
  * first: Node 20 does not apply an `--import` loader from execArgv to a worker's entry.
  */
-function startWorker(url: URL): Worker {
+export function startWorker(url: URL): Worker {
   if (!url.pathname.endsWith(".ts")) return new Worker(url);
   const tsxDir = dirname(createRequire(import.meta.url).resolve("tsx/package.json"));
   const api = pathToFileURL(join(tsxDir, "dist/esm/api/index.mjs")).href;

@@ -1,20 +1,20 @@
-import { createHash } from "node:crypto";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
-import { findImport, insertImport, listFieldMappings, listImports, upsertFieldMapping, type ImportMeta } from "@/db/queries/imports";
-import type { ImportFormat, ImportLayer } from "@/db/schema";
 import {
-  detectCsvFields,
-  guessCsvCoordinates,
-  isGeoError,
-  readGeoJson,
-  readPointCsv,
-  readShapefileZip,
-  type CsvCoordinates,
-  type FieldInfo,
-  type SourceLayer,
-} from "@/geo";
+  findImport,
+  findImportMeta,
+  insertImport,
+  listFieldMappings,
+  listImports,
+  readImportContent,
+  upsertFieldMapping,
+  type ImportMeta,
+} from "@/db/queries/imports";
+import type { ImportFormat, ImportLayer } from "@/db/schema";
+import type { FieldInfo, ReadOptions } from "@/geo";
 import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { ImportJobError, importPool } from "@/lib/compute/import-pool";
+import type { UploadBytes } from "@/lib/compute/import-protocol";
 import { AppError, notFound } from "@/lib/errors";
 import type { FieldMappingSave, UploadFields } from "@/lib/validation/network";
 
@@ -72,44 +72,15 @@ export function detectFormat(fileName: string, bytes: Uint8Array): ImportFormat 
   );
 }
 
-export interface ReadOptions {
-  epsg?: number;
-  csv?: CsvCoordinates;
-}
-
-/** Read an upload with the geo readers; file problems become 422 naming the problem. */
-export async function readUpload(format: ImportFormat, bytes: Buffer, options: ReadOptions): Promise<SourceLayer> {
-  try {
-    if (format === "shapefile") return await readShapefileZip(bytes, { epsg: options.epsg });
-    const text = bytes.toString("utf8");
-    if (format === "geojson") return readGeoJson(text, { epsg: options.epsg });
-    const coordinates = options.csv ?? guessCsvCoordinates(detectCsvFields(text).map((f) => f.name));
-    if (!coordinates) {
-      throw fileProblem(
-        "The CSV has no latitude/longitude columns that Sagline recognises; name them (csvLatitude, csvLongitude) or give x/y columns with an EPSG code",
-        "csv_missing_column",
-      );
-    }
-    return readPointCsv(text, coordinates);
-  } catch (error) {
-    if (isGeoError(error)) throw fileProblem(error.message, error.code, error.details);
-    throw error;
-  }
-}
-
-const LINE_TYPES = new Set(["LineString", "MultiLineString"]);
-const POINT_TYPES = new Set(["Point"]);
-
-/** Refuse a layer with nothing usable before anything is stored. */
-function checkLayer(layer: ImportLayer, source: SourceLayer, fileName: string): void {
-  if (source.features.length === 0) throw fileProblem(`${fileName} has no features (empty layer)`, "empty_layer");
-  const wanted = layer === "reaches" ? LINE_TYPES : POINT_TYPES;
-  const usable = source.features.filter((f) => f.geometry && wanted.has(f.geometry.type)).length;
-  if (usable === 0) {
-    const found = [...new Set(source.features.map((f) => f.geometry?.type ?? "no geometry"))].join(", ");
-    const want = layer === "reaches" ? "lines (LineString or MultiLineString)" : "points";
-    throw fileProblem(`${fileName} holds ${found}; ${layer} must be ${want}`, "wrong_geometry_type");
-  }
+/**
+ * An import worker's failure as the caller's error: a file problem (a GeoError while reading,
+ * over a limit included) is a 422 naming the upload field and the feature at fault; anything
+ * else is unexpected and stays a 500.
+ */
+export function importFailure(e: unknown, path = "file"): unknown {
+  if (!(e instanceof ImportJobError) || !e.data.code) return e;
+  if (e.data.code === "import_timeout") return new AppError("invalid", e.data.message, [{ path, message: e.data.message, code: e.data.code }]);
+  return new AppError("invalid", e.data.message, [{ path: e.data.path ?? path, message: e.data.message, code: e.data.code, ...e.data.details }]);
 }
 
 /**
@@ -140,9 +111,13 @@ export async function uploadImport(
   } else if (fields.csvX && fields.csvY && fields.epsg) {
     options.csv = { kind: "xy", x: fields.csvX, y: fields.csvY, epsg: fields.epsg };
   }
-  const source = await readUpload(format, file.bytes, options);
-  checkLayer(fields.layer, source, file.name);
-  const sha256 = createHash("sha256").update(file.bytes).digest("hex");
+  // Parsing, the limits and the checksum run in a worker thread (a 30 MB GeoJSON takes seconds).
+  const read = await importPool()
+    .read({ kind: "read", layer: fields.layer, upload: { format, bytes: file.bytes, options, fileName: file.name, path: "file" } })
+    .catch((e: unknown) => {
+      throw importFailure(e);
+    });
+  const { sha256 } = read;
   return db.transaction().execute(async (trx) => {
     const row = await insertImport(trx, {
       basinId: basin.id,
@@ -151,10 +126,10 @@ export async function uploadImport(
       fileName: file.name,
       content: file.bytes,
       sha256,
-      crs: { ...source.crs },
+      crs: { ...read.crs },
       readOptions: { ...options },
-      featureCount: source.features.length,
-      fields: source.fields,
+      featureCount: read.featureCount,
+      fields: read.fields,
       uploadedBy: actor!.id,
     });
     await insertAuditEvent(trx, {
@@ -163,21 +138,21 @@ export async function uploadImport(
       action: "import.uploaded",
       targetType: "import",
       targetId: row.id,
-      details: { fileName: file.name, layer: fields.layer, format, sha256, features: source.features.length },
+      details: { fileName: file.name, layer: fields.layer, format, sha256, features: read.featureCount },
     });
     return importDto(row);
   });
 }
 
-/** Re-read a kept upload (for validation and commit), checking it belongs to the basin and layer. */
-export async function loadUploadLayer(db: Db, basinId: string, importId: string, layer: ImportLayer, path: string) {
-  const row = await findImport(db, basinId, importId);
+/** A kept upload's bytes for the import worker, checking it belongs to the basin and layer. */
+export async function loadUploadBytes(db: Db, basinId: string, importId: string, layer: ImportLayer, path: string): Promise<UploadBytes> {
+  const row = await findImportMeta(db, basinId, importId);
   if (!row) throw new AppError("invalid", `${path}: no such upload in this basin`, [{ path, message: "Unknown upload" }]);
   if (row.layer !== layer) {
     throw new AppError("invalid", `${path}: that upload holds ${row.layer}, not ${layer}`, [{ path, message: `Not a ${layer} upload` }]);
   }
-  const source = await readUpload(row.format, row.content, row.read_options as ReadOptions);
-  return { row, source };
+  const bytes = await readImportContent(db, row.id, row.size_bytes);
+  return { format: row.format, bytes, options: row.read_options as ReadOptions, fileName: row.file_name, path };
 }
 
 export async function listBasinImports(db: Db, actor: Actor | null, basinId: string): Promise<ImportDto[]> {

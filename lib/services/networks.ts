@@ -1,10 +1,11 @@
 import type { Feature, FeatureCollection } from "geojson";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
-import { findFacilityByPermit, insertFacility } from "@/db/queries/facilities";
 import { markImportsCommitted } from "@/db/queries/imports";
 import {
+  facilityIdsByPermit,
   findNetwork,
+  insertFacilitiesByPermit,
   insertNetwork,
   insertNodes,
   insertOutfalls,
@@ -16,11 +17,13 @@ import {
   networkReaches,
   nextNetworkVersion,
 } from "@/db/queries/networks";
-import { isGeoError, validateImport, type ImportReport, type Problem } from "@/geo";
+import type { ImportReport } from "@/geo";
 import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { ImportJobError, importPool, type ProgressListener } from "@/lib/compute/import-pool";
+import type { ValidateResult } from "@/lib/compute/import-protocol";
 import { AppError, notFound } from "@/lib/errors";
 import type { NetworkCommit, NetworkDraft } from "@/lib/validation/network";
-import { loadUploadLayer } from "./imports";
+import { importFailure, loadUploadBytes } from "./imports";
 
 export interface DraftResult {
   report: ImportReport;
@@ -28,40 +31,55 @@ export interface DraftResult {
   knownPermits: string[];
 }
 
-async function runValidation(db: Db, basinId: string, draft: NetworkDraft): Promise<DraftResult> {
-  const reaches = await loadUploadLayer(db, basinId, draft.reachImportId, "reaches", "reachImportId");
+/**
+ * Reads the draft's uploads and validates them in the import worker (never on the event
+ * loop): the uploads' bytes go to the worker, the report (or the rows to write) comes back.
+ */
+async function runValidation(db: Db, basinId: string, draft: NetworkDraft, forCommit: boolean, onProgress?: ProgressListener): Promise<ValidateResult> {
+  const reaches = await loadUploadBytes(db, basinId, draft.reachImportId, "reaches", "reachImportId");
   const dischargers = draft.dischargerImportId
-    ? await loadUploadLayer(db, basinId, draft.dischargerImportId, "dischargers", "dischargerImportId")
+    ? await loadUploadBytes(db, basinId, draft.dischargerImportId, "dischargers", "dischargerImportId")
     : undefined;
-  let report: ImportReport;
   try {
-    report = validateImport(
+    return await importPool().validate(
       {
-        reaches: reaches.source,
+        kind: "validate",
+        reaches,
+        dischargers,
         reachMapping: draft.reachMapping,
-        dischargers: dischargers?.source,
         dischargerMapping: draft.dischargerImportId ? draft.dischargerMapping : undefined,
+        options: draft.options,
+        forCommit,
       },
-      draft.options,
+      onProgress,
     );
   } catch (error) {
-    if (isGeoError(error)) throw new AppError("invalid", error.message, [{ path: "reachMapping", message: error.message }]);
-    throw error;
+    // A mapping the files cannot satisfy is the draft's fault, not the file's.
+    if (error instanceof ImportJobError && error.data.code === "mapping_invalid") {
+      throw new AppError("invalid", error.message, [{ path: "reachMapping", message: error.message }]);
+    }
+    throw importFailure(error);
   }
-  const knownPermits: string[] = [];
-  for (const d of report.network.dischargers) {
-    if (d.attributes.permitId && (await findFacilityByPermit(db, basinId, d.attributes.permitId))) knownPermits.push(d.attributes.permitId);
-  }
-  return { report, knownPermits };
 }
 
-/** Validate a network draft without saving anything: the report the planner must accept. */
-export async function validateDraft(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft): Promise<DraftResult> {
+/**
+ * Validate a network draft without saving anything: the report the planner must accept, as
+ * JSON text ready to send (`{ report, knownPermits }`; built in the worker, since a report
+ * of 500 000 vertices takes longer to serialise than a request may hold the event loop).
+ * `onProgress` hears the stages as the worker goes through them.
+ */
+export async function validateDraftJson(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft, onProgress?: ProgressListener): Promise<string> {
   const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
-  return runValidation(db, basin.id, draft);
+  const result = await runValidation(db, basin.id, draft, false, onProgress);
+  const known = await facilityIdsByPermit(db, basin.id, result.permits);
+  const knownPermits = result.permits.filter((p) => known.has(p));
+  return `{"report":${result.reportJson},"knownPermits":${JSON.stringify(knownPermits)}}`;
 }
 
-const summarise = (problems: Problem[]) => problems.map((p) => ({ code: p.code, message: p.message, features: p.features }));
+/** validateDraftJson, parsed (for scripts and tests that want the objects). */
+export async function validateDraft(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft): Promise<DraftResult> {
+  return JSON.parse(await validateDraftJson(db, actor, basinId, draft)) as DraftResult;
+}
 
 export interface NetworkSummaryDto {
   id: string;
@@ -83,15 +101,21 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
   const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
   const { draft } = input;
   return db.transaction().execute(async (trx) => {
-    const { report } = await runValidation(trx, basin.id, draft);
+    const report = await runValidation(trx, basin.id, draft, true);
     if (report.errors.length > 0) {
       throw new AppError(
         "invalid",
         `The validation report has ${report.errors.length} error(s); nothing was saved. First: ${report.errors[0].message}`,
-        summarise(report.errors).map((p) => ({ path: "draft", ...p })),
+        report.errors.map((p) => ({ path: "draft", ...p })),
       );
     }
-    const net = report.network;
+    const net = report.commit!;
+    const unplaced = net.dischargers.find((d) => !d.reachId || d.snapped === undefined || d.chainageKm === undefined);
+    if (unplaced) {
+      throw new AppError("invalid", `Discharger ${unplaced.id} is not placed on a reach; reassign it before saving`, [
+        { path: "draft.options.reassign", message: `Place ${unplaced.id}` },
+      ]);
+    }
     const version = await nextNetworkVersion(trx, basin.id);
     const network = await insertNetwork(trx, {
       basinId: basin.id,
@@ -101,57 +125,51 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
       reachMapping: draft.reachMapping,
       dischargerMapping: draft.dischargerMapping,
       options: draft.options,
-      report: { errors: [], warnings: summarise(report.warnings) },
+      report: { errors: [], warnings: report.warnings },
       totalLengthKm: net.totalLengthKm,
       note: input.note,
       createdBy: actor!.id,
     });
     await insertNodes(
       trx,
-      net.nodes.map((n) => ({ network_id: network.id, node_key: n.id, kind: n.kind, lon: n.position[0], lat: n.position[1] })),
+      net.nodes.map((n) => ({ network_id: network.id, node_key: n.key, kind: n.kind, lon: n.lon, lat: n.lat })),
     );
     await insertReaches(
       trx,
       net.reaches.map((r) => ({
         network_id: network.id,
-        reach_key: r.id,
-        name: r.attributes.name ?? null,
-        downstream_key: r.downstreamReachId ?? null,
-        upstream_node: r.upstreamNodeId,
-        downstream_node: r.downstreamNodeId,
-        part: r.component,
+        reach_key: r.key,
+        name: r.name,
+        downstream_key: r.downstreamKey,
+        upstream_node: r.upstreamNode,
+        downstream_node: r.downstreamNode,
+        part: r.part,
         flipped: r.flipped,
         geometry_length_km: r.geometryLengthKm,
         length_km: r.lengthKm,
-        coordinates: JSON.stringify(r.coordinates),
-        attributes: JSON.stringify(r.attributes),
+        coordinates: r.coordinates,
+        attributes: r.attributes,
         source_index: r.sourceIndex,
       })),
     );
-    const outfalls = [];
-    for (const d of net.dischargers) {
-      if (!d.reachId || d.snapped === undefined || d.chainageKm === undefined) {
-        throw new AppError("invalid", `Discharger ${d.id} is not placed on a reach; reassign it before saving`, [
-          { path: "draft.options.reassign", message: `Place ${d.id}` },
-        ]);
-      }
-      let facility = await findFacilityByPermit(trx, basin.id, d.attributes.permitId);
-      facility ??= await insertFacility(trx, { basin_id: basin.id, name: d.attributes.name, permit_id: d.attributes.permitId });
-      outfalls.push({
-        network_id: network.id,
-        facility_id: facility.id,
-        reach_key: d.reachId,
-        chainage_km: d.modelChainageKm ?? d.chainageKm,
-        snap_distance_m: d.snapDistanceM ?? 0,
-        assignment: d.assignment,
-        lon: d.position[0],
-        lat: d.position[1],
-        snapped_lon: d.snapped[0],
-        snapped_lat: d.snapped[1],
-        attributes: JSON.stringify({ ...d.attributes, geometryChainageKm: d.chainageKm }),
-        source_index: d.sourceIndex,
-      });
-    }
+    // Facilities matched by permit id in one query; new permits become new facilities.
+    const facilities = await facilityIdsByPermit(trx, basin.id, net.dischargers.map((d) => d.permitId));
+    const fresh = net.dischargers.filter((d) => !facilities.has(d.permitId)).map((d) => ({ name: d.name, permitId: d.permitId }));
+    for (const [permit, id] of await insertFacilitiesByPermit(trx, basin.id, fresh)) facilities.set(permit, id);
+    const outfalls = net.dischargers.map((d) => ({
+      network_id: network.id,
+      facility_id: facilities.get(d.permitId) as string,
+      reach_key: d.reachId as string,
+      chainage_km: d.modelChainageKm ?? (d.chainageKm as number),
+      snap_distance_m: d.snapDistanceM ?? 0,
+      assignment: d.assignment,
+      lon: d.position[0],
+      lat: d.position[1],
+      snapped_lon: d.snapped![0],
+      snapped_lat: d.snapped![1],
+      attributes: d.attributes,
+      source_index: d.sourceIndex,
+    }));
     await insertOutfalls(trx, outfalls);
     await markImportsCommitted(trx, [draft.reachImportId, ...(draft.dischargerImportId ? [draft.dischargerImportId] : [])]);
     await insertAuditEvent(trx, {

@@ -108,3 +108,14 @@ export const outfallEditSchema = z
   .strict()
   .refine((v) => Object.keys(v).length > 0, { message: "Give at least one value to change" });
 export type OutfallEdit = z.infer<typeof outfallEditSchema>;
+
+/**
+ * The validate request's query string: `progress` is an id the client picks (a UUID) to
+ * follow the validation's stages at GET …/networks/validate/<progress> while it waits.
+ */
+export const validateQuerySchema = z.object({ progress: z.uuid("progress must be a UUID").optional() });
+
+export const validationProgressParams = z.object({
+  basinId: z.uuid("basinId is not a valid id"),
+  progressId: z.uuid("progressId is not a valid id"),
+});

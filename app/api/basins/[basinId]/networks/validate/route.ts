@@ -1,10 +1,26 @@
 import { route } from "@/lib/api/route";
-import { validateDraft } from "@/lib/services/networks";
-import { networkDraftSchema } from "@/lib/validation/network";
+import { setProgress } from "@/lib/compute/import-progress";
+import { validateDraftJson } from "@/lib/services/networks";
+import { networkDraftSchema, validateQuerySchema } from "@/lib/validation/network";
 import { basinParams } from "@/lib/validation/params";
 
-/** Validate a draft network; saves nothing. */
+/**
+ * Validate a draft network; saves nothing. The work runs in an import worker thread;
+ * with `?progress=<uuid>` its stages can be followed at GET ./<uuid> meanwhile.
+ */
 export const POST = route(
-  { access: { basin: "network.import" }, params: basinParams, body: networkDraftSchema },
-  ({ db, actor, params, body }) => validateDraft(db, actor, params.basinId, body),
+  { access: { basin: "network.import" }, params: basinParams, body: networkDraftSchema, query: validateQuerySchema },
+  async ({ db, actor, params, body, query }) => {
+    const key = query.progress;
+    const track = key ? (stage: Parameters<typeof setProgress>[3], fraction?: number) => setProgress(key, params.basinId, actor!.id, stage, fraction) : undefined;
+    track?.("queued");
+    try {
+      const json = await validateDraftJson(db, actor, params.basinId, body, track);
+      track?.("done");
+      return new Response(json, { headers: { "content-type": "application/json" } });
+    } catch (e) {
+      track?.("failed");
+      throw e;
+    }
+  },
 );
