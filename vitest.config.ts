@@ -35,6 +35,21 @@ export default defineConfig({
       {
         resolve: { alias },
         test: {
+          // Hostile input, access across basins, concurrent state changes and
+          // faults (a database restart): a real PostgreSQL like the db project.
+          name: "security",
+          include: ["tests/security/**/*.test.ts"],
+          environment: "node",
+          globalSetup: ["tests/db/global-setup.ts"],
+          setupFiles: ["tests/db/setup-env.ts"],
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
           environment: "node",
