@@ -25,7 +25,7 @@ export interface PlanSnapshot {
     result: { warnings: string[]; conditions: { name: string; run: RunResult }[]; allocation?: AllocationResult };
     modelFiles: { name: string; file: ModelFile }[];
   };
-  scenario: { id: string; name: string; version: number; inputs: ScenarioInputs };
+  scenario: { id: string; name: string; version: number; networkId?: string; inputs: ScenarioInputs };
 }
 
 /** The plan as the plans service returns it (only what a report reads). */

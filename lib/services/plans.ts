@@ -25,8 +25,7 @@ import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { PlanPropose, ReviewExtend, ReviewOpen } from "@/lib/validation/plan";
 import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
-import { getRun } from "./runs";
-import { getScenario } from "./scenarios";
+import { getRun, runScenarioRecord } from "./runs";
 import { findBasinById } from "@/db/queries/basins";
 
 /** Plan states anyone signed in may read (and, when published, anyone at all). */
@@ -65,7 +64,15 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
       { path: "runId", message: "Infeasible allocation" },
     ]);
   }
-  const scenario = await getScenario(db, actor, basin.id, run.scenarioId);
+  // What the run used, never the scenario as it reads now: it may have been
+  // edited (or renamed, or moved to another network) since the run.
+  const scenario = await runScenarioRecord(db, basin.id, run);
+  if (!scenario) {
+    throw conflict(
+      `The scenario has been edited since this run (the run used version ${run.scenarioVersion}) and the run does not hold its own copy of the inputs; run the allocation again and propose from the new run`,
+      [{ path: "runId", message: "Run older than its scenario's current version" }],
+    );
+  }
   return db.transaction().execute(async (trx) => {
     const version = await nextPlanVersion(trx, basin.id);
     const plan = await insertPlan(trx, {
@@ -73,7 +80,7 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
       version,
       title: input.title,
       runId: run.id,
-      snapshot: { run, scenario: { id: scenario.id, name: scenario.name, version: run.scenarioVersion, inputs: scenario.inputs } },
+      snapshot: { run: { ...run, scenarioName: scenario.name }, scenario: { id: scenario.id, name: scenario.name, version: scenario.version, networkId: scenario.networkId, inputs: scenario.inputs } },
       createdBy: actor!.id,
     });
     const facilityIds: string[] = [];

@@ -11,7 +11,7 @@ import { requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, notFound } from "@/lib/errors";
 import { buildConditionFiles, buildModelFile, ScenarioInputError } from "@/lib/scenarios/build-model-file";
 import { MODEL_VERSION, SATURATION_METHOD } from "@/lib/scenarios/model-version";
-import { scenarioInputsSchema } from "@/lib/validation/scenario";
+import { scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
 import { loadNetworkForModel } from "./scenarios";
 
 /** What a run computes: the model files it will use, as stored with it. */
@@ -20,6 +20,21 @@ export interface RunInputs {
   /** Model runs: one file per condition; allocation runs: one file (further conditions inside). */
   files: { name: string; file: ModelFile }[];
   warnings: string[];
+  /**
+   * The scenario exactly as it was run (name, version, network and inputs),
+   * so a plan proposed later records what this run used, not what the
+   * scenario says by then. Runs stored before this field existed lack it.
+   */
+  scenario?: RunScenarioRecord;
+}
+
+/** The scenario as a run used it. */
+export interface RunScenarioRecord {
+  id: string;
+  name: string;
+  version: number;
+  networkId: string;
+  inputs: ScenarioInputs;
 }
 
 /** Key-sorted JSON, so equal inputs hash equally. */
@@ -115,6 +130,7 @@ export async function createRun(
     }
     throw error;
   }
+  runInputs.scenario = { id: scenario.id, name: scenario.name, version: scenario.version, networkId: scenario.network_id, inputs };
   const hash = inputsHash(runInputs);
   const done = await findDoneRunByHash(db, basin.id, kind, hash);
   if (done) {
@@ -283,6 +299,21 @@ export async function getRun(db: Db, actor: Actor | null, basinId: string, runId
   if (!row) throw notFound("Run");
   const r = row as typeof row & { result: RunResultPayload | null; model_file: RunInputs };
   return { ...summary(r), result: r.result, modelFiles: r.model_file.files };
+}
+
+/**
+ * The scenario as this run used it: the record stored with the run, or — for
+ * a run stored before runs kept it — the scenario itself while it is still at
+ * the version that was run (every save bumps the version, so equal versions
+ * mean equal name, network and inputs). Null when neither can be had.
+ */
+export async function runScenarioRecord(db: Db, basinId: string, run: RunDto): Promise<RunScenarioRecord | null> {
+  const row = (await findRun(db, basinId, run.id, true)) as { model_file?: RunInputs } | undefined;
+  const stored = row?.model_file?.scenario;
+  if (stored) return { ...stored, inputs: scenarioInputsSchema.parse(stored.inputs) };
+  const scenario = await findScenario(db, basinId, run.scenarioId);
+  if (!scenario || scenario.version !== run.scenarioVersion) return null;
+  return { id: scenario.id, name: scenario.name, version: scenario.version, networkId: scenario.network_id, inputs: scenarioInputsSchema.parse(scenario.inputs) };
 }
 
 /** Status only (for polling). */

@@ -6,7 +6,7 @@ import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { AppError } from "@/lib/errors";
 import { getNetwork } from "@/lib/services/networks";
-import { getRun } from "@/lib/services/runs";
+import { getRun, runScenarioRecord } from "@/lib/services/runs";
 import { getScenario } from "@/lib/services/scenarios";
 
 export const metadata: Metadata = { title: "Run results" };
@@ -21,12 +21,14 @@ export default async function RunPage({ params }: { params: Promise<{ basinId: s
     throw e;
   });
   if (!run) notFound();
-  const scenario = await getScenario(db, access.actor, access.basin.id, run.scenarioId);
-  const network = await getNetwork(db, access.actor, access.basin.id, scenario.networkId);
+  // The map shows the network this run used (the scenario may since have moved to another version).
+  const used = await runScenarioRecord(db, access.basin.id, run);
+  const networkId = used?.networkId ?? (await getScenario(db, access.actor, access.basin.id, run.scenarioId)).networkId;
+  const network = await getNetwork(db, access.actor, access.basin.id, networkId);
   return (
     <div>
       <h2 className="mb-4">
-        {run.scenarioName} — {run.kind === "allocation" ? "allocation" : "model"} run
+        {used?.name ?? run.scenarioName} — {run.kind === "allocation" ? "allocation" : "model"} run
       </h2>
       <RunResults basinId={access.basin.id} basinName={access.basin.name} initial={run} network={network.geojson} unitSystem={access.basin.unitSystem} canPropose={await access.can("plan.propose")} />
     </div>
