@@ -65,3 +65,8 @@ export async function findBasinWithRole(db: Db, basinId: string, userId: string)
   const { role, ...basin } = row;
   return { basin, role: role ?? null };
 }
+
+/** Lock a basin's row to the end of the transaction: serialises changes to its membership. */
+export async function lockBasin(db: Db, basinId: string): Promise<void> {
+  await db.selectFrom("basins").select("id").where("id", "=", basinId).forUpdate().executeTakeFirst();
+}

@@ -41,6 +41,30 @@ export async function findPlan(db: Db, basinId: string, planId: string, withSnap
   return withSnapshot ? q.select("p.snapshot").executeTakeFirst() : q.executeTakeFirst();
 }
 
+/**
+ * Move a plan from one of `from` to `to` in one statement: the row lock the
+ * UPDATE takes makes a concurrent transition wait and then find the state
+ * changed, so of two racing transitions only one happens. False when the plan
+ * was not in any of `from` any more.
+ */
+export async function transitionPlanStatus(
+  db: Db,
+  planId: string,
+  from: PlanStatus[],
+  to: PlanStatus,
+  extra: { published_by?: string; published_at?: Date } = {},
+): Promise<boolean> {
+  const row = await db.updateTable("plans").set({ status: to, ...extra }).where("id", "=", planId).where("status", "in", from).returning("id").executeTakeFirst();
+  return row !== undefined;
+}
+
+/** The plan's status under a row lock held to the end of the transaction (share: others may read-lock too). */
+export async function lockPlanStatus(db: Db, planId: string, mode: "share" | "update"): Promise<PlanStatus | undefined> {
+  const q = db.selectFrom("plans").select("status").where("id", "=", planId);
+  const row = await (mode === "share" ? q.forShare() : q.forUpdate()).executeTakeFirst();
+  return row?.status;
+}
+
 export async function setPlanStatus(db: Db, planId: string, status: PlanStatus, extra: { published_by?: string; published_at?: Date } = {}) {
   await db.updateTable("plans").set({ status, ...extra }).where("id", "=", planId).execute();
 }

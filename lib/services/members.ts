@@ -9,6 +9,7 @@ import {
   updateMembershipRole,
 } from "@/db/queries/memberships";
 import { unlinkUserFromBasinFacilities } from "@/db/queries/facilities";
+import { lockBasin } from "@/db/queries/basins";
 import { findUserByEmail } from "@/db/queries/users";
 import { requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, conflict, notFound } from "@/lib/errors";
@@ -47,6 +48,16 @@ export async function addMember(db: Db, actor: Actor | null, basinId: string, in
   });
 }
 
+/**
+ * Membership changes in one basin happen one at a time (the basin's row is
+ * locked), and the actor's own right is checked again under the lock: two
+ * leads demoting each other at once leave one lead, not none.
+ */
+async function serialiseMembership(trx: Db, actor: Actor | null, basinId: string): Promise<void> {
+  await lockBasin(trx, basinId);
+  await requireBasinAction(trx, actor, basinId, "members.manage");
+}
+
 async function refuseLastLead(trx: Db, basinId: string, userId: string, verb: string): Promise<void> {
   const role = await findMembershipRole(trx, basinId, userId);
   if (!role) throw notFound("Member");
@@ -64,6 +75,7 @@ export async function changeMemberRole(
 ): Promise<MemberDto> {
   const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
   return db.transaction().execute(async (trx) => {
+    await serialiseMembership(trx, actor, basin.id);
     const before = await findMembershipRole(trx, basin.id, userId);
     if (!before) throw notFound("Member");
     if (before !== input.role) await refuseLastLead(trx, basin.id, userId, "change the role of");
@@ -88,6 +100,7 @@ export async function changeMemberRole(
 export async function removeMember(db: Db, actor: Actor | null, basinId: string, userId: string): Promise<void> {
   const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
   await db.transaction().execute(async (trx) => {
+    await serialiseMembership(trx, actor, basin.id);
     await refuseLastLead(trx, basin.id, userId, "remove");
     await unlinkUserFromBasinFacilities(trx, basin.id, userId);
     await deleteMembership(trx, basin.id, userId);

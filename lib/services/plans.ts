@@ -19,7 +19,7 @@ import {
   nextPlanVersion,
   reviewsClosingSoon,
   threadTitle,
-  updateReviewPeriod, planAllocations, listBasinPlans, planThreads, setPlanStatus } from "@/db/queries/plans";
+  updateReviewPeriod, planAllocations, listBasinPlans, planThreads, transitionPlanStatus, lockPlanStatus } from "@/db/queries/plans";
 import type { PlanStatus } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, conflict, notFound } from "@/lib/errors";
@@ -27,6 +27,9 @@ import type { PlanPropose, ReviewExtend, ReviewOpen } from "@/lib/validation/pla
 import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
 import { getRun, runScenarioRecord } from "./runs";
 import { findBasinById } from "@/db/queries/basins";
+
+/** Another request changed the plan's state first. */
+const raced = () => conflict("The plan's state changed while this request was being handled; reload the plan and try again");
 
 /** Plan states anyone signed in may read (and, when published, anyone at all). */
 const PUBLIC_READ: PlanStatus[] = ["review", "closed", "published"];
@@ -187,8 +190,9 @@ export async function openReview(db: Db, actor: Actor | null, basinId: string, p
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
   if (plan.status !== "draft") throw conflict(`Only a draft plan can go to review; this one is ${plan.status}`);
   await db.transaction().execute(async (trx) => {
+    // the state changes first, in one statement: a second "open" sent at the same time finds it changed
+    if (!(await transitionPlanStatus(trx, plan.id, ["draft"], "review"))) throw raced();
     const period = await insertReviewPeriod(trx, { planId: plan.id, startsAt: input.startsAt, endsAt: input.endsAt, timeZone: input.timeZone, openedBy: actor!.id });
-    await setPlanStatus(trx, plan.id, "review");
     await noticeReviewOpened(trx, plan, { id: period.id, startsAt: period.starts_at, endsAt: period.ends_at, timeZone: input.timeZone });
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.opened", targetType: "plan", targetId: plan.id, details: { ...input } });
   });
@@ -202,9 +206,15 @@ export async function extendReview(db: Db, actor: Actor | null, basinId: string,
   if (Date.parse(input.endsAt) <= period.ends_at.getTime()) {
     throw new AppError("invalid", "The new end must be later than the current one", [{ path: "endsAt", message: "Not later" }]);
   }
-  const extensions = [...period.extensions, { at: new Date().toISOString(), by: actor!.name, from: period.ends_at.toISOString(), to: input.endsAt, reason: input.reason }];
   await db.transaction().execute(async (trx) => {
-    await updateReviewPeriod(trx, period.id, { ends_at: input.endsAt, closed_at: null, extensions });
+    // under the plan's lock, against the period as it is now (a concurrent extension or the closing job may have moved it)
+    if ((await lockPlanStatus(trx, plan.id, "update")) !== "review") throw raced();
+    const locked = (await currentPeriod(trx, plan.id))!;
+    if (Date.parse(input.endsAt) <= locked.ends_at.getTime()) {
+      throw new AppError("invalid", "The new end must be later than the current one", [{ path: "endsAt", message: "Not later" }]);
+    }
+    const extensions = [...locked.extensions, { at: new Date().toISOString(), by: actor!.name, from: locked.ends_at.toISOString(), to: input.endsAt, reason: input.reason }];
+    await updateReviewPeriod(trx, locked.id, { ends_at: input.endsAt, closed_at: null, extensions });
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.extended", targetType: "plan", targetId: plan.id, details: { ...input } });
   });
 }
@@ -213,12 +223,18 @@ export async function extendReview(db: Db, actor: Actor | null, basinId: string,
 export async function closeDueReviews(db: Db, now = new Date()): Promise<number> {
   return db.transaction().execute(async (trx) => {
     const due = await dueReviewPeriods(trx, now);
+    let closed = 0;
     for (const d of due) {
+      // a plan withdrawn (or a review extended) meanwhile is left as it is
+      if ((await lockPlanStatus(trx, d.plan_id, "update")) !== "review") continue;
+      const period = await currentPeriod(trx, d.plan_id);
+      if (!period || period.id !== d.id || period.closed_at !== null || period.ends_at > now) continue;
+      await transitionPlanStatus(trx, d.plan_id, ["review"], "closed");
+      closed++;
       await updateReviewPeriod(trx, d.id, { closed_at: now });
-      await setPlanStatus(trx, d.plan_id, "closed");
       await insertAuditEvent(trx, { basinId: d.basin_id, actorId: null, action: "review.closed", targetType: "plan", targetId: d.plan_id, details: { by: "schedule" } });
     }
-    return due.length;
+    return closed;
   });
 }
 
@@ -242,7 +258,7 @@ export async function publishPlan(db: Db, actor: Actor | null, basinId: string, 
   if (plan.status !== "closed") throw conflict(`A plan is published after its review closes; this one is ${plan.status}`);
   await db.transaction().execute(async (trx) => {
     const publishedAt = new Date();
-    await setPlanStatus(trx, plan.id, "published", { published_by: actor!.id, published_at: publishedAt });
+    if (!(await transitionPlanStatus(trx, plan.id, ["closed"], "published", { published_by: actor!.id, published_at: publishedAt }))) throw raced();
     const period = await currentPeriod(trx, plan.id);
     await noticePlanPublished(trx, plan, publishedAt, period?.time_zone ?? "UTC");
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.published", targetType: "plan", targetId: plan.id, details: { version: plan.version } });
@@ -254,7 +270,7 @@ export async function withdrawPlan(db: Db, actor: Actor | null, basinId: string,
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
   if (plan.status === "published" || plan.status === "withdrawn") throw conflict(`This plan is ${plan.status} and cannot be withdrawn`);
   await db.transaction().execute(async (trx) => {
-    await setPlanStatus(trx, plan.id, "withdrawn");
+    if (!(await transitionPlanStatus(trx, plan.id, ["draft", "review", "closed"], "withdrawn"))) throw raced();
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.withdrawn", targetType: "plan", targetId: plan.id });
   });
 }
@@ -277,6 +293,10 @@ export async function addComment(db: Db, actor: Actor | null, basinId: string, t
   }
   const role = (await findMembershipRole(db, basin.id, a.id)) ?? "stakeholder (public)";
   return db.transaction().execute(async (trx) => {
+    // the review must still be open when the comment is written (the closing job or a withdrawal may have won the race)
+    const status = await lockPlanStatus(trx, thread.plan_id, "share");
+    const still = await currentPeriod(trx, thread.plan_id);
+    if (status !== "review" || !still || !isOpen(still, now)) throw conflict("The review closed just now; comments are no longer accepted");
     const c = await insertComment(trx, { threadId: thread.id, authorId: a.id, authorName: a.name, authorRole: role, body });
     const plan = (await findPlan(trx, basin.id, thread.plan_id))!;
     await noticeThreadReply(
