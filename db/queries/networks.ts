@@ -173,16 +173,46 @@ export async function facilityIdsByPermit(db: Db, basinId: string, permits: read
   return out;
 }
 
-/** New facilities (name, permit id) of a basin in chunks; returns their ids by permit id. */
-export async function insertFacilitiesByPermit(db: Db, basinId: string, rows: ReadonlyArray<{ name: string; permitId: string }>): Promise<Map<string, string>> {
-  const out = new Map<string, string>();
-  await insertChunked([...rows], 2000, async (c) => {
-    const made = await db
-      .insertInto("facilities")
-      .values(c.map((r) => ({ basin_id: basinId, name: r.name, permit_id: r.permitId })))
-      .returning(["id", "permit_id"])
-      .execute();
-    for (const m of made) out.set(m.permit_id, m.id);
-  });
-  return out;
+/*
+ * Bulk inserts from JSON text made in the import worker: PostgreSQL unpacks the rows
+ * (jsonb_to_recordset), so the web server only passes one string per chunk instead of
+ * compiling and serialising tens of thousands of parameters on its event loop.
+ */
+
+/** Nodes: [{ node_key, kind, lon, lat }]. */
+export async function insertNodesJson(db: Db, networkId: string, rows: string): Promise<void> {
+  await sql`insert into network_nodes (network_id, node_key, kind, lon, lat)
+    select ${networkId}, r.node_key, r.kind, r.lon, r.lat
+    from jsonb_to_recordset(${rows}::jsonb) as r(node_key text, kind text, lon double precision, lat double precision)`.execute(db);
+}
+
+/** Reaches: [{ reach_key, name, downstream_key, upstream_node, downstream_node, part, flipped, geometry_length_km, length_km, coordinates, attributes, source_index }]. */
+export async function insertReachesJson(db: Db, networkId: string, rows: string): Promise<void> {
+  await sql`insert into reaches (network_id, reach_key, name, downstream_key, upstream_node, downstream_node, part, flipped,
+      geometry_length_km, length_km, coordinates, attributes, source_index)
+    select ${networkId}, r.reach_key, r.name, r.downstream_key, r.upstream_node, r.downstream_node, r.part, r.flipped,
+      r.geometry_length_km, r.length_km, r.coordinates, r.attributes, r.source_index
+    from jsonb_to_recordset(${rows}::jsonb) as r(reach_key text, name text, downstream_key text, upstream_node text, downstream_node text,
+      part integer, flipped boolean, geometry_length_km double precision, length_km double precision, coordinates jsonb, attributes jsonb,
+      source_index integer)`.execute(db);
+}
+
+/** Facilities for permits the basin does not have yet: [{ name, permit_id }]; existing permits keep their facility. */
+export async function insertMissingFacilitiesJson(db: Db, basinId: string, rows: string): Promise<void> {
+  await sql`insert into facilities (basin_id, name, permit_id)
+    select ${basinId}, r.name, r.permit_id from jsonb_to_recordset(${rows}::jsonb) as r(name text, permit_id text)
+    on conflict (basin_id, permit_id) do nothing`.execute(db);
+}
+
+/** Outfalls, each joined to the basin's facility by permit id: [{ permit_id, reach_key, chainage_km, … }]. Returns the rows written. */
+export async function insertOutfallsJson(db: Db, networkId: string, basinId: string, rows: string): Promise<number> {
+  const res = await sql`insert into outfalls (network_id, facility_id, reach_key, chainage_km, snap_distance_m, assignment, lon, lat,
+      snapped_lon, snapped_lat, attributes, source_index)
+    select ${networkId}, f.id, r.reach_key, r.chainage_km, r.snap_distance_m, r.assignment, r.lon, r.lat, r.snapped_lon, r.snapped_lat,
+      r.attributes, r.source_index
+    from jsonb_to_recordset(${rows}::jsonb) as r(permit_id text, reach_key text, chainage_km double precision, snap_distance_m double precision,
+      assignment text, lon double precision, lat double precision, snapped_lon double precision, snapped_lat double precision,
+      attributes jsonb, source_index integer)
+    join facilities f on f.basin_id = ${basinId} and f.permit_id = r.permit_id`.execute(db);
+  return Number(res.numAffectedRows ?? 0);
 }

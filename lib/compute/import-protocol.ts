@@ -36,38 +36,20 @@ export interface ProblemSummary {
   features: string[];
 }
 
-/** What a commit writes, prepared in the worker (coordinates and attributes already JSON). */
+/**
+ * What a commit writes, prepared in the worker as JSON text in chunks (see the *Json inserts
+ * in db/queries/networks.ts): strings cross the thread boundary as one copy each.
+ */
 export interface CommitRows {
   totalLengthKm: number;
-  nodes: Array<{ key: string; kind: string; lon: number; lat: number }>;
-  reaches: Array<{
-    key: string;
-    name: string | null;
-    downstreamKey: string | null;
-    upstreamNode: string;
-    downstreamNode: string;
-    part: number;
-    flipped: boolean;
-    geometryLengthKm: number;
-    lengthKm: number;
-    coordinates: string;
-    attributes: string;
-    sourceIndex: number;
-  }>;
-  dischargers: Array<{
-    id: string;
-    permitId: string;
-    name: string;
-    reachId?: string;
-    chainageKm?: number;
-    modelChainageKm?: number;
-    snapDistanceM?: number;
-    assignment: string;
-    position: [number, number];
-    snapped?: [number, number];
-    attributes: string;
-    sourceIndex: number;
-  }>;
+  reachCount: number;
+  outfallCount: number;
+  /** The first discharger not placed on a reach, if any (the commit is then refused). */
+  unplaced?: string;
+  nodes: string[];
+  reaches: string[];
+  facilities: string[];
+  outfalls: string[];
 }
 
 export interface ValidateResult {
@@ -75,8 +57,8 @@ export interface ValidateResult {
   warnings: ProblemSummary[];
   /** Permit ids of the placed dischargers, for matching existing facilities. */
   permits: string[];
-  /** The whole report as JSON text (validate only): text crosses the thread boundary as one copy. */
-  reportJson?: string;
+  /** The whole report as UTF-8 JSON (validate only), moved (not copied) out of the worker. */
+  reportJson?: Uint8Array;
   commit?: CommitRows;
 }
 

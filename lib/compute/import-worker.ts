@@ -8,7 +8,7 @@ import { GeoError } from "../../geo/errors";
 import { readUploadLayer } from "../../geo/read-upload";
 import { validateImport, type ValidateProgress } from "../../geo/validate";
 import type { Problem } from "../../geo/problems";
-import type { CommitRows, ImportJob, ImportRequest, ImportResponse, ImportStage, ReadResult, UploadBytes, ValidateResult } from "./import-protocol";
+import type { ImportJob, ImportRequest, ImportResponse, ImportStage, ReadResult, UploadBytes, ValidateResult } from "./import-protocol";
 
 if (!parentPort) throw new Error("lib/compute/import-worker.ts must be started as a worker thread");
 const port = parentPort;
@@ -29,6 +29,24 @@ async function read(u: UploadBytes, layer: "reaches" | "dischargers") {
     if (e instanceof GeoError) throw new ReadFailure(e, u.path);
     throw e;
   }
+}
+
+/** Rows as JSON arrays of at most `max` weight each (rows, or vertices for reaches): a few MB of text per insert. */
+function chunks<T>(items: readonly T[], max: number, weight: (t: T) => number, row: (t: T) => unknown): string[] {
+  const out: string[] = [];
+  let part: unknown[] = [];
+  let w = 0;
+  for (const t of items) {
+    const tw = weight(t);
+    if (part.length > 0 && w + tw > max) {
+      out.push(JSON.stringify(part));
+      [part, w] = [[], 0];
+    }
+    part.push(row(t));
+    w += tw;
+  }
+  if (part.length > 0) out.push(JSON.stringify(part));
+  return out;
 }
 
 const summarise = (ps: Problem[]) => ps.map((p) => ({ code: p.code, message: p.message, features: p.features }));
@@ -58,48 +76,56 @@ async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateRes
     warnings: summarise(report.warnings),
     permits: [...new Set(net.dischargers.map((d) => d.attributes.permitId).filter(Boolean))],
   };
-  if (!job.forCommit) result.reportJson = JSON.stringify(report);
+  if (!job.forCommit) result.reportJson = new TextEncoder().encode(JSON.stringify(report));
   else {
-    const rows: CommitRows = {
+    const placed = net.dischargers.filter((d) => d.reachId && d.snapped && d.chainageKm !== undefined);
+    const unplaced = net.dischargers.find((d) => !placed.includes(d));
+    const facilities = new Map(placed.map((d) => [d.attributes.permitId, { name: d.attributes.name, permit_id: d.attributes.permitId }]));
+    result.commit = {
       totalLengthKm: net.totalLengthKm,
-      nodes: net.nodes.map((n) => ({ key: n.id, kind: n.kind, lon: n.position[0], lat: n.position[1] })),
-      reaches: net.reaches.map((r) => ({
-        key: r.id,
+      reachCount: net.reaches.length,
+      outfallCount: placed.length,
+      unplaced: unplaced?.id,
+      nodes: chunks(net.nodes, 2000, () => 1, (n) => ({ node_key: n.id, kind: n.kind, lon: n.position[0], lat: n.position[1] })),
+      reaches: chunks(net.reaches, 50_000, (r) => r.coordinates.length, (r) => ({
+        reach_key: r.id,
         name: r.attributes.name ?? null,
-        downstreamKey: r.downstreamReachId ?? null,
-        upstreamNode: r.upstreamNodeId,
-        downstreamNode: r.downstreamNodeId,
+        downstream_key: r.downstreamReachId ?? null,
+        upstream_node: r.upstreamNodeId,
+        downstream_node: r.downstreamNodeId,
         part: r.component,
         flipped: r.flipped,
-        geometryLengthKm: r.geometryLengthKm,
-        lengthKm: r.lengthKm,
-        coordinates: JSON.stringify(r.coordinates),
-        attributes: JSON.stringify(r.attributes),
-        sourceIndex: r.sourceIndex,
+        geometry_length_km: r.geometryLengthKm,
+        length_km: r.lengthKm,
+        coordinates: r.coordinates,
+        attributes: r.attributes,
+        source_index: r.sourceIndex,
       })),
-      dischargers: net.dischargers.map((d) => ({
-        id: d.id,
-        permitId: d.attributes.permitId,
-        name: d.attributes.name,
-        reachId: d.reachId,
-        chainageKm: d.chainageKm,
-        modelChainageKm: d.modelChainageKm,
-        snapDistanceM: d.snapDistanceM,
+      facilities: chunks([...facilities.values()], 2000, () => 1, (f) => f),
+      outfalls: chunks(placed, 2000, () => 1, (d) => ({
+        permit_id: d.attributes.permitId,
+        reach_key: d.reachId,
+        chainage_km: d.modelChainageKm ?? d.chainageKm,
+        snap_distance_m: d.snapDistanceM ?? 0,
         assignment: d.assignment,
-        position: d.position,
-        snapped: d.snapped,
-        attributes: JSON.stringify({ ...d.attributes, geometryChainageKm: d.chainageKm }),
-        sourceIndex: d.sourceIndex,
+        lon: d.position[0],
+        lat: d.position[1],
+        snapped_lon: d.snapped![0],
+        snapped_lat: d.snapped![1],
+        attributes: { ...d.attributes, geometryChainageKm: d.chainageKm },
+        source_index: d.sourceIndex,
       })),
     };
-    result.commit = rows;
   }
   return result;
 }
 
 port.on("message", (req: ImportRequest) => {
   run(req.id, req.job).then(
-    (result) => port.postMessage({ id: req.id, type: "done", result } satisfies ImportResponse),
+    (result) => {
+      const bytes = "reportJson" in result ? result.reportJson : undefined;
+      port.postMessage({ id: req.id, type: "done", result } satisfies ImportResponse, bytes ? [bytes.buffer as ArrayBuffer] : []);
+    },
     (e: unknown) => {
       const inner = e instanceof ReadFailure ? e.cause : e;
       const err = inner instanceof Error ? inner : new Error(String(inner));

@@ -5,11 +5,11 @@ import { markImportsCommitted } from "@/db/queries/imports";
 import {
   facilityIdsByPermit,
   findNetwork,
-  insertFacilitiesByPermit,
+  insertMissingFacilitiesJson,
   insertNetwork,
-  insertNodes,
-  insertOutfalls,
-  insertReaches,
+  insertNodesJson,
+  insertOutfallsJson,
+  insertReachesJson,
   latestNetworkId,
   listNetworks as listNetworkRows,
   networkNodes,
@@ -68,17 +68,17 @@ async function runValidation(db: Db, basinId: string, draft: NetworkDraft, forCo
  * of 500 000 vertices takes longer to serialise than a request may hold the event loop).
  * `onProgress` hears the stages as the worker goes through them.
  */
-export async function validateDraftJson(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft, onProgress?: ProgressListener): Promise<string> {
+export async function validateDraftJson(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft, onProgress?: ProgressListener): Promise<Blob> {
   const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
   const result = await runValidation(db, basin.id, draft, false, onProgress);
   const known = await facilityIdsByPermit(db, basin.id, result.permits);
   const knownPermits = result.permits.filter((p) => known.has(p));
-  return `{"report":${result.reportJson},"knownPermits":${JSON.stringify(knownPermits)}}`;
+  return new Blob(['{"report":', result.reportJson as Uint8Array<ArrayBuffer>, `,"knownPermits":${JSON.stringify(knownPermits)}}`], { type: "application/json" });
 }
 
 /** validateDraftJson, parsed (for scripts and tests that want the objects). */
 export async function validateDraft(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft): Promise<DraftResult> {
-  return JSON.parse(await validateDraftJson(db, actor, basinId, draft)) as DraftResult;
+  return JSON.parse(await (await validateDraftJson(db, actor, basinId, draft)).text()) as DraftResult;
 }
 
 export interface NetworkSummaryDto {
@@ -110,10 +110,9 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
       );
     }
     const net = report.commit!;
-    const unplaced = net.dischargers.find((d) => !d.reachId || d.snapped === undefined || d.chainageKm === undefined);
-    if (unplaced) {
-      throw new AppError("invalid", `Discharger ${unplaced.id} is not placed on a reach; reassign it before saving`, [
-        { path: "draft.options.reassign", message: `Place ${unplaced.id}` },
+    if (net.unplaced) {
+      throw new AppError("invalid", `Discharger ${net.unplaced} is not placed on a reach; reassign it before saving`, [
+        { path: "draft.options.reassign", message: `Place ${net.unplaced}` },
       ]);
     }
     const version = await nextNetworkVersion(trx, basin.id);
@@ -130,47 +129,12 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
       note: input.note,
       createdBy: actor!.id,
     });
-    await insertNodes(
-      trx,
-      net.nodes.map((n) => ({ network_id: network.id, node_key: n.key, kind: n.kind, lon: n.lon, lat: n.lat })),
-    );
-    await insertReaches(
-      trx,
-      net.reaches.map((r) => ({
-        network_id: network.id,
-        reach_key: r.key,
-        name: r.name,
-        downstream_key: r.downstreamKey,
-        upstream_node: r.upstreamNode,
-        downstream_node: r.downstreamNode,
-        part: r.part,
-        flipped: r.flipped,
-        geometry_length_km: r.geometryLengthKm,
-        length_km: r.lengthKm,
-        coordinates: r.coordinates,
-        attributes: r.attributes,
-        source_index: r.sourceIndex,
-      })),
-    );
-    // Facilities matched by permit id in one query; new permits become new facilities.
-    const facilities = await facilityIdsByPermit(trx, basin.id, net.dischargers.map((d) => d.permitId));
-    const fresh = net.dischargers.filter((d) => !facilities.has(d.permitId)).map((d) => ({ name: d.name, permitId: d.permitId }));
-    for (const [permit, id] of await insertFacilitiesByPermit(trx, basin.id, fresh)) facilities.set(permit, id);
-    const outfalls = net.dischargers.map((d) => ({
-      network_id: network.id,
-      facility_id: facilities.get(d.permitId) as string,
-      reach_key: d.reachId as string,
-      chainage_km: d.modelChainageKm ?? (d.chainageKm as number),
-      snap_distance_m: d.snapDistanceM ?? 0,
-      assignment: d.assignment,
-      lon: d.position[0],
-      lat: d.position[1],
-      snapped_lon: d.snapped![0],
-      snapped_lat: d.snapped![1],
-      attributes: d.attributes,
-      source_index: d.sourceIndex,
-    }));
-    await insertOutfalls(trx, outfalls);
+    for (const rows of net.nodes) await insertNodesJson(trx, network.id, rows);
+    for (const rows of net.reaches) await insertReachesJson(trx, network.id, rows);
+    // Facilities matched by permit id; new permits become new facilities.
+    for (const rows of net.facilities) await insertMissingFacilitiesJson(trx, basin.id, rows);
+    let outfallCount = 0;
+    for (const rows of net.outfalls) outfallCount += await insertOutfallsJson(trx, network.id, basin.id, rows);
     await markImportsCommitted(trx, [draft.reachImportId, ...(draft.dischargerImportId ? [draft.dischargerImportId] : [])]);
     await insertAuditEvent(trx, {
       basinId: basin.id,
@@ -178,14 +142,14 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
       action: "network.committed",
       targetType: "network",
       targetId: network.id,
-      details: { version, reaches: net.reaches.length, outfalls: outfalls.length, warnings: report.warnings.length },
+      details: { version, reaches: net.reachCount, outfalls: outfallCount, warnings: report.warnings.length },
     });
     return {
       id: network.id,
       version,
       totalLengthKm: network.total_length_km,
-      reachCount: net.reaches.length,
-      outfallCount: outfalls.length,
+      reachCount: net.reachCount,
+      outfallCount,
       note: network.note,
       createdAt: network.created_at.toISOString(),
       createdBy: actor!.name,
