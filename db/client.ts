@@ -71,6 +71,14 @@ export function noteDatabaseUp(where: string): void {
   console.log(`[db] ${where}: PostgreSQL is reachable again after ${Math.round((Date.now() - outage.since) / 1000)} s`);
 }
 
+// The pg pool behind each handle, for the few libraries that take a pool rather than Kysely (rate limits).
+const pools = new WeakMap<Db, pg.Pool>();
+export function poolOf(db: Db): pg.Pool {
+  const pool = pools.get(db);
+  if (!pool) throw new Error("poolOf: this Kysely handle was not made by createDb");
+  return pool;
+}
+
 export function createDb(url: string = databaseUrl(), max = 10): Db {
   const pool = new pg.Pool({
     connectionString: url,
@@ -91,7 +99,9 @@ export function createDb(url: string = databaseUrl(), max = 10): Db {
     // pool drops the client on release (it is no longer queryable).
     client.on("error", (error) => noteDatabaseDown("connection", error));
   });
-  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+  const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+  pools.set(db, pool);
+  return db;
 }
 
 const globalForDb = globalThis as unknown as { saglineDb?: Db };

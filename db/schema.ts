@@ -17,6 +17,8 @@ export interface UsersTable {
   updated_at: UpdatedAt;
   /** Null until the address is confirmed (self-registered accounts); unverified accounts cannot sign in. */
   email_verified_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  /** Compared with the one in a session's JWT; raised to end every session the person has. */
+  session_version: Generated<number>;
 }
 
 export interface BasinsTable {

@@ -5,6 +5,7 @@ import * as m2026120102 from "./2026120102_scenarios_runs";
 import * as m2026120103 from "./2026120103_plans_reviews";
 import * as m2026120104 from "./2026120104_email_outbox";
 import * as m2026120105 from "./2026120105_accounts";
+import * as m2026120201 from "./2026120201_sessions_rate_limits";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -18,6 +19,7 @@ export const migrations: Record<string, Migration> = {
   "2026120103_plans_reviews": m2026120103,
   "2026120104_email_outbox": m2026120104,
   "2026120105_accounts": m2026120105,
+  "2026120201_sessions_rate_limits": m2026120201,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -8,6 +8,7 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { lockedOutMessage, signInRetryAt } from "@/lib/auth/sign-in-errors";
 import { EMAIL_NOT_CONFIRMED } from "@/lib/validation/account";
 import { signInSchema, type SignInInput } from "@/lib/validation/user";
 
@@ -24,8 +25,11 @@ export function SignInForm({ next }: { next: string }) {
     setFailure(null);
     const res = await signIn("credentials", { ...values, redirect: false });
     if (!res || res.error) {
+      const retryAt = signInRetryAt(res?.error);
       setFailure(
-        res?.error === EMAIL_NOT_CONFIRMED
+        retryAt
+          ? lockedOutMessage(retryAt)
+          : res?.error === EMAIL_NOT_CONFIRMED
           ? "Confirm your e-mail address first: open the link we e-mailed you when you created the account."
           : "That e-mail and password do not match an account.",
       );

@@ -1,3 +1,4 @@
+import { sql } from "kysely";
 import type { Db } from "../client";
 import type { NewUser, UserRow } from "../schema";
 
@@ -23,14 +24,23 @@ export async function insertUser(db: Db, user: NewUser): Promise<UserRow> {
     .executeTakeFirstOrThrow();
 }
 
-/** Sets a new password hash; returns false when the user does not exist. */
+/** Sets a new password hash and ends the account's sessions; returns false when the user does not exist. */
 export async function updateUserPassword(db: Db, userId: string, passwordHash: string): Promise<boolean> {
   const res = await db
     .updateTable("users")
-    .set({ password_hash: passwordHash, updated_at: new Date() })
+    .set({ password_hash: passwordHash, session_version: sql<number>`session_version + 1`, updated_at: new Date() })
     .where("id", "=", userId)
     .executeTakeFirst();
   return res.numUpdatedRows > 0n;
+}
+
+/** Raises the session version: every session signed in before now stops working. */
+export async function bumpSessionVersion(db: Db, userId: string): Promise<void> {
+  await db
+    .updateTable("users")
+    .set({ session_version: sql<number>`session_version + 1` })
+    .where("id", "=", userId)
+    .execute();
 }
 
 /** Marks the address confirmed (keeps the first confirmation time). */

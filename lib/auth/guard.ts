@@ -24,11 +24,18 @@ const ADMIN_BASIN_ACTIONS: readonly BasinAction[] = [
   "audit.read",
 ];
 
-/** Resolve a session's user id to a live account, or null when it no longer exists. */
-export async function loadActor(db: Db, userId: string | null | undefined): Promise<Actor | null> {
+/**
+ * Resolve a session's user id to a live account, or null when it no longer
+ * exists or the session is stale: its session version is not the account's
+ * current one (the password was reset or a basin role taken away since it
+ * signed in). Session readers always pass a version (0 for a token carrying
+ * none); only trusted server code (scripts, the demo) leaves it out.
+ */
+export async function loadActor(db: Db, userId: string | null | undefined, sessionVersion?: number): Promise<Actor | null> {
   if (!userId) return null;
   const user = await findUserById(db, userId);
-  return user ? { id: user.id, email: user.email, name: user.name, isAdmin: user.is_admin } : null;
+  if (!user || (sessionVersion !== undefined && user.session_version !== sessionVersion)) return null;
+  return { id: user.id, email: user.email, name: user.name, isAdmin: user.is_admin };
 }
 
 export function requireActor(actor: Actor | null): Actor {

@@ -15,6 +15,7 @@ import { requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { MemberAddInput, MemberUpdateInput } from "@/lib/validation/member";
 import { memberDto, type MemberDto } from "./dto";
+import { endSessions } from "./users";
 
 export async function listMembers(db: Db, actor: Actor | null, basinId: string): Promise<MemberDto[]> {
   const { basin } = await requireBasinAction(db, actor, basinId, "members.read");
@@ -80,6 +81,8 @@ export async function changeMemberRole(
     if (!before) throw notFound("Member");
     if (before !== input.role) await refuseLastLead(trx, basin.id, userId, "change the role of");
     await updateMembershipRole(trx, basin.id, userId, input.role);
+    // a role taken away ends the person's sessions (they sign in again under the new role)
+    if (before !== input.role) await endSessions(trx, userId);
     if (before === "discharger" && input.role !== "discharger") {
       await unlinkUserFromBasinFacilities(trx, basin.id, userId);
     }
@@ -104,6 +107,7 @@ export async function removeMember(db: Db, actor: Actor | null, basinId: string,
     await refuseLastLead(trx, basin.id, userId, "remove");
     await unlinkUserFromBasinFacilities(trx, basin.id, userId);
     await deleteMembership(trx, basin.id, userId);
+    await endSessions(trx, userId);
     await insertAuditEvent(trx, {
       basinId: basin.id,
       actorId: actor!.id,

@@ -1,12 +1,14 @@
 import type { Metadata } from "next";
 import { SignInForm } from "@/components/forms/sign-in-form";
+import { safeCallbackPath } from "@/lib/auth/safe-redirect";
+import { appUrl } from "@/lib/email/app-url";
 
 export const metadata: Metadata = { title: "Sign in" };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string }> }) {
   const { callbackUrl } = await searchParams;
-  // Only same-site paths are honoured as a destination after sign-in.
-  const next = callbackUrl && callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/basins";
+  // Only targets on the app's own origin are honoured after sign-in (resolved as a browser would).
+  const next = safeCallbackPath(callbackUrl, appUrl());
   return (
     <div className="card">
       <h1 className="mb-1">Sign in</h1>

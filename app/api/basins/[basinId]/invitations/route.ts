@@ -1,4 +1,5 @@
 import { route } from "@/lib/api/route";
+import { limited } from "@/lib/security/rate-limit";
 import { createInvitation, listInvitations } from "@/lib/services/invitations";
 import { invitationCreateSchema } from "@/lib/validation/account";
 import { basinParams } from "@/lib/validation/params";
@@ -9,5 +10,6 @@ export const GET = route({ access: { basin: "members.manage" }, params: basinPar
 
 export const POST = route(
   { access: { basin: "members.manage" }, params: basinParams, body: invitationCreateSchema, status: 201 },
-  ({ db, actor, params, body }) => createInvitation(db, actor, params.basinId, body),
+  // each invitation is an e-mail to an address the sender chose: limited per sender (429 with Retry-After beyond it)
+  ({ db, actor, params, body }) => limited([["invite_actor", actor!.id]], () => createInvitation(db, actor, params.basinId, body)),
 );
