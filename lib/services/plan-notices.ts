@@ -1,9 +1,11 @@
 import type { Db } from "@/db/client";
 import { findBasinById } from "@/db/queries/basins";
 import { basinFollowersWithEmail } from "@/db/queries/follows";
+import { isThreadComment, lockThreadNotices, outboxRowExists, threadCommentsSince, upsertPendingOutboxRow } from "@/db/queries/thread-digest";
 import { basinMembersWithEmail, dischargerAllocations, planCommenters, threadParticipants } from "@/db/queries/plans";
 import { appUrl } from "@/lib/email/app-url";
 import { queueEmail } from "@/lib/email/outbox";
+import { DIGEST_QUOTED, threadDigestEmail } from "@/lib/email/thread-digest-template";
 import { planPublishedEmail, reviewClosingEmail, reviewOpenedEmail, threadReplyEmail } from "@/lib/email/templates";
 
 /** Works for everyone signed in: members are sent on to the workspace page, others read the plan there. */
@@ -90,33 +92,90 @@ export async function noticeReviewClosingSoon(trx: Db, plan: PlanInfo, period: {
   return queued;
 }
 
-/** Everyone who already wrote in a thread (and the planner who answered it) hears of a new comment, except its author. */
+/** How long a thread's notices to one person are gathered into one summary (SAGLINE_THREAD_DIGEST_MINUTES, default 15). */
+export function threadDigestMinutes(env: NodeJS.ProcessEnv = process.env): number {
+  const raw = env.SAGLINE_THREAD_DIGEST_MINUTES;
+  const n = raw === undefined || raw === "" ? 15 : Number(raw);
+  if (!Number.isFinite(n) || n < 1 || n > 24 * 60) throw new Error(`SAGLINE_THREAD_DIGEST_MINUTES must be 1 to 1440; got "${raw}"`);
+  return n;
+}
+
+/**
+ * Everyone who already wrote in a thread (and the planner who answered it)
+ * hears of a new comment, except its author — at most twice per recipient,
+ * thread and window (SAGLINE_THREAD_DIGEST_MINUTES): the window's first comment
+ * right away (outbox key `thread_reply:<thread>:<person>:<window>`), and, if
+ * more follow, one summary of the window's comments sent when it ends (key
+ * `thread_digest:…:<window>`, rewritten while still pending). A planner's
+ * response is always sent on its own.
+ */
 export async function noticeThreadReply(
   trx: Db,
   plan: PlanInfo,
   thread: { id: string; title: string },
   comment: { id: string; authorId: string; authorName: string; authorRole: string; body: string },
+  now = new Date(),
 ) {
   const name = await basinName(trx, plan.basin_id);
   const participants = await threadParticipants(trx, thread.id, comment.authorId);
+  const digested = await isThreadComment(trx, thread.id, comment.id);
+  const minutes = threadDigestMinutes();
+  const windowMs = minutes * 60_000;
+  const window = Math.floor(now.getTime() / windowMs);
+  const windowStart = new Date(window * windowMs);
+  const windowEnd = new Date((window + 1) * windowMs);
   for (const p of participants) {
-    await queueEmail(trx, {
-      to: p.email,
-      kind: "thread_reply",
-      basinId: plan.basin_id,
-      dedupeKey: `thread_reply:${comment.id}:${p.id}`,
-      ...threadReplyEmail({
-        recipientName: p.name,
-        basinName: name,
-        planTitle: plan.title,
-        planVersion: plan.version,
-        url: planUrl(plan.basin_id, plan.id),
-        threadTitle: thread.title,
-        authorName: comment.authorName,
-        authorRole: comment.authorRole,
-        body: comment.body,
-      }),
+    const ref = {
+      recipientName: p.name,
+      basinName: name,
+      planTitle: plan.title,
+      planVersion: plan.version,
+      url: planUrl(plan.basin_id, plan.id),
+    };
+    const single = (dedupeKey: string) =>
+      queueEmail(trx, {
+        to: p.email,
+        kind: "thread_reply",
+        basinId: plan.basin_id,
+        dedupeKey,
+        ...threadReplyEmail({
+          ...ref,
+          threadTitle: thread.title,
+          authorName: comment.authorName,
+          authorRole: comment.authorRole,
+          body: comment.body,
+        }),
+      });
+    if (!digested) {
+      await single(`thread_reply:${comment.id}:${p.id}`);
+      continue;
+    }
+    await lockThreadNotices(trx, thread.id, p.id);
+    const firstKey = `thread_reply:${thread.id}:${p.id}:${window}`;
+    if (!(await outboxRowExists(trx, firstKey))) {
+      await single(firstKey);
+      continue;
+    }
+    const { total, latest } = await threadCommentsSince(trx, thread.id, p.id, windowStart, DIGEST_QUOTED);
+    const digest = threadDigestEmail({
+      ...ref,
+      threadTitle: thread.title,
+      windowMinutes: minutes,
+      total: Math.max(total, 1),
+      latest: latest.map((c) => ({ authorName: c.author_name, authorRole: c.author_role, body: c.body, at: c.created_at })),
     });
+    const written = await upsertPendingOutboxRow(trx, {
+      basin_id: plan.basin_id,
+      to_address: p.email,
+      kind: "thread_reply",
+      dedupe_key: `thread_digest:${thread.id}:${p.id}:${window}`,
+      subject: digest.subject,
+      text_body: digest.text,
+      html_body: digest.html,
+      next_attempt_at: windowEnd,
+    });
+    // the summary already went out (a comment at the very end of its window): this one goes alone
+    if (!written) await single(`thread_reply:${comment.id}:${p.id}`);
   }
 }
 
