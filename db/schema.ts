@@ -204,11 +204,26 @@ export interface PlansTable {
   created_at: CreatedAt;
   published_by: ColumnType<string | null, string | null | undefined, string | null>;
   published_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+  /** The reach lines of the plan's network version as proposed (null only for plans from before they were kept). */
+  reach_lines: ColumnType<PlanReachLine[] | null, string | undefined, string | null>;
+}
+
+/** One reach line as a plan keeps it. */
+export interface PlanReachLine {
+  network_id: string;
+  network_version: number;
+  reach_key: string;
+  name: string | null;
+  length_km: number;
+  downstream_key: string | null;
+  coordinates: [number, number][];
 }
 
 export interface PlanAllocationsTable {
   plan_id: string;
   facility_id: string;
+  /** The facility's name as the plan was proposed. */
+  facility_name: ColumnType<string | null, string | undefined, string | null>;
   permit_id: string;
   cbodu_kg_day: number;
   bod5_kg_day: number;

@@ -6,6 +6,7 @@ import * as m2026120103 from "./2026120103_plans_reviews";
 import * as m2026120104 from "./2026120104_email_outbox";
 import * as m2026120105 from "./2026120105_accounts";
 import * as m2026120201 from "./2026120201_sessions_rate_limits";
+import * as m2026120204 from "./2026120204_frozen_plan_rows";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -20,6 +21,7 @@ export const migrations: Record<string, Migration> = {
   "2026120104_email_outbox": m2026120104,
   "2026120105_accounts": m2026120105,
   "2026120201_sessions_rate_limits": m2026120201,
+  "2026120204_frozen_plan_rows": m2026120204,
 };
 
 export const migrationProvider: MigrationProvider = {

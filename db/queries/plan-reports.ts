@@ -1,4 +1,5 @@
 import type { Db } from "../client";
+import type { PlanReachLine } from "../schema";
 import { isUuid } from "./users";
 
 /**
@@ -8,8 +9,11 @@ import { isUuid } from "./users";
  * edits touch names, lengths and attributes of the newest version only), so these
  * are the lines the plan's results were drawn on.
  */
-export async function planReachLines(db: Db, planId: string) {
+export async function planReachLines(db: Db, planId: string): Promise<PlanReachLine[]> {
   if (!isUuid(planId)) return [];
+  // kept with the plan when it was proposed: inline edits of the newest network version cannot reach it
+  const kept = await db.selectFrom("plans").select("reach_lines").where("id", "=", planId).executeTakeFirst();
+  if (kept?.reach_lines) return kept.reach_lines;
   return db
     .selectFrom("plans as p")
     .innerJoin("runs as r", "r.id", "p.run_id")
@@ -18,6 +22,17 @@ export async function planReachLines(db: Db, planId: string) {
     .innerJoin("reaches as x", "x.network_id", "n.id")
     .select(["n.id as network_id", "n.version as network_version", "x.reach_key", "x.name", "x.length_km", "x.downstream_key", "x.coordinates"])
     .where("p.id", "=", planId)
+    .orderBy("x.reach_key")
+    .execute();
+}
+
+/** The reach lines of one network version, as a plan keeps them. */
+export async function networkReachLines(db: Db, networkId: string): Promise<PlanReachLine[]> {
+  return db
+    .selectFrom("networks as n")
+    .innerJoin("reaches as x", "x.network_id", "n.id")
+    .select(["n.id as network_id", "n.version as network_version", "x.reach_key", "x.name", "x.length_km", "x.downstream_key", "x.coordinates"])
+    .where("n.id", "=", networkId)
     .orderBy("x.reach_key")
     .execute();
 }

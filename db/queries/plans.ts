@@ -74,9 +74,9 @@ export async function planAllocations(db: Db, planId: string) {
     .selectFrom("plan_allocations as a")
     .innerJoin("facilities as f", "f.id", "a.facility_id")
     .selectAll("a")
-    .select("f.name as facility_name")
+    .select((eb) => eb.fn.coalesce("a.facility_name", "f.name").as("facility_name"))
     .where("a.plan_id", "=", planId)
-    .orderBy("f.name")
+    .orderBy((eb) => eb.fn.coalesce("a.facility_name", "f.name"))
     .execute();
 }
 
@@ -88,10 +88,11 @@ export async function planThreads(db: Db, planId: string) {
   const threads = await db
     .selectFrom("threads as t")
     .leftJoin("facilities as f", "f.id", "t.facility_id")
+    .leftJoin("plan_allocations as a", (j) => j.onRef("a.plan_id", "=", "t.plan_id").onRef("a.facility_id", "=", "t.facility_id"))
     .leftJoin("users as u", "u.id", "t.responded_by")
-    .select(["t.id", "t.facility_id", "t.status", "t.response", "t.responded_at", "f.name as facility_name", "f.permit_id", "u.name as responder_name"])
+    .select((eb) => ["t.id", "t.facility_id", "t.status", "t.response", "t.responded_at", eb.fn.coalesce("a.facility_name", "f.name").as("facility_name"), "f.permit_id", "u.name as responder_name"])
     .where("t.plan_id", "=", planId)
-    .orderBy("f.name", (ob) => ob.nullsFirst())
+    .orderBy((eb) => eb.fn.coalesce("a.facility_name", "f.name"), (ob) => ob.nullsFirst())
     .execute();
   const comments = threads.length
     ? await db
@@ -133,24 +134,25 @@ export async function listPublishedPlans(db: Db, limit = 50) {
 
 export async function insertPlan(
   db: Db,
-  v: { basinId: string; version: number; title: string; runId: string; snapshot: unknown; createdBy: string },
+  v: { basinId: string; version: number; title: string; runId: string; snapshot: unknown; reachLines: unknown[]; createdBy: string },
 ): Promise<{ id: string }> {
   return db
     .insertInto("plans")
-    .values({ basin_id: v.basinId, version: v.version, title: v.title, run_id: v.runId, snapshot: JSON.stringify(v.snapshot), created_by: v.createdBy })
+    .values({ basin_id: v.basinId, version: v.version, title: v.title, run_id: v.runId, snapshot: JSON.stringify(v.snapshot), reach_lines: JSON.stringify(v.reachLines), created_by: v.createdBy })
     .returning("id")
     .executeTakeFirstOrThrow();
 }
 
 export async function insertPlanAllocation(
   db: Db,
-  v: { planId: string; facilityId: string; permitId: string; cboduKgDay: number; bod5KgDay: number; bod5MgL: number; todayKgDay: number; reductionPct: number | null; terms: unknown },
+  v: { planId: string; facilityId: string; facilityName: string; permitId: string; cboduKgDay: number; bod5KgDay: number; bod5MgL: number; todayKgDay: number; reductionPct: number | null; terms: unknown },
 ): Promise<void> {
   await db
     .insertInto("plan_allocations")
     .values({
       plan_id: v.planId,
       facility_id: v.facilityId,
+      facility_name: v.facilityName,
       permit_id: v.permitId,
       cbodu_kg_day: v.cboduKgDay,
       bod5_kg_day: v.bod5KgDay,

@@ -27,6 +27,7 @@ import type { PlanPropose, ReviewExtend, ReviewOpen } from "@/lib/validation/pla
 import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
 import { getRun, runScenarioRecord } from "./runs";
 import { findBasinById } from "@/db/queries/basins";
+import { networkReachLines } from "@/db/queries/plan-reports";
 
 /** Another request changed the plan's state first. */
 const raced = () => conflict("The plan's state changed while this request was being handled; reload the plan and try again");
@@ -76,6 +77,7 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
       [{ path: "runId", message: "Run older than its scenario's current version" }],
     );
   }
+  const reachLines = await networkReachLines(db, scenario.networkId);
   return db.transaction().execute(async (trx) => {
     const version = await nextPlanVersion(trx, basin.id);
     const plan = await insertPlan(trx, {
@@ -83,6 +85,7 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
       version,
       title: input.title,
       runId: run.id,
+      reachLines,
       snapshot: { run: { ...run, scenarioName: scenario.name }, scenario: { id: scenario.id, name: scenario.name, version: scenario.version, networkId: scenario.networkId, inputs: scenario.inputs } },
       createdBy: actor!.id,
     });
@@ -94,6 +97,7 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
       await insertPlanAllocation(trx, {
         planId: plan.id,
         facilityId: facility.id,
+        facilityName: facility.name,
         permitId: a.id,
         cboduKgDay: a.cbodu_kg_day,
         bod5KgDay: a.bod5_kg_day,
