@@ -208,6 +208,13 @@ export interface PlansTable {
   reach_lines: ColumnType<PlanReachLine[] | null, string | undefined, string | null>;
 }
 
+/** A published plan's PDF report, rendered once. */
+export interface PlanReportFilesTable {
+  plan_id: string;
+  pdf: Buffer;
+  created_at: CreatedAt;
+}
+
 /** One reach line as a plan keeps it. */
 export interface PlanReachLine {
   network_id: string;
@@ -308,6 +315,7 @@ export interface Database {
   plans: PlansTable;
   plan_allocations: PlanAllocationsTable;
   review_periods: ReviewPeriodsTable;
+  plan_report_files: PlanReportFilesTable;
   threads: ThreadsTable;
   comments: CommentsTable;
   email_outbox: EmailOutboxTable;

@@ -7,6 +7,7 @@ import * as m2026120104 from "./2026120104_email_outbox";
 import * as m2026120105 from "./2026120105_accounts";
 import * as m2026120201 from "./2026120201_sessions_rate_limits";
 import * as m2026120204 from "./2026120204_frozen_plan_rows";
+import * as m2026120205 from "./2026120205_plan_report_files";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -22,6 +23,7 @@ export const migrations: Record<string, Migration> = {
   "2026120105_accounts": m2026120105,
   "2026120201_sessions_rate_limits": m2026120201,
   "2026120204_frozen_plan_rows": m2026120204,
+  "2026120205_plan_report_files": m2026120205,
 };
 
 export const migrationProvider: MigrationProvider = {

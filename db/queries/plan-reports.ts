@@ -36,3 +36,14 @@ export async function networkReachLines(db: Db, networkId: string): Promise<Plan
     .orderBy("x.reach_key")
     .execute();
 }
+
+/** A published plan's stored PDF, if it has been rendered. */
+export async function findPlanReportFile(db: Db, planId: string): Promise<Buffer | undefined> {
+  const row = await db.selectFrom("plan_report_files").select("pdf").where("plan_id", "=", planId).executeTakeFirst();
+  return row?.pdf;
+}
+
+/** Keep a published plan's PDF (the first one stored wins; all are the same plan). */
+export async function storePlanReportFile(db: Db, planId: string, pdf: Uint8Array): Promise<void> {
+  await db.insertInto("plan_report_files").values({ plan_id: planId, pdf: Buffer.from(pdf) }).onConflict((oc) => oc.column("plan_id").doNothing()).execute();
+}

@@ -1,7 +1,7 @@
 import type { FeatureCollection } from "geojson";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
-import { planReachLines } from "@/db/queries/plan-reports";
+import { findPlanReportFile, planReachLines, storePlanReportFile } from "@/db/queries/plan-reports";
 import type { Actor } from "@/lib/auth/guard";
 import { csvText } from "@/lib/reports/csv-text";
 import type { PlanDownload } from "@/lib/reports/download";
@@ -53,11 +53,37 @@ const about = (basinName: string, plan: PlanDto) => [
 /** The plan report as PDF (see lib/reports/plan-pdf.tsx). */
 export async function planReportPdf(db: Db, actor: Actor | null, basinId: string, planId: string, now = new Date()): Promise<PlanDownload> {
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
-  const network = await planNetwork(db, plan.id);
-  const report = planReport(plan, { name: basin.name, unitSystem: basin.unitSystem }, network.features.length ? network : null, now);
-  const bytes = await renderPlanPdf(report);
-  await recordExport(db, actor, basin.id, plan, "pdf");
-  return { body: new Uint8Array(bytes), contentType: "application/pdf", fileName: `${stem}.pdf` };
+  const render = async () => {
+    const network = await planNetwork(db, plan.id);
+    const report = planReport(plan, { name: basin.name, unitSystem: basin.unitSystem }, network.features.length ? network : null, now);
+    return new Uint8Array(await renderPlanPdf(report));
+  };
+  if (plan.status !== "published") {
+    const bytes = await render();
+    await recordExport(db, actor, basin.id, plan, "pdf");
+    return { body: bytes, contentType: "application/pdf", fileName: `${stem}.pdf` };
+  }
+  return { body: await publishedPdf(db, plan.id, render), contentType: "application/pdf", fileName: `${stem}.pdf` };
+}
+
+/** Renders in flight in this process, so requests arriving together for a new published plan render it once. */
+const rendering = new Map<string, Promise<Uint8Array>>();
+
+/** A published plan's PDF: stored after its first rendering and served from the database from then on. */
+async function publishedPdf(db: Db, planId: string, render: () => Promise<Uint8Array>): Promise<Uint8Array> {
+  const stored = await findPlanReportFile(db, planId);
+  if (stored) return new Uint8Array(stored);
+  let pending = rendering.get(planId);
+  if (!pending) {
+    pending = render()
+      .then(async (bytes) => {
+        await storePlanReportFile(db, planId, bytes);
+        return bytes;
+      })
+      .finally(() => rendering.delete(planId));
+    rendering.set(planId, pending);
+  }
+  return pending;
 }
 
 /** The allocation table as CSV, loads in the basin's unit, the caution in the leading `#` lines. */

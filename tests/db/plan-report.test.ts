@@ -96,6 +96,17 @@ describe("the report of a published plan (US units) with a comment and its respo
     expect(text.split(PLANNING_CAUTION[1]).length - 1).toBe(pages + 1);
   });
 
+  it("is rendered once for a published plan and served from storage after that, also to requests arriving together", async () => {
+    await db.deleteFrom("plan_report_files").where("plan_id", "=", planId).execute();
+    const together = await Promise.all([1, 2, 3, 4].map(() => planReportPdf(db, null, w.basinId, planId)));
+    const stored = await db.selectFrom("plan_report_files").select(["pdf", "created_at"]).where("plan_id", "=", planId).execute();
+    expect(stored).toHaveLength(1);
+    for (const p of together) expect(Buffer.from(p.body as Uint8Array).equals(stored[0].pdf)).toBe(true);
+    // a later request is the stored file byte for byte (a fresh rendering would differ in its creation date)
+    const later = await planReportPdf(db, null, w.basinId, planId, new Date(Date.now() + 86_400_000));
+    expect(Buffer.from(later.body as Uint8Array).equals(stored[0].pdf)).toBe(true);
+  });
+
   it("is a public copy: exporting a published plan records no audit event", async () => {
     await planReportPdf(db, w.users.stakeholder, w.basinId, planId);
     expect(await exportEvents(planId)).toEqual([]);
