@@ -78,6 +78,8 @@ export default async function setup(project: TestProject) {
       DATABASE_URL: url,
       NEXTAUTH_URL: baseUrl,
       NEXTAUTH_SECRET: "e2e-secret-for-sagline-browser-tests",
+      // every browser signs in from 127.0.0.1 many times: raise the rate limits (lib/security/rate-limit.ts)
+      SAGLINE_RATE_LIMIT_SCALE: process.env.SAGLINE_RATE_LIMIT_SCALE ?? "100",
       ...mailEnv,
     },
     stdio: ["ignore", "pipe", "pipe"],
