@@ -42,12 +42,16 @@ export async function addMember(db: Db, actor: Actor | null, basinId: string, in
       action: "member.added",
       targetType: "user",
       targetId: user.id,
-      details: { email: user.email, role: input.role },
+      // a site admin giving themselves a basin role is allowed, and said so plainly in the basin's audit trail
+      details: { email: user.email, role: input.role, ...(selfGranted(actor, user.id) ? { selfGrantedBySiteAdmin: true } : {}) },
     });
     const rows = await listMemberRows(trx, basin.id);
     return memberDto(rows.find((r) => r.user_id === user.id)!);
   });
 }
+
+/** A site admin changing their own basin role (the only way anyone can). */
+const selfGranted = (actor: Actor | null, userId: string) => actor?.isAdmin === true && actor.id === userId;
 
 /**
  * Membership changes in one basin happen one at a time (the basin's row is
@@ -92,7 +96,7 @@ export async function changeMemberRole(
       action: "member.role_changed",
       targetType: "user",
       targetId: userId,
-      details: { from: before, to: input.role },
+      details: { from: before, to: input.role, ...(selfGranted(actor, userId) ? { selfGrantedBySiteAdmin: true } : {}) },
     });
     const rows = await listMemberRows(trx, basin.id);
     return memberDto(rows.find((r) => r.user_id === userId)!);

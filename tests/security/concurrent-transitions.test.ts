@@ -97,3 +97,14 @@ describe("concurrent membership changes", () => {
     expect(leads).toHaveLength(1);
   });
 });
+
+describe("a site admin giving themselves a basin role", () => {
+  it("is recorded as such in the basin's audit trail, which its leads read", async () => {
+    const { addMember } = await import("@/lib/services/members");
+    const { listBasinAudit } = await import("@/lib/services/audit");
+    await addMember(db, w.users.admin, w.basinId, { email: w.users.admin.email, role: "planner" });
+    const events = await listBasinAudit(db, w.users.lead, w.basinId, {});
+    const row = events.find((e) => e.action === "member.added" && e.targetId === w.users.admin.id);
+    expect(row?.details).toMatchObject({ role: "planner", selfGrantedBySiteAdmin: true });
+  });
+});
