@@ -15,7 +15,7 @@
  * Null when no address can be read (a request made in-process): per-address
  * limits then do not apply.
  */
-export function clientAddress(headers: Headers, env: NodeJS.ProcessEnv = process.env): string | null {
+export function clientAddress(headers: Headers, env: Record<string, string | undefined> = process.env): string | null {
   const hops = trustedProxyHops(env);
   const entries = (headers.get("x-forwarded-for") ?? "")
     .split(",")
@@ -26,7 +26,7 @@ export function clientAddress(headers: Headers, env: NodeJS.ProcessEnv = process
   return normalise(entries[at]);
 }
 
-export function trustedProxyHops(env: NodeJS.ProcessEnv = process.env): number {
+export function trustedProxyHops(env: Record<string, string | undefined> = process.env): number {
   const raw = (env.TRUSTED_PROXY ?? "").trim().toLowerCase();
   if (raw === "" || raw === "0" || raw === "false" || raw === "no") return 0;
   if (raw === "true" || raw === "yes") return 1;

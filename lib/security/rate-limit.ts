@@ -32,7 +32,7 @@ export interface LimitSetting {
 }
 
 /** The limit in force: the default, or the environment's `points/seconds`, times the scale. */
-export function limitSetting(name: RateLimitName, env: NodeJS.ProcessEnv = process.env): LimitSetting {
+export function limitSetting(name: RateLimitName, env: Record<string, string | undefined> = process.env): LimitSetting {
   const fallback = RATE_LIMITS[name];
   let { points, seconds }: LimitSetting = fallback;
   const raw = env[`SAGLINE_RATE_LIMIT_${name.toUpperCase()}`];

@@ -93,7 +93,7 @@ export async function noticeReviewClosingSoon(trx: Db, plan: PlanInfo, period: {
 }
 
 /** How long a thread's notices to one person are gathered into one summary (SAGLINE_THREAD_DIGEST_MINUTES, default 15). */
-export function threadDigestMinutes(env: NodeJS.ProcessEnv = process.env): number {
+export function threadDigestMinutes(env: Record<string, string | undefined> = process.env): number {
   const raw = env.SAGLINE_THREAD_DIGEST_MINUTES;
   const n = raw === undefined || raw === "" ? 15 : Number(raw);
   if (!Number.isFinite(n) || n < 1 || n > 24 * 60) throw new Error(`SAGLINE_THREAD_DIGEST_MINUTES must be 1 to 1440; got "${raw}"`);
