@@ -7,19 +7,18 @@ import {
   type ColumnDef,
   type SortingState,
 } from "@tanstack/react-table";
-import Papa from "papaparse";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { csvText } from "@/lib/reports/csv-text";
 
 export interface CsvColumn<T> {
   header: string;
   value: (row: T) => string | number | null | undefined;
 }
 
-/** Download rows as a CSV file built in the browser (papaparse). */
+/** Download rows as a CSV file built in the browser, by the same writer as the server's downloads. */
 export function downloadCsv<T>(fileName: string, rows: T[], columns: CsvColumn<T>[], preface: string[] = []): void {
-  const body = Papa.unparse({ fields: columns.map((c) => c.header), data: rows.map((r) => columns.map((c) => c.value(r) ?? "")) });
-  const text = [...preface.map((line) => `# ${line}`), body].join("\r\n");
+  const text = csvText({ preface, columns, rows });
   const url = URL.createObjectURL(new Blob([text], { type: "text/csv;charset=utf-8" }));
   const a = document.createElement("a");
   a.href = url;
