@@ -6,6 +6,7 @@ export const ERROR_STATUS = {
   not_found: 404,
   conflict: 409,
   too_large: 413,
+  unsupported_media_type: 415,
   invalid: 422,
   internal: 500,
 } as const;

@@ -30,6 +30,8 @@ interface Spec<P extends z.ZodType, B extends z.ZodType, Q extends z.ZodType> {
    * Content-Length says more is refused before any of it is read.
    */
   maxUploadBytes?: () => number;
+  /** A JSON body's most bytes (default DEFAULT_MAX_JSON_BYTES), counted as it is read; more is a 413. */
+  maxBodyBytes?: number;
   /** HTTP status of a successful response (default 200). */
   status?: number;
 }
@@ -49,8 +51,72 @@ export interface RouteContext<P, B, Q = Record<string, string>> {
 
 type Handler<P, B, Q> = (ctx: RouteContext<P, B, Q>) => Promise<unknown>;
 
-async function readJson(req: NextRequest): Promise<unknown> {
-  const text = await req.text();
+/** The most bytes a JSON body may have unless a route says otherwise. */
+export const DEFAULT_MAX_JSON_BYTES = 1024 * 1024;
+
+const tooLarge = (limit: number, field = "body") =>
+  new AppError("too_large", `The request body is larger than the ${limit >= 1048576 ? `${Math.floor(limit / 1048576)} MB` : `${Math.floor(limit / 1024)} KB`} limit`, [
+    { path: field, message: "Too large" },
+  ]);
+
+/**
+ * The body's bytes, counted while they arrive and refused once past `limit`
+ * (a chunked body has no Content-Length to check first), so an oversized
+ * body is never held in memory whole.
+ */
+async function readCapped(req: NextRequest, limit: number, field?: string): Promise<Buffer> {
+  const declared = Number(req.headers.get("content-length") ?? NaN);
+  if (Number.isFinite(declared) && declared > limit) throw tooLarge(limit, field);
+  if (!req.body) return Buffer.alloc(0);
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > limit) {
+      await reader.cancel().catch(() => undefined);
+      throw tooLarge(limit, field);
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks, total);
+}
+
+/** The first text value holding a NUL character (PostgreSQL cannot store one), as a dotted path. */
+function nulPath(value: unknown, path: string): string | null {
+  if (typeof value === "string") return value.includes("\u0000") ? path : null;
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      const p = nulPath(value[i], path ? `${path}.${i}` : String(i));
+      if (p !== null) return p;
+    }
+    return null;
+  }
+  if (value && typeof value === "object") {
+    for (const [k, v] of Object.entries(value)) {
+      if (k.includes("\u0000")) return path ? `${path}.${k}` : k;
+      const p = nulPath(v, path ? `${path}.${k}` : k);
+      if (p !== null) return p;
+    }
+  }
+  return null;
+}
+
+function refuseNul(value: unknown, where: string): void {
+  const path = nulPath(value, "");
+  if (path !== null) {
+    throw new AppError("invalid", `A NUL character is not allowed in ${path || where}`, [{ path: path || where, message: "Contains a NUL character" }]);
+  }
+}
+
+async function readJson(req: NextRequest, limit: number): Promise<unknown> {
+  const type = (req.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
+  if (type !== "application/json" && !type.endsWith("+json")) {
+    throw new AppError("unsupported_media_type", "Send the request body as JSON (Content-Type: application/json)", [{ path: "Content-Type", message: type || "missing" }]);
+  }
+  const text = (await readCapped(req, limit)).toString("utf8");
   if (text.trim() === "") throw new AppError("bad_request", "The request body is empty; send a JSON object");
   try {
     return JSON.parse(text);
@@ -59,13 +125,14 @@ async function readJson(req: NextRequest): Promise<unknown> {
   }
 }
 
-async function readForm(req: NextRequest): Promise<FormData> {
+async function readForm(req: NextRequest, limit: number, field: string): Promise<FormData> {
   const type = req.headers.get("content-type") ?? "";
   if (!type.startsWith("multipart/form-data")) {
-    throw new AppError("bad_request", "Send the upload as multipart/form-data");
+    throw new AppError("unsupported_media_type", "Send the upload as multipart/form-data", [{ path: "Content-Type", message: type || "missing" }]);
   }
+  const bytes = await readCapped(req, limit, field);
   try {
-    return await req.formData();
+    return await new Response(new Uint8Array(bytes), { headers: { "content-type": type } }).formData();
   } catch {
     throw new AppError("bad_request", "The multipart upload could not be read");
   }
@@ -106,6 +173,7 @@ export function route<
       }
 
       let query = Object.fromEntries(req.nextUrl.searchParams) as z.infer<Q>;
+      refuseNul(query, "query string");
       if (spec.query) {
         const parsed = spec.query.safeParse(query);
         if (!parsed.success) throw invalid(parsed.error, "query string");
@@ -115,14 +183,7 @@ export function route<
       let body = undefined as z.infer<B>;
       let file: RouteContext<unknown, unknown, unknown>["file"] = null;
       if (spec.fileField) {
-        const declared = Number(req.headers.get("content-length") ?? NaN);
-        const limit = spec.maxUploadBytes?.();
-        if (limit !== undefined && Number.isFinite(declared) && declared > limit) {
-          throw new AppError("too_large", `The upload is larger than the ${Math.floor(limit / 1048576)} MB limit`, [
-            { path: spec.fileField, message: "File too large" },
-          ]);
-        }
-        const form = await readForm(req);
+        const form = await readForm(req, spec.maxUploadBytes?.() ?? DEFAULT_MAX_JSON_BYTES, spec.fileField);
         const entry = form.get(spec.fileField);
         if (!(entry instanceof File)) {
           throw new AppError("invalid", `Attach the file as the "${spec.fileField}" field`, [
@@ -132,13 +193,16 @@ export function route<
         file = { name: entry.name || "upload", bytes: Buffer.from(await entry.arrayBuffer()) };
         const fields: Record<string, string> = {};
         for (const [k, v] of form.entries()) if (typeof v === "string" && v !== "") fields[k] = v;
+        refuseNul(fields, "form fields");
         if (spec.body) {
           const parsed = spec.body.safeParse(fields);
           if (!parsed.success) throw invalid(parsed.error, "form fields");
           body = parsed.data;
         }
       } else if (spec.body) {
-        const parsed = spec.body.safeParse(await readJson(req));
+        const json = await readJson(req, spec.maxBodyBytes ?? DEFAULT_MAX_JSON_BYTES);
+        refuseNul(json, "request body");
+        const parsed = spec.body.safeParse(json);
         if (!parsed.success) throw invalid(parsed.error, "request body");
         body = parsed.data;
       }
