@@ -18,7 +18,8 @@ beforeAll(async () => {
 
 type Handler = (req: NextRequest, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 async function send(handler: Handler, body: BodyInit, headers: Record<string, string>) {
-  const req = new NextRequest("http://127.0.0.1/api/test", { method: "POST", headers, body, duplex: "half" } as RequestInit & { duplex: "half" });
+  const init = { method: "POST", headers, body, duplex: "half" } as ConstructorParameters<typeof NextRequest>[1];
+  const req = new NextRequest("http://127.0.0.1/api/test", init);
   const res = await handler(req, { params: Promise.resolve({}) });
   return { status: res.status, json: await res.json() };
 }
