@@ -165,6 +165,11 @@ const CORE: Record<string, Entry> = {
     load: () => import("@/app/api/basins/[basinId]/networks/validate/route"),
     methods: { POST: { expect: planners(200), prepare: withDraft, params: basin, body: (_w, p) => draftOf(p) } },
   },
+  "app/api/basins/[basinId]/networks/validate/[progressId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/networks/validate/[progressId]/route"),
+    // progress is shown only to the one who started the validation: anyone else, a planner too, finds none
+    methods: { GET: { expect: planners(404), params: (w) => ({ basinId: w.basinId, progressId: "00000000-0000-4000-8000-000000000000" }) } },
+  },
   "app/api/basins/[basinId]/networks/[networkId]/route.ts": {
     load: () => import("@/app/api/basins/[basinId]/networks/[networkId]/route"),
     methods: {
