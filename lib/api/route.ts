@@ -111,6 +111,29 @@ function refuseNul(value: unknown, where: string): void {
   }
 }
 
+/**
+ * A write must come from Sagline's own pages: an Origin naming another site, or
+ * (without Origin) a browser saying the request is cross-site, is refused. The
+ * app's own origin is NEXTAUTH_URL's, or the Host the request was sent to.
+ * Requests without either header (scripts, the CLI, tests) carry no browser
+ * cookies from another site and pass.
+ */
+function refuseForeignOrigin(req: NextRequest): void {
+  if (req.method === "GET" || req.method === "HEAD" || req.method === "OPTIONS") return;
+  const origin = req.headers.get("origin");
+  if (origin !== null) {
+    const own = new Set<string>();
+    if (process.env.NEXTAUTH_URL) own.add(new URL(process.env.NEXTAUTH_URL).origin);
+    const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host");
+    if (host) own.add(`${(req.headers.get("x-forwarded-proto") ?? req.nextUrl.protocol.replace(/:$/, ""))}://${host}`);
+    if (!own.has(origin)) throw new AppError("forbidden", "This request came from another site; Sagline accepts changes only from its own pages", [{ path: "Origin", message: origin }]);
+    return;
+  }
+  if (req.headers.get("sec-fetch-site") === "cross-site") {
+    throw new AppError("forbidden", "This request came from another site; Sagline accepts changes only from its own pages", [{ path: "Sec-Fetch-Site", message: "cross-site" }]);
+  }
+}
+
 async function readJson(req: NextRequest, limit: number): Promise<unknown> {
   const type = (req.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
   if (type !== "application/json" && !type.endsWith("+json")) {
@@ -149,6 +172,7 @@ export function route<
 >(spec: Spec<P, B, Q>, handler: Handler<z.infer<P>, z.infer<B>, z.infer<Q>>) {
   return async (req: NextRequest, ctx: { params: Promise<Record<string, string | string[]>> }): Promise<Response> => {
     try {
+      refuseForeignOrigin(req);
       const db = getDb();
       const rawParams = (await ctx?.params) ?? {};
       const actor = "public" in spec.access ? await actorFromRequest(req).catch(() => null) : await actorFromRequest(req);
