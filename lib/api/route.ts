@@ -149,6 +149,9 @@ async function readJson(req: NextRequest, limit: number): Promise<unknown> {
 }
 
 async function readForm(req: NextRequest, limit: number, field: string): Promise<FormData> {
+  // a declared length over the limit is refused before anything else is looked at
+  const declared = Number(req.headers.get("content-length") ?? NaN);
+  if (Number.isFinite(declared) && declared > limit) throw tooLarge(limit, field);
   const type = req.headers.get("content-type") ?? "";
   if (!type.startsWith("multipart/form-data")) {
     throw new AppError("unsupported_media_type", "Send the upload as multipart/form-data", [{ path: "Content-Type", message: type || "missing" }]);
