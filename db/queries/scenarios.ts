@@ -1,5 +1,5 @@
 import type { Db } from "../client";
-import type { RunKind, RunStatus } from "../schema";
+import type { RunKind } from "../schema";
 import { isUuid } from "./users";
 
 /** Scenarios with their network version and the name of whoever saved them last. */
@@ -157,27 +157,6 @@ export async function runForWork(db: Db, id: string) {
   return db.selectFrom("runs").select(["id", "kind", "status", "model_file"]).where("id", "=", id).executeTakeFirst();
 }
 
-export async function setRunState(
-  db: Db,
-  id: string,
-  v: { status: RunStatus; progress?: number; error?: string | null; result?: unknown; methods?: unknown; started?: boolean; finished?: boolean },
-): Promise<void> {
-  await db
-    .updateTable("runs")
-    .set({
-      status: v.status,
-      ...(v.progress !== undefined ? { progress: v.progress } : {}),
-      ...(v.error !== undefined ? { error: v.error } : {}),
-      ...(v.result !== undefined ? { result: JSON.stringify(v.result) } : {}),
-      ...(v.methods !== undefined ? { methods: JSON.stringify(v.methods) } : {}),
-      ...(v.started ? { started_at: new Date() } : {}),
-      ...(v.finished ? { finished_at: new Date() } : {}),
-    })
-    .where("id", "=", id)
-    .execute();
-}
-
-/** A run's stored result and model files as JSON text (no parse/serialise round trip). */
 export async function findRunJsonText(db: Db, basinId: string, id: string) {
   if (!isUuid(id)) return undefined;
   return runQuery(db, basinId)
