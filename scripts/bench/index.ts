@@ -5,6 +5,7 @@
  *   3. Allocation with 50/200/500 dischargers on 10k reaches vs HiGHS on the full LP.
  *   4. GIS import of a synthetic 10k-reach zipped shapefile with 1k dischargers
  *      (parse + reprojection + topology + snapping); target ≤ 3 s.
+ *   5. Self-crossing check of 2k/16k/100k-vertex lines against turf kinks().
  * Targets (issue 3): 10k-reach run ≤ 20 ms; ≥ 100× faster than the ODE integrator;
  * 500-discharger allocation ≤ 2 s and no slower than HiGHS on the full LP.
  * Options: `npm run bench -- --quick` skips the 10k ODE comparison and the 500-discharger case.
@@ -13,6 +14,7 @@ import { runModelBench } from "./run-bench";
 import { odeBench } from "./ode-bench";
 import { allocationBench } from "./allocation-bench";
 import { geoImportBench } from "./geo-import";
+import { selfCrossingsBench } from "./self-crossings-bench";
 
 const quick = process.argv.includes("--quick");
 
@@ -24,6 +26,7 @@ async function main() {
   if (!quick) odeBench(10_000);
   for (const dischargers of quick ? [50, 200] : [50, 200, 500]) await allocationBench(10_000, dischargers);
   await geoImportBench(10_000, 1000);
+  selfCrossingsBench();
 }
 
 main().catch((e: unknown) => {
