@@ -12,7 +12,6 @@ import {
   useMappingsQuery,
   useSaveMappingMutation,
   useUploadMutation,
-  useValidateMutation,
   type DraftResultDto,
 } from "@/lib/queries/networks";
 import type { NetworkDraft } from "@/lib/validation/network";
@@ -20,6 +19,7 @@ import { MappingEditor } from "./mapping-editor";
 import { DISCHARGER_FIELDS, fromMapping, guessBindings, REACH_FIELDS, toMapping, type Bindings } from "./mapping-fields";
 import { ReportView } from "./report-view";
 import { UploadBox } from "./upload-box";
+import { useValidation } from "./use-validation";
 
 type Layer = "reaches" | "dischargers";
 
@@ -30,7 +30,7 @@ type Layer = "reaches" | "dischargers";
 export function ImportWizard({ basinId }: { basinId: string }) {
   const router = useRouter();
   const upload = useUploadMutation(basinId);
-  const validate = useValidateMutation(basinId);
+  const validate = useValidation(basinId);
   const commit = useCommitMutation(basinId);
   const saveMapping = useSaveMappingMutation(basinId);
   const mappings = useMappingsQuery(basinId);
@@ -85,7 +85,7 @@ export function ImportWizard({ basinId }: { basinId: string }) {
     setShown(null);
     setAccepted(false);
     try {
-      setResult(await validate.mutateAsync(d));
+      setResult(await validate.run(d));
     } catch (e) {
       setResult(null);
       fail(e);
@@ -244,9 +244,17 @@ export function ImportWizard({ basinId }: { basinId: string }) {
             />
             The basin has several separate outlets (treat separate parts as independent trees)
           </label>
-          <Button onClick={runValidation} disabled={validate.isPending}>
-            {validate.isPending ? "Checking…" : result ? "Check again" : "Check the network"}
+          <Button onClick={runValidation} disabled={validate.pending}>
+            {validate.pending ? "Checking…" : result ? "Check again" : "Check the network"}
           </Button>
+          {validate.progress && (
+            <div role="status" aria-live="polite" data-testid="validation-progress" className="max-w-md text-sm text-ink-soft">
+              <div className="mb-1">
+                Checking: {validate.progress.stage} ({validate.progress.percent} %)
+              </div>
+              <progress className="w-full" max={100} value={validate.progress.percent} aria-label="Validation progress" />
+            </div>
+          )}
           {result && preview && (
             <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
               <BasinMapLazy data={preview} highlight={shown?.geometry ? [shown.geometry] : []} height={520} />
