@@ -4,6 +4,7 @@ import { getDb, type Db } from "@/db/client";
 import { requireActor, requireBasinAction, requireSiteAction, type Actor, type BasinAccess } from "@/lib/auth/guard";
 import type { BasinAction, SiteAction } from "@/lib/auth/permissions";
 import { actorFromRequest } from "@/lib/auth/session";
+import { appUrl } from "@/lib/email/app-url";
 import { AppError } from "@/lib/errors";
 import { errorResponse, invalid } from "./respond";
 
@@ -51,8 +52,14 @@ export interface RouteContext<P, B, Q = Record<string, string>> {
 
 type Handler<P, B, Q> = (ctx: RouteContext<P, B, Q>) => Promise<unknown>;
 
-/** The most bytes a JSON body may have unless a route says otherwise. */
-export const DEFAULT_MAX_JSON_BYTES = 1024 * 1024;
+/**
+ * The most bytes a JSON body may have unless a route says otherwise: every
+ * form's body is a few KB; a route taking more (scenario inputs) says so.
+ */
+export const DEFAULT_MAX_JSON_BYTES = 256 * 1024;
+
+/** The cap for JSON bodies holding a value per reach (scenario inputs on a large network). */
+export const LARGE_JSON_BYTES = 8 * 1024 * 1024;
 
 const tooLarge = (limit: number, field = "body") =>
   new AppError("too_large", `The request body is larger than the ${limit >= 1048576 ? `${Math.floor(limit / 1048576)} MB` : `${Math.floor(limit / 1024)} KB`} limit`, [
@@ -111,27 +118,45 @@ function refuseNul(value: unknown, where: string): void {
   }
 }
 
+const foreign = (path: string, value: string) =>
+  new AppError("forbidden", "This request came from another site; Sagline accepts changes only from its own pages", [{ path, message: value }]);
+
+/** Sagline's own origins: NEXTAUTH_URL's (appUrl) and the one the request was addressed to. */
+function ownOrigins(req: NextRequest): Set<string> {
+  const own = new Set<string>([new URL(appUrl()).origin]);
+  const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host");
+  const proto = req.headers.get("x-forwarded-proto") ?? req.nextUrl.protocol.replace(/:$/, "");
+  if (host) own.add(`${proto}://${host}`);
+  return own;
+}
+
 /**
- * A write must come from Sagline's own pages: an Origin naming another site, or
- * (without Origin) a browser saying the request is cross-site, is refused. The
- * app's own origin is NEXTAUTH_URL's, or the Host the request was sent to.
- * Requests without either header (scripts, the CLI, tests) carry no browser
- * cookies from another site and pass.
+ * A write must come from Sagline's own pages. Origin is checked when sent
+ * (browsers send it on every POST, PATCH, PUT and DELETE); without it the
+ * Referer, then Sec-Fetch-Site, must not name another site. A request with none
+ * of them (scripts, the CLI) carries no other site's cookies and passes.
  */
 function refuseForeignOrigin(req: NextRequest): void {
   if (req.method === "GET" || req.method === "HEAD" || req.method === "OPTIONS") return;
   const origin = req.headers.get("origin");
   if (origin !== null) {
-    const own = new Set<string>();
-    if (process.env.NEXTAUTH_URL) own.add(new URL(process.env.NEXTAUTH_URL).origin);
-    const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host");
-    if (host) own.add(`${(req.headers.get("x-forwarded-proto") ?? req.nextUrl.protocol.replace(/:$/, ""))}://${host}`);
-    if (!own.has(origin)) throw new AppError("forbidden", "This request came from another site; Sagline accepts changes only from its own pages", [{ path: "Origin", message: origin }]);
+    if (!ownOrigins(req).has(origin)) throw foreign("Origin", origin);
     return;
   }
-  if (req.headers.get("sec-fetch-site") === "cross-site") {
-    throw new AppError("forbidden", "This request came from another site; Sagline accepts changes only from its own pages", [{ path: "Sec-Fetch-Site", message: "cross-site" }]);
+  const referer = req.headers.get("referer");
+  if (referer) {
+    let from: string;
+    try {
+      from = new URL(referer).origin;
+    } catch {
+      throw foreign("Referer", referer);
+    }
+    if (!ownOrigins(req).has(from)) throw foreign("Referer", from);
+    return;
   }
+  // same-site is another origin too (a sibling sub-domain or port)
+  const site = req.headers.get("sec-fetch-site");
+  if (site === "cross-site" || site === "same-site") throw foreign("Sec-Fetch-Site", site);
 }
 
 async function readJson(req: NextRequest, limit: number): Promise<unknown> {

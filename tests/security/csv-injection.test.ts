@@ -1,12 +1,14 @@
+import Papa from "papaparse";
 import { beforeAll, describe, expect, it } from "vitest";
-import { planAllocationsCsv } from "@/lib/services/plan-reports";
+import * as csvRoute from "@/app/api/basins/[basinId]/plans/[planId]/csv/route";
 import { publishPlan } from "@/lib/services/plans";
+import { callRoute } from "../support/call-route";
 import { fileDb } from "../support/file-db";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
 
 // A published plan's CSV is downloaded by anyone: a facility name chosen to be a
-// formula must arrive as text.
+// formula must arrive as text a spreadsheet shows, not runs.
 const db = fileDb();
 let w: World;
 let planId: string;
@@ -19,15 +21,23 @@ beforeAll(async () => {
 });
 
 describe("CSV formula injection", () => {
-  it("a published plan's allocation CSV, downloaded signed out, carries formula-leading names as quoted text", async () => {
-    const csv = String((await planAllocationsCsv(db, null, w.basinId, planId)).body);
+  it("a published plan's allocation CSV, downloaded signed out through its route, carries a formula-leading name as quoted text", async () => {
+    const res = await callRoute(csvRoute.GET, "GET", { params: { basinId: w.basinId, planId } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toMatch(/^text\/csv/);
+    const csv = String(res.json);
     const lines = csv.split("\r\n").filter((l) => l && !l.startsWith("#"));
-    const rows = lines.slice(1);
-    expect(rows.length).toBeGreaterThan(0);
-    for (const row of rows) {
-      expect(row).toContain(`"'=HYPERLINK(""http://evil.example"",""Open"")"`);
-      // no cell of the row starts with a bare formula character
-      expect(row.split(",").some((cell) => /^[=@]/.test(cell))).toBe(false);
+    const rows = Papa.parse<string[]>(lines.join("\r\n")).data;
+    const header = rows[0];
+    const nameColumn = header.indexOf("facility name");
+    expect(nameColumn).toBeGreaterThanOrEqual(0);
+    expect(rows.length).toBeGreaterThan(1);
+    for (const row of rows.slice(1)) {
+      expect(row[nameColumn]).toBe(`'${HOSTILE}`);
+      // no cell of the file starts with a character a spreadsheet runs, unless it is a plain number
+      for (const cell of row) expect(/^[=+\-@\t\r]/.test(cell) && !Number.isFinite(Number(cell)), cell).toBe(false);
     }
+    // and the raw text quotes the cell, so the quote and the comma inside stay one cell
+    expect(csv).toContain(`"'=HYPERLINK(""http://evil.example"",""Open"")"`);
   });
 });

@@ -20,6 +20,13 @@ describe("csvText", () => {
     expect(back).toEqual(hostile.map((h) => `'${h}`));
   });
 
+  it("neutralises a formula spread over several lines (papaparse's own default rule misses it)", () => {
+    const multi = "=1+1\nsecond line";
+    expect(Papa.unparse([[multi]], { escapeFormulae: true })).not.toContain("'");
+    expect(readBack(csvText(table([multi])))).toEqual([`'${multi}`]);
+    expect(readBack(csvText(table(["-1.5\n=2"])))).toEqual(["'-1.5\n=2"]);
+  });
+
   it("leaves numbers, signed numeric text and ordinary text as they are", () => {
     const fine = [-1.5, 0, 12.25, "-0.42", "+3", "-1e-3", "Tamsel Creek WWTP", "a=b", "x@y"];
     expect(readBack(csvText(table(fine)))).toEqual(fine.map(String));

@@ -1,4 +1,4 @@
-import { route } from "@/lib/api/route";
+import { LARGE_JSON_BYTES, route } from "@/lib/api/route";
 import { createScenario, listScenarios } from "@/lib/services/scenarios";
 import { basinParams } from "@/lib/validation/params";
 import { scenarioCreateSchema } from "@/lib/validation/scenario";
@@ -8,6 +8,6 @@ export const GET = route({ access: { basin: "scenario.read" }, params: basinPara
 );
 
 export const POST = route(
-  { access: { basin: "scenario.edit" }, params: basinParams, body: scenarioCreateSchema, status: 201 },
+  { access: { basin: "scenario.edit" }, params: basinParams, body: scenarioCreateSchema, maxBodyBytes: LARGE_JSON_BYTES, status: 201 },
   ({ db, actor, params, body }) => createScenario(db, actor, params.basinId, body),
 );

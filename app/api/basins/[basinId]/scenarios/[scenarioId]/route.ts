@@ -1,4 +1,4 @@
-import { route } from "@/lib/api/route";
+import { LARGE_JSON_BYTES, route } from "@/lib/api/route";
 import { deleteScenario, getScenario, updateScenario } from "@/lib/services/scenarios";
 import { scenarioParams } from "@/lib/validation/params";
 import { scenarioUpdateSchema } from "@/lib/validation/scenario";
@@ -8,7 +8,7 @@ export const GET = route({ access: { basin: "scenario.read" }, params: scenarioP
 );
 
 export const PATCH = route(
-  { access: { basin: "scenario.edit" }, params: scenarioParams, body: scenarioUpdateSchema },
+  { access: { basin: "scenario.edit" }, params: scenarioParams, body: scenarioUpdateSchema, maxBodyBytes: LARGE_JSON_BYTES },
   ({ db, actor, params, body }) => updateScenario(db, actor, params.basinId, params.scenarioId, body),
 );
 
