@@ -1,3 +1,32 @@
+/**
+ * The pages' Content-Security-Policy. Next.js's bootstrapping scripts and
+ * style attributes are inline ('unsafe-inline'; nonces would make every page
+ * dynamic); maplibre runs its worker from a blob: or Sagline's own URL and
+ * draws from data:/blob: images. A basemap named by
+ * NEXT_PUBLIC_SAGLINE_BASEMAP_STYLE, and any tile hosts listed in
+ * SAGLINE_CSP_MAP_SOURCES (space-separated origins), may be fetched. The
+ * development server also needs eval and its reload socket.
+ */
+function contentSecurityPolicy() {
+  const dev = process.env.NODE_ENV !== "production";
+  const map = [process.env.NEXT_PUBLIC_SAGLINE_BASEMAP_STYLE && new URL(process.env.NEXT_PUBLIC_SAGLINE_BASEMAP_STYLE).origin, ...(process.env.SAGLINE_CSP_MAP_SOURCES ?? "").split(/\s+/)].filter(Boolean);
+  return [
+    "default-src 'self'",
+    `script-src 'self' 'unsafe-inline'${dev ? " 'unsafe-eval'" : ""}`,
+    "style-src 'self' 'unsafe-inline'",
+    ["img-src 'self' data: blob:", ...map].join(" "),
+    "font-src 'self' data:",
+    ["connect-src 'self' blob: data:", ...map, ...(dev ? ["ws:"] : [])].join(" "),
+    "worker-src 'self' blob:",
+    "child-src 'self' blob:",
+    "frame-src 'none'",
+    "frame-ancestors 'none'",
+    "base-uri 'self'",
+    "form-action 'self'",
+    "object-src 'none'",
+  ].join("; ");
+}
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // A second build folder lets a development server run beside a production build.
@@ -10,13 +39,14 @@ const nextConfig = {
   // build does not repeat it.
   typescript: { ignoreBuildErrors: true },
   // No page may be framed by another site (clickjacking), content types are
-  // taken as sent, and addresses do not leak to other sites in Referer.
+  // taken as sent, addresses do not leak to other sites in Referer, and pages
+  // load code, styles and data from Sagline alone (contentSecurityPolicy).
   async headers() {
     return [
       {
         source: "/:path*",
         headers: [
-          { key: "Content-Security-Policy", value: "frame-ancestors 'none'; base-uri 'self'; form-action 'self'; object-src 'none'" },
+          { key: "Content-Security-Policy", value: contentSecurityPolicy() },
           { key: "X-Frame-Options", value: "DENY" },
           { key: "X-Content-Type-Options", value: "nosniff" },
           { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },
