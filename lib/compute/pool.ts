@@ -52,7 +52,10 @@ function revive(e: SerializedError): Error {
  */
 export function startWorker(url: URL): Worker {
   if (!url.pathname.endsWith(".ts")) return new Worker(url);
-  const tsxDir = dirname(createRequire(import.meta.url).resolve("tsx/package.json"));
+  // Resolved at run time from the project folder: a bundler turns a literal
+  // `require.resolve("tsx/…")` into its own module id (seen in the Next.js build).
+  const tsxManifest = ["tsx", "package.json"].join("/");
+  const tsxDir = dirname(createRequire(pathToFileURL(join(process.cwd(), "package.json")).href).resolve(tsxManifest));
   const api = pathToFileURL(join(tsxDir, "dist/esm/api/index.mjs")).href;
   const code = `import(${JSON.stringify(api)}).then((m) => { m.register(); return import(${JSON.stringify(url.href)}); });`;
   return new Worker(code, { eval: true });
