@@ -1,7 +1,12 @@
 "use client";
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useState, type ReactNode } from "react";
+import { z } from "zod";
 import { ApiError } from "@/lib/queries/fetcher";
+
+// In the browser zod would probe for eval, which the Content-Security-Policy forbids
+// (a reported violation); its plain parsers are fast enough for forms.
+if (typeof window !== "undefined") z.config({ jitless: true });
 
 export function Providers({ children }: { children: ReactNode }) {
   const [client] = useState(
