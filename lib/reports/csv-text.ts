@@ -9,6 +9,18 @@ import type { CsvTable } from "@/lib/results/csv-rows";
 export const FORMULA_LEADING = /^(?![-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$)[=+\-@\t\r]/;
 
 /**
+ * Spreadsheets set to a locale whose list separator is ";" split an unquoted
+ * cell there, so a text cell holding one is quoted as a comma would make it.
+ */
+const quoteSemicolons = (value: unknown) => typeof value === "string" && value.includes(";");
+
+/**
+ * A preface line is one unquoted cell read as comments; any piece after a "," or
+ * ";" that a spreadsheet would run gets the same leading quote as a cell.
+ */
+const prefaceLine = (line: string) => `# ${line.replace(/[\r\n]+/g, " ").replace(/([,;]\s*)(?=[=+\-@\t])/g, "$1'")}`;
+
+/**
  * The one CSV writer, for the server's downloads and the browser's alike: each
  * preface line as `# line`, then the header and rows (papaparse quoting; a
  * formula-leading text cell gets a leading ' so it is shown, never run), CRLF
@@ -17,7 +29,7 @@ export const FORMULA_LEADING = /^(?![-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$)[=+\-
 export function csvText<T>(table: CsvTable<T>): string {
   const body = Papa.unparse(
     { fields: table.columns.map((c) => c.header), data: table.rows.map((r) => table.columns.map((c) => c.value(r) ?? "")) },
-    { escapeFormulae: FORMULA_LEADING, newline: "\r\n" },
+    { escapeFormulae: FORMULA_LEADING, quotes: quoteSemicolons, newline: "\r\n" },
   );
-  return [...table.preface.map((line) => `# ${line.replace(/[\r\n]+/g, " ")}`), body].join("\r\n") + "\r\n";
+  return [...table.preface.map(prefaceLine), body].join("\r\n") + "\r\n";
 }

@@ -32,6 +32,20 @@ describe("csvText", () => {
     expect(readBack(csvText(table(fine)))).toEqual(fine.map(String));
   });
 
+  it("quotes a text cell holding a semicolon, so a spreadsheet splitting on ; keeps it one cell", () => {
+    const text = csvText(table(["a;=HYPERLINK(x)"]));
+    expect(text).toContain('"a;=HYPERLINK(x)"');
+    expect(readBack(text)).toEqual(["a;=HYPERLINK(x)"]);
+  });
+
+  it("neutralises a formula that a comma or semicolon in a preface line would start as its own cell", () => {
+    const text = csvText({ ...table(["a"]), preface: ["Basin Tamsel,=HYPERLINK(x); @SUM(A1)", "loads, today"] });
+    const [first, second] = text.split("\r\n");
+    expect(first).toBe("# Basin Tamsel,'=HYPERLINK(x); '@SUM(A1)");
+    expect(second).toBe("# loads, today");
+    for (const cell of first.split(/[,;]/)) expect(cell.trimStart()).not.toMatch(/^[=+\-@]/);
+  });
+
   it("writes CRLF line ends, the last line too, and keeps preface lines as comments", () => {
     const text = csvText(table(["a"]));
     expect(text.endsWith("\r\n")).toBe(true);
