@@ -103,7 +103,10 @@ describe("a site admin giving themselves a basin role", () => {
     const { addMember } = await import("@/lib/services/members");
     const { listBasinAudit } = await import("@/lib/services/audit");
     await addMember(db, w.users.admin, w.basinId, { email: w.users.admin.email, role: "planner" });
-    const events = await listBasinAudit(db, w.users.lead, w.basinId, {});
+    // whichever of the two leads above kept the role reads the trail
+    const lead = await db.selectFrom("memberships").select("user_id").where("basin_id", "=", w.basinId).where("role", "=", "lead").executeTakeFirstOrThrow();
+    const reader = [w.users.lead, w.users.planner].find((u) => u.id === lead.user_id)!;
+    const events = await listBasinAudit(db, reader, w.basinId, {});
     const row = events.find((e) => e.action === "member.added" && e.targetId === w.users.admin.id);
     expect(row?.details).toMatchObject({ role: "planner", selfGrantedBySiteAdmin: true });
   });
