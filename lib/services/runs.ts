@@ -290,6 +290,8 @@ export async function sweepStuckRuns(db: Db, lookupJob: RunJobLookup = findRunJo
 
 export async function listRuns(db: Db, actor: Actor | null, basinId: string, scenarioId?: string): Promise<RunSummaryDto[]> {
   const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+  // a scenario that is not this basin's is not found, rather than a list with nothing in it
+  if (scenarioId !== undefined && !(await findScenario(db, basin.id, scenarioId))) throw notFound("Scenario");
   return (await listRunRows(db, basin.id, scenarioId)).map(summary);
 }
 
