@@ -43,7 +43,17 @@ export async function findPlanReportFile(db: Db, planId: string): Promise<Buffer
   return row?.pdf;
 }
 
-/** Keep a published plan's PDF (the first one stored wins; all are the same plan). */
-export async function storePlanReportFile(db: Db, planId: string, pdf: Uint8Array): Promise<void> {
-  await db.insertInto("plan_report_files").values({ plan_id: planId, pdf: Buffer.from(pdf) }).onConflict((oc) => oc.column("plan_id").doNothing()).execute();
+/**
+ * Keep a published plan's PDF and return the one kept: the first one stored wins, so a
+ * rendering that lost the race (another request or process stored first) gives way to it
+ * and every caller serves the same bytes.
+ */
+export async function storePlanReportFile(db: Db, planId: string, pdf: Uint8Array): Promise<Buffer> {
+  const inserted = await db
+    .insertInto("plan_report_files")
+    .values({ plan_id: planId, pdf: Buffer.from(pdf) })
+    .onConflict((oc) => oc.column("plan_id").doNothing())
+    .returning("pdf")
+    .executeTakeFirst();
+  return inserted?.pdf ?? (await findPlanReportFile(db, planId))!;
 }

@@ -76,10 +76,8 @@ async function publishedPdf(db: Db, planId: string, render: () => Promise<Uint8A
   let pending = rendering.get(planId);
   if (!pending) {
     pending = render()
-      .then(async (bytes) => {
-        await storePlanReportFile(db, planId, bytes);
-        return bytes;
-      })
+      // the stored file, which is this rendering unless another request stored one first
+      .then(async (bytes) => new Uint8Array(await storePlanReportFile(db, planId, bytes)))
       .finally(() => rendering.delete(planId));
     rendering.set(planId, pending);
   }
