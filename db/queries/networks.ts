@@ -25,7 +25,8 @@ export async function insertNetwork(
     reachMapping: unknown;
     dischargerMapping: unknown;
     options: unknown;
-    report: unknown;
+    /** The validation report kept with the network, already JSON text (built in the import worker). */
+    reportJson: string;
     totalLengthKm: number;
     note: string;
     createdBy: string;
@@ -41,12 +42,13 @@ export async function insertNetwork(
       reach_mapping: JSON.stringify(v.reachMapping),
       discharger_mapping: JSON.stringify(v.dischargerMapping ?? null),
       options: JSON.stringify(v.options),
-      report: JSON.stringify(v.report),
+      report: v.reportJson,
       total_length_km: v.totalLengthKm,
       note: v.note,
       created_by: v.createdBy,
     })
-    .returningAll()
+    // not the report: a large network's warnings would be parsed back for nothing
+    .returning(["id", "total_length_km", "note", "created_at"])
     .executeTakeFirstOrThrow();
 }
 
@@ -158,19 +160,17 @@ export async function lockNetwork(db: Db, networkId: string): Promise<void> {
   await sql`select id from networks where id = ${networkId} for update`.execute(db);
 }
 
-/** Facility ids of a basin by permit id, for the given permits (one query per 5 000). */
-export async function facilityIdsByPermit(db: Db, basinId: string, permits: readonly string[]): Promise<Map<string, string>> {
-  const out = new Map<string, string>();
-  for (let i = 0; i < permits.length; i += 5000) {
-    const rows = await db
-      .selectFrom("facilities")
-      .select(["id", "permit_id"])
-      .where("basin_id", "=", basinId)
-      .where(sql<boolean>`permit_id = any(${permits.slice(i, i + 5000)}::text[])`)
-      .execute();
-    for (const r of rows) out.set(r.permit_id, r.id);
-  }
-  return out;
+/**
+ * Of the permit ids in `permitsJson` (a JSON array of strings, in order), those that name a
+ * facility of the basin, as a JSON array in the same order. Text in, text out: tens of
+ * thousands of permits are matched by PostgreSQL, not escaped and collected on the event loop.
+ */
+export async function knownPermitsJson(db: Db, basinId: string, permitsJson: string): Promise<string> {
+  const { rows } = await sql<{ known: string }>`
+    select coalesce(json_agg(t.permit order by t.ord), '[]')::text as known
+    from jsonb_array_elements_text(${permitsJson}::jsonb) with ordinality as t(permit, ord)
+    where exists (select 1 from facilities f where f.basin_id = ${basinId} and f.permit_id = t.permit)`.execute(db);
+  return rows[0].known;
 }
 
 /*

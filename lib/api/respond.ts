@@ -34,3 +34,29 @@ export function invalid(error: z.ZodError, what: string, root?: string): AppErro
   const first = details[0];
   return new AppError("invalid", `Invalid ${what}: ${first.path} — ${first.message}`, details);
 }
+
+/** Bytes handed to the socket per step of a streamed body: small enough to let other requests run between steps. */
+const STREAM_SLICE = 256 * 1024;
+
+/**
+ * A response whose body is already-encoded bytes, sent as a stream of slices (views, no
+ * copies): a body of many megabytes is neither concatenated nor written in one step on the
+ * event loop.
+ */
+export function bytesResponse(parts: readonly Uint8Array[], contentType: string, init: ResponseInit = {}): Response {
+  let part = 0;
+  let at = 0;
+  const body = new ReadableStream<Uint8Array>({
+    pull(controller) {
+      while (part < parts.length && at >= parts[part].byteLength) [part, at] = [part + 1, 0];
+      if (part === parts.length) return controller.close();
+      const piece = parts[part].subarray(at, at + STREAM_SLICE);
+      at += piece.byteLength;
+      controller.enqueue(piece);
+    },
+  });
+  const headers = new Headers(init.headers);
+  headers.set("content-type", contentType);
+  headers.set("content-length", String(parts.reduce((n, p) => n + p.byteLength, 0)));
+  return new Response(body, { ...init, headers });
+}

@@ -6,6 +6,7 @@ import type { BasinAction, SiteAction } from "@/lib/auth/permissions";
 import { actorFromRequest } from "@/lib/auth/session";
 import { appUrl } from "@/lib/email/app-url";
 import { AppError } from "@/lib/errors";
+import { readMultipart, type UploadedForm } from "./multipart";
 import { errorResponse, invalid } from "./respond";
 
 /** What a handler needs before it runs. */
@@ -173,7 +174,7 @@ async function readJson(req: NextRequest, limit: number): Promise<unknown> {
   }
 }
 
-async function readForm(req: NextRequest, limit: number, field: string): Promise<FormData> {
+async function readForm(req: NextRequest, limit: number, field: string): Promise<UploadedForm> {
   // a declared length over the limit is refused before anything else is looked at
   const declared = Number(req.headers.get("content-length") ?? NaN);
   if (Number.isFinite(declared) && declared > limit) throw tooLarge(limit, field);
@@ -181,12 +182,7 @@ async function readForm(req: NextRequest, limit: number, field: string): Promise
   if (!type.startsWith("multipart/form-data")) {
     throw new AppError("unsupported_media_type", "Send the upload as multipart/form-data", [{ path: "Content-Type", message: type || "missing" }]);
   }
-  const bytes = await readCapped(req, limit, field);
-  try {
-    return await new Response(new Uint8Array(bytes), { headers: { "content-type": type } }).formData();
-  } catch {
-    throw new AppError("bad_request", "The multipart upload could not be read");
-  }
+  return readMultipart(req.body, type, limit, field, () => tooLarge(limit, field));
 }
 
 /**
@@ -236,15 +232,13 @@ export function route<
       let file: RouteContext<unknown, unknown, unknown>["file"] = null;
       if (spec.fileField) {
         const form = await readForm(req, spec.maxUploadBytes?.() ?? DEFAULT_MAX_JSON_BYTES, spec.fileField);
-        const entry = form.get(spec.fileField);
-        if (!(entry instanceof File)) {
+        if (!form.file) {
           throw new AppError("invalid", `Attach the file as the "${spec.fileField}" field`, [
             { path: spec.fileField, message: "Required" },
           ]);
         }
-        file = { name: entry.name || "upload", bytes: Buffer.from(await entry.arrayBuffer()) };
-        const fields: Record<string, string> = {};
-        for (const [k, v] of form.entries()) if (typeof v === "string" && v !== "") fields[k] = v;
+        file = form.file;
+        const fields = form.fields;
         refuseNul(fields, "form fields");
         if (spec.body) {
           const parsed = spec.body.safeParse(fields);

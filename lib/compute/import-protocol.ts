@@ -38,9 +38,16 @@ export interface ProblemSummary {
 
 /**
  * What a commit writes, prepared in the worker as JSON text in chunks (see the *Json inserts
- * in db/queries/networks.ts): strings cross the thread boundary as one copy each.
+ * in db/queries/networks.ts): strings cross the thread boundary as one copy each, and the
+ * web server never builds or serialises the rows itself.
  */
 export interface CommitRows {
+  /** Problems that refuse the commit: the first MAX_LISTED_PROBLEMS of them, and how many there are. */
+  errors: ProblemSummary[];
+  errorCount: number;
+  warningCount: number;
+  /** The report stored with the network (`{ errors: [], warnings }`), as JSON text. */
+  storedReport: string;
   totalLengthKm: number;
   reachCount: number;
   outfallCount: number;
@@ -52,13 +59,15 @@ export interface CommitRows {
   outfalls: string[];
 }
 
+/** How many of a refused commit's errors are listed one by one (the message gives the count). */
+export const MAX_LISTED_PROBLEMS = 200;
+
 export interface ValidateResult {
-  errors: ProblemSummary[];
-  warnings: ProblemSummary[];
-  /** Permit ids of the placed dischargers, for matching existing facilities. */
-  permits: string[];
+  /** Permit ids of the dischargers (a JSON array of strings), for matching existing facilities. */
+  permitsJson: string;
   /** The whole report as UTF-8 JSON (validate only), moved (not copied) out of the worker. */
   reportJson?: Uint8Array;
+  /** The rows to write (commit only). */
   commit?: CommitRows;
 }
 

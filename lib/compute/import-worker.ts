@@ -8,7 +8,7 @@ import { GeoError } from "../../geo/errors";
 import { readUploadLayer } from "../../geo/read-upload";
 import { validateImport, type ValidateProgress } from "../../geo/validate";
 import type { Problem } from "../../geo/problems";
-import type { ImportJob, ImportRequest, ImportResponse, ImportStage, ReadResult, UploadBytes, ValidateResult } from "./import-protocol";
+import { MAX_LISTED_PROBLEMS, type ImportJob, type ImportRequest, type ImportResponse, type ImportStage, type ReadResult, type UploadBytes, type ValidateResult } from "./import-protocol";
 
 if (!parentPort) throw new Error("lib/compute/import-worker.ts must be started as a worker thread");
 const port = parentPort;
@@ -21,6 +21,12 @@ class ReadFailure extends Error {
     super(cause.message);
   }
 }
+
+/**
+ * The upload's bytes in this thread's own memory: the web server hands them over in a
+ * SharedArrayBuffer (no copy on its thread), and parsers expect ordinary buffers.
+ */
+const own = (bytes: Uint8Array) => (bytes.buffer instanceof SharedArrayBuffer ? new Uint8Array(bytes) : bytes);
 
 async function read(u: UploadBytes, layer: "reaches" | "dischargers") {
   try {
@@ -54,14 +60,15 @@ const summarise = (ps: Problem[]) => ps.map((p) => ({ code: p.code, message: p.m
 async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateResult> {
   const progress = (stage: ImportStage, fraction: number) => port.postMessage({ id, type: "progress", stage, fraction } satisfies ImportResponse);
   if (job.kind === "read") {
-    const source = await read(job.upload, job.layer);
-    const sha256 = createHash("sha256").update(job.upload.bytes).digest("hex");
+    const upload = { ...job.upload, bytes: own(job.upload.bytes) };
+    const source = await read(upload, job.layer);
+    const sha256 = createHash("sha256").update(upload.bytes).digest("hex");
     return { crs: source.crs, featureCount: source.features.length, fields: source.fields, sha256 };
   }
   progress("reading reaches", 0);
-  const reaches = await read(job.reaches, "reaches");
+  const reaches = await read({ ...job.reaches, bytes: own(job.reaches.bytes) }, "reaches");
   if (job.dischargers) progress("reading dischargers", 0);
-  const dischargers = job.dischargers ? await read(job.dischargers, "dischargers") : undefined;
+  const dischargers = job.dischargers ? await read({ ...job.dischargers, bytes: own(job.dischargers.bytes) }, "dischargers") : undefined;
   const stages = { lines: "checking lines", network: "building the network", dischargers: "placing dischargers" } as const;
   const onProgress: ValidateProgress = (stage, fraction) => progress(stages[stage], fraction);
   const report = validateImport(
@@ -72,9 +79,7 @@ async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateRes
   progress("writing the report", 0);
   const net = report.network;
   const result: ValidateResult = {
-    errors: summarise(report.errors),
-    warnings: summarise(report.warnings),
-    permits: [...new Set(net.dischargers.map((d) => d.attributes.permitId).filter(Boolean))],
+    permitsJson: JSON.stringify([...new Set(net.dischargers.map((d) => d.attributes.permitId).filter(Boolean))]),
   };
   if (!job.forCommit) result.reportJson = new TextEncoder().encode(JSON.stringify(report));
   else {
@@ -82,6 +87,10 @@ async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateRes
     const unplaced = net.dischargers.find((d) => !placed.includes(d));
     const facilities = new Map(placed.map((d) => [d.attributes.permitId, { name: d.attributes.name, permit_id: d.attributes.permitId }]));
     result.commit = {
+      errors: summarise(report.errors.slice(0, MAX_LISTED_PROBLEMS)),
+      errorCount: report.errors.length,
+      warningCount: report.warnings.length,
+      storedReport: JSON.stringify({ errors: [], warnings: summarise(report.warnings) }),
       totalLengthKm: net.totalLengthKm,
       reachCount: net.reaches.length,
       outfallCount: placed.length,

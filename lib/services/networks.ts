@@ -3,13 +3,13 @@ import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
 import { markImportsCommitted } from "@/db/queries/imports";
 import {
-  facilityIdsByPermit,
   findNetwork,
   insertMissingFacilitiesJson,
   insertNetwork,
   insertNodesJson,
   insertOutfallsJson,
   insertReachesJson,
+  knownPermitsJson,
   latestNetworkId,
   listNetworks as listNetworkRows,
   networkNodes,
@@ -64,21 +64,28 @@ async function runValidation(db: Db, basinId: string, draft: NetworkDraft, forCo
 
 /**
  * Validate a network draft without saving anything: the report the planner must accept, as
- * JSON text ready to send (`{ report, knownPermits }`; built in the worker, since a report
- * of 500 000 vertices takes longer to serialise than a request may hold the event loop).
+ * UTF-8 JSON in pieces ready to send (`{ report, knownPermits }`; built in the worker, since
+ * a report of 500 000 vertices takes longer to serialise than a request may hold the event
+ * loop). The pieces are views of the worker's buffer, never copied on this thread.
  * `onProgress` hears the stages as the worker goes through them.
  */
-export async function validateDraftJson(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft, onProgress?: ProgressListener): Promise<Blob> {
+export async function validateDraftJson(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  draft: NetworkDraft,
+  onProgress?: ProgressListener,
+): Promise<Uint8Array[]> {
   const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
   const result = await runValidation(db, basin.id, draft, false, onProgress);
-  const known = await facilityIdsByPermit(db, basin.id, result.permits);
-  const knownPermits = result.permits.filter((p) => known.has(p));
-  return new Blob(['{"report":', result.reportJson as Uint8Array<ArrayBuffer>, `,"knownPermits":${JSON.stringify(knownPermits)}}`], { type: "application/json" });
+  const knownPermits = await knownPermitsJson(db, basin.id, result.permitsJson);
+  const text = new TextEncoder();
+  return [text.encode('{"report":'), result.reportJson!, text.encode(`,"knownPermits":${knownPermits}}`)];
 }
 
 /** validateDraftJson, parsed (for scripts and tests that want the objects). */
 export async function validateDraft(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft): Promise<DraftResult> {
-  return JSON.parse(await (await validateDraftJson(db, actor, basinId, draft)).text()) as DraftResult;
+  return JSON.parse(Buffer.concat(await validateDraftJson(db, actor, basinId, draft)).toString("utf8")) as DraftResult;
 }
 
 export interface NetworkSummaryDto {
@@ -101,15 +108,14 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
   const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
   const { draft } = input;
   return db.transaction().execute(async (trx) => {
-    const report = await runValidation(trx, basin.id, draft, true);
-    if (report.errors.length > 0) {
+    const net = (await runValidation(trx, basin.id, draft, true)).commit!;
+    if (net.errorCount > 0) {
       throw new AppError(
         "invalid",
-        `The validation report has ${report.errors.length} error(s); nothing was saved. First: ${report.errors[0].message}`,
-        report.errors.map((p) => ({ path: "draft", ...p })),
+        `The validation report has ${net.errorCount} error(s); nothing was saved. First: ${net.errors[0].message}`,
+        net.errors.map((p) => ({ path: "draft", ...p })),
       );
     }
-    const net = report.commit!;
     if (net.unplaced) {
       throw new AppError("invalid", `Discharger ${net.unplaced} is not placed on a reach; reassign it before saving`, [
         { path: "draft.options.reassign", message: `Place ${net.unplaced}` },
@@ -124,7 +130,7 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
       reachMapping: draft.reachMapping,
       dischargerMapping: draft.dischargerMapping,
       options: draft.options,
-      report: { errors: [], warnings: report.warnings },
+      reportJson: net.storedReport,
       totalLengthKm: net.totalLengthKm,
       note: input.note,
       createdBy: actor!.id,
@@ -142,7 +148,7 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
       action: "network.committed",
       targetType: "network",
       targetId: network.id,
-      details: { version, reaches: net.reachCount, outfalls: outfallCount, warnings: report.warnings.length },
+      details: { version, reaches: net.reachCount, outfalls: outfallCount, warnings: net.warningCount },
     });
     return {
       id: network.id,

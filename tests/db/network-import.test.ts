@@ -216,6 +216,11 @@ describe("validating and committing a network", () => {
     expect(await count("facilities")).toBe(facilitiesBefore + 5);
 
     const draft2 = await uploadDemo(db, w.users.planner, w.basinId);
+    // validated again, each discharger's permit now names a facility of the basin, listed in file order
+    const revalidated = await callRoute(validateRoute.POST, "POST", { userId: w.users.planner.id, params: { basinId: w.basinId }, body: draft2 });
+    const again = revalidated.json as { report: { network: { dischargers: { attributes: { permitId: string } }[] } }; knownPermits: string[] };
+    expect(again.knownPermits).toHaveLength(5);
+    expect(again.knownPermits).toEqual(again.report.network.dischargers.map((d) => d.attributes.permitId));
     const second = await callRoute(networksRoute.POST, "POST", {
       userId: w.users.lead.id,
       params: { basinId: w.basinId },

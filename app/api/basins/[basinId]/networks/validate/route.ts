@@ -1,3 +1,4 @@
+import { bytesResponse } from "@/lib/api/respond";
 import { route } from "@/lib/api/route";
 import { setProgress } from "@/lib/compute/import-progress";
 import { validateDraftJson } from "@/lib/services/networks";
@@ -17,7 +18,7 @@ export const POST = route(
     try {
       const json = await validateDraftJson(db, actor, params.basinId, body, track);
       track?.("done");
-      return new Response(json, { headers: { "content-type": "application/json" } });
+      return bytesResponse(json, "application/json");
     } catch (e) {
       track?.("failed");
       throw e;
