@@ -8,6 +8,8 @@ import * as runStatusRoute from "@/app/api/basins/[basinId]/runs/[runId]/status/
 import { createDb, getDb, type Db } from "@/db/client";
 import { migrateToLatest } from "@/db/migrate";
 import { errorResponse } from "@/lib/api/respond";
+import { startMailServer, type MailServer } from "@/lib/email/mailbox";
+import { queueEmail } from "@/lib/email/outbox";
 import { getBoss, RUN_QUEUE, stopBoss } from "@/lib/jobs/queue";
 import { createRun } from "@/lib/services/runs";
 import { createScenario } from "@/lib/services/scenarios";
@@ -20,8 +22,9 @@ import { buildWorld, type World } from "../support/world";
  * A PostgreSQL restart under a running worker, on a private cluster of this
  * test's own (never the shared test cluster: other tests use it): the real
  * worker process keeps going, runs queued before and after the outage finish,
- * a run whose job failed ends "failed" with a reason and can be run again, and
- * the API answers 503 while the database is down.
+ * a run whose job failed ends "failed" with a reason and can be run again, the
+ * e-mail outbox is delivered again afterwards, and the API answers 503 while the
+ * database is down.
  */
 
 const ROOT = fileURLToPath(new URL("../..", import.meta.url));
@@ -47,6 +50,7 @@ let w: World;
 let scenarios: string[];
 let worker: ChildProcess;
 let workerLog = "";
+let mail: MailServer;
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const alive = (p: ChildProcess) => p.exitCode === null && p.signalCode === null;
@@ -64,6 +68,16 @@ async function waitForRun(id: string, ms: number) {
   return run;
 }
 const queue = (i: number, kind: "model" | "allocation") => createRun(db, w.users.planner, w.basinId, scenarios[i], kind);
+const queueMail = (key: string) =>
+  queueEmail(db, { to: w.users.stakeholder.email, kind: "review_opened", dedupeKey: `restart:${key}`, subject: `Restart ${key}`, text: "t", html: "<p>t</p>" });
+async function waitForMail(subject: string, ms: number): Promise<boolean> {
+  const deadline = Date.now() + ms;
+  while (Date.now() < deadline) {
+    if (mail.received.some((m) => m.subject === subject)) return true;
+    await sleep(200);
+  }
+  return false;
+}
 
 beforeAll(async () => {
   cluster("start");
@@ -79,9 +93,16 @@ beforeAll(async () => {
     const s = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: `Restart ${i}`, inputs: { conditions: [{ name: "7Q10", temperatureC }] } }));
     scenarios.push(s.id);
   }
+  mail = await startMailServer({ port: 0 });
   worker = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts"], {
     cwd: ROOT,
-    env: { ...process.env, DATABASE_URL: url, SAGLINE_SWEEP_INTERVAL_MS: "500", SMTP_URL: "smtp://127.0.0.1:9" },
+    env: {
+      ...process.env,
+      DATABASE_URL: url,
+      SAGLINE_SWEEP_INTERVAL_MS: "500",
+      SMTP_URL: `smtp://127.0.0.1:${mail.port}`,
+      SAGLINE_MAIL_INTERVAL_MS: "300",
+    },
     stdio: ["ignore", "pipe", "pipe"],
   });
   worker.stdout!.on("data", (b) => (workerLog += b));
@@ -100,6 +121,7 @@ afterAll(async () => {
   await stopBoss();
   await getDb().destroy();
   await db?.destroy();
+  await mail?.close();
   cluster("start");
   await admin(`DROP DATABASE IF EXISTS "${dbName}" WITH (FORCE)`).catch(() => undefined);
   cluster("stop");
@@ -117,6 +139,7 @@ describe("a PostgreSQL restart under a running worker", () => {
     worker.kill("SIGSTOP");
     const before = await queue(1, "allocation");
     expect(before.status).toBe("queued");
+    expect(await queueMail("before")).toBe(true);
     // a connection open across the shutdown: the server ends it (57P01 admin_shutdown)
     const held = new pg.Client({ connectionString: url });
     const heldErrors: unknown[] = [];
@@ -156,6 +179,11 @@ describe("a PostgreSQL restart under a running worker", () => {
     expect(first.status, `${first.error}\n${workerLog}`).toBe("done");
     const after = await queue(2, "model");
     expect((await waitForRun(after.id, 20_000)).status, workerLog).toBe("done");
+    // the e-mail outbox is delivered again: the message queued before the outage and one queued after it
+    expect(await queueMail("after")).toBe(true);
+    expect(await waitForMail("Restart before", 20_000), workerLog).toBe(true);
+    expect(await waitForMail("Restart after", 20_000), workerLog).toBe(true);
+    expect(mail.received.filter((m) => m.subject === "Restart before")).toHaveLength(1);
 
     expect(alive(worker)).toBe(true);
     expect(worker.pid).toBe(pid);
