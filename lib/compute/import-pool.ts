@@ -1,8 +1,7 @@
 import { join } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
-import type { Worker } from "node:worker_threads";
-import type { ImportErrorData, ImportJob, ImportRequest, ImportResponse, ImportStage, ReadResult, ValidateResult } from "./import-protocol";
-import { startWorker } from "./pool";
+import type { ImportErrorData, ImportJob, ImportResponse, ImportStage, ReadResult, ValidateResult } from "./import-protocol";
+import { createWorkerPool } from "./worker-pool";
 
 /** An import job failed in the worker; `data` carries a GeoError's code and details. */
 export class ImportJobError extends Error {
@@ -34,91 +33,35 @@ function workerUrl(): URL {
   return pathToFileURL(join(process.cwd(), "lib", "compute", "import-worker.ts"));
 }
 
-interface Pending {
-  id: number;
-  job: ImportJob;
-  onProgress?: ProgressListener;
-  resolve: (v: unknown) => void;
-  reject: (e: Error) => void;
-}
-
 /**
  * Worker threads for reading uploads and validating imports, so that a large upload never
  * stalls the web server. Jobs queue when every worker is busy; a job past `timeoutMs` has its
  * worker terminated (and replaced on the next job).
  */
 export function createImportPool(options: { size?: number; timeoutMs?: number } = {}): ImportPool {
-  const size = options.size ?? 1;
   const timeoutMs = options.timeoutMs ?? 300_000;
-  const url = workerUrl();
-  const slots: Array<{ worker: Worker | null; busy: boolean }> = Array.from({ length: size }, () => ({ worker: null, busy: false }));
-  const queue: Pending[] = [];
-  let nextId = 1;
-  let closed = false;
-
-  const dispatch = () => {
-    for (const slot of slots) {
-      if (slot.busy || queue.length === 0) continue;
-      const job = queue.shift() as Pending;
-      slot.busy = true;
-      const worker = (slot.worker ??= startWorker(url));
-      worker.ref();
-      const finish = () => {
-        clearTimeout(timer);
-        worker.off("message", onMessage);
-        worker.off("error", onError);
-        worker.off("exit", onExit);
-        worker.unref();
-        slot.busy = false;
-        dispatch();
-      };
-      const onMessage = (res: ImportResponse) => {
-        if (res.id !== job.id) return;
-        if (res.type === "progress") return job.onProgress?.(res.stage, res.fraction);
-        finish();
-        if (res.type === "done") job.resolve(res.result);
-        else job.reject(new ImportJobError(res.error));
-      };
-      const onError = (e: Error) => {
-        slot.worker = null;
-        finish();
-        job.reject(new Error(`the import worker failed: ${e.message}`));
-      };
-      const onExit = (code: number) => {
-        slot.worker = null;
-        finish();
-        job.reject(new Error(`the import worker exited (code ${code})`));
-      };
-      const timer = setTimeout(() => {
-        worker.off("exit", onExit);
-        slot.worker = null;
-        void worker.terminate();
-        finish();
-        job.reject(new ImportJobError({ name: "ImportTimeout", code: "import_timeout", message: `The import took longer than ${Math.round(timeoutMs / 1000)} s and was stopped` }));
-      }, timeoutMs);
-      worker.on("message", onMessage);
-      worker.on("error", onError);
-      worker.on("exit", onExit);
-      worker.postMessage({ id: job.id, job: job.job } satisfies ImportRequest);
-    }
-  };
-
-  const submit = (job: ImportJob, onProgress?: ProgressListener) =>
-    new Promise<unknown>((resolve, reject) => {
-      if (closed) return reject(new Error("the import pool is closed"));
-      queue.push({ id: nextId++, job, onProgress, resolve, reject });
-      dispatch();
-    });
-
-  return {
-    read: (job) => submit(job) as Promise<ReadResult>,
-    validate: (job, onProgress) => submit(job, onProgress) as Promise<ValidateResult>,
-    async close() {
-      closed = true;
-      for (const p of queue.splice(0)) p.reject(new Error("the import pool is closed"));
-      await Promise.all(slots.map((s) => s.worker?.terminate()));
-      slots.forEach((s) => (s.worker = null));
+  const pool = createWorkerPool<ImportJob, ImportResponse>({
+    url: workerUrl(),
+    size: options.size ?? 1,
+    timeoutMs,
+    settle: (res, observe) => {
+      if (res.type === "progress") return void observe?.(res);
+      return res.type === "done" ? { value: res.result } : { error: new ImportJobError(res.error) };
     },
+    failure: (f) => {
+      if (f.kind === "timeout") {
+        return new ImportJobError({ name: "ImportTimeout", code: "import_timeout", message: `The import took longer than ${Math.round(f.ms / 1000)} s and was stopped` });
+      }
+      if (f.kind === "closed") return new Error("the import pool is closed");
+      return new Error(f.kind === "failed" ? `the import worker failed: ${f.message}` : `the import worker exited (code ${f.code})`);
+    },
+  });
+  const progress = (onProgress?: ProgressListener) =>
+    onProgress && ((res: ImportResponse) => res.type === "progress" && onProgress(res.stage, res.fraction));
+  return {
+    read: (job) => pool.submit(job) as Promise<ReadResult>,
+    validate: (job, onProgress) => pool.submit(job, progress(onProgress)) as Promise<ValidateResult>,
+    close: pool.close,
   };
 }
 
