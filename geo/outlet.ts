@@ -5,6 +5,50 @@ export interface Graph {
   adjacency: number[][];
 }
 
+/** What the outlet rule knows of one line: its name, its mapped downstream id, and how it was drawn. */
+export interface OutletLine {
+  name: string;
+  downstreamName?: string;
+  /** Length of the line, km. */
+  lengthKm: number;
+  /**
+   * Of that length, the km drawn against the line's own direction (from→to): parts of a
+   * multi-part feature pointing the other way. 0 for a simple line.
+   */
+  againstKm?: number;
+}
+
+/** How the suggested outlet was found, and how sure that is. */
+export type OutletBasis =
+  /** The one reach a mapped downstream-id field marks as last. */
+  | { kind: "field" }
+  /** The line directions: the free end that turns the least length of line. */
+  | {
+      kind: "directions";
+      /** Km of line that this outlet turns round. */
+      turnedKm: number;
+      /** Km of line in the part. */
+      totalKm: number;
+      /** The next-best free end and the km it would turn (none for a part with one free end). */
+      runnerUp?: { node: number; turnedKm: number };
+      /** Whether the evidence is too weak to use without the planner's confirmation. */
+      weak: boolean;
+    };
+
+export interface OutletSuggestion {
+  node: number;
+  basis: OutletBasis;
+}
+
+/**
+ * When the directions decide weakly: the next-best outlet turns less than this share of the
+ * part's length more than the best one, or the best one turns more than WEAK_TURNED_SHARE of
+ * it (lines drawn every which way). Chosen so that one mis-drawn tributary of a network drawn
+ * downstream never counts as weak, while a part drawn half one way and half the other does.
+ */
+export const WEAK_MARGIN_SHARE = 0.1;
+export const WEAK_TURNED_SHARE = 0.25;
+
 const other = (g: Graph, e: number, n: number) => (g.from[e] === n ? g.to[e] : g.from[e]);
 
 /** The free end of the single reach a mapped downstream-id field marks as last, if exactly one. */
@@ -17,40 +61,46 @@ function outletFromField(g: Graph, edges: number[], downstream: ReadonlyArray<st
 
 /**
  * Suggests the outlet of one connected part. With a mapped downstream-id field, the free end
- * of the one reach with no (known) downstream reach. Otherwise, geometry alone: the free end
- * (headwater-like node) for which the most lines are already drawn toward it, on the
- * convention that reaches are digitised downstream; ties go to the lowest node number.
+ * of the one reach with no (known) downstream reach. Otherwise the line directions, on the
+ * convention that reaches are digitised downstream: the free end whose choice turns round the
+ * least total *length* of line (a part of a multi-part feature counts with its own
+ * direction), so a short tributary drawn the wrong way cannot outvote a long main stem drawn
+ * the right way. Ties go to the lowest node number. The basis says how clear the choice was.
  * `order` is a breadth-first visit of the part and `parentEdge` its spanning tree.
  */
-export function suggestOutlet(
-  g: Graph,
-  order: readonly number[],
-  parentEdge: Int32Array,
-  lines: ReadonlyArray<{ name: string; downstreamName?: string }>,
-): number {
+export function suggestOutlet(g: Graph, order: readonly number[], parentEdge: Int32Array, lines: ReadonlyArray<OutletLine>): OutletSuggestion {
   const edges = [...new Set(order.flatMap((v) => g.adjacency[v]))];
   if (edges.some((e) => lines[e].downstreamName !== undefined)) {
     const names = new Set(lines.map((l) => l.name));
     const hit = outletFromField(g, edges, lines.map((l) => l.downstreamName), names);
-    if (hit !== undefined) return hit;
+    if (hit !== undefined) return { node: hit, basis: { kind: "field" } };
   }
-  // Agreement of each node as root, by re-rooting: moving the root across one tree edge
-  // flips only that edge's direction.
-  const agreement = new Map<number, number>();
-  const drawnTowardParent = (v: number) => g.from[parentEdge[v]] === v && g.to[parentEdge[v]] !== v;
+  // Km turned for each node as outlet, by re-rooting the spanning tree: moving the outlet
+  // across one tree edge reverses only that edge's downstream direction.
+  const against = (e: number) => Math.min(lines[e].againstKm ?? 0, lines[e].lengthKm);
+  const along = (e: number) => lines[e].lengthKm - against(e);
+  /** Km of edge e turned when it must flow from node `up` toward node `down`. */
+  const turned = (e: number, down: number) => (g.to[e] === down && g.from[e] !== down ? against(e) : along(e));
+  const cost = new Map<number, number>();
   let base = 0;
-  for (const v of order.slice(1)) if (drawnTowardParent(v)) base++;
-  agreement.set(order[0], base);
+  for (const v of order.slice(1)) base += turned(parentEdge[v], other(g, parentEdge[v], v));
+  cost.set(order[0], base);
   for (const v of order.slice(1)) {
-    const p = other(g, parentEdge[v], v);
-    const m = drawnTowardParent(v) ? 1 : 0;
-    agreement.set(v, (agreement.get(p) as number) - m + (1 - m));
+    const e = parentEdge[v];
+    const p = other(g, e, v);
+    // rooted at p, e flows v → p; rooted at v, it flows p → v
+    cost.set(v, (cost.get(p) as number) - turned(e, p) + turned(e, v));
   }
   const leaves = order.filter((v) => g.adjacency[v].length === 1);
   const candidates = leaves.length > 0 ? leaves : [...order];
-  return candidates.reduce((best, v) => {
-    const a = agreement.get(v) as number;
-    const b = agreement.get(best) as number;
-    return a > b || (a === b && v < best) ? v : best;
-  });
+  const ranked = [...candidates].sort((a, b) => (cost.get(a) as number) - (cost.get(b) as number) || a - b);
+  const best = ranked[0];
+  const turnedKm = cost.get(best) as number;
+  const totalKm = edges.reduce((s, e) => s + lines[e].lengthKm, 0);
+  const second = ranked[1];
+  const runnerUp = second === undefined ? undefined : { node: second, turnedKm: cost.get(second) as number };
+  const weak =
+    totalKm > 0 &&
+    (turnedKm > WEAK_TURNED_SHARE * totalKm || (runnerUp !== undefined && runnerUp.turnedKm - turnedKm < WEAK_MARGIN_SHARE * totalKm));
+  return { node: best, basis: { kind: "directions", turnedKm, totalKm, runnerUp, weak } };
 }

@@ -27,6 +27,7 @@ export type ProblemCode =
   | "reach_too_long"
   | "length_override_differs"
   | "outlet_invalid"
+  | "outlet_uncertain"
   | "discharger_too_far"
   | "discharger_reassigned"
   | "reassign_unknown_reach";

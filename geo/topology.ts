@@ -1,11 +1,11 @@
-import { distance, lengthToDegrees, nearestPointOnLine } from "@turf/turf";
+import { distance, length, lengthToDegrees, lineString, nearestPointOnLine } from "@turf/turf";
 import { BoxGrid } from "./box-grid";
 import type { LineString, MultiLineString } from "geojson";
 import { PointGrid } from "./point-grid";
 import { appendAll, error, nameList, warning, type Problem } from "./problems";
 import type { LngLat } from "./types";
 import { UnionFind } from "./union-find";
-import { suggestOutlet, type Graph } from "./outlet";
+import { suggestOutlet, WEAK_TURNED_SHARE, type Graph, type OutletBasis } from "./outlet";
 
 /** One usable reach line going into the topology. */
 export interface TopologyLine {
@@ -14,6 +14,10 @@ export interface TopologyLine {
   coordinates: LngLat[];
   /** Mapped downstream reach id, when the file has one; used to suggest the outlet. */
   downstreamName?: string;
+  /** Length of the line, km (weighs its direction when the outlet is suggested); measured here when not given. */
+  lengthKm?: number;
+  /** Km of the line drawn against its own direction (parts of a multi-part feature); default 0. */
+  againstKm?: number;
 }
 
 /** The planner's outlet: a node by id, or the free end of a reach by reach id. */
@@ -62,7 +66,13 @@ export interface TopologyComponent {
   index: number;
   reaches: number[];
   outletNodeId: string;
+  /** The reach whose downstream end is the outlet. */
+  outletReach: number;
   suggestedOutletNodeId: string;
+  /** How the suggestion was found and how sure it is (see geo/outlet.ts). */
+  suggestion: OutletBasis;
+  /** The next-best outlet's reach, when the line directions decided. */
+  runnerUpReach?: number;
   chosen: boolean;
   hasCycles: boolean;
 }
@@ -235,6 +245,27 @@ function cycleProblems(lines: readonly TopologyLine[], g: Graph, parentEdge: Int
   return problems;
 }
 
+/**
+ * The line directions do not settle the outlet clearly: an error until the planner chooses
+ * (or confirms) the outlet, naming the suggestion, the next-best end and the km each turns.
+ */
+function uncertainOutlet(lines: readonly TopologyLine[], c: TopologyComponent, basis: Extract<OutletBasis, { kind: "directions" }>): Problem {
+  const km = (x: number) => `${x.toFixed(2)} km`;
+  const best = lines[c.outletReach].name;
+  const why =
+    basis.turnedKm > WEAK_TURNED_SHARE * basis.totalKm
+      ? `even the best outlet, the downstream end of ${best}, turns round ${km(basis.turnedKm)} of the part's ${km(basis.totalKm)} of lines`
+      : `the downstream end of ${best} (turning round ${km(basis.turnedKm)} of lines) and the free end of ${lines[c.runnerUpReach as number].name} ` +
+        `(turning ${km(basis.runnerUp?.turnedKm ?? 0)}) fit the line directions almost equally well`;
+  const names = [best, ...(c.runnerUpReach !== undefined ? [lines[c.runnerUpReach].name] : [])];
+  return error(
+    "outlet_uncertain",
+    `The outlet cannot be told from the way the lines are drawn: ${why}. Choose the outlet reach under "Outlet" and check again`,
+    names,
+    { geometry: multiLine(lines, c.reaches) },
+  );
+}
+
 /** The node a planner's outlet choice points at, or a problem. */
 function resolveChoice(choice: OutletChoice, lines: readonly TopologyLine[], g: Graph, nodeIds: string[]): number | Problem {
   if ("nodeId" in choice) {
@@ -251,7 +282,8 @@ function resolveChoice(choice: OutletChoice, lines: readonly TopologyLine[], g: 
  * Builds the network from line ends: joins ends within the tolerance into nodes, finds the
  * separate parts, loops and braids, suggests an outlet per part (or uses the planner's),
  * and orients every reach toward its outlet (flipping lines drawn upstream).
- * Problems: gap, ends_mid_reach, closed_loop, braid, loop, outlet_invalid, disconnected_parts, reach_reversed.
+ * Problems: gap, ends_mid_reach, closed_loop, braid, loop, outlet_invalid, outlet_uncertain, disconnected_parts,
+ * reach_reversed.
  */
 export function buildTopology(lines: readonly TopologyLine[], options: TopologyOptions = {}): Topology {
   const toleranceM = options.toleranceM ?? 5;
@@ -310,22 +342,31 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
   }
 
   // Second pass: orient each part from its outlet.
+  const weighed = lines.map((l) => ({ ...l, lengthKm: l.lengthKm ?? length(lineString(l.coordinates)) }));
   const orientedParent = new Int32Array(nodeCount).fill(-1);
   const seen2 = new Uint8Array(nodeCount);
   const components: TopologyComponent[] = parts.map((order, c) => {
-    const suggested = suggestOutlet(g, order, parentEdge, lines);
-    const outlet = chosen.get(c) ?? suggested;
+    const suggestion = suggestOutlet(g, order, parentEdge, weighed);
+    const outlet = chosen.get(c) ?? suggestion.node;
     spanningTree(g, outlet, orientedParent, [], seen2);
     const edges = new Set(order.flatMap((v) => adjacency[v]));
+    const runnerUp = suggestion.basis.kind === "directions" ? suggestion.basis.runnerUp : undefined;
     return {
       index: c,
       reaches: [...edges].sort((a, b) => a - b),
       outletNodeId: nodeIds[outlet],
-      suggestedOutletNodeId: nodeIds[suggested],
+      outletReach: adjacency[outlet][0],
+      suggestedOutletNodeId: nodeIds[suggestion.node],
+      suggestion: suggestion.basis,
+      runnerUpReach: runnerUp ? adjacency[runnerUp.node][0] : undefined,
       chosen: chosen.has(c),
       hasCycles: edges.size > order.length - 1,
     };
   });
+  for (const c of components) {
+    if (c.chosen || c.suggestion.kind !== "directions" || !c.suggestion.weak || c.hasCycles) continue;
+    problems.push(uncertainOutlet(lines, c, c.suggestion));
+  }
   const downstreamNode = (e: number) => {
     if (orientedParent[from[e]] === e) return to[e];
     if (orientedParent[to[e]] === e) return from[e];
@@ -360,16 +401,22 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
   const flipped = reaches.filter((r) => r.flipped);
   if (flipped.length > 0) {
     const names = flipped.map((r) => r.name);
+    const outlets = nameList(components.filter((c) => c.reaches.some((e) => reaches[e].flipped)).map((c) => `the downstream end of ${lines[c.outletReach].name}`));
     problems.push(
-      warning("reach_reversed", `${names.length} reach(es) were drawn from downstream to upstream and have been turned round: ${nameList(names)}`, names, {
-        geometry: multiLine(lines, flipped.map((r) => r.index)),
-      }),
+      warning(
+        "reach_reversed",
+        `${names.length} reach(es) were drawn from downstream to upstream and have been turned round to flow to the outlet at ${outlets}: ${nameList(names)}`,
+        names,
+        { geometry: multiLine(lines, flipped.map((r) => r.index)) },
+      ),
     );
   }
   if (components.length > 1) {
     const main = components.reduce((m, c) => (c.reaches.length > m.reaches.length ? c : m));
     const others = components.filter((c) => c !== main).flatMap((c) => c.reaches);
-    const summary = components.map((c) => `part ${c.index + 1}: ${c.reaches.length} reach(es), outlet ${c.outletNodeId}`).join("; ");
+    const summary = components
+      .map((c) => `part ${c.index + 1}: ${c.reaches.length} reach(es), outlet at the downstream end of ${lines[c.outletReach].name}`)
+      .join("; ");
     const make = options.allowMultipleOutlets ? warning : error;
     problems.push(
       make(

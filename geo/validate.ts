@@ -74,8 +74,18 @@ export interface NetworkPart {
   reachIds: string[];
   outletNodeId: string;
   suggestedOutletNodeId: string;
+  /** The reach whose downstream end is the outlet (how the report and the wizard name it). */
+  outletReachId: string;
   /** Whether the outlet is the planner's choice rather than the suggestion. */
   chosen: boolean;
+  /**
+   * How the outlet was suggested: from a mapped downstream-id field, or from the line
+   * directions with the km of line it turns round, the part's km, the next-best outlet reach
+   * and the km that one would turn, and whether the evidence was too weak to go unconfirmed.
+   */
+  suggestion:
+    | { basis: "field" }
+    | { basis: "directions"; turnedKm: number; totalKm: number; runnerUpReachId?: string; runnerUpTurnedKm?: number; weak: boolean };
 }
 
 export interface ImportNetwork {
@@ -127,7 +137,7 @@ function emptyNetwork(o: ValidateOptions): ImportNetwork {
 
 /** Lines from the mapped reaches; features that cannot be used become errors. */
 function usableLines(mapped: Mapped<ReachAttributes>[], toleranceM: number, problems: Problem[], progress?: ValidateProgress) {
-  const usable: Array<{ m: Mapped<ReachAttributes>; name: string; coordinates: LngLat[]; lengthKm: number }> = [];
+  const usable: Array<{ m: Mapped<ReachAttributes>; name: string; coordinates: LngLat[]; lengthKm: number; againstKm?: number }> = [];
   const lineProblems: Problem[] = [];
   for (const [i, m] of mapped.entries()) {
     if (progress && i % 256 === 0) progress("lines", i / mapped.length);
@@ -271,7 +281,7 @@ export function validateImport(input: ImportInput, options: ValidateOptions = {}
     const usable = usableLines(mapped.reaches, network.toleranceM, problems, progress);
     progress?.("network", 0);
     const topo = buildTopology(
-      usable.map((u) => ({ name: u.name, coordinates: u.coordinates, downstreamName: u.m.attributes.downstreamId })),
+      usable.map((u) => ({ name: u.name, coordinates: u.coordinates, downstreamName: u.m.attributes.downstreamId, lengthKm: u.lengthKm, againstKm: u.againstKm })),
       options,
     );
     appendAll(problems, topo.problems);
@@ -299,7 +309,19 @@ export function validateImport(input: ImportInput, options: ValidateOptions = {}
       reachIds: c.reaches.map((i) => usable[i].name),
       outletNodeId: c.outletNodeId,
       suggestedOutletNodeId: c.suggestedOutletNodeId,
+      outletReachId: usable[c.outletReach].name,
       chosen: c.chosen,
+      suggestion:
+        c.suggestion.kind === "field"
+          ? { basis: "field" as const }
+          : {
+              basis: "directions" as const,
+              turnedKm: c.suggestion.turnedKm,
+              totalKm: c.suggestion.totalKm,
+              runnerUpReachId: c.runnerUpReach === undefined ? undefined : usable[c.runnerUpReach].name,
+              runnerUpTurnedKm: c.suggestion.runnerUp?.turnedKm,
+              weak: c.suggestion.weak,
+            },
     }));
     network.totalLengthKm = network.reaches.reduce((s, r) => s + r.lengthKm, 0);
     if (input.reachMapping.downstreamId) crossCheckDownstream(network.reaches, problems);

@@ -272,6 +272,7 @@ export function ImportWizard({ basinId }: { basinId: string }) {
                   <th>Facility</th>
                   <th className="num">Snapped (m)</th>
                   <th>Reach</th>
+                  <th className="num">From reach head (km)</th>
                 </tr>
               </thead>
               <tbody>
@@ -304,6 +305,7 @@ export function ImportWizard({ basinId }: { basinId: string }) {
                         ))}
                       </select>
                     </td>
+                    <td className="num">{d.chainageKm === undefined ? "—" : d.chainageKm.toFixed(3)}</td>
                   </tr>
                 ))}
               </tbody>

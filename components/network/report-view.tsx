@@ -1,5 +1,6 @@
 "use client";
 import type { ImportReport, Problem } from "@/geo";
+import { outletSentence } from "@/lib/format/outlet";
 
 const TONE = {
   error: "border-clay-500 bg-clay-100 text-clay-700",
@@ -42,6 +43,13 @@ export function ReportView({
           {report.errors.length} error(s), {report.warnings.length} warning(s).
         </strong>
       </p>
+      {n.parts.length > 0 && (
+        <ul className="space-y-1 text-sm" data-testid="outlet-summary">
+          {n.parts.map((part) => (
+            <li key={part.index}>{outletSentence(part, n.parts.length)}</li>
+          ))}
+        </ul>
+      )}
       {report.errors.length + report.warnings.length === 0 && (
         <p className="rounded-md bg-reed-100 px-3 py-2 text-sm text-reed-700">No problems found.</p>
       )}
