@@ -16,7 +16,7 @@ import {
 } from "@/lib/queries/networks";
 import type { NetworkDraft } from "@/lib/validation/network";
 import { MappingEditor } from "./mapping-editor";
-import { DISCHARGER_FIELDS, fromMapping, guessBindings, REACH_FIELDS, toMapping, type Bindings } from "./mapping-fields";
+import { DISCHARGER_FIELDS, fromMapping, guessBindings, REACH_FIELDS, toMapping, type Bindings } from "@/geo/mapping-fields";
 import { ReportView } from "./report-view";
 import { UploadBox } from "./upload-box";
 import { useValidation } from "./use-validation";

@@ -1,7 +1,7 @@
 "use client";
 import type { FieldInfo } from "@/geo/types";
-import type { Bindings, ModelField } from "./mapping-fields";
-import { unitText } from "./mapping-fields";
+import type { Bindings, ModelField } from "@/geo/mapping-fields";
+import { unitText } from "@/geo/mapping-fields";
 
 /** One row per model field: pick the source field (samples shown) and its unit. */
 export function MappingEditor({

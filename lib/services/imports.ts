@@ -11,6 +11,7 @@ import {
   type ImportMeta,
 } from "@/db/queries/imports";
 import type { ImportFormat, ImportLayer } from "@/db/schema";
+import { sniffFormat, unknownFormatMessage } from "@/geo/detect-format";
 import type { FieldInfo, ReadOptions } from "@/geo";
 import { requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { ImportJobError, importPool } from "@/lib/compute/import-pool";
@@ -57,19 +58,11 @@ const importDto = (m: ImportMeta & { uploader_name?: string | null }): ImportDto
 const fileProblem = (message: string, code: string, extra?: Record<string, unknown>) =>
   new AppError("invalid", message, [{ path: "file", message, code, ...extra }]);
 
-/** What kind of file this is, from its first bytes and its name. */
+/** What kind of file this is, from its first bytes and its name (geo/detect-format.ts), or a 422. */
 export function detectFormat(fileName: string, bytes: Uint8Array): ImportFormat {
-  const name = fileName.toLowerCase();
-  if (bytes[0] === 0x50 && bytes[1] === 0x4b) return "shapefile";
-  if (name.endsWith(".zip")) return "shapefile";
-  if (name.endsWith(".csv") || name.endsWith(".txt")) return "csv";
-  if (name.endsWith(".geojson") || name.endsWith(".json")) return "geojson";
-  const head = Buffer.from(bytes.subarray(0, 64)).toString("utf8").trimStart();
-  if (head.startsWith("{")) return "geojson";
-  throw fileProblem(
-    `${fileName} is not a zipped shapefile, a GeoJSON file or a CSV; upload a .zip with .shp, .shx, .dbf and .prj, a .geojson, or a .csv`,
-    "unknown_format",
-  );
+  const format = sniffFormat(fileName, bytes);
+  if (!format) throw fileProblem(unknownFormatMessage(fileName), "unknown_format");
+  return format;
 }
 
 /**

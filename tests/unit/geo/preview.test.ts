@@ -3,7 +3,7 @@ import { readPointCsv, readShapefileZip, validateImport } from "@/geo";
 import { networkPreview } from "@/geo/preview";
 import { DEMO_DISCHARGER_MAPPING, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
 import { fixtureBytes, fixtureText } from "./helpers";
-import { DISCHARGER_FIELDS, guessBindings, REACH_FIELDS, toMapping } from "@/components/network/mapping-fields";
+import { DISCHARGER_FIELDS, guessBindings, REACH_FIELDS, toMapping } from "@/geo/mapping-fields";
 
 describe("draft preview and suggested mappings on the demo files", () => {
   it("shows every reach, node and discharger once", async () => {

@@ -1,6 +1,6 @@
-import { DEPTH_UNITS, DISTANCE_UNITS, FLOW_UNITS, TEMPERATURE_UNITS, VELOCITY_UNITS } from "@/geo/units";
-import type { FieldInfo } from "@/geo/types";
-import type { DischargerMapping, ReachMapping } from "@/geo/field-mapping";
+import { DEPTH_UNITS, DISTANCE_UNITS, FLOW_UNITS, TEMPERATURE_UNITS, VELOCITY_UNITS } from "./units";
+import type { FieldInfo } from "./types";
+import type { DischargerMapping, ReachMapping } from "./field-mapping";
 
 /** How a model field is bound: a source field, plus a unit (or BOD kind) where it has one. */
 export interface Binding {
