@@ -127,6 +127,7 @@ function joinEnds(lines: readonly TopologyLine[], toleranceM: number, gapM: numb
     const seen = gaps.get(key);
     if (!seen || d < seen[2]) gaps.set(key, [i, j, d]);
   }
+  const inGap = new Set([...gaps.values()].flatMap(([i, j]) => [i, j]));
   const problems = [...gaps.values()].map(([i, j, d]) => {
     const [a, b] = [lines[i >> 1].name, lines[j >> 1].name];
     const geometry: LineString = { type: "LineString", coordinates: [ends[i], ends[j]] };
@@ -138,19 +139,27 @@ function joinEnds(lines: readonly TopologyLine[], toleranceM: number, gapM: numb
       { geometry },
     );
   });
-  return { nodeOf, positions, problems };
+  return { nodeOf, positions, problems, inGap };
 }
 
 /**
  * Free line ends lying near the middle of another reach (not near its ends): a tributary
  * drawn to meet the main stem where the main stem has no vertex end, so no node joins them.
  */
-function endsMidReach(lines: readonly TopologyLine[], nodeOf: Int32Array, endCount: Int32Array, toleranceM: number, gapM: number): Problem[] {
+function endsMidReach(
+  lines: readonly TopologyLine[],
+  nodeOf: Int32Array,
+  endCount: Int32Array,
+  toleranceM: number,
+  gapM: number,
+  inGap: ReadonlySet<number>,
+): Problem[] {
   const grid = new BoxGrid(lines.map((l) => l.coordinates), lengthToDegrees(gapM, "meters"));
   const problems: Problem[] = [];
   lines.forEach((l, e) => {
     for (const end of [0, 1]) {
-      if (endCount[nodeOf[2 * e + end]] !== 1) continue;
+      // an end already reported as a gap to another line's end gets that one piece of advice only
+      if (endCount[nodeOf[2 * e + end]] !== 1 || inGap.has(2 * e + end)) continue;
       const p = end === 0 ? l.coordinates[0] : l.coordinates[l.coordinates.length - 1];
       for (const other of grid.near(p)) {
         if (other === e) continue;
@@ -245,6 +254,34 @@ function cycleProblems(lines: readonly TopologyLine[], g: Graph, parentEdge: Int
   return problems;
 }
 
+/** Most end pairs compared when naming the closest ends of two separate parts (beyond it, none are named). */
+const MAX_END_PAIRS = 4_000_000;
+
+/**
+ * The closest pair of line ends between two separate parts, as words ("the end of X at
+ * (lon, lat) and the start of Y") and metres, so a planner can find the break on the map.
+ */
+function nearestEnds(lines: readonly TopologyLine[], a: readonly number[], b: readonly number[]): { text: string; metres: number } | undefined {
+  if (4 * a.length * b.length > MAX_END_PAIRS) return undefined;
+  const ends = (e: number) => [
+    { e, p: lines[e].coordinates[0], which: "start" },
+    { e, p: lines[e].coordinates[lines[e].coordinates.length - 1], which: "end" },
+  ];
+  let best: { x: ReturnType<typeof ends>[number]; y: ReturnType<typeof ends>[number]; d: number } | undefined;
+  for (const x of a.flatMap(ends)) {
+    for (const y of b.flatMap(ends)) {
+      const d = distance(x.p, y.p, { units: "meters" });
+      if (!best || d < best.d) best = { x, y, d };
+    }
+  }
+  if (!best) return undefined;
+  const at = (p: LngLat) => `(${p[0].toFixed(5)}, ${p[1].toFixed(5)})`;
+  return {
+    text: `the ${best.x.which} of ${lines[best.x.e].name} at ${at(best.x.p)} and the ${best.y.which} of ${lines[best.y.e].name} at ${at(best.y.p)}`,
+    metres: best.d,
+  };
+}
+
 /**
  * The line directions do not settle the outlet clearly: an error until the planner chooses
  * (or confirms) the outlet, naming the suggestion, the next-best end and the km each turns.
@@ -288,7 +325,7 @@ function resolveChoice(choice: OutletChoice, lines: readonly TopologyLine[], g: 
 export function buildTopology(lines: readonly TopologyLine[], options: TopologyOptions = {}): Topology {
   const toleranceM = options.toleranceM ?? 5;
   const gapM = options.gapSearchM ?? Math.max(50, 10 * toleranceM);
-  const { nodeOf, positions, problems } = joinEnds(lines, toleranceM, gapM);
+  const { nodeOf, positions, problems, inGap } = joinEnds(lines, toleranceM, gapM);
   const nodeCount = positions.length;
   const from = Int32Array.from(lines, (_, e) => nodeOf[2 * e]);
   const to = Int32Array.from(lines, (_, e) => nodeOf[2 * e + 1]);
@@ -300,7 +337,7 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
   const g: Graph = { from, to, adjacency };
   const endCount = new Int32Array(nodeCount);
   nodeOf.forEach((n) => endCount[n]++);
-  appendAll(problems, endsMidReach(lines, nodeOf, endCount, toleranceM, gapM));
+  appendAll(problems, endsMidReach(lines, nodeOf, endCount, toleranceM, gapM, inGap));
   const nodeIds = positions.map((_, k) => `N${k + 1}`);
 
   // First pass: parts and cycles, on a spanning tree rooted at each part's first node.
@@ -417,11 +454,17 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
     const summary = components
       .map((c) => `part ${c.index + 1}: ${c.reaches.length} reach(es), outlet at the downstream end of ${lines[c.outletReach].name}`)
       .join("; ");
+    const closest = components
+      .filter((c) => c !== main)
+      .map((c) => nearestEnds(lines, c.reaches, main.reaches))
+      .filter((x) => x !== undefined);
+    const where = closest.map((x) => `${x.text} are ${x.metres.toFixed(1)} m apart`).join("; ");
     const make = options.allowMultipleOutlets ? warning : error;
     problems.push(
       make(
         "disconnected_parts",
-        `The network has ${components.length} separate parts, each with its own outlet (${summary}); join them or remove stray reaches`,
+        `The network has ${components.length} separate parts, each with its own outlet (${summary}); ` +
+          `${where ? `the closest ends: ${where}; ` : ""}join them or remove stray reaches`,
         others.map((e) => lines[e].name),
         { geometry: multiLine(lines, others) },
       ),
