@@ -41,7 +41,10 @@ export async function readUploadLayer(format: SourceFormat, bytes: Uint8Array, o
       if (!coordinates) {
         throw new GeoError(
           "csv_missing_column",
-          "The CSV has no latitude/longitude columns that Sagline recognises; name them (csvLatitude, csvLongitude) or give x/y columns with an EPSG code",
+          "The CSV has no latitude/longitude columns that Sagline recognises (it looks for lat or latitude, and lon, lng or longitude); " +
+            'choose the columns under "Where each row is": latitude and longitude, or X and Y with their EPSG code',
+          // the upload API's own names for the same choice
+          { fields: ["csvLatitude", "csvLongitude", "csvX", "csvY", "epsg"] },
         );
       }
       source = readPointCsv(text, coordinates);

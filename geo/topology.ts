@@ -400,9 +400,11 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
       hasCycles: edges.size > order.length - 1,
     };
   });
+  const uncertain = new Set<number>();
   for (const c of components) {
     if (c.chosen || c.suggestion.kind !== "directions" || !c.suggestion.weak || c.hasCycles) continue;
     problems.push(uncertainOutlet(lines, c, c.suggestion));
+    uncertain.add(c.index);
   }
   const downstreamNode = (e: number) => {
     if (orientedParent[from[e]] === e) return to[e];
@@ -435,7 +437,8 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
     return { id: nodeIds[n], position, kind, reaches: adjacency[n], component: partOf[n] };
   });
 
-  const flipped = reaches.filter((r) => r.flipped);
+  // where the outlet is uncertain, which reaches are "drawn upstream" is not known yet either
+  const flipped = reaches.filter((r) => r.flipped && !uncertain.has(r.component));
   if (flipped.length > 0) {
     const names = flipped.map((r) => r.name);
     const outlets = nameList(components.filter((c) => c.reaches.some((e) => reaches[e].flipped)).map((c) => `the downstream end of ${lines[c.outletReach].name}`));

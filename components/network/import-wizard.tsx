@@ -18,7 +18,7 @@ import type { NetworkDraft } from "@/lib/validation/network";
 import { MappingEditor } from "./mapping-editor";
 import { DISCHARGER_FIELDS, fromMapping, guessBindings, REACH_FIELDS, toMapping, type Bindings } from "@/geo/mapping-fields";
 import { ReportView } from "./report-view";
-import { UploadBox } from "./upload-box";
+import { UploadBox, type UploadChoice } from "./upload-box";
 import { useValidation } from "./use-validation";
 
 type Layer = "reaches" | "dischargers";
@@ -49,10 +49,10 @@ export function ImportWizard({ basinId }: { basinId: string }) {
 
   const fail = (e: unknown) => setFailure(e instanceof Error ? e.message : String(e));
 
-  const onUpload = async (layer: Layer, file: File, epsg?: number) => {
+  const onUpload = async (layer: Layer, file: File, choice: UploadChoice) => {
     setFailure(null);
     setResult(null);
-    const dto = await upload.mutateAsync({ file, layer, epsg });
+    const dto = await upload.mutateAsync({ file, layer, ...choice });
     setUploads((u) => ({ ...u, [layer]: dto }));
     const fields = layer === "reaches" ? REACH_FIELDS : DISCHARGER_FIELDS;
     setBindings((b) => ({ ...b, [layer]: guessBindings(fields, dto.fields) }));
@@ -140,16 +140,17 @@ export function ImportWizard({ basinId }: { basinId: string }) {
         <h2 className="mb-1">1. Files</h2>
         <p className="mb-4 text-sm text-ink-soft">
           Reach lines as a zipped shapefile (.shp, .shx, .dbf and .prj) or GeoJSON; discharger locations as a shapefile,
-          GeoJSON or CSV with latitude/longitude columns. Every upload is kept with its checksum so plans can be traced to
+          GeoJSON or CSV with latitude/longitude or X/Y columns. Every upload is kept with its checksum so plans can be traced to
           their inputs.
         </p>
         <div className="grid gap-4 md:grid-cols-2">
-          <UploadBox label="Reach lines" accept=".zip,.geojson,.json" uploaded={uploads.reaches} onUpload={(f, epsg) => onUpload("reaches", f, epsg)} />
+          <UploadBox label="Reach lines" accept=".zip,.geojson,.json" uploaded={uploads.reaches} onUpload={(f, choice) => onUpload("reaches", f, choice)} />
           <UploadBox
             label="Dischargers (optional)"
-            accept=".zip,.geojson,.json,.csv"
+            accept=".zip,.geojson,.json,.csv,.txt"
             uploaded={uploads.dischargers}
-            onUpload={(f, epsg) => onUpload("dischargers", f, epsg)}
+            points
+            onUpload={(f, choice) => onUpload("dischargers", f, choice)}
           />
         </div>
       </section>

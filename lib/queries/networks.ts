@@ -3,9 +3,12 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { ImportReport } from "@/geo";
 import type { FieldMappingDto, ImportDto } from "@/lib/services/imports";
 import type { NetworkDto, NetworkSummaryDto } from "@/lib/services/networks";
-import type { FieldMappingSave, NetworkCommit, NetworkDraft } from "@/lib/validation/network";
+import type { FieldMappingSave, NetworkCommit } from "@/lib/validation/network";
 import { apiFetch } from "./fetcher";
 import { queryKeys } from "./keys";
+
+/** Which CSV columns give a point's position, as the upload form sends them (csvLatitude/csvLongitude or csvX/csvY). */
+export type CsvPosition = { kind: "latlon"; latitude: string; longitude: string } | { kind: "xy"; x: string; y: string };
 
 export const useNetworksQuery = (basinId: string) =>
   useQuery({
@@ -29,11 +32,18 @@ export const useMappingsQuery = (basinId: string) =>
 export function useUploadMutation(basinId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ file, layer, epsg }: { file: File; layer: "reaches" | "dischargers"; epsg?: number }) => {
+    mutationFn: ({ file, layer, epsg, csv }: { file: File; layer: "reaches" | "dischargers"; epsg?: number; csv?: CsvPosition }) => {
       const form = new FormData();
       form.set("file", file);
       form.set("layer", layer);
       if (epsg) form.set("epsg", String(epsg));
+      if (csv?.kind === "latlon") {
+        form.set("csvLatitude", csv.latitude);
+        form.set("csvLongitude", csv.longitude);
+      } else if (csv?.kind === "xy") {
+        form.set("csvX", csv.x);
+        form.set("csvY", csv.y);
+      }
       return apiFetch<ImportDto>(`/api/basins/${basinId}/imports`, { method: "POST", body: form });
     },
     onSuccess: () => qc.invalidateQueries({ queryKey: queryKeys.basins.imports(basinId) }),
@@ -44,12 +54,6 @@ export interface DraftResultDto {
   report: ImportReport;
   knownPermits: string[];
 }
-
-export const useValidateMutation = (basinId: string) =>
-  useMutation({
-    mutationFn: (draft: NetworkDraft) =>
-      apiFetch<DraftResultDto>(`/api/basins/${basinId}/networks/validate`, { method: "POST", json: draft }),
-  });
 
 export function useCommitMutation(basinId: string) {
   const qc = useQueryClient();

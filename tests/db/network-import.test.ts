@@ -102,7 +102,7 @@ describe("uploads", () => {
       "a CSV without coordinate columns",
       async () => demoForm("dischargers", "dischargers", new TextEncoder().encode("facility,permit_id\nA,1\n"), "plants.csv"),
       "csv_missing_column",
-      /latitude/,
+      /latitude.*choose the columns under "Where each row is"/,
     ],
   ];
   for (const [what, form, code, message] of bad) {

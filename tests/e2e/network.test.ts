@@ -58,12 +58,11 @@ describe("the basin network", () => {
 
   it("imports a new version through the wizard: upload, suggested fields, report, accept, save", async () => {
     await page.goto(`${basinUrl}/network/import`);
+    // choosing a file uploads it
     await page.getByLabel("Reach lines").setInputFiles("tests/fixtures/demo/tamsel-reaches.zip");
-    await page.getByRole("button", { name: "Upload" }).first().click();
     await page.getByTestId("reach-lines-uploaded").waitFor();
     expect(await page.getByTestId("reach-lines-uploaded").textContent()).toMatch(/17 features.*UTM zone 16N/);
     await page.getByLabel("Dischargers (optional)").setInputFiles("tests/fixtures/demo/tamsel-dischargers.csv");
-    await page.getByRole("button", { name: "Upload" }).nth(1).click();
     await page.getByTestId("dischargers-optional-uploaded").waitFor();
     expect(await page.getByLabel("Source field for Design flow").first().inputValue()).toBe("FLOW_CFS");
     expect(await page.getByLabel("Unit of Design flow").first().inputValue()).toBe("cfs");
@@ -72,6 +71,7 @@ describe("the basin network", () => {
     const report = page.getByTestId("validation-report");
     await report.waitFor();
     expect(await report.textContent()).toMatch(/0 error\(s\), 1 warning\(s\)/);
+    expect(await page.getByTestId("outlet-summary").textContent()).toContain("Outlet: the downstream end of TR-08, from the downstream-id field.");
     expect(await page.getByTestId("snapped-dischargers").locator("tbody tr").count()).toBe(5);
     await page.screenshot({ path: `${SHOTS}/network-import-report.png`, fullPage: true });
 
@@ -85,6 +85,52 @@ describe("the basin network", () => {
     await page.locator('[data-testid="basin-map"][data-ready="true"]').waitFor();
     await page.waitForTimeout(500);
     expect(await pixelsNear(MAP_COLOURS.reach)).toBeGreaterThan(800);
+  });
+
+  it("places dischargers from a CSV's X/Y columns in a projected system, asked for in plain words", async () => {
+    await page.goto(`${basinUrl}/network/import`);
+    await page.getByLabel("Reach lines").setInputFiles("tests/fixtures/demo/tamsel-reaches.zip");
+    await page.getByTestId("reach-lines-uploaded").waitFor();
+    await page.getByLabel("Dischargers (optional)").setInputFiles("tests/fixtures/xy/tamsel-dischargers-utm16n.csv");
+    // no latitude/longitude columns: the message points at the wizard's own controls, not at API fields
+    const alert = page.getByTestId("dischargers-optional-position").locator("xpath=..").getByRole("alert");
+    await alert.waitFor();
+    expect(await alert.textContent()).toContain('choose the columns under "Where each row is"');
+    expect(await alert.textContent()).not.toContain("csvLatitude");
+    await page.getByLabel("Position columns").selectOption("xy");
+    await page.getByLabel("X (easting) column").fill("X");
+    await page.getByLabel("Y (northing) column").fill("Y");
+    await page.getByLabel("EPSG code of X and Y").fill("32616");
+    await page.screenshot({ path: `${SHOTS}/network-import-xy-columns.png`, fullPage: true });
+    await page.getByRole("button", { name: "Read again" }).nth(1).click();
+    await page.getByTestId("dischargers-optional-uploaded").waitFor();
+    expect(await page.getByTestId("dischargers-optional-uploaded").textContent()).toMatch(/5 features.*UTM zone 16N/);
+    await page.getByRole("button", { name: "Check the network" }).click();
+    await page.getByTestId("validation-report").waitFor();
+    const rows = page.getByTestId("snapped-dischargers").locator("tbody tr");
+    expect(await rows.count()).toBe(5);
+    // the same reaches as the demo's latitude/longitude file (tests/fixtures/demo/README.md)
+    const reachOf = async (permit: string) => rows.filter({ hasText: permit }).getByRole("combobox").inputValue();
+    expect(await reachOf("DP-1001")).toBe("TR-03");
+    expect(await reachOf("DP-1004")).toBe("BB-03");
+  });
+
+  it("asks the planner to choose the outlet when the line directions cannot tell, and takes the choice", async () => {
+    await page.goto(`${basinUrl}/network/import`);
+    await page.getByLabel("Reach lines").setInputFiles("tests/fixtures/geo/uncertain-outlet.geojson");
+    await page.getByTestId("reach-lines-uploaded").waitFor();
+    await page.getByRole("button", { name: "Check the network" }).click();
+    const report = page.getByTestId("validation-report");
+    await report.waitFor();
+    expect(await report.textContent()).toMatch(/1 error\(s\)/);
+    expect(await report.textContent()).toContain("The outlet cannot be told from the way the lines are drawn");
+    expect(await page.getByRole("button", { name: "Save network" }).count()).toBe(0);
+    await page.screenshot({ path: `${SHOTS}/network-import-outlet-uncertain.png`, fullPage: true });
+    await page.getByLabel("Outlet", { exact: true }).selectOption("UP-B");
+    await page.getByRole("button", { name: "Check again", exact: true }).click();
+    await report.getByText("0 error(s)").waitFor();
+    expect(await page.getByTestId("outlet-summary").textContent()).toBe("Outlet: the downstream end of UP-B, as you chose.");
+    expect(await page.getByRole("button", { name: "Save network" }).count()).toBe(1);
   });
 
   it("corrects a value inline in the newest version, refusing a bad one with the field's message", async () => {
@@ -105,7 +151,6 @@ describe("the basin network", () => {
   it("reports a bad upload in plain words and keeps nothing", async () => {
     await page.goto(`${basinUrl}/network/import`);
     await page.getByLabel("Reach lines").setInputFiles({ name: "reaches.zip", mimeType: "application/zip", buffer: Buffer.from("not a zip at all") });
-    await page.getByRole("button", { name: "Upload" }).first().click();
     const alert = page.getByRole("alert").filter({ hasText: /zip/i });
     await alert.waitFor();
     const imports = (await (await page.request.get(`${basinUrl.replace("/basins/", "/api/basins/")}/imports`)).json()) as { fileName: string }[];

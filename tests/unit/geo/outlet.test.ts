@@ -40,11 +40,13 @@ describe("choosing the outlet", () => {
     expect(reversed.features.sort()).toEqual(["T1", "T2", "T3", "T4"]);
     expect(reversed.message).toContain("the downstream end of M3");
     expect(part.suggestion).toMatchObject({ basis: "directions", weak: false });
-    // the tributary turns 0.008° of line; the next-best end (the tributary's head) would turn M2 and M3, 0.02°
+    // the mouth turns the tributary's lines; the next-best end (the tributary's head) would turn M2 and M3
     const s = part.suggestion as Extract<typeof part.suggestion, { basis: "directions" }>;
-    expect(s.turnedKm / s.totalKm).toBeCloseTo(0.008 / 0.038, 3);
+    const km = (...ids: string[]) => ids.reduce((t, id) => t + r.network.reaches.find((x) => x.id === id)!.geometryLengthKm, 0);
+    expect(s.turnedKm).toBeCloseTo(km("T1", "T2", "T3", "T4"), 12);
+    expect(s.totalKm).toBeCloseTo(km("M1", "M2", "M3", "T1", "T2", "T3", "T4"), 12);
     expect(s.runnerUpReachId).toBe("T4");
-    expect(s.runnerUpTurnedKm! / s.totalKm).toBeCloseTo(0.02 / 0.038, 3);
+    expect(s.runnerUpTurnedKm!).toBeCloseTo(km("M2", "M3"), 12);
     // the report names it
     expect(outletSentence(part)).toMatch(/^Outlet: the downstream end of M3, from the line directions \(\d+\.\d\d km of \d+\.\d\d km of lines turned round; next best, the free end of T4, would turn \d+\.\d\d km\)\.$/);
     // and the main stem flows M1 → M2 → M3 with T1 joining M2's head
@@ -78,11 +80,13 @@ describe("choosing the outlet", () => {
     ];
     const r = run(items);
     expect(codes(r.errors)).toEqual(["outlet_uncertain"]);
+    expect(codes(r.warnings)).toEqual([]); // nothing is called "drawn upstream" before the outlet is known
     expect(r.errors[0].features.sort()).toEqual(["A", "B"]);
     expect(r.errors[0].message).toMatch(/even the best outlet.*turns round .* of the part's .* of lines.*Choose the outlet reach under "Outlet"/);
     expect(r.network.parts[0].suggestion).toMatchObject({ basis: "directions", weak: true });
     const chosen = run(items, { outlets: [{ reachId: "B" }] });
     expect(chosen.errors).toEqual([]);
+    expect(chosen.warnings.find((w) => w.code === "reach_reversed")?.features).toEqual(["B"]);
     expect(chosen.network.parts[0]).toMatchObject({ outletReachId: "B", chosen: true });
     expect(outletSentence(chosen.network.parts[0])).toBe("Outlet: the downstream end of B, as you chose.");
     expect(outletSentence(r.network.parts[0])).toContain("This is uncertain");
