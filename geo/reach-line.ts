@@ -1,6 +1,7 @@
-import { distance, length, lineString } from "@turf/turf";
+import { distance } from "@turf/turf";
 import type { Geometry, MultiPoint } from "geojson";
 import { coordinateProblem } from "./coordinates";
+import { lineLengthKm } from "./geodesic";
 import { error, warning, type Problem } from "./problems";
 import { selfCrossings } from "./self-crossings";
 import type { LngLat } from "./types";
@@ -13,6 +14,8 @@ export interface PreparedLine {
   problems: Problem[];
 }
 
+// Joining parts within a metre-scale tolerance stays on turf's sphere, as geo/topology.ts joins
+// line ends, so the two joins agree on what "within toleranceM" means (±0.5 % of a few metres).
 const close = (a: LngLat, b: LngLat, toleranceM: number) => distance(a, b, { units: "meters" }) <= toleranceM;
 
 /** Joins the parts of a multi-part line end to end (reversing parts as needed), or undefined. */
@@ -37,8 +40,8 @@ function chainParts(parts: LngLat[][], toleranceM: number): LngLat[] | undefined
 const dedupe = (cs: LngLat[]) => cs.filter((c, i) => i === 0 || c[0] !== cs[i - 1][0] || c[1] !== cs[i - 1][1]);
 
 /**
- * Checks one reach geometry and returns it as a single line with its length (km, on turf's
- * sphere of radius 6 371 008.8 m), or the blocking problem: missing or wrong geometry type,
+ * Checks one reach geometry and returns it as a single line with its length (km, along the
+ * WGS84 ellipsoid: geo/geodesic.ts, within 1e-7 of the geodesic), or the blocking problem: missing or wrong geometry type,
  * missing/NaN or out-of-range coordinates, a multi-part line whose parts do not join within
  * `toleranceM`, or zero length. A self-crossing line is usable and gets a warning.
  */
@@ -66,7 +69,7 @@ export function prepareReachLine(geometry: Geometry | null, who: string, toleran
     });
   }
   const coordinates = dedupe(chained);
-  const lengthKm = coordinates.length >= 2 ? length(lineString(coordinates)) : 0;
+  const lengthKm = coordinates.length >= 2 ? lineLengthKm(coordinates) : 0;
   if (lengthKm <= 0) {
     const at = coordinates[0];
     return error("zero_length", `${who} has zero length`, [who], at ? { geometry: { type: "Point", coordinates: at } } : {});

@@ -1,14 +1,14 @@
-import { distance, nearestPointOnLine } from "@turf/turf";
 import Flatbush from "flatbush";
+import { cumulativeKm, nearestOnSegment, WGS84_E2 } from "./geodesic";
 import type { LngLat } from "./types";
 
 export interface SegmentHit {
   reach: number;
   /** Nearest position on the reach, WGS84. */
   snapped: LngLat;
-  /** Distance from the point, km (turf's sphere). */
+  /** Geodesic distance from the point, km (WGS84 ellipsoid). */
   distanceKm: number;
-  /** Distance along the line from its first vertex to `snapped`, km. */
+  /** Distance along the line from its first vertex to `snapped`, km (WGS84 ellipsoid). */
   alongKm: number;
 }
 
@@ -20,14 +20,14 @@ const RAD = Math.PI / 180;
  * segments near it, where turf's nearestPointOnLine over each reach costs its vertex count.
  * The tree is planar in (longitude × cos φ₀, latitude), φ₀ the network's mean latitude; the
  * planar nearest only picks candidates: all segments within that distance (widened by the
- * spread of cos φ over the network) are then measured with turf on the sphere, so the answer
- * is turf's own.
+ * spread of cos φ over the network and by the ellipsoid's ratio of radii M/N ≥ 1 − e²) are
+ * then measured on the WGS84 ellipsoid (geo/geodesic.ts), so the answer is the ellipsoid's.
  */
 export class SegmentIndex {
   private readonly tree: Flatbush | null;
   private readonly reachOf: Int32Array;
   private readonly segOf: Int32Array;
-  /** Per reach: distance along the line to each vertex, km, summed as turf's nearestPointOnLine sums it. */
+  /** Per reach: distance along the line to each vertex, km, summed as geo/reach-line.ts sums the length. */
   private readonly along: Float64Array[];
   private readonly scale: number;
   private readonly widen: number;
@@ -49,14 +49,11 @@ export class SegmentIndex {
     const lat0 = vertices > 0 ? latSum / vertices : 0;
     this.scale = Math.cos(Math.min(Math.abs(lat0), 89) * RAD);
     const [lo, hi] = [Math.cos(Math.min(maxAbs, 89) * RAD), Math.cos(minAbs * RAD)];
-    this.widen = Math.max(hi / this.scale, this.scale / lo) * 1.01;
+    // A planar unit is M metres north-south and N·cos φ/cos φ₀ east-west; M/N ∈ [1 − e², 1].
+    this.widen = (Math.max(hi / this.scale, this.scale / lo) / (1 - WGS84_E2)) * 1.01;
     this.reachOf = new Int32Array(count);
     this.segOf = new Int32Array(count);
-    this.along = lines.map((l) => {
-      const a = new Float64Array(l.length);
-      for (let i = 1; i < l.length; i++) a[i] = a[i - 1] + distance(l[i - 1], l[i], { units: "kilometers" });
-      return a;
-    });
+    this.along = lines.map((l) => cumulativeKm(l));
     this.tree = count > 0 ? new Flatbush(count) : null;
     let s = 0;
     lines.forEach((l, r) => {
@@ -90,17 +87,17 @@ export class SegmentIndex {
     if (first === undefined) return undefined;
     const reach = Math.max(this.planar(first, x, y) * this.widen, 1e-12);
     const candidates = this.tree.neighbors(x, y, Infinity, reach, filter);
-    // Lowest reach, then lowest segment first: ties go where turf's reach-by-reach scan put them.
+    // Lowest reach, then lowest segment first: ties go to the first reach, as a reach-by-reach scan would.
     candidates.sort((a, b) => a - b);
     let best: SegmentHit | undefined;
     for (const s of candidates) {
       const r = this.reachOf[s];
       const i = this.segOf[s];
       const l = this.lines[r];
-      const hit = nearestPointOnLine({ type: "LineString", coordinates: [l[i], l[i + 1]] }, p, { units: "kilometers" });
-      const d = hit.properties.pointDistance;
+      const foot = nearestOnSegment(p, l[i], l[i + 1]);
+      const d = foot.distanceM / 1000;
       if (!best || d < best.distanceKm) {
-        best = { reach: r, snapped: hit.geometry.coordinates as LngLat, distanceKm: d, alongKm: this.along[r][i] + hit.properties.segmentDistance };
+        best = { reach: r, snapped: foot.position, distanceKm: d, alongKm: this.along[r][i] + foot.alongM / 1000 };
       }
     }
     return best;

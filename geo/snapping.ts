@@ -6,7 +6,7 @@ import type { LngLat } from "./types";
 export interface SnapReach {
   name: string;
   coordinates: LngLat[];
-  /** Length of the line on turf's sphere, km. */
+  /** Length of the line on the WGS84 ellipsoid, km (as prepareReachLine gives it). */
   lengthKm: number;
   /** Length the model uses (a mapped override, else the line length), km. */
   modelLengthKm: number;
@@ -53,7 +53,7 @@ function snapped(reach: SnapReach, hit: SegmentHit) {
 /**
  * Snaps each point to the nearest reach (or to the reach it is explicitly assigned to) and
  * gives the snap distance (m) and the chainage from the reach head (km, along the oriented
- * line; also scaled to the model length). Distances are on turf's sphere (R = 6 371 008.8 m).
+ * line; also scaled to the model length). Distances are geodesics on the WGS84 ellipsoid.
  * Problems: discharger_too_far (error), discharger_reassigned (warning when the assigned reach
  * is beyond the limit), reassign_unknown_reach (error).
  */

@@ -1,11 +1,25 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
+import geographiclib from "geographiclib-geodesic";
 import { readGeoJson, type SourceLayer } from "@/geo";
 
 const FIXTURES = join(process.cwd(), "tests/fixtures");
 
 /** Kilometres per degree of arc on turf's sphere (earthRadius 6 371 008.8 m in @turf/helpers). */
 export const KM_PER_DEGREE = (6371008.8 * Math.PI) / 180 / 1000;
+
+/**
+ * Length of a polyline on the WGS84 ellipsoid, km, straight from GeographicLib's geodesic
+ * inverse (the reference the import's lengths and chainage are held to, not Sagline's code).
+ */
+export function geodesicKm(coordinates: ReadonlyArray<readonly number[]>): number {
+  let m = 0;
+  for (let i = 1; i < coordinates.length; i++) {
+    const [a, b] = [coordinates[i - 1], coordinates[i]];
+    m += geographiclib.Geodesic.WGS84.Inverse(a[1], a[0], b[1], b[0]).s12 as number;
+  }
+  return m / 1000;
+}
 
 export const fixtureBytes = (path: string): Buffer => readFileSync(join(FIXTURES, path));
 export const fixtureText = (path: string): string => readFileSync(join(FIXTURES, path), "utf8");

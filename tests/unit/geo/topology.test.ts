@@ -1,14 +1,13 @@
-import { length, lineString } from "@turf/turf";
 import { describe, expect, it } from "vitest";
 import { buildTopology, validateImport, type TopologyLine } from "@/geo";
-import { KM_PER_DEGREE, lines, network, reachMapping } from "./helpers";
+import { geodesicKm, lines, network, reachMapping } from "./helpers";
 
 const validate = (name: string, options = {}) => validateImport({ reaches: network(name), reachMapping }, options);
 const reach = (r: ReturnType<typeof validate>, id: string) => r.network.reaches.find((x) => x.id === id);
 const codes = (ps: Array<{ code: string }>) => ps.map((p) => p.code);
 
 describe("topology of hand-built networks", () => {
-  it("Y confluence: one node joins A, B and C; outlet at the foot of C; lengths exact on turf's sphere", () => {
+  it("Y confluence: one node joins A, B and C; outlet at the foot of C; lengths on the WGS84 ellipsoid", () => {
     const r = validate("y-confluence");
     expect(r.errors).toEqual([]);
     expect(r.warnings).toEqual([]);
@@ -21,11 +20,14 @@ describe("topology of hand-built networks", () => {
     expect(reach(r, "A")).toMatchObject({ downstreamReachId: "C", flipped: false });
     expect(reach(r, "C")?.upstreamReachIds.sort()).toEqual(["A", "B"]);
     expect(reach(r, "C")?.downstreamReachId).toBeUndefined();
-    // 0.01° along a meridian and along the equator, 0.02° along a meridian: arcs of great circles.
-    expect(reach(r, "A")?.lengthKm).toBeCloseTo(0.01 * KM_PER_DEGREE, 9);
-    expect(reach(r, "B")?.lengthKm).toBeCloseTo(0.01 * KM_PER_DEGREE, 9);
-    expect(reach(r, "C")?.lengthKm).toBeCloseTo(0.02 * KM_PER_DEGREE, 9);
-    expect(r.network.totalLengthKm).toBeCloseTo(0.04 * KM_PER_DEGREE, 9);
+    // 0.01° along a meridian, 0.01° along the equator (exactly a·Δλ, a = 6 378 137 m), 0.02°
+    // along a meridian: geodesics, measured by GeographicLib's inverse.
+    const [a, c] = [geodesicKm([[0, 0.01], [0, 0]]), geodesicKm([[0, 0], [0, -0.02]])];
+    const b = (6378137 * 0.01 * Math.PI) / 180 / 1000;
+    expect(reach(r, "A")?.lengthKm).toBeCloseTo(a, 9);
+    expect(reach(r, "B")?.lengthKm).toBeCloseTo(b, 9);
+    expect(reach(r, "C")?.lengthKm).toBeCloseTo(c, 9);
+    expect(r.network.totalLengthKm).toBeCloseTo(a + b + c, 9);
   });
 
   it("reversed line: C2 is turned round, head first, and reported", () => {
@@ -123,10 +125,10 @@ describe("topology of hand-built networks", () => {
     expect(byGeometry.nodes.find((n) => n.kind === "outlet")?.position).toEqual([0, 0.01]);
   });
 
-  it("reach lengths agree with turf's length for a meandering line", () => {
+  it("reach lengths agree with the WGS84 geodesic for a meandering line", () => {
     const coords = [[10, 45], [10.01, 45.004], [10.02, 44.998], [10.03, 45.001]];
     const r = validateImport({ reaches: lines([{ id: "M", coordinates: coords }]), reachMapping });
-    expect(reach(r, "M")?.geometryLengthKm).toBeCloseTo(length(lineString(coords)), 12);
+    expect(reach(r, "M")?.geometryLengthKm).toBeCloseTo(geodesicKm(coords), 6); // within a millimetre
   });
 });
 
@@ -167,7 +169,7 @@ describe("geometry and attribute problems", () => {
   it("multi-part lines are joined when their parts meet, refused when they don't", () => {
     const joined = one([[[0, 0], [0, 0.01]], [[0, 0.02], [0, 0.01]]], "MultiLineString");
     expect(joined.errors).toEqual([]);
-    expect(joined.network.reaches.find((r) => r.id === "R1")?.geometryLengthKm).toBeCloseTo(0.02 * KM_PER_DEGREE, 9);
+    expect(joined.network.reaches.find((r) => r.id === "R1")?.geometryLengthKm).toBeCloseTo(geodesicKm([[0, 0], [0, 0.02]]), 9);
     expect(codes(one([[[0, 0], [0, 0.01]], [[1, 0], [1, 0.01]]], "MultiLineString").errors)).toEqual(["multipart_disconnected"]);
   });
 
@@ -185,6 +187,6 @@ describe("geometry and attribute problems", () => {
     expect(codes(r.errors)).toEqual(["missing_value"]);
     expect(r.errors[0].message).toBe("feature 1 has no reach id (field id)");
     expect(codes(r.warnings).sort()).toEqual(["downstream_id_mismatch", "downstream_id_unknown", "reach_too_long"]);
-    expect(r.warnings.find((w) => w.code === "reach_too_long")?.message).toContain("C (22.2 km)");
+    expect(r.warnings.find((w) => w.code === "reach_too_long")?.message).toContain("C (22.1 km)"); // 0.2° of meridian: 22.11 km by GeographicLib
   });
 });

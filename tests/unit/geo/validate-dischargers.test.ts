@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { readGeoJson, readPointCsv, validateImport } from "@/geo";
-import { KM_PER_DEGREE, network, reachMapping } from "./helpers";
+import { geodesicKm, network, reachMapping } from "./helpers";
 
 const dischargerMapping = { name: "name", permitId: "permit" };
 const csvLayer = (rows: string) => readPointCsv(`name,permit,lat,lon\n${rows}`, { kind: "latlon", latitude: "lat", longitude: "lon" });
@@ -15,10 +15,11 @@ describe("dischargers in the validation report", () => {
     expect(r.errors).toEqual([]);
     const [d] = r.network.dischargers;
     expect(d).toMatchObject({ id: "P-1", reachId: "C", assignment: "nearest", position: [0.0001, -0.01] });
-    expect(d.chainageKm).toBeCloseTo(0.01 * KM_PER_DEGREE, 6);
-    // Cross-track distance from a meridian (a great circle): R·asin(sin Δλ · cos φ) on turf's sphere.
-    const rad = Math.PI / 180;
-    expect(d.snapDistanceM).toBeCloseTo(6371008.8 * Math.asin(Math.sin(0.0001 * rad) * Math.cos(0.01 * rad)), 6);
+    // 0.01° of meridian south from the equator, by GeographicLib's inverse.
+    expect(d.chainageKm).toBeCloseTo(geodesicKm([[0, 0], [0, -0.01]]), 6);
+    // A meridian is a geodesic, and the foot of the perpendicular from a point 11 m east of it
+    // lies on its parallel to within 1e-9° here; GeographicLib gives that distance.
+    expect(d.snapDistanceM).toBeCloseTo(geodesicKm([[0.0001, -0.01], [0, -0.01]]) * 1000, 6);
   });
 
   it("measures chainage along a reach that was turned round, from its new head", () => {
@@ -30,7 +31,7 @@ describe("dischargers in the validation report", () => {
       dischargerMapping,
     });
     expect(r.network.dischargers[0].reachId).toBe("C2");
-    expect(r.network.dischargers[0].chainageKm).toBeCloseTo(0.0025 * KM_PER_DEGREE, 6);
+    expect(r.network.dischargers[0].chainageKm).toBeCloseTo(geodesicKm([[0, -0.01], [0, -0.0125]]), 6);
   });
 
   it("reports rows with bad coordinates by permit id", () => {
