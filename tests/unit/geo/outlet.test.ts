@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { buildTopology, validateImport } from "@/geo";
 import { WEAK_TURNED_SHARE } from "@/geo/outlet";
 import { outletSentence } from "@/lib/format/outlet";
-import { geodesicKm, lines } from "./helpers";
+import { lines } from "./helpers";
 
 /**
  * The outlet rule: the free end that turns round the least length of line. Every case is an
