@@ -97,8 +97,8 @@ export function ImportWizard({ basinId }: { basinId: string }) {
     if (!d) return;
     setFailure(null);
     try {
-      await commit.mutateAsync({ draft: d, note, acceptReport: true });
-      router.push(`/basins/${basinId}/network`);
+      const saved = await commit.mutateAsync({ draft: d, note, acceptReport: true });
+      router.push(`/basins/${basinId}/network?saved=${saved.version}`);
       router.refresh();
     } catch (e) {
       fail(e);

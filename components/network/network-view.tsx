@@ -15,11 +15,14 @@ export function NetworkView({
   basinSlug,
   unitSystem,
   canImport,
+  savedVersion,
 }: {
   basinId: string;
   basinSlug: string;
   unitSystem: UnitSystem;
   canImport: boolean;
+  /** The version the import wizard has just saved, confirmed at the top. */
+  savedVersion?: number;
 }) {
   const versions = useNetworksQuery(basinId);
   const [networkId, setNetworkId] = useState("latest");
@@ -56,8 +59,17 @@ export function NetworkView({
   }
   const n = network.data;
   const stem = `${basinSlug}-network-v${n?.version ?? ""}`;
+  const saved = savedVersion === undefined ? undefined : versions.data.find((v) => v.version === savedVersion);
   return (
     <div className="space-y-6">
+      {saved && (
+        <Notice tone="success" title={`Network version ${saved.version} is saved`}>
+          <span data-testid="network-saved">
+            {saved.reachCount} reaches and {saved.outfallCount} outfalls, {saved.totalLengthKm.toFixed(2)} km in all. New scenarios and runs use
+            it; runs and plans made before keep the version they used.
+          </span>
+        </Notice>
+      )}
       <div className="flex flex-wrap items-end gap-4">
         <div>
           <label htmlFor="network-version" className="field-label">

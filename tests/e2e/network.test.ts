@@ -80,8 +80,9 @@ describe("the basin network", () => {
     await page.getByLabel(/I have read the report/).check();
     await page.getByLabel("Note for this version (optional)").fill("Re-imported in the browser test");
     await save.click();
-    await page.waitForURL(`${basinUrl}/network`);
+    await page.waitForURL(`${basinUrl}/network?saved=2`);
     await page.getByTestId("network-summary").getByText("v2").waitFor();
+    expect(await page.getByTestId("network-saved").textContent()).toMatch(/^17 reaches and 5 outfalls, \d+\.\d\d km in all\./);
     await page.locator('[data-testid="basin-map"][data-ready="true"]').waitFor();
     await page.waitForTimeout(500);
     expect(await pixelsNear(MAP_COLOURS.reach)).toBeGreaterThan(800);

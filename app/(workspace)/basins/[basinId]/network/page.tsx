@@ -5,8 +5,16 @@ import { basinPageAccess } from "@/lib/auth/page-access";
 
 export const metadata: Metadata = { title: "Network" };
 
-export default async function NetworkPage({ params }: { params: Promise<{ basinId: string }> }) {
+export default async function NetworkPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ basinId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { basinId } = await params;
+  // ?saved=<version>: the import wizard has just saved that version
+  const saved = Number((await searchParams).saved);
   const access = await basinPageAccess(basinId, "scenario.read");
   if (!access.ok) return <Denied message={access.message} />;
   return (
@@ -15,6 +23,7 @@ export default async function NetworkPage({ params }: { params: Promise<{ basinI
       basinSlug={access.basin.slug}
       unitSystem={access.basin.unitSystem}
       canImport={await access.can("network.import")}
+      savedVersion={Number.isInteger(saved) && saved > 0 ? saved : undefined}
     />
   );
 }
