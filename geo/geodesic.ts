@@ -8,10 +8,11 @@ import type { LngLat } from "./types";
  * nanometre but costs a few microseconds a call; an import may hold 500 000 vertices, and the
  * same lines are measured more than once. A segment short in angle is therefore measured in
  * the plane of its mid-latitude, scaled by the meridional radius of curvature M and the
- * prime-vertical radius N·cos φ there. Its error is led by the convergence of the meridians,
- * about (Δλ·sin φ)²/24 of the length (the same term that makes a parallel longer than the
- * geodesic between its ends); segments whose estimate exceeds SHORT_ERROR, or that span more
- * than 0.01 rad (≈ 64 km), go to the library instead. Measured against the library in
+ * prime-vertical radius N·cos φ there. Its error is led by the convergence of the meridians:
+ * (Δλ·sin φ)²/24 of the length for a segment along a parallel (the amount by which a parallel
+ * is longer than the geodesic between its ends), up to about (Δλ·sin φ)²/8 for oblique ones
+ * (measured against the library); segments whose bound exceeds SHORT_ERROR, or that span more
+ * than 0.0025 rad (≈ 15 km), go to the library instead. Measured against the library in
  * tests/unit/geo/geodesic.test.ts: every segment within 1e-7 of its geodesic length.
  */
 const geodesic = geographiclib.Geodesic.WGS84;
@@ -25,10 +26,10 @@ export const WGS84_E2 = WGS84_F * (2 - WGS84_F);
 const RAD = Math.PI / 180;
 /** Largest relative error accepted from the mid-latitude formula for one segment. */
 const SHORT_ERROR = 1e-7;
-/** (Δλ·sin φ)² bound that keeps (Δλ·sin φ)²/24 under SHORT_ERROR. */
-const SHORT_CONVERGENCE = 24 * SHORT_ERROR;
+/** (Δλ·sin φ)² bound that keeps the worst case, about (Δλ·sin φ)²/8 (measured), under SHORT_ERROR. */
+const SHORT_CONVERGENCE = 6 * SHORT_ERROR;
 /** Angular span (rad²) beyond which the ellipsoid's curvature terms are no longer negligible. */
-const SHORT_SPAN = 1e-4;
+const SHORT_SPAN = 6e-6;
 
 /** Longitude difference b − a in degrees, folded into [−180, 180] (a segment never goes the long way). */
 function deltaLon(a: number, b: number): number {
@@ -93,13 +94,17 @@ export interface SegmentFoot {
 }
 
 /**
- * The nearest position to `p` on the segment a→b, with its distance and its distance from a.
- * When the segment and the point are all short in the sense above, the foot is found in the
- * mid-latitude plane of the segment (where that plane is isotropic to within SHORT_ERROR), so
- * it is the ellipsoid's foot; otherwise the segment is taken as the geodesic from a to b and the
- * foot is found along it by golden-section search on the library's distances (the distance
- * from a point to a geodesic has a single minimum along it unless the point is a large part
- * of the Earth away, far beyond any snap distance an import accepts).
+ * The nearest position to `p` on the segment a→b, taken (as its length is) as the geodesic
+ * between them, with its distance and its distance from a.
+ *
+ * When the segment and the point are short in the sense above, the foot is first found in the
+ * mid-latitude plane of the segment, on the chord (straight in longitude and latitude). The
+ * geodesic bows off that chord by about L·(Δλ·sin φ)/8 at its middle (L the segment length);
+ * when that bow is under 1/2000 of the snap distance (or half a millimetre), the chord's foot
+ * is kept, so the snap distance is within 0.05 % of the distance to the geodesic. Otherwise, and
+ * for long segments or distant points, the foot is found on the geodesic itself with
+ * GeographicLib (a few Newton steps along the line, each moving by the point's offset along
+ * the line's azimuth), and measured by its inverse.
  */
 export function nearestOnSegment(p: LngLat, a: LngLat, b: LngLat): SegmentFoot {
   const { m, n, sin } = radii((a[1] + b[1]) / 2);
@@ -111,36 +116,30 @@ export function nearestOnSegment(p: LngLat, a: LngLat, b: LngLat): SegmentFoot {
     const t = len2 > 0 ? Math.max(0, Math.min(1, (vx * ux + vy * uy) / len2)) : 0;
     const lon = a[0] + (t * bx) / RAD;
     const position: LngLat = [lon > 180 ? lon - 360 : lon < -180 ? lon + 360 : lon, a[1] + (t * by) / RAD];
-    return { position, distanceM: segmentMetres(p, position), alongM: t * Math.sqrt(len2) };
+    const distanceM = segmentMetres(p, position);
+    const bow = (Math.sqrt(len2) * Math.abs(bx * sin)) / 8;
+    // Measured, not t·length: N·cos φ changes along a segment, so arc length is not linear in t.
+    if (bow <= 5e-4 * distanceM + 5e-4) return { position, distanceM, alongM: segmentMetres(a, position) };
   }
   return nearestOnGeodesic(p, a, b);
 }
 
 function nearestOnGeodesic(p: LngLat, a: LngLat, b: LngLat): SegmentFoot {
-  const line = geodesic.InverseLine(a[1], a[0], b[1], b[0], geographiclib.Geodesic.STANDARD | geographiclib.Geodesic.DISTANCE_IN);
+  const g = geographiclib.Geodesic;
+  const line = geodesic.InverseLine(a[1], a[0], b[1], b[0], g.STANDARD | g.DISTANCE_IN);
   const total = line.s13 as number;
-  const at = (s: number): LngLat => {
-    const q = line.Position(s, geographiclib.Geodesic.LATITUDE | geographiclib.Geodesic.LONGITUDE);
-    return [q.lon2 as number, q.lat2 as number];
-  };
-  const dist = (s: number) => geodesicMetres(p, at(s));
-  const g = (Math.sqrt(5) - 1) / 2;
-  let [lo, hi] = [0, total];
-  let [x1, x2] = [hi - g * (hi - lo), lo + g * (hi - lo)];
-  let [f1, f2] = [dist(x1), dist(x2)];
-  // 80 steps shrink the bracket by 0.618⁸⁰ ≈ 2e-17: below a millimetre on any segment.
-  for (let k = 0; k < 80 && hi - lo > 1e-4; k++) {
-    if (f1 <= f2) {
-      [hi, x2, f2] = [x2, x1, f1];
-      x1 = hi - g * (hi - lo);
-      f1 = dist(x1);
-    } else {
-      [lo, x1, f1] = [x1, x2, f2];
-      x2 = lo + g * (hi - lo);
-      f2 = dist(x2);
-    }
+  // Newton-like steps along the geodesic: from the current foot, the geodesic to p leaves at
+  // some angle to the line; move by its length times the cosine of that angle. At the true
+  // foot the angle is 90° (the nearest point), and the step is zero.
+  let next = 0;
+  let foot: SegmentFoot = { position: a, distanceM: Infinity, alongM: 0 };
+  for (let k = 0; k < 20 && (k === 0 || Math.abs(next - foot.alongM) >= 1e-4); k++) {
+    const s = next;
+    const q = line.Position(s, g.LATITUDE | g.LONGITUDE | g.AZIMUTH);
+    const position: LngLat = s === 0 ? a : s === total ? b : [q.lon2 as number, q.lat2 as number];
+    const toP = geodesic.Inverse(position[1], position[0], p[1], p[0], g.DISTANCE | g.AZIMUTH);
+    foot = { position, distanceM: toP.s12 as number, alongM: s };
+    next = Math.max(0, Math.min(total, s + foot.distanceM * Math.cos(((toP.azi1 as number) - (q.azi2 as number)) * RAD)));
   }
-  const candidates = [0, (lo + hi) / 2, total].map((s) => ({ s, d: dist(s) }));
-  const best = candidates.reduce((x, y) => (y.d < x.d ? y : x));
-  return { position: best.s === 0 ? a : best.s === total ? b : at(best.s), distanceM: best.d, alongM: best.s };
+  return foot;
 }
