@@ -1,6 +1,7 @@
-import proj4 from "proj4";
 import { GeoError } from "./errors";
-import type { CrsInfo, LngLat } from "./types";
+import { datumConverter, wktDatumName } from "./crs-datum";
+import { registryEntry } from "./crs-registry";
+import type { CrsInfo, DatumShift, LngLat, ReadWarning } from "./types";
 
 /** Turns source coordinates (x, y in the layer's CRS) into WGS84 longitude/latitude. */
 export interface Reprojector {
@@ -13,77 +14,39 @@ interface EpsgEntry {
   proj4: string;
 }
 
-const FIXED_EPSG: Record<number, EpsgEntry> = {
-  4326: { name: "WGS 84", proj4: "+proj=longlat +datum=WGS84 +no_defs" },
-  4269: { name: "NAD83", proj4: "+proj=longlat +datum=NAD83 +no_defs" },
-  4258: { name: "ETRS89", proj4: "+proj=longlat +ellps=GRS80 +towgs84=0,0,0,0,0,0,0 +no_defs" },
-  3857: {
-    name: "WGS 84 / Pseudo-Mercator",
-    proj4:
-      "+proj=merc +a=6378137 +b=6378137 +lat_ts=0 +lon_0=0 +x_0=0 +y_0=0 +k=1 +units=m +nadgrids=@null +no_defs",
-  },
-};
-
 /**
- * The proj4 definition of an EPSG code Sagline knows: 4326, 4269, 4258, 3857, WGS 84 / UTM
- * (32601–32660 north, 32701–32760 south), NAD83 / UTM (26901–26923) and ETRS89 / UTM
- * (25828–25838). Returns undefined for any other code.
+ * The name and proj4 definition of an EPSG code from the EPSG registry (geo/crs-registry.ts),
+ * or undefined for a code it lacks or one that is not a 2D horizontal CRS.
  */
 export function epsgDefinition(code: number): EpsgEntry | undefined {
-  if (!Number.isInteger(code)) return undefined;
-  const fixed = FIXED_EPSG[code];
-  if (fixed) return fixed;
-  const zone = code % 100;
-  const base = code - zone;
-  if ((base === 32600 || base === 32700) && zone >= 1 && zone <= 60) {
-    const south = base === 32700;
-    return {
-      name: `WGS 84 / UTM zone ${zone}${south ? "S" : "N"}`,
-      proj4: `+proj=utm +zone=${zone}${south ? " +south" : ""} +datum=WGS84 +units=m +no_defs`,
-    };
-  }
-  if (base === 26900 && zone >= 1 && zone <= 23) {
-    return { name: `NAD83 / UTM zone ${zone}N`, proj4: `+proj=utm +zone=${zone} +datum=NAD83 +units=m +no_defs` };
-  }
-  if (base === 25800 && zone >= 28 && zone <= 38) {
-    return {
-      name: `ETRS89 / UTM zone ${zone}N`,
-      proj4: `+proj=utm +zone=${zone} +ellps=GRS80 +towgs84=0,0,0,0,0,0,0 +units=m +no_defs`,
-    };
-  }
-  return undefined;
+  const entry = registryEntry(code);
+  return entry && { name: entry.name, proj4: entry.proj4 };
 }
 
 const identity: Reprojector["toWgs84"] = (x, y) => [x, y];
 
-function converter(definition: string): Reprojector["toWgs84"] {
-  const c = proj4(definition, "WGS84");
-  // proj4 throws for some points outside a projection's domain; NaN lets the validator name them.
-  return (x, y) => {
-    try {
-      const [lon, lat] = c.forward([x, y]);
-      return [lon, lat];
-    } catch {
-      return [Number.NaN, Number.NaN];
-    }
-  };
-}
+const isWgs84Datum = (shift: DatumShift) => shift.method === "none" && /^(D_)?(WGS.?1984|WGS.?84|World Geodetic System 1984)$/i.test(shift.datum);
 
-/** A reprojector for an EPSG code; throws `epsg_unknown` for a code not in `epsgDefinition`. */
+/** CrsInfo with the datum shift, left out when the datum is WGS 84 itself. */
+const crsInfo = (base: CrsInfo, shift: DatumShift): CrsInfo => (isWgs84Datum(shift) ? base : { ...base, datumShift: shift });
+
+/**
+ * A reprojector for an EPSG code of the registry; throws `epsg_unknown` naming a code it lacks,
+ * and `datum_unsupported` naming a datum Sagline cannot shift to WGS 84.
+ */
 export function crsFromEpsg(code: number, source: CrsInfo["source"] = "override"): Reprojector {
-  const entry = epsgDefinition(code);
+  const entry = registryEntry(code);
   if (!entry) {
     throw new GeoError(
       "epsg_unknown",
-      `EPSG:${code} is not a coordinate system Sagline knows; use WGS 84 (4326), NAD83 (4269), ` +
-        `Web Mercator (3857) or a UTM zone (326xx, 327xx, 269xx, 258xx), or export the file in one of them`,
+      `EPSG:${code} is not a coordinate system of the EPSG registry (or not a horizontal one); check the code, ` +
+        `or export the file in WGS 84 (EPSG:4326)`,
       { epsg: code },
     );
   }
-  return {
-    crs: { source, epsg: code, name: entry.name },
-    toWgs84: code === 4326 ? identity : converter(entry.proj4),
-  };
+  if (code === 4326) return { crs: { source, epsg: code, name: entry.name }, toWgs84: identity };
+  const { toWgs84, shift } = datumConverter(entry.proj4, wktDatumName(entry.wkt ?? "") || entry.name, entry.accuracy);
+  return { crs: crsInfo({ source, epsg: code, name: entry.name }, shift), toWgs84 };
 }
 
 /** The EPSG code of the outermost AUTHORITY of a WKT (the last one at nesting depth 1). */
@@ -106,20 +69,21 @@ function esriUtmEpsg(wkt: string): number | undefined {
   if (!m) return undefined;
   const zone = Number(m[2]);
   const code = m[1].toUpperCase() === "WGS_1984" ? (m[3].toUpperCase() === "N" ? 32600 : 32700) + zone : m[3].toUpperCase() === "N" ? 26900 + zone : undefined;
-  return code !== undefined && epsgDefinition(code) ? code : undefined;
+  return code !== undefined && registryEntry(code) ? code : undefined;
 }
 
 const wktName = (wkt: string): string => /^\s*\w+\s*\[\s*"([^"]*)"/.exec(wkt)?.[1] ?? "unnamed CRS";
 
 /**
  * A reprojector for the WKT text of a .prj file (ESRI or OGC WKT 1, or WKT 2), parsed by proj4.
- * An EPSG authority code Sagline knows takes precedence over the parameters.
- * Throws `prj_unknown`, asking for the EPSG code, when proj4 cannot use the text.
+ * An EPSG authority code of the registry takes precedence over the parameters.
+ * Throws `prj_unknown`, asking for the EPSG code, when proj4 cannot use the text, and
+ * `datum_unsupported` naming a datum Sagline cannot shift to WGS 84.
  */
 export function crsFromPrj(prjText: string): Reprojector {
   const text = prjText.replace(/^\uFEFF/, "").trim();
   const epsg = wktEpsg(text) ?? esriUtmEpsg(text);
-  if (epsg !== undefined && epsgDefinition(epsg)) return crsFromEpsg(epsg, "prj");
+  if (epsg !== undefined && registryEntry(epsg)) return crsFromEpsg(epsg, "prj");
   const unknown = () =>
     new GeoError(
       "prj_unknown",
@@ -128,13 +92,30 @@ export function crsFromPrj(prjText: string): Reprojector {
       { prj: text.slice(0, 2000) },
     );
   if (!/^(PROJCS|GEOGCS|PROJCRS|GEOGCRS|GEODCRS|BOUNDCRS|COMPD_CS)\s*\[/i.test(text)) throw unknown();
-  let toWgs84: Reprojector["toWgs84"];
+  let converted: ReturnType<typeof datumConverter>;
   try {
-    toWgs84 = converter(text);
-    const probe = toWgs84(0, 0);
+    converted = datumConverter(text, wktDatumName(text) || wktName(text), null);
+    const probe = converted.toWgs84(0, 0);
     if (probe.length < 2) throw unknown();
-  } catch {
+  } catch (e) {
+    if (e instanceof GeoError && e.code === "datum_unsupported") throw e;
     throw unknown();
   }
-  return { crs: { source: "prj", epsg, name: wktName(text) }, toWgs84 };
+  return { crs: crsInfo({ source: "prj", epsg, name: wktName(text) }, converted.shift), toWgs84: converted.toWgs84 };
+}
+
+/**
+ * A warning for the report when the datum shift is a published transformation with a stated
+ * accuracy coarser than 2 m (NAD27 without its grid, ED50, …), naming the operation used.
+ */
+export function datumWarnings(crs: CrsInfo): ReadWarning[] {
+  const s = crs.datumShift;
+  if (!s || s.method !== "helmert" || (s.accuracyM !== undefined && s.accuracyM <= 2)) return [];
+  const accuracy = s.accuracyM !== undefined ? `, stated accuracy ${s.accuracyM} m` : ", accuracy not stated";
+  return [
+    {
+      code: "datum_shift_approximate",
+      message: `The coordinates are on ${s.datum} (${crs.name}); they were shifted to WGS 84 by ${s.operation}${accuracy}. Positions may be off by that much`,
+    },
+  ];
 }

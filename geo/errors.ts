@@ -12,6 +12,7 @@ export type GeoErrorCode =
   | "prj_missing"
   | "prj_unknown"
   | "epsg_unknown"
+  | "datum_unsupported"
   | "geojson_invalid"
   | "csv_invalid"
   | "csv_missing_column"

@@ -1,5 +1,5 @@
 import Papa from "papaparse";
-import { crsFromEpsg, type Reprojector } from "./crs";
+import { crsFromEpsg, datumWarnings, type Reprojector } from "./crs";
 import { GeoError } from "./errors";
 import { detectFields, valueNumber } from "./fields";
 import type { FieldInfo, SourceFeature, SourceLayer } from "./types";
@@ -78,5 +78,6 @@ export function readPointCsv(text: string, coordinates: CsvCoordinates): SourceL
     crs: reprojector?.crs ?? { source: "csv-latlon", epsg: 4326, name: "WGS 84" },
     features,
     fields: detectFields(features),
+    ...(reprojector && datumWarnings(reprojector.crs).length > 0 ? { readWarnings: datumWarnings(reprojector.crs) } : {}),
   };
 }

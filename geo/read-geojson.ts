@@ -1,5 +1,5 @@
 import type { Feature, Geometry } from "geojson";
-import { crsFromEpsg, type Reprojector } from "./crs";
+import { crsFromEpsg, datumWarnings, type Reprojector } from "./crs";
 import { GeoError } from "./errors";
 import { detectFields } from "./fields";
 import { reprojectGeometry } from "./reproject";
@@ -40,17 +40,21 @@ function geometryProblem(g: unknown): string | undefined {
   return coordinatesOk(g.coordinates, depth) ? undefined : `${g.type} coordinates are malformed`;
 }
 
-/** Legacy (2008) `crs` member: WGS84 names are accepted, an EPSG code is reprojected. */
+/**
+ * Legacy (2008) `crs` member: WGS84 names are accepted; an EPSG code in any of its written forms
+ * ("EPSG:2248", "urn:ogc:def:crs:EPSG::26733", "urn:ogc:def:crs:EPSG:6.6:4267") or an ESRI code
+ * ("ESRI:102003", which the registry package also holds) is reprojected.
+ */
 function legacyCrs(root: Record<string, unknown>): Reprojector | undefined {
   const crs = root.crs;
   if (!isObject(crs) || !isObject(crs.properties)) return undefined;
-  const name = String(crs.properties.name ?? "");
-  if (/CRS84$|EPSG:+4326$/i.test(name)) return undefined;
-  const m = /EPSG:+(\d+)$/i.exec(name);
+  const name = String(crs.properties.name ?? "").trim();
+  if (/CRS84$|EPSG:[\d.]*:?4326$/i.test(name)) return undefined;
+  const m = /(?:^|:)(EPSG|ESRI):(?:[\d.]*:)?:?(\d+)$/i.exec(name);
   if (!m) {
     throw new GeoError("epsg_unknown", `The GeoJSON names its coordinate system as "${name}"; give its EPSG code`);
   }
-  return crsFromEpsg(Number(m[1]), "geojson-crs");
+  return crsFromEpsg(Number(m[2]), "geojson-crs");
 }
 
 function toFeatures(root: Record<string, unknown>): Array<Pick<Feature, "geometry" | "properties" | "id">> {
@@ -100,5 +104,6 @@ export function readGeoJson(text: string, options: GeoJsonOptions = {}): SourceL
     crs: reprojector?.crs ?? { source: "geojson-default", epsg: 4326, name: "WGS 84" },
     features,
     fields: detectFields(features),
+    ...(reprojector && datumWarnings(reprojector.crs).length > 0 ? { readWarnings: datumWarnings(reprojector.crs) } : {}),
   };
 }

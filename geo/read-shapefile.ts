@@ -1,10 +1,11 @@
 import { iter } from "but-unzip";
-import { parseDbf, parseShp } from "shpjs";
-import { crsFromEpsg, crsFromPrj, type Reprojector } from "./crs";
+import { parseShp } from "shpjs";
+import { crsFromEpsg, crsFromPrj, datumWarnings, type Reprojector } from "./crs";
+import { dbfEncoding, decodeDbf } from "./dbf-encoding";
 import { GeoError, wrapUnknown } from "./errors";
 import { detectFields } from "./fields";
 import { reprojectGeometry } from "./reproject";
-import type { SourceFeature, SourceLayer } from "./types";
+import type { ReadWarning, SourceFeature, SourceLayer } from "./types";
 
 export interface ShapefileOptions {
   /** EPSG code of the coordinates; overrides the .prj (and replaces a missing one). */
@@ -164,7 +165,9 @@ function resolveCrs(base: string, prj: Uint8Array | undefined, epsg: number | un
 /**
  * Reads a zipped ESRI shapefile (.shp + .dbf, with .prj; .cpg optional) into WGS84 features.
  * Throws `GeoError`: not_a_zip, zip_corrupt, zip_too_large, shp_missing, dbf_missing, multiple_layers,
- * prj_missing, prj_unknown, epsg_unknown, shapefile_corrupt.
+ * prj_missing, prj_unknown, epsg_unknown, datum_unsupported, shapefile_corrupt. Text is decoded as the
+ * .cpg says, else as the .dbf's language-driver byte says, else as UTF-8; `readWarnings` says
+ * when text was not valid in that encoding and how accurate the datum shift is.
  */
 export async function readShapefileZip(bytes: Bytes, options: ShapefileOptions = {}): Promise<SourceLayer> {
   const u8 = toUint8(bytes);
@@ -182,14 +185,16 @@ export async function readShapefileZip(bytes: Bytes, options: ShapefileOptions =
   const reprojector = resolveCrs(base, parts.prj, options.epsg);
 
   let geometries: ReturnType<typeof parseShp>;
-  let records: ReturnType<typeof parseDbf>;
+  let records: Array<Record<string, unknown>>;
+  const readWarnings: ReadWarning[] = [];
   try {
     geometries = parseShp(view(shp));
   } catch (e) {
     throw wrapUnknown(e, "shapefile_corrupt", `${base}.shp is damaged and cannot be read`);
   }
   try {
-    records = parseDbf(view(parts.dbf), parts.cpg ? new TextDecoder().decode(parts.cpg).trim() : undefined);
+    // The .cpg, else the .dbf's language-driver byte, else UTF-8 (geo/dbf-encoding.ts).
+    records = decodeDbf(view(parts.dbf), dbfEncoding(parts.dbf, parts.cpg, readWarnings, base), base, readWarnings);
   } catch (e) {
     throw wrapUnknown(e, "shapefile_corrupt", `${base}.dbf is damaged and cannot be read`);
   }
@@ -205,5 +210,14 @@ export async function readShapefileZip(bytes: Bytes, options: ShapefileOptions =
     geometry: g ? reprojectGeometry(g, reprojector) : null,
     properties: records[i] ?? {},
   }));
-  return { format: "shapefile", name: base.split("/").pop() ?? base, crs: reprojector.crs, features, fields: detectFields(features) };
+  // After the reprojection, which records the datum transformations it used.
+  readWarnings.unshift(...datumWarnings(reprojector.crs));
+  return {
+    format: "shapefile",
+    name: base.split("/").pop() ?? base,
+    crs: reprojector.crs,
+    features,
+    fields: detectFields(features),
+    ...(readWarnings.length > 0 ? { readWarnings } : {}),
+  };
 }

@@ -22,6 +22,23 @@ export interface CrsInfo {
   epsg?: number;
   /** Human-readable name of the source CRS. */
   name: string;
+  /** How its datum is brought to WGS 84 (geo/crs-datum.ts); absent for WGS 84 itself. */
+  datumShift?: DatumShift;
+}
+
+/** A datum shift to WGS 84 and the accuracy EPSG states for it, for the report to show. */
+export interface DatumShift {
+  datum: string;
+  method: "none" | "helmert" | "grid";
+  /** The EPSG transformation(s) or parameters used. */
+  operation: string;
+  accuracyM?: number;
+}
+
+/** Something a reader had to assume or could not read cleanly, for the report to show. */
+export interface ReadWarning {
+  code: "datum_shift_approximate" | "text_encoding_invalid";
+  message: string;
 }
 
 /** A source field with a few sample values, for the field-mapping screen. */
@@ -43,4 +60,6 @@ export interface SourceLayer {
   crs: CrsInfo;
   features: SourceFeature[];
   fields: FieldInfo[];
+  /** Warnings from reading the file (datum shift accuracy, text encoding). */
+  readWarnings?: ReadWarning[];
 }

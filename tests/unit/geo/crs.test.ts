@@ -3,14 +3,20 @@ import { crsFromEpsg, crsFromPrj, epsgDefinition, GeoError } from "@/geo";
 import { utmNorthPrj, WGS84_PRJ } from "@/scripts/lib/shapefile-writer";
 
 describe("EPSG definitions", () => {
-  it("knows the common codes and builds UTM zones by formula", () => {
+  it("takes every code from the EPSG registry, with its proj4 definition", () => {
     expect(epsgDefinition(4326)?.name).toBe("WGS 84");
-    expect(epsgDefinition(32633)?.proj4).toBe("+proj=utm +zone=33 +datum=WGS84 +units=m +no_defs");
+    expect(epsgDefinition(32633)?.proj4).toContain("+proj=utm +zone=33 +datum=WGS84 +units=m");
     expect(epsgDefinition(32733)?.proj4).toContain("+south");
-    expect(epsgDefinition(26915)?.proj4).toContain("+datum=NAD83");
-    expect(epsgDefinition(32661)).toBeUndefined();
-    expect(epsgDefinition(26924)).toBeUndefined();
-    expect(epsgDefinition(2154)).toBeUndefined();
+    expect(epsgDefinition(26915)?.name).toBe("NAD83 / UTM zone 15N");
+    expect(epsgDefinition(26915)?.proj4).toContain("+ellps=GRS80");
+    expect(epsgDefinition(2154)?.name).toBe("RGF93 v1 / Lambert-93");
+    expect(epsgDefinition(2248)?.name).toBe("NAD83 / Maryland (ftUS)");
+    expect(epsgDefinition(26733)?.name).toBe("NAD27 / Alaska zone 3");
+    expect(epsgDefinition(32001)?.name).toBe("NAD27 / Montana North");
+    // Not horizontal CRSs: EPSG:5703 is a height system (NAVD88), EPSG:9999 does not exist.
+    expect(epsgDefinition(5703)).toBeUndefined();
+    expect(epsgDefinition(9999)).toBeUndefined();
+    expect(epsgDefinition(1.5)).toBeUndefined();
   });
 
   it("rejects an unknown code with a typed error", () => {
@@ -41,20 +47,20 @@ describe("reprojection to WGS84", () => {
     expect(lat).toBeCloseTo(85.0511287798, 8);
   });
 
-  it("reads an ESRI .prj and matches Snyder's transverse Mercator example (from memory)", () => {
-    // Snyder, Map Projections — A Working Manual (USGS PP 1395), UTM example on the Clarke 1866
-    // ellipsoid: φ = 40°30′N, λ = 73°30′W, central meridian 75°W, k0 = 0.9996 gives
-    // x = 127 106.5 m, y = 4 484 124.4 m. Values from memory; published to 0.1 m, so 1e-5° tolerance.
+  it("refuses a .prj on a datum with no published shift, naming the datum, instead of reading it as WGS 84", () => {
+    // Clarke 1866 with a datum name EPSG does not know: proj4js alone would leave it unshifted.
     const prj =
       'PROJCS["Snyder_UTM_18N_Clarke",GEOGCS["GCS_Clarke_1866_test",DATUM["D_Clarke_1866_test",' +
       'SPHEROID["Clarke_1866",6378206.4,294.9786982]],PRIMEM["Greenwich",0.0],UNIT["Degree",0.0174532925199433]],' +
       'PROJECTION["Transverse_Mercator"],PARAMETER["False_Easting",500000.0],PARAMETER["False_Northing",0.0],' +
       'PARAMETER["Central_Meridian",-75.0],PARAMETER["Scale_Factor",0.9996],PARAMETER["Latitude_Of_Origin",0.0],UNIT["Meter",1.0]]';
-    const r = crsFromPrj(prj);
-    expect(r.crs).toMatchObject({ source: "prj", name: "Snyder_UTM_18N_Clarke" });
-    const [lon, lat] = r.toWgs84(500000 + 127106.5, 4484124.4);
-    expect(Math.abs(lon - -73.5)).toBeLessThan(1e-5);
-    expect(Math.abs(lat - 40.5)).toBeLessThan(1e-5);
+    expect(() => crsFromPrj(prj)).toThrow(expect.objectContaining({ code: "datum_unsupported", details: { datum: "D_Clarke_1866_test" } }));
+    expect(() => crsFromPrj(prj)).toThrow(/D_Clarke_1866_test/);
+  });
+
+  it("refuses a registry code whose datum has neither parameters nor a grid (EPSG:27572, NTF (Paris))", () => {
+    // The registry's proj4 for 27572 is "+proj=lcc … +ellps=clrk80ign +pm=paris" with no +towgs84.
+    expect(() => crsFromEpsg(27572)).toThrow(expect.objectContaining({ code: "datum_unsupported" }));
   });
 
   it("recognises ESRI UTM names as EPSG codes", () => {
@@ -78,7 +84,9 @@ describe("reprojection to WGS84", () => {
       'PRIMEM["Greenwich",0],UNIT["degree",0.0174532925199433]],PROJECTION["Transverse_Mercator"],PARAMETER["latitude_of_origin",0],' +
       'PARAMETER["central_meridian",-93],PARAMETER["scale_factor",0.9996],PARAMETER["false_easting",500000],' +
       'PARAMETER["false_northing",0],UNIT["metre",1],AUTHORITY["EPSG","26915"]]';
-    expect(crsFromPrj(wkt).crs).toEqual({ source: "prj", epsg: 26915, name: "NAD83 / UTM zone 15N" });
+    expect(crsFromPrj(wkt).crs).toMatchObject({ source: "prj", epsg: 26915, name: "NAD83 / UTM zone 15N" });
+    // NAD83 is taken as WGS 84 (EPSG's null transformation, stated accuracy 4 m).
+    expect(crsFromPrj(wkt).crs.datumShift).toMatchObject({ method: "none", accuracyM: 4 });
   });
 
   it("passes WGS84 geographic coordinates through unchanged", () => {
