@@ -68,9 +68,17 @@ export function dbfEncoding(dbf: Uint8Array, cpg: Uint8Array | undefined, warnin
   return { encoding: "utf-8", source: "default" };
 }
 
-/** Byte ↔ character of WHATWG windows-1252, where every byte has its own character (0x81 → U+0081). */
-const CP1252_CHARS = new TextDecoder("windows-1252").decode(Uint8Array.from({ length: 256 }, (_, i) => i));
-const CP1252_BYTES = new Map([...CP1252_CHARS].map((c, i) => [c, i]));
+/**
+ * Character → byte of windows-1252 as TextDecoder gives it, where every byte has its own
+ * character (0x81 → U+0081). Node 20 decodes 0x80–0x9F as ISO-8859-1 (U+0080–U+009F) when not
+ * streaming and as windows-1252 (0x82 → U+201A) when streaming, as shpjs does; both are mapped.
+ */
+const CP1252_BYTES = new Map<string, number>();
+for (let b = 0; b < 256; b++) {
+  const streaming = new TextDecoder("windows-1252");
+  CP1252_BYTES.set(streaming.decode(Uint8Array.of(b), { stream: true }) + streaming.decode(), b);
+  CP1252_BYTES.set(new TextDecoder("windows-1252").decode(Uint8Array.of(b)), b);
+}
 const bytesOf1252 = (s: string) => Uint8Array.from(s, (c) => CP1252_BYTES.get(c) ?? 0x3f);
 
 /** Text that did not decode: U+FFFD, or control characters that no attribute holds. */
