@@ -6,6 +6,7 @@
  *   4. GIS import of a synthetic 10k-reach zipped shapefile with 1k dischargers
  *      (parse + reprojection + topology + snapping); target ≤ 3 s.
  *   5. Self-crossing check of 2k/16k/100k-vertex lines against turf kinks().
+ *   6. Lengths on the WGS84 ellipsoid against turf's sphere and GeographicLib, per million segments.
  * Targets (issue 3): 10k-reach run ≤ 20 ms; ≥ 100× faster than the ODE integrator;
  * 500-discharger allocation ≤ 2 s and no slower than HiGHS on the full LP.
  * Options: `npm run bench -- --quick` skips the 10k ODE comparison and the 500-discharger case.
@@ -15,6 +16,7 @@ import { odeBench } from "./ode-bench";
 import { allocationBench } from "./allocation-bench";
 import { geoImportBench } from "./geo-import";
 import { selfCrossingsBench } from "./self-crossings-bench";
+import { geodesicBench } from "./geodesic-bench";
 
 const quick = process.argv.includes("--quick");
 
@@ -27,6 +29,7 @@ async function main() {
   for (const dischargers of quick ? [50, 200] : [50, 200, 500]) await allocationBench(10_000, dischargers);
   await geoImportBench(10_000, 1000);
   selfCrossingsBench();
+  geodesicBench();
 }
 
 main().catch((e: unknown) => {
