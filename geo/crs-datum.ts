@@ -1,4 +1,5 @@
 import proj4 from "proj4";
+import { loadDatumGrids } from "./crs-grids";
 import { GeoError } from "./errors";
 import type { DatumShift, LngLat } from "./types";
 
@@ -100,6 +101,7 @@ function nad27(def: string | object, datum: string): { toWgs84: PointConverter; 
  * `registryAccuracyM` is the accuracy EPSG states for the registry's transformation.
  */
 export function datumConverter(def: string, datumName: string, registryAccuracyM: number | null): { toWgs84: PointConverter; shift: DatumShift } {
+  loadDatumGrids();
   const p = new proj4.Proj(def);
   const d = datumOf(p);
   const named = (s: Omit<DatumShift, "datum">): DatumShift => ({ datum: datumName, ...s, ...(s.accuracyM === undefined && registryAccuracyM !== null ? { accuracyM: registryAccuracyM } : {}) });
@@ -113,7 +115,19 @@ export function datumConverter(def: string, datumName: string, registryAccuracyM
     case PJD_GRIDSHIFT: {
       const grids = d.grids ?? [];
       if (grids.some((g) => g.isNull)) return { toWgs84: plain(), shift: named({ method: "none", operation: "none (WGS 84 coordinates on a sphere)" }) };
-      if (grids.some((g) => g.grid)) return { toWgs84: plain(), shift: named({ method: "grid", operation: grids.map((g) => g.name).join(", ") }) };
+      if (grids.some((g) => g.grid)) {
+        const gridded = plain();
+        const shift = named({ method: "grid", operation: grids.map((g) => g.name).join(", ") });
+        if (!clarke1866(d)) return { toWgs84: gridded, shift };
+        // NAD27's registry definition names Canada's grid; a point off every loaded grid (the
+        // United States, say) takes EPSG's published parameters instead of becoming NaN.
+        const fallback = nad27(def, datumName);
+        const toWgs84: PointConverter = (x, y) => {
+          const p = gridded(x, y);
+          return Number.isNaN(p[0]) ? fallback.toWgs84(x, y) : p;
+        };
+        return { toWgs84, shift };
+      }
       if (clarke1866(d)) {
         return nad27(def, datumName);
       }

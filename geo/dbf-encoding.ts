@@ -82,7 +82,6 @@ for (let b = 0; b < 256; b++) {
 const bytesOf1252 = (s: string) => Uint8Array.from(s, (c) => CP1252_BYTES.get(c) ?? 0x3f);
 
 /** Text that did not decode: U+FFFD, or control characters that no attribute holds. */
-// eslint-disable-next-line no-control-regex
 const INVALID = /[\uFFFD\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F-\u009F]/;
 
 const describe = (e: DbfEncoding, base: string) =>
