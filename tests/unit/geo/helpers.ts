@@ -5,9 +5,6 @@ import { readGeoJson, type SourceLayer } from "@/geo";
 
 const FIXTURES = join(process.cwd(), "tests/fixtures");
 
-/** Kilometres per degree of arc on turf's sphere (earthRadius 6 371 008.8 m in @turf/helpers). */
-export const KM_PER_DEGREE = (6371008.8 * Math.PI) / 180 / 1000;
-
 /**
  * Length of a polyline on the WGS84 ellipsoid, km, straight from GeographicLib's geodesic
  * inverse (the reference the import's lengths and chainage are held to, not Sagline's code).
