@@ -87,7 +87,11 @@ describe("NTv2 shift grids", () => {
     //   -110.3 47.8 → -110.300422222 47.800183333; -109.2 48.9 → -109.200300000 48.900244444
     expect(metres(toWgs84(-110.3, 47.8), [-110.300422222, 47.800183333])).toBeLessThan(0.01);
     expect(metres(toWgs84(-109.2, 48.9), [-109.2003, 48.900244444])).toBeLessThan(0.01);
-    // Outside the grid there is no shift to apply: NaN, for the validator to name the feature.
-    expect(toWgs84(-100, 40).every(Number.isNaN)).toBe(true);
+    // Clarke 1866 off the grid: NAD27's published parameters (EPSG:1173) instead, as PROJ gives them:
+    //   echo "-100 40" | cs2cs -f %.9f +proj=longlat +ellps=clrk66 +towgs84=-8,160,176 +to +proj=longlat +datum=WGS84
+    expect(metres(toWgs84(-100, 40), [-100.000417622, 40.000009483])).toBeLessThan(0.01);
+    // Another ellipsoid off the grid: no shift to apply, so NaN, for the validator to name the feature.
+    const other = datumConverter("+proj=longlat +ellps=intl +nadgrids=sagline-test.gsb +no_defs", "Test 1924", null);
+    expect(other.toWgs84(-100, 40).every(Number.isNaN)).toBe(true);
   });
 });
