@@ -29,6 +29,8 @@ export interface BasinsTable {
   /** DO criterion, mg/L (NUMERIC parsed to number by db/client.ts). */
   do_criterion_mg_l: ColumnType<number, number | undefined, number>;
   unit_system: ColumnType<UnitSystem, UnitSystem | undefined, UnitSystem>;
+  /** Shortest review period the lead allows, days (0: none). */
+  min_review_days: Generated<number>;
   created_by: string | null;
   created_at: CreatedAt;
   updated_at: UpdatedAt;

@@ -8,6 +8,7 @@ import * as m2026120105 from "./2026120105_accounts";
 import * as m2026120201 from "./2026120201_sessions_rate_limits";
 import * as m2026120204 from "./2026120204_frozen_plan_rows";
 import * as m2026120205 from "./2026120205_plan_report_files";
+import * as m2026120206 from "./2026120206_review_rules";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -24,6 +25,7 @@ export const migrations: Record<string, Migration> = {
   "2026120201_sessions_rate_limits": m2026120201,
   "2026120204_frozen_plan_rows": m2026120204,
   "2026120205_plan_report_files": m2026120205,
+  "2026120206_review_rules": m2026120206,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -9,7 +9,7 @@ import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { basinCreateSchema, type BasinCreateInput } from "@/lib/validation/basin";
 
-const FIELDS = ["name", "slug", "description", "doCriterionMgL", "unitSystem"] as const;
+const FIELDS = ["name", "slug", "description", "doCriterionMgL", "unitSystem", "minReviewDays"] as const;
 
 /** Create or edit a basin's settings; validated by the same schema as the API. */
 export function BasinForm({
@@ -38,6 +38,7 @@ export function BasinForm({
       description: "",
       doCriterionMgL: 5,
       unitSystem: "SI",
+      minReviewDays: 30,
       ...initial,
     },
   });
@@ -95,6 +96,15 @@ export function BasinForm({
         error={errors.doCriterionMgL?.message}
         hint="The dissolved-oxygen level every reach must stay above at critical conditions."
         {...register("doCriterionMgL")}
+      />
+      <Field
+        label="Shortest review (days)"
+        type="number"
+        step="1"
+        inputMode="numeric"
+        error={errors.minReviewDays?.message}
+        hint="A plan's review period must run at least this long (0: no minimum). 30 days is common practice; your jurisdiction's rules decide."
+        {...register("minReviewDays")}
       />
       <fieldset>
         <legend className="field-label">Units on screens and exports</legend>

@@ -16,6 +16,7 @@ export function BasinSettings({ basin }: { basin: BasinDto }) {
         description: b.description,
         doCriterionMgL: b.doCriterionMgL,
         unitSystem: b.unitSystem,
+        minReviewDays: b.minReviewDays,
       }}
       onSubmit={(values) => update.mutateAsync(values)}
     />

@@ -2,8 +2,10 @@
 import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { isoToZoned, timeZoneNames, zonedToIso } from "@/lib/format/zoned-time";
+import { reviewDateIssues } from "@/lib/plans/review-rules";
 import type { PlanDto } from "@/lib/queries/plans";
-import type { Act, PlanPermissions } from "./plan-view";
+import { FieldMessage, failureFor, type Act, type ActFailure } from "./plan-acts";
+import type { PlanPermissions } from "./plan-view";
 
 const DAY = 86_400_000;
 
@@ -27,13 +29,14 @@ function Instant({ local, zone }: { local: string; zone: string }) {
  * A lead's actions on a plan: open its review (start, end and the time zone
  * they are read in), extend it with a reason, publish after it closes, withdraw.
  */
-export function LeadActions({ plan, can, act }: { plan: PlanDto; can: PlanPermissions; act: Act }) {
+export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: PlanPermissions; act: Act; failure: ActFailure | null }) {
   const zones = useMemo(() => timeZoneNames(), []);
   const browserZone = Intl.DateTimeFormat().resolvedOptions().timeZone;
   const [timeZone, setTimeZone] = useState(zones.includes(browserZone) ? browserZone : "UTC");
-  // by default the review opens now and runs 30 days
+  // by default the review opens when the lead clicks, and runs the basin's shortest review (at least 30 days)
+  const [opensNow, setOpensNow] = useState(true);
   const [startsAt, setStartsAt] = useState(() => fromNow(timeZone));
-  const [endsAt, setEndsAt] = useState(() => fromNow(timeZone, 30));
+  const [endsAt, setEndsAt] = useState(() => fromNow(timeZone, Math.max(30, plan.minReviewDays)));
   /** A new zone keeps the chosen instants and shows them as that zone's wall-clock times. */
   const changeZone = (zone: string) => {
     const shift = (local: string) => {
@@ -51,9 +54,16 @@ export function LeadActions({ plan, can, act }: { plan: PlanDto; can: PlanPermis
   const [reason, setReason] = useState("");
   if (!can.manageReview && !can.publish) return null;
   const p = `/plans/${plan.id}`;
-  const start = zonedToIso(startsAt, timeZone);
+  const start = opensNow ? new Date().toISOString() : zonedToIso(startsAt, timeZone);
   const end = zonedToIso(endsAt, timeZone);
   const extended = zonedToIso(newEnd, periodZone);
+  // the server's own rules, checked as the lead types (lib/plans/review-rules.ts)
+  const ruleIssues =
+    start && end ? reviewDateIssues({ startsAt: new Date(start), endsAt: new Date(end), minReviewDays: plan.minReviewDays, now: new Date() }, timeZone) : [];
+  const rule = Object.fromEntries(ruleIssues.map((i) => [i.path, i.message]));
+  const opened = failureFor(failure, `${p}/review`, "POST", ["startsAt", "endsAt", "timeZone"]);
+  const extendedFailure = failureFor(failure, `${p}/review`, "PATCH", ["endsAt", "reason"]);
+  const decided = [failureFor(failure, `${p}/publish`, "POST", []), failureFor(failure, `${p}/withdraw`, "POST", [])].find((f) => f.general);
   return (
     <section className="card space-y-3" aria-label="Lead actions">
       <h2>Lead actions</h2>
@@ -73,25 +83,55 @@ export function LeadActions({ plan, can, act }: { plan: PlanDto; can: PlanPermis
               </select>
             </div>
             <div>
-              <label htmlFor="review-start" className="field-label">
-                Review opens
+              <span className="field-label">Review opens</span>
+              <label className="flex items-center gap-2 text-sm">
+                <input type="checkbox" checked={opensNow} onChange={(e) => setOpensNow(e.target.checked)} />
+                Now, when I open it
               </label>
-              <input id="review-start" type="datetime-local" className="field-input w-56" value={startsAt} onChange={(e) => setStartsAt(e.target.value)} />
-              <Instant local={startsAt} zone={timeZone} />
+              {!opensNow && (
+                <>
+                  <label htmlFor="review-start" className="sr-only">
+                    Review opens at
+                  </label>
+                  <input id="review-start" type="datetime-local" className="field-input mt-1 w-56" value={startsAt} onChange={(e) => setStartsAt(e.target.value)} />
+                  <Instant local={startsAt} zone={timeZone} />
+                </>
+              )}
+              <FieldMessage text={rule.startsAt ?? opened.field.startsAt} />
             </div>
             <div>
               <label htmlFor="review-end" className="field-label">
                 Review closes
               </label>
-              <input id="review-end" type="datetime-local" className="field-input w-56" value={endsAt} onChange={(e) => setEndsAt(e.target.value)} />
+              <input
+                id="review-end"
+                type="datetime-local"
+                className="field-input w-56"
+                value={endsAt}
+                onChange={(e) => setEndsAt(e.target.value)}
+                aria-describedby="review-rule"
+              />
               <Instant local={endsAt} zone={timeZone} />
+              <FieldMessage text={rule.endsAt ?? opened.field.endsAt} />
             </div>
-
           </div>
-          <Button disabled={!start || !end} onClick={() => start && end && act(`${p}/review`, { startsAt: start, endsAt: end, timeZone })}>
+          <FieldMessage text={opened.field.timeZone ?? opened.general} />
+          <Button
+            disabled={!start || !end || ruleIssues.length > 0}
+            onClick={() => {
+              // "now" is the moment of the click
+              const from = opensNow ? new Date().toISOString() : start;
+              if (from && end) void act(`${p}/review`, { startsAt: from, endsAt: end, timeZone });
+            }}
+          >
             Open the review
           </Button>
-          <p className="text-xs text-ink-faint">Members and followers are e-mailed when it opens; the review closes itself at its end.</p>
+          <p className="text-xs text-ink-faint" id="review-rule">
+            {plan.minReviewDays > 0
+              ? `This basin's shortest review is ${plan.minReviewDays} day${plan.minReviewDays === 1 ? "" : "s"} (a basin setting). `
+              : "This basin sets no shortest review. "}
+            A review cannot open in the past. Members and followers are e-mailed when it opens; it closes itself at its end.
+          </p>
         </div>
       )}
       {plan.status === "review" && can.manageReview && (
@@ -102,12 +142,14 @@ export function LeadActions({ plan, can, act }: { plan: PlanDto; can: PlanPermis
             </label>
             <input id="extend-end" type="datetime-local" className="field-input w-56" value={newEnd} onChange={(e) => setNewEnd(e.target.value)} />
             <Instant local={newEnd} zone={periodZone} />
+            <FieldMessage text={extendedFailure.field.endsAt} />
           </div>
           <div className="grow">
             <label htmlFor="extend-reason" className="field-label">
               Reason for the extension
             </label>
             <input id="extend-reason" className="field-input" value={reason} onChange={(e) => setReason(e.target.value)} />
+            <FieldMessage text={extendedFailure.field.reason ?? extendedFailure.general} />
           </div>
           <Button
             variant="secondary"
@@ -132,6 +174,7 @@ export function LeadActions({ plan, can, act }: { plan: PlanDto; can: PlanPermis
           </Button>
         )}
       </div>
+      <FieldMessage text={decided?.general} />
     </section>
   );
 }

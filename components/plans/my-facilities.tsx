@@ -10,8 +10,9 @@ import type { AllocationEntry, AllocationResult, ModelFile, RunResult } from "@/
 import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
 import { isBelowCriterion } from "@/lib/results/do-scale";
 import { downstreamOf, profileSeries } from "@/lib/results/profile-series";
-import { PLAN_STATUS_TEXT } from "./plan-list";
-import { Thread, usePlanActs } from "./plan-view";
+import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
+import { usePlanActs } from "./plan-acts";
+import { Thread } from "./plan-view";
 
 interface Snapshot {
   run: { result: { allocation: AllocationResult; conditions: { name: string; run: RunResult }[] }; modelFiles: { file: ModelFile }[] };
@@ -51,10 +52,9 @@ export function MyFacilities({
   return (
     <div className="space-y-6" data-testid="my-facilities">
       <PlanningCaution />
-      {failure && <Notice tone="error">{failure}</Notice>}
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <span>
-          Showing <Link href={`/basins/${basinId}/plans/${plan.id}`}>{plan.title}</Link>, version {plan.version} ({PLAN_STATUS_TEXT[plan.status] ?? plan.status})
+          Showing <Link href={`/basins/${basinId}/plans/${plan.id}`}>{plan.title}</Link>, version {plan.version} ({PLAN_STAGE_TEXT[plan.stage]})
         </span>
         {plans.length > 1 && (
           <nav aria-label="Other plan versions" className="flex gap-2">
@@ -91,7 +91,7 @@ export function MyFacilities({
             ) : (
               <Notice tone="warning">This plan allocates nothing to {f.name}: the facility was not a discharger in the network the plan was computed on.</Notice>
             )}
-            {thread && <Thread thread={thread} canComment={open} canAnswer={false} act={act} mine />}
+            {thread && <Thread thread={thread} canComment={open} canAnswer={false} act={act} failure={failure} mine />}
           </section>
         );
       })}

@@ -1,15 +1,9 @@
 "use client";
 import Link from "next/link";
 import { Notice } from "@/components/ui/notice";
+import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
 import { usePlansQuery } from "@/lib/queries/plans";
 
-export const PLAN_STATUS_TEXT: Record<string, string> = {
-  draft: "draft (planners and leads only)",
-  review: "in review",
-  closed: "review closed",
-  published: "published",
-  withdrawn: "withdrawn",
-};
 
 export function PlanList({ basinId }: { basinId: string }) {
   const plans = usePlansQuery(basinId);
@@ -38,7 +32,7 @@ export function PlanList({ basinId }: { basinId: string }) {
                   {p.title}
                 </Link>
               </td>
-              <td>{PLAN_STATUS_TEXT[p.status] ?? p.status}</td>
+              <td>{PLAN_STAGE_TEXT[p.stage]}</td>
               <td className="text-xs">
                 {new Date(p.createdAt).toLocaleDateString("en-CA")}
                 {p.createdBy ? ` · ${p.createdBy}` : ""}

@@ -10,10 +10,11 @@ import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import type { ModelFile, RunResult } from "@/lib/model";
 import { headwaterReaches } from "@/lib/results";
-import { usePlanAction, usePlanQuery, type PlanDto } from "@/lib/queries/plans";
+import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
+import { FieldMessage, failureFor, usePlanActs, type Act, type ActFailure } from "./plan-acts";
 import { LeadActions } from "./lead-actions";
 import { PlanDownloads } from "./plan-downloads";
-import { PLAN_STATUS_TEXT } from "./plan-list";
+import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
 
 export interface PlanPermissions {
   signedIn: boolean;
@@ -52,10 +53,9 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
   return (
     <div className="space-y-6" data-testid="plan-view">
       <PlanningCaution />
-      {failure && <Notice tone="error">{failure}</Notice>}
       <div className="flex flex-wrap items-center gap-3">
         <span className="rounded-full bg-tarn-100 px-3 py-1 text-sm font-semibold text-tarn-900" data-testid="plan-status">
-          {PLAN_STATUS_TEXT[plan.status] ?? plan.status}
+          {PLAN_STAGE_TEXT[plan.stage]}
         </span>
         <span className="text-sm text-ink-soft">
           Version {plan.version}, proposed {new Date(plan.createdAt).toLocaleDateString("en-CA")}
@@ -84,7 +84,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
           )}
         </Notice>
       )}
-      <LeadActions plan={plan} can={can} act={act} />
+      <LeadActions plan={plan} can={can} act={act} failure={failure} />
 
       <section className="card">
         <h2 className="mb-3">Allocations</h2>
@@ -146,7 +146,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
           </label>
         </div>
         {(onlyWaiting ? waiting : plan.threads).map((t) => (
-          <Thread key={t.id} thread={t} canComment={open && can.signedIn} canAnswer={can.answer && plan.status !== "published"} act={act} mine={!!t.facilityId && can.myFacilityIds.includes(t.facilityId)} />
+          <Thread key={t.id} thread={t} canComment={open && can.signedIn} canAnswer={can.answer && plan.status !== "published"} act={act} failure={failure} mine={!!t.facilityId && can.myFacilityIds.includes(t.facilityId)} />
         ))}
       </section>
     </div>
@@ -175,26 +175,23 @@ function PlanProfile({ plan, unitSystem }: { plan: PlanDto; unitSystem: UnitSyst
   );
 }
 
-export type Act = (path: string, json?: unknown, method?: string) => Promise<boolean>;
-
-/** Plan actions (review, comments, responses) with the last failure's message; `act` resolves to whether it worked. */
-export function usePlanActs(basinId: string, planId: string): { act: Act; failure: string | null } {
-  const action = usePlanAction(basinId, planId);
-  const [failure, setFailure] = useState<string | null>(null);
-  const act: Act = async (path, json, method = "POST") => {
-    setFailure(null);
-    try {
-      await action.mutateAsync({ path, json, method });
-      return true;
-    } catch (e) {
-      setFailure(e instanceof Error ? e.message : String(e));
-      return false;
-    }
-  };
-  return { act, failure };
-}
-
-export function Thread({ thread, canComment, canAnswer, act, mine }: { thread: PlanDto["threads"][number]; canComment: boolean; canAnswer: boolean; act: Act; mine: boolean }) {
+export function Thread({
+  thread,
+  canComment,
+  canAnswer,
+  act,
+  mine,
+  failure = null,
+}: {
+  thread: PlanDto["threads"][number];
+  canComment: boolean;
+  canAnswer: boolean;
+  act: Act;
+  mine: boolean;
+  failure?: ActFailure | null;
+}) {
+  const commentFailure = failureFor(failure, `/threads/${thread.id}/comments`, "POST", ["body"]);
+  const responseFailure = failureFor(failure, `/threads/${thread.id}/response`, "POST", ["response"]);
   const [text, setText] = useState("");
   const [response, setResponse] = useState("");
   // the box is open on one's own facility and on the plan as a whole; elsewhere one click away
@@ -238,6 +235,7 @@ export function Thread({ thread, canComment, canAnswer, act, mine }: { thread: P
             Comment on {title}
           </label>
           <textarea id={`comment-${thread.id}`} rows={3} className="field-input" value={text} onChange={(e) => setText(e.target.value)} />
+          <FieldMessage text={commentFailure.field.body ?? commentFailure.general} />
           <Button variant="secondary" disabled={!text.trim()} onClick={async () => (await act(`/threads/${thread.id}/comments`, { body: text })) && setText("")}>
             Add comment
           </Button>
@@ -249,6 +247,7 @@ export function Thread({ thread, canComment, canAnswer, act, mine }: { thread: P
             Response (marks the thread addressed)
           </label>
           <textarea id={`response-${thread.id}`} rows={2} className="field-input" value={response} onChange={(e) => setResponse(e.target.value)} />
+          <FieldMessage text={responseFailure.field.response ?? responseFailure.general} />
           <Button variant="secondary" disabled={!response.trim()} onClick={async () => (await act(`/threads/${thread.id}/response`, { response })) && setResponse("")}>
             Respond
           </Button>

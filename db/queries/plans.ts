@@ -22,7 +22,10 @@ export const planQuery = (db: Db, basinId: string) =>
  * (withdrawn ones too when they had been reviewed); the public published plans.
  */
 export async function listBasinPlans(db: Db, basinId: string, reader: "planner" | "signedIn" | "public") {
-  let q = planQuery(db, basinId);
+  // a plan has at most one review period (it goes from draft to review once)
+  let q = planQuery(db, basinId)
+    .leftJoin("review_periods as rp", "rp.plan_id", "p.id")
+    .select(["rp.starts_at", "rp.ends_at", "rp.closed_at"]);
   if (reader === "public") q = q.where("p.status", "=", "published");
   if (reader === "signedIn") {
     q = q.where((eb) =>

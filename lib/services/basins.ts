@@ -35,6 +35,7 @@ export async function createBasin(db: Db, actor: Actor | null, input: BasinCreat
       description: input.description,
       do_criterion_mg_l: input.doCriterionMgL,
       unit_system: input.unitSystem,
+      min_review_days: input.minReviewDays,
       created_by: a.id,
     });
     await insertMembership(trx, basin.id, a.id, "lead");
@@ -69,6 +70,7 @@ export async function updateBasin(
   if (input.description !== undefined) patch.description = input.description;
   if (input.doCriterionMgL !== undefined) patch.do_criterion_mg_l = input.doCriterionMgL;
   if (input.unitSystem !== undefined) patch.unit_system = input.unitSystem;
+  if (input.minReviewDays !== undefined) patch.min_review_days = input.minReviewDays;
   return db.transaction().execute(async (trx) => {
     if (input.slug !== undefined && input.slug !== basin.slug) {
       const other = await findBasinBySlug(trx, input.slug);

@@ -12,6 +12,8 @@ export interface BasinDto {
   description: string;
   doCriterionMgL: number;
   unitSystem: UnitSystem;
+  /** Shortest review period a plan of this basin may have, days (0: none). */
+  minReviewDays: number;
   createdAt: string;
   updatedAt: string;
   myRole: BasinRole | null;
@@ -26,6 +28,7 @@ export function basinDto(b: BasinRecord, myRole: BasinRole | null, memberCount?:
     description: b.description,
     doCriterionMgL: b.do_criterion_mg_l,
     unitSystem: b.unit_system,
+    minReviewDays: b.min_review_days,
     createdAt: b.created_at.toISOString(),
     updatedAt: b.updated_at.toISOString(),
     myRole,

@@ -22,6 +22,7 @@ import {
   updateReviewPeriod, planAllocations, listBasinPlans, planThreads, transitionPlanStatus, lockPlanStatus } from "@/db/queries/plans";
 import type { PlanStatus } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { planStage, reviewDateIssues } from "@/lib/plans/review-rules";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { PlanPropose, ReviewExtend, ReviewOpen } from "@/lib/validation/plan";
 import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
@@ -117,11 +118,13 @@ export async function listPlans(db: Db, actor: Actor | null, basinId: string) {
   const basin = await basinOr404(db, basinId);
   const seesDrafts = await canInBasin(db, actor, basin.id, "scenario.read");
   const rows = await listBasinPlans(db, basin.id, seesDrafts ? "planner" : actor ? "signedIn" : "public");
+  const now = new Date();
   return rows.map((p) => ({
     id: p.id,
     version: p.version,
     title: p.title,
     status: p.status,
+    stage: planStage(p.status, p.starts_at && p.ends_at ? { startsAt: p.starts_at, endsAt: p.ends_at, closedAt: p.closed_at } : null, now),
     createdAt: p.created_at.toISOString(),
     createdBy: p.created_by_name,
     publishedAt: p.published_at?.toISOString() ?? null,
@@ -141,9 +144,12 @@ export async function getPlan(db: Db, actor: Actor | null, basinId: string, plan
     version: plan.version,
     title: plan.title,
     status: plan.status,
+    stage: planStage(plan.status, period ? { startsAt: period.starts_at, endsAt: period.ends_at, closedAt: period.closed_at } : null, new Date()),
     createdAt: plan.created_at.toISOString(),
     createdBy: plan.created_by_name,
     publishedAt: plan.published_at?.toISOString() ?? null,
+    /** The basin's shortest review, days: the lead's form checks the dates against it as the server does. */
+    minReviewDays: basin.min_review_days,
     snapshot: (plan as typeof plan & { snapshot: Record<string, unknown> }).snapshot,
     allocations: allocations.map((a) => ({
       facilityId: a.facility_id,
@@ -193,6 +199,11 @@ async function planForLead(db: Db, actor: Actor | null, basinId: string, planId:
 export async function openReview(db: Db, actor: Actor | null, basinId: string, planId: string, input: ReviewOpen) {
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
   if (plan.status !== "draft") throw conflict(`Only a draft plan can go to review; this one is ${plan.status}`);
+  const issues = reviewDateIssues(
+    { startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), minReviewDays: basin.min_review_days, now: new Date() },
+    input.timeZone,
+  );
+  if (issues.length > 0) throw new AppError("invalid", issues[0].message, issues);
   await db.transaction().execute(async (trx) => {
     // the state changes first, in one statement: a second "open" sent at the same time finds it changed
     if (!(await transitionPlanStatus(trx, plan.id, ["draft"], "review"))) throw raced();
@@ -371,6 +382,7 @@ export async function listReviews(db: Db, actor: Actor | null, now = new Date())
     title: p.title,
     version: p.version,
     status: p.status,
+    stage: planStage(p.status, p.starts_at && p.ends_at ? { startsAt: p.starts_at, endsAt: p.ends_at, closedAt: p.closed_at } : null, now),
     startsAt: p.starts_at?.toISOString() ?? null,
     endsAt: p.ends_at?.toISOString() ?? null,
     timeZone: p.time_zone ?? "UTC",

@@ -2,8 +2,14 @@ import { z } from "zod";
 
 export const unitSystemSchema = z.enum(["SI", "US"]);
 
+const minReviewDaysSchema = z.coerce
+  .number({ message: "The shortest review must be a number of days" })
+  .int("The shortest review is a whole number of days")
+  .min(0, "The shortest review cannot be negative (0 means no minimum)")
+  .max(365, "The shortest review can be at most 365 days");
+
 /** Basin settings, shared by the create/edit forms and the basins API. */
-export const basinCreateSchema = z.object({
+const basinFields = z.object({
   name: z.string().trim().min(2, "Name must be at least 2 characters").max(120),
   slug: z
     .string()
@@ -17,10 +23,15 @@ export const basinCreateSchema = z.object({
     .gt(0, "DO criterion must be above 0 mg/L")
     .lt(20, "DO criterion must be below 20 mg/L"),
   unitSystem: unitSystemSchema,
+  minReviewDays: minReviewDaysSchema,
 });
+
+/** A new basin: the shortest review defaults to 30 days (common practice for a formal comment period). */
+export const basinCreateSchema = basinFields.extend({ minReviewDays: minReviewDaysSchema.default(30) });
 export type BasinCreateInput = z.infer<typeof basinCreateSchema>;
 
-export const basinUpdateSchema = basinCreateSchema
+// from the fields without defaults: a setting left out of a change is left as it is
+export const basinUpdateSchema = basinFields
   .partial()
   .refine((v) => Object.values(v).some((x) => x !== undefined), { message: "Give at least one setting to change" });
 export type BasinUpdateInput = z.infer<typeof basinUpdateSchema>;

@@ -53,7 +53,7 @@ describe("a plan from proposal to publication", () => {
 
   it("opens a review (lead only, explicit time zone), then members and the signed-in public comment", async () => {
     const now = Date.now();
-    const body = { startsAt: new Date(now - 60_000).toISOString(), endsAt: new Date(now + 86_400_000).toISOString(), timeZone: "America/Chicago" };
+    const body = { startsAt: new Date(now - 60_000).toISOString(), endsAt: new Date(now + 31 * 86_400_000).toISOString(), timeZone: "America/Chicago" };
     expect((await callRoute(reviewRoute.POST, "POST", { userId: as("planner"), params: { basinId: w.basinId, planId }, body })).status).toBe(403);
     const badZone = await callRoute(reviewRoute.POST, "POST", { userId: as("lead"), params: { basinId: w.basinId, planId }, body: { ...body, timeZone: "Mars/Olympus" } });
     expect(err(badZone.json).details![0].path).toBe("timeZone");
@@ -107,7 +107,8 @@ describe("a plan from proposal to publication", () => {
   });
 
   it("extending needs a reason; the review closes itself at its end and comments stop", async () => {
-    const later = new Date(Date.now() + 2 * 86_400_000).toISOString();
+    // the review was opened for 31 days; the extension moves its end to day 33
+    const later = new Date(Date.now() + 33 * 86_400_000).toISOString();
     const noReason = await callRoute(reviewRoute.PATCH, "PATCH", { userId: as("lead"), params: { basinId: w.basinId, planId }, body: { endsAt: later } });
     expect(err(noReason.json).details![0].path).toBe("reason");
     const ok = await callRoute(reviewRoute.PATCH, "PATCH", {
@@ -116,8 +117,8 @@ describe("a plan from proposal to publication", () => {
       body: { endsAt: later, reason: "Requests from two dischargers for more time" },
     });
     expect(ok.status).toBe(204);
-    expect(await closeDueReviews(db, new Date(Date.now() + 86_400_000))).toBe(0);
-    expect(await closeDueReviews(db, new Date(Date.now() + 3 * 86_400_000))).toBeGreaterThanOrEqual(1);
+    expect(await closeDueReviews(db, new Date(Date.now() + 32 * 86_400_000))).toBe(0);
+    expect(await closeDueReviews(db, new Date(Date.now() + 34 * 86_400_000))).toBeGreaterThanOrEqual(1);
     expect((await getPlan(db, w.users.lead, w.basinId, planId)).status).toBe("closed");
     await expect(addComment(db, w.users.stakeholder, w.basinId, planThread, "late")).rejects.toThrow(/review period is open/);
   });

@@ -2,6 +2,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as auditRoute from "@/app/api/basins/[basinId]/audit/route";
 import { findFacilityByPermit, linkFacilityUser } from "@/db/queries/facilities";
 import { listBasinAudit } from "@/lib/services/audit";
+import { updateBasin } from "@/lib/services/basins";
 import { followBasin } from "@/lib/services/follows";
 import { getMyFacilities } from "@/lib/services/my-facilities";
 import {
@@ -43,7 +44,7 @@ describe("review closing soon", () => {
   beforeAll(async () => {
     w = await buildWorld(db);
     opened = Date.now();
-    // the fixture's review runs from an hour ago for seven days
+    // the fixture's review runs from a minute ago for 31 days
     plan = await planAt(db, w, "review");
     await addComment(db, w.users.outsider, w.basinId, plan.planThreadId, "A comment from outside the basin");
   });
@@ -54,7 +55,7 @@ describe("review closing soon", () => {
   });
 
   it("tells every member and everyone who commented once the end is within two days, once", async () => {
-    const at = new Date(opened + 7 * DAY - CLOSING_SOON_MS + 10 * 60_000);
+    const at = new Date(opened + 31 * DAY - CLOSING_SOON_MS + 10 * 60_000);
     const members = ["lead", "planner", "discharger", "stakeholder", "spareDischarger", "target"] as const;
     const expected = [...members.map((k) => w.users[k].email), w.users.outsider.email].sort();
     expect(await sendClosingSoonNotices(db, at)).toBe(expected.length);
@@ -69,9 +70,9 @@ describe("review closing soon", () => {
 
   it("announces the new end again after an extension, when that end draws near", async () => {
     const before = (await closingMail(w.basinId)).length;
-    const newEnd = new Date(opened + 14 * DAY);
+    const newEnd = new Date(opened + 45 * DAY);
     await extendReview(db, w.users.lead, w.basinId, plan.planId, { endsAt: newEnd.toISOString(), reason: "Dischargers asked for two more weeks" });
-    expect(await sendClosingSoonNotices(db, new Date(opened + 7 * DAY))).toBe(0);
+    expect(await sendClosingSoonNotices(db, new Date(opened + 35 * DAY))).toBe(0);
     expect(await sendClosingSoonNotices(db, new Date(newEnd.getTime() - DAY))).toBe(before);
     expect((await closingMail(w.basinId)).filter((m) => m.dedupe_key.includes(newEnd.toISOString()))).toHaveLength(before);
   });
@@ -79,6 +80,8 @@ describe("review closing soon", () => {
   it("waits until the second half of a short review", async () => {
     const w2 = await buildWorld(db);
     const draft = await planAt(db, w2, "draft");
+    // the basin allows short reviews (its lead's setting; 0: no minimum)
+    await updateBasin(db, w2.users.lead, w2.basinId, { minReviewDays: 0 });
     const start = Date.now();
     // a 6-hour review: the notice is due in its last 3 hours, not the moment it opens
     const other = await proposePlan(db, w2.users.planner, w2.basinId, { runId: draft.runId, title: "Short review" });
@@ -103,9 +106,9 @@ describe("followers", () => {
     const opened = await mail("review_opened");
     expect(opened.filter((m) => m.to_address === w.users.outsider.email)).toHaveLength(1);
     expect(opened.filter((m) => m.to_address === w.users.lead.email)).toHaveLength(1);
-    await sendClosingSoonNotices(db, new Date(Date.now() + 6 * DAY));
+    await sendClosingSoonNotices(db, new Date(Date.now() + 30 * DAY));
     expect((await mail("review_closing")).filter((m) => m.to_address === w.users.outsider.email)).toHaveLength(1);
-    await closeDueReviews(db, new Date(Date.now() + 8 * DAY));
+    await closeDueReviews(db, new Date(Date.now() + 32 * DAY));
     await publishPlan(db, w.users.lead, w.basinId, plan.planId);
     const published = await mail("plan_published");
     const outsider = published.filter((m) => m.to_address === w.users.outsider.email);

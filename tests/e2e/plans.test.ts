@@ -71,6 +71,23 @@ describe("from a proposed plan to a published one", () => {
     await page.close();
   });
 
+  it("the lead's review dates are checked as typed: a past start and a too-short review are named at their fields", async () => {
+    const lead = await demo("lead");
+    await lead.goto(planUrl);
+    await lead.getByLabel("Now, when I open it").uncheck();
+    await lead.getByLabel("Review opens at").fill("2026-11-01T09:00");
+    await lead.getByLabel("Review closes").fill("2026-11-05T17:00");
+    const actions = lead.getByRole("region", { name: "Lead actions" });
+    await actions.getByText("The review cannot open in the past").waitFor();
+    expect(await lead.getByRole("button", { name: "Open the review" }).isDisabled()).toBe(true);
+    await lead.getByLabel("Now, when I open it").check();
+    await lead.getByLabel("Review closes").fill(new Date(Date.now() + 5 * 86_400_000).toISOString().slice(0, 16));
+    await actions.getByText(/The basin's shortest review is 30 days: close it on or after/).waitFor();
+    expect(await lead.getByRole("button", { name: "Open the review" }).isDisabled()).toBe(true);
+    await lead.screenshot({ path: `${SHOTS}/plan-review-dates-refused.png`, fullPage: true });
+    await lead.close();
+  });
+
   it("the lead opens the review, and the members are e-mailed a link to it", async () => {
     const lead = await demo("lead");
     await lead.goto(planUrl);

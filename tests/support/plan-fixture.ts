@@ -17,13 +17,14 @@ export async function planAt(db: Db, w: World, stage: PlanStage) {
   const plan = await proposePlan(db, w.users.planner, w.basinId, { runId: run.id, title: "Tamsel River DO plan" });
   if (stage !== "draft") {
     const now = Date.now();
+    // opens now (a minute back, within the grace for a clock a little off) and runs the default shortest review
     await openReview(db, w.users.lead, w.basinId, plan.id, {
-      startsAt: new Date(now - 3_600_000).toISOString(),
-      endsAt: new Date(now + 7 * 86_400_000).toISOString(),
+      startsAt: new Date(now - 60_000).toISOString(),
+      endsAt: new Date(now + 31 * 86_400_000).toISOString(),
       timeZone: "America/Chicago",
     });
   }
-  if (stage === "closed" || stage === "published") await closeDueReviews(db, new Date(Date.now() + 8 * 86_400_000));
+  if (stage === "closed" || stage === "published") await closeDueReviews(db, new Date(Date.now() + 32 * 86_400_000));
   if (stage === "published") await publishPlan(db, w.users.lead, w.basinId, plan.id);
   const threads = await db.selectFrom("threads").select(["id", "facility_id"]).where("plan_id", "=", plan.id).execute();
   return { planId: plan.id, runId: run.id, planThreadId: threads.find((t) => t.facility_id === null)!.id, threads };

@@ -40,11 +40,11 @@ export default async function ReviewsPage() {
                   <Link href={`/reviews/${r.basinId}/${r.id}`}>{r.title}</Link> <span className="text-ink-soft">version {r.version}</span>
                 </td>
                 <td className="text-sm">
-                  {r.open && r.endsAt ? (
+                  {r.stage === "open" && r.endsAt ? (
                     <span>open until {when(r.endsAt, r.timeZone)}</span>
-                  ) : r.status === "closed" ? (
+                  ) : r.stage === "closed" ? (
                     <span className="text-ink-soft">closed; awaiting the lead&apos;s decision</span>
-                  ) : r.startsAt ? (
+                  ) : r.stage === "scheduled" && r.startsAt ? (
                     <span>opens {when(r.startsAt, r.timeZone)}</span>
                   ) : null}
                 </td>

@@ -83,7 +83,7 @@ export const withAllocationRun = async (w: World) => {
 export const lead = (ok: number) => denied({ lead: ok });
 export const period = () => ({
   startsAt: new Date(Date.now() - 60_000).toISOString(),
-  endsAt: new Date(Date.now() + 86_400_000).toISOString(),
+  endsAt: new Date(Date.now() + 31 * 86_400_000).toISOString(),
   timeZone: "Europe/Dublin",
 });
 export const runOf = (w: World, p: Record<string, string>) => ({ basinId: w.basinId, runId: p.runId });
