@@ -147,7 +147,7 @@ export function datumConverter(def: string, datumName: string, registryAccuracyM
 function refuse(datumName: string, why: string): GeoError {
   return new GeoError(
     "datum_unsupported",
-    `The coordinates are on the datum "${datumName}", which Sagline cannot shift to WGS 84 (${why}); ` +
+    `The coordinates are on ${datumName.startsWith("the datum of ") ? datumName : `the datum "${datumName}"`}, which Sagline cannot shift to WGS 84 (${why}); ` +
       `export the file in WGS 84, NAD83 or ETRS89, or give the EPSG code of a coordinate system whose transformation is published`,
     { datum: datumName },
   );

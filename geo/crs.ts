@@ -45,7 +45,7 @@ export function crsFromEpsg(code: number, source: CrsInfo["source"] = "override"
     );
   }
   if (code === 4326) return { crs: { source, epsg: code, name: entry.name }, toWgs84: identity };
-  const { toWgs84, shift } = datumConverter(entry.proj4, wktDatumName(entry.wkt ?? "") || entry.name, entry.accuracy);
+  const { toWgs84, shift } = datumConverter(entry.proj4, wktDatumName(entry.wkt ?? "") || `the datum of ${entry.name}`, entry.accuracy);
   return { crs: crsInfo({ source, epsg: code, name: entry.name }, shift), toWgs84 };
 }
 
