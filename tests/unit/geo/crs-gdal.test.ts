@@ -1,5 +1,5 @@
 import geographiclib from "geographiclib-geodesic";
-import type { LineString } from "geojson";
+import type { LineString, Point } from "geojson";
 import { describe, expect, it } from "vitest";
 import { readUploadLayer, type SourceLayer } from "@/geo";
 import { fixtureBytes, fixtureText } from "./helpers";
@@ -118,5 +118,24 @@ describe("GDAL-written files land within 5 m of PROJ's transformation", () => {
     await expect(shapefile("fr-utm-noprj", 999999)).rejects.toMatchObject({ code: "epsg_unknown", message: expect.stringContaining("EPSG:999999") });
     const text = fixtureText("gdal/md-nad83-2248.geojson").replace("urn:ogc:def:crs:EPSG::2248", "urn:ogc:def:crs:EPSG::27572");
     await expect(geojson("x", text)).rejects.toMatchObject({ code: "datum_unsupported" });
+  });
+
+  it("a point shapefile in NAD27 / Montana North (EPSG:32001)", async () => {
+    const layer = await readUploadLayer("shapefile", fixtureBytes("gdal/mt-nad27-32001-points.zip"), {}, "dischargers", "points.zip");
+    // ogr2ogr -f CSV -t_srs EPSG:4326 -lco GEOMETRY=AS_WKT /vsistdout/ /vsizip/mt-nad27-32001-points.zip
+    //   → POINT (-110.00000000388 48.0099999995531)
+    const p = (layer.features[0].geometry as Point).coordinates;
+    expect(metres(p, [-110.00000000388, 48.0099999995531])).toBeLessThan(5);
+    expect(layer.features[0].properties.NAME).toBe("Scierie du Prés");
+    expect(layer.readWarnings?.map((w) => w.code)).toEqual(["datum_shift_approximate"]);
+  });
+
+  it("an X/Y CSV (GDAL's GEOMETRY=AS_XY) in State Plane feet with its EPSG code", async () => {
+    const csv = fixtureBytes("gdal/md-nad83-2248-points.csv");
+    const layer = await readUploadLayer("csv", csv, { csv: { kind: "xy", x: "X", y: "Y", epsg: 2248 } }, "dischargers", "points.csv");
+    // ogr2ogr -f CSV -s_srs EPSG:2248 -t_srs EPSG:4326 -oo X_POSSIBLE_NAMES=X -oo Y_POSSIBLE_NAMES=Y
+    //   -lco GEOMETRY=AS_WKT /vsistdout/ md-nad83-2248-points.csv → POINT (-76.9 39.01)
+    expect(layer.crs).toMatchObject({ source: "csv-epsg", epsg: 2248, name: "NAD83 / Maryland (ftUS)" });
+    expect(metres((layer.features[0].geometry as Point).coordinates, [-76.9, 39.01])).toBeLessThan(0.01);
   });
 });
