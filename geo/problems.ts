@@ -28,6 +28,8 @@ export type ProblemCode =
   | "length_override_differs"
   | "outlet_invalid"
   | "outlet_uncertain"
+  | "datum_shift_approximate"
+  | "text_encoding_invalid"
   | "discharger_too_far"
   | "discharger_reassigned"
   | "reassign_unknown_reach";

@@ -329,6 +329,10 @@ export function validateImport(input: ImportInput, options: ValidateOptions = {}
   }
   progress?.("dischargers", 0);
   network.dischargers = placeDischargers(input, network, options, problems);
+  // what the readers noticed (an approximate datum shift, text not valid in its encoding), per file
+  for (const [file, layer] of [["reach file", input.reaches], ["discharger file", input.dischargers]] as const) {
+    for (const r of layer?.readWarnings ?? []) problems.push(warning(r.code, `The ${file}: ${r.message}`, []));
+  }
   return {
     errors: problems.filter((p) => p.severity === "error"),
     warnings: problems.filter((p) => p.severity === "warning"),
