@@ -51,6 +51,8 @@ interface ShapefileParts {
   dbf?: Uint8Array;
   prj?: Uint8Array;
   cpg?: Uint8Array;
+  /** Whether the zip has the .shx index (not read: the .shp alone is enough, but it is named when parts are missing). */
+  shx?: boolean;
 }
 
 /**
@@ -91,11 +93,12 @@ async function unzipParts(bytes: Uint8Array, maxBytes: number): Promise<{ layers
       const name = entry.filename;
       if (name.endsWith("/") || name.includes("__MACOSX")) continue;
       names.push(name);
-      const m = /^(.*)\.(shp|dbf|prj|cpg)$/i.exec(name);
+      const m = /^(.*)\.(shp|shx|dbf|prj|cpg)$/i.exec(name);
       if (!m) continue;
-      const ext = m[2].toLowerCase() as keyof ShapefileParts;
+      const ext = m[2].toLowerCase() as "shp" | "shx" | "dbf" | "prj" | "cpg";
       const parts = layers.get(m[1]) ?? {};
-      parts[ext] = await entry.read();
+      if (ext === "shx") parts.shx = true;
+      else parts[ext] = await entry.read();
       layers.set(m[1], parts);
     }
   } catch (e) {
@@ -151,6 +154,26 @@ function checkHeaders(base: string, shp: Uint8Array, dbf: Uint8Array) {
   if (!ok) throw new GeoError("shapefile_corrupt", `${base}.dbf is damaged (its header does not match its size)`);
 }
 
+/**
+ * Every part a shapefile lacks, named at once: the .dbf (its attributes) and the .prj (its
+ * coordinate system, unless an EPSG code is given) are needed; a missing .shx is named too,
+ * since other GIS programs need it, though Sagline reads without it.
+ */
+function missingParts(base: string, parts: ShapefileParts, epsg: number | undefined): asserts parts is ShapefileParts & { dbf: Uint8Array } {
+  const needed = [
+    ...(parts.dbf ? [] : [`${base}.dbf (the attribute table)`]),
+    ...(parts.prj || epsg !== undefined ? [] : [`${base}.prj (the coordinate system; or give its EPSG code)`]),
+  ];
+  if (needed.length === 0) return;
+  const shx = parts.shx ? "" : `; ${base}.shx is missing too (Sagline does not need it, other GIS programs do)`;
+  const files = [...(parts.dbf ? [] : [`${base}.dbf`]), ...(parts.prj || epsg !== undefined ? [] : [`${base}.prj`]), ...(parts.shx ? [] : [`${base}.shx`])];
+  throw new GeoError(
+    parts.dbf ? "prj_missing" : "dbf_missing",
+    `The zip has ${base}.shp but not ${needed.join(" or ")}${shx}; add ${needed.length > 1 ? "them" : "it"} to the zip`,
+    { missing: files },
+  );
+}
+
 function resolveCrs(base: string, prj: Uint8Array | undefined, epsg: number | undefined): Reprojector {
   if (epsg !== undefined) return crsFromEpsg(epsg, "override");
   if (!prj) {
@@ -177,11 +200,10 @@ export async function readShapefileZip(bytes: Bytes, options: ShapefileOptions =
   checkEndRecord(u8);
   const { layers, names } = await unzipParts(u8, options.maxUncompressedBytes ?? DEFAULT_MAX_UNCOMPRESSED);
   const [base, parts] = pickLayer(layers, names, options.layer);
-  if (!parts.dbf) {
-    throw new GeoError("dbf_missing", `The zip has ${base}.shp but no ${base}.dbf; add the attribute table`);
-  }
   const shp = parts.shp as Uint8Array;
-  checkHeaders(base, shp, parts.dbf);
+  // a damaged file is told before a missing part
+  if (parts.dbf) checkHeaders(base, shp, parts.dbf);
+  missingParts(base, parts, options.epsg);
   const reprojector = resolveCrs(base, parts.prj, options.epsg);
 
   let geometries: ReturnType<typeof parseShp>;

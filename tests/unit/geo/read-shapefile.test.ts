@@ -97,6 +97,18 @@ describe("readShapefileZip", () => {
       expect(await codeOf(readShapefileZip(utmZip({ prj: utmNorthPrj(15), omit: ["dbf"] })))).toBe("dbf_missing");
     });
 
+    it("a zip with only the .shp names every part it lacks at once", async () => {
+      const e = await readShapefileZip(utmZip({ omit: ["shx", "dbf"] })).catch((x: Error) => x);
+      expect(e).toMatchObject({ code: "dbf_missing", details: { missing: ["reaches.dbf", "reaches.prj", "reaches.shx"] } });
+      expect((e as Error).message).toBe(
+        "The zip has reaches.shp but not reaches.dbf (the attribute table) or reaches.prj (the coordinate system; or give its EPSG code); " +
+          "reaches.shx is missing too (Sagline does not need it, other GIS programs do); add them to the zip",
+      );
+      // with the EPSG code given, only the .dbf is needed
+      const withCode = await readShapefileZip(utmZip({ omit: ["dbf"] }), { epsg: 32615 }).catch((x: Error) => x);
+      expect((withCode as Error).message).toBe("The zip has reaches.shp but not reaches.dbf (the attribute table); add it to the zip");
+    });
+
     it("no shapefile at all", async () => {
       const z = writeZip([{ name: "notes.txt", data: new TextEncoder().encode("hello") }]);
       const e = await readShapefileZip(z).catch((x: Error) => x);
