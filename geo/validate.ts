@@ -148,7 +148,7 @@ function usableLines(mapped: Mapped<ReachAttributes>[], toleranceM: number, prob
       continue;
     }
     appendAll(lineProblems, r.problems.map((p) => ({ ...p, features: [name] })));
-    usable.push({ m, name, coordinates: r.coordinates, lengthKm: r.lengthKm });
+    usable.push({ m, name, coordinates: r.coordinates, lengthKm: r.lengthKm, againstKm: r.againstKm });
   }
   const wrongType = lineProblems.filter((p) => p.code === "wrong_geometry_type");
   if (usable.length === 0 && wrongType.length === mapped.length) {

@@ -73,6 +73,23 @@ describe("choosing the outlet", () => {
     expect(whole.components[0].outletReach).toBe(0);
   });
 
+  it("a MultiLineString whose first part points the wrong way takes its direction from all its parts", () => {
+    // M: a short first part drawn west (0.002°E → 0°), then the long rest drawn east (0.002°E → 0.03°E);
+    // B continues east to the mouth at 0.04°E. The first part alone says M flows west.
+    const r = run([
+      { id: "M", type: "MultiLineString", coordinates: [[[0.002, 0], [0, 0]], [[0.002, 0], [0.03, 0]]] },
+      { id: "B", coordinates: [[0.03, 0], [0.04, 0]] },
+    ]);
+    expect(r.errors).toEqual([]);
+    expect(r.network.parts[0].outletReachId).toBe("B");
+    const m = r.network.reaches.find((x) => x.id === "M")!;
+    expect(m).toMatchObject({ flipped: true, downstreamReachId: "B" });
+    expect(m.coordinates[0]).toEqual([0, 0]);
+    expect(m.coordinates[m.coordinates.length - 1]).toEqual([0.03, 0]);
+    // the report names the reach turned round: M, whose line (from its first part) ran west
+    expect(r.warnings.find((w) => w.code === "reach_reversed")?.features).toEqual(["M"]);
+  });
+
   it("lines drawn toward each other give no answer: the planner must choose, and choosing clears it", () => {
     const items = [
       { id: "A", coordinates: [[0, 0], [0.01, 0]] },

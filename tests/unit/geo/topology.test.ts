@@ -167,8 +167,11 @@ describe("geometry and attribute problems", () => {
   });
 
   it("multi-part lines are joined when their parts meet, refused when they don't", () => {
-    const joined = one([[[0, 0], [0, 0.01]], [[0, 0.02], [0, 0.01]]], "MultiLineString");
+    // listed out of order, both drawn north: joined head to tail
+    const joined = one([[[0, 0.01], [0, 0.02]], [[0, 0], [0, 0.01]]], "MultiLineString");
     expect(joined.errors).toEqual([]);
+    // halves drawn toward each other: joined, but which end is the outlet cannot be told (geo/outlet.ts)
+    expect(codes(one([[[0, 0], [0, 0.01]], [[0, 0.02], [0, 0.01]]], "MultiLineString").errors)).toEqual(["outlet_uncertain"]);
     expect(joined.network.reaches.find((r) => r.id === "R1")?.geometryLengthKm).toBeCloseTo(geodesicKm([[0, 0], [0, 0.02]]), 9);
     expect(codes(one([[[0, 0], [0, 0.01]], [[1, 0], [1, 0.01]]], "MultiLineString").errors)).toEqual(["multipart_disconnected"]);
   });
