@@ -41,12 +41,16 @@ export interface OutletSuggestion {
 }
 
 /**
- * When the directions decide weakly: the next-best outlet turns less than this share of the
- * part's length more than the best one, or the best one turns more than WEAK_TURNED_SHARE of
- * it (lines drawn every which way). Chosen so that one mis-drawn tributary of a network drawn
- * downstream never counts as weak, while a part drawn half one way and half the other does.
+ * When the directions decide weakly. For each other free end, the km of line between it and
+ * the best one, and how much more the other end would turn: the lines on that path all drawn
+ * toward the best end make the difference the whole path, drawn half each way make it none.
+ * The evidence is weak when for some free end the difference is under WEAK_PATH_SHARE of the
+ * path (less than two thirds of it drawn toward the best end), or when the best end still turns
+ * more than WEAK_TURNED_SHARE of the part (lines drawn every which way). Measured against the
+ * path, not the whole network, so a big network drawn downstream never counts as weak because a
+ * headwater lies near its mouth, and one mis-drawn tributary does not either.
  */
-export const WEAK_MARGIN_SHARE = 0.1;
+export const WEAK_PATH_SHARE = 1 / 3;
 export const WEAK_TURNED_SHARE = 0.25;
 
 const other = (g: Graph, e: number, n: number) => (g.from[e] === n ? g.to[e] : g.from[e]);
@@ -93,14 +97,36 @@ export function suggestOutlet(g: Graph, order: readonly number[], parentEdge: In
   }
   const leaves = order.filter((v) => g.adjacency[v].length === 1);
   const candidates = leaves.length > 0 ? leaves : [...order];
-  const ranked = [...candidates].sort((a, b) => (cost.get(a) as number) - (cost.get(b) as number) || a - b);
-  const best = ranked[0];
+  const best = candidates.reduce((b, v) => {
+    const [cv, cb] = [cost.get(v) as number, cost.get(b) as number];
+    return cv < cb || (cv === cb && v < b) ? v : b;
+  });
   const turnedKm = cost.get(best) as number;
   const totalKm = edges.reduce((s, e) => s + lines[e].lengthKm, 0);
-  const second = ranked[1];
-  const runnerUp = second === undefined ? undefined : { node: second, turnedKm: cost.get(second) as number };
-  const weak =
-    totalKm > 0 &&
-    (turnedKm > WEAK_TURNED_SHARE * totalKm || (runnerUp !== undefined && runnerUp.turnedKm - turnedKm < WEAK_MARGIN_SHARE * totalKm));
+  // km along the spanning tree from the best end to every node
+  const treeEdges = new Set(order.slice(1).map((v) => parentEdge[v]));
+  const pathKm = new Map<number, number>([[best, 0]]);
+  for (let queue = [best]; queue.length > 0; ) {
+    const next: number[] = [];
+    for (const u of queue) {
+      for (const e of g.adjacency[u]) {
+        const v = other(g, e, u);
+        if (!treeEdges.has(e) || pathKm.has(v)) continue;
+        pathKm.set(v, (pathKm.get(u) as number) + lines[e].lengthKm);
+        next.push(v);
+      }
+    }
+    queue = next;
+  }
+  // the most competitive other end: the least extra turning per km of line between the two
+  let runnerUp: { node: number; turnedKm: number } | undefined;
+  let least = Infinity;
+  for (const v of candidates) {
+    const km = pathKm.get(v) ?? 0;
+    if (v === best || km <= 0) continue;
+    const share = ((cost.get(v) as number) - turnedKm) / km;
+    if (share < least) [least, runnerUp] = [share, { node: v, turnedKm: cost.get(v) as number }];
+  }
+  const weak = totalKm > 0 && (turnedKm > WEAK_TURNED_SHARE * totalKm || least < WEAK_PATH_SHARE);
   return { node: best, basis: { kind: "directions", turnedKm, totalKm, runnerUp, weak } };
 }

@@ -163,3 +163,31 @@ describe("choosing the outlet", () => {
     expect(r.network.nodes.find((n) => n.id === r.network.parts[0].outletNodeId)?.position).toEqual([0, 0.01]);
   });
 });
+
+describe("a large network drawn mostly downstream", () => {
+  it("finds the mouth of a 2,000-reach network with every 7th line drawn upstream, and asks only where lines near it disagree", async () => {
+    const { syntheticNetwork } = await import("../../../scripts/bench/geo-import");
+    const { crsFromEpsg } = await import("@/geo/crs");
+    const toWgs84 = crsFromEpsg(32615).toWgs84;
+    const net = syntheticNetwork(2000);
+    const drawnUp = new Set(net.filter((_, k) => k % 7 === 3).map((x) => x.id));
+    const asLines = (items: typeof net) => items.map((x) => ({ id: x.id, coordinates: x.coords.map(([e, n]) => toWgs84(e, n)) }));
+    // C1, the collector's second reach, is one of the lines drawn upstream: between the mouth (end of C0)
+    // and the free end of the side branch S1_0 only 64 % of the line is drawn toward the mouth
+    expect(drawnUp.has("C1")).toBe(true);
+    const r = run(asLines(net));
+    expect(r.network.parts[0].outletReachId).toBe("C0");
+    expect(r.errors.map((e) => e.code)).toEqual(["outlet_uncertain"]);
+    expect(r.network.parts[0].suggestion).toMatchObject({ basis: "directions", weak: true, runnerUpReachId: "S1_0" });
+    // confirmed by the planner: exactly the lines the generator drew upstream are turned round
+    const confirmed = run(asLines(net), { outlets: [{ reachId: "C0" }] });
+    expect(confirmed.errors).toEqual([]);
+    expect(confirmed.network.reaches.filter((x) => x.flipped).map((x) => x.id).sort()).toEqual([...drawnUp].sort());
+    // with C1 drawn the right way, the other lines drawn upstream do not put the mouth in doubt
+    const fixed = net.map((x) => (x.id === "C1" ? { ...x, coords: [...x.coords].reverse() } : x));
+    const sure = run(asLines(fixed));
+    expect(sure.errors).toEqual([]);
+    expect(sure.network.parts[0]).toMatchObject({ outletReachId: "C0", suggestion: { basis: "directions", weak: false } });
+    expect(sure.network.reaches.filter((x) => x.flipped)).toHaveLength(drawnUp.size - 1);
+  });
+});
