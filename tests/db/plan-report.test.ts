@@ -51,7 +51,7 @@ describe("the report of a published plan (US units) with a comment and its respo
     const facilityThread = p.threads.find((t) => t.facility_id !== null)!.id;
     await addComment(db, w.users.stakeholder, w.basinId, facilityThread, COMMENT);
     await respondToThread(db, w.users.planner, w.basinId, facilityThread, RESPONSE);
-    await closeDueReviews(db, new Date(Date.now() + 8 * 86_400_000));
+    await closeDueReviews(db, new Date(Date.now() + 32 * 86_400_000));
     await publishPlan(db, w.users.lead, w.basinId, planId);
   }, 120_000);
 

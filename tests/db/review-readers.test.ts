@@ -50,7 +50,7 @@ describe("review closing soon", () => {
   });
 
   it("says nothing while the end is more than two days away", async () => {
-    expect(await sendClosingSoonNotices(db, new Date(opened + 4 * DAY))).toBe(0);
+    await sendClosingSoonNotices(db, new Date(opened + 4 * DAY));
     expect(await closingMail(w.basinId)).toHaveLength(0);
   });
 
@@ -58,13 +58,14 @@ describe("review closing soon", () => {
     const at = new Date(opened + 31 * DAY - CLOSING_SOON_MS + 10 * 60_000);
     const members = ["lead", "planner", "discharger", "stakeholder", "spareDischarger", "target"] as const;
     const expected = [...members.map((k) => w.users[k].email), w.users.outsider.email].sort();
-    expect(await sendClosingSoonNotices(db, at)).toBe(expected.length);
+    // (the job is site-wide: other files' reviews may be due too, so this basin's mail is what is counted)
+    await sendClosingSoonNotices(db, at);
     const mail = await closingMail(w.basinId);
     expect(mail.map((m) => m.to_address).sort()).toEqual(expected);
     expect(mail[0].text_body).toMatch(/closes at/);
     expect(mail[0].text_body).toContain(`/reviews/${w.basinId}/${plan.planId}`);
     // the job runs every 30 s: running again queues nothing more
-    expect(await sendClosingSoonNotices(db, new Date(at.getTime() + 60_000))).toBe(0);
+    await sendClosingSoonNotices(db, new Date(at.getTime() + 60_000));
     expect(await closingMail(w.basinId)).toHaveLength(expected.length);
   });
 
@@ -72,8 +73,10 @@ describe("review closing soon", () => {
     const before = (await closingMail(w.basinId)).length;
     const newEnd = new Date(opened + 45 * DAY);
     await extendReview(db, w.users.lead, w.basinId, plan.planId, { endsAt: newEnd.toISOString(), reason: "Dischargers asked for two more weeks" });
-    expect(await sendClosingSoonNotices(db, new Date(opened + 35 * DAY))).toBe(0);
-    expect(await sendClosingSoonNotices(db, new Date(newEnd.getTime() - DAY))).toBe(before);
+    await sendClosingSoonNotices(db, new Date(opened + 35 * DAY));
+    expect(await closingMail(w.basinId)).toHaveLength(before);
+    await sendClosingSoonNotices(db, new Date(newEnd.getTime() - DAY));
+    expect(await closingMail(w.basinId)).toHaveLength(2 * before);
     expect((await closingMail(w.basinId)).filter((m) => m.dedupe_key.includes(newEnd.toISOString()))).toHaveLength(before);
   });
 
@@ -90,8 +93,10 @@ describe("review closing soon", () => {
       endsAt: new Date(start + 6 * HOUR).toISOString(),
       timeZone: "UTC",
     });
-    expect(await sendClosingSoonNotices(db, new Date(start + 2 * HOUR))).toBe(0);
-    expect(await sendClosingSoonNotices(db, new Date(start + 3 * HOUR + 60_000))).toBeGreaterThan(0);
+    await sendClosingSoonNotices(db, new Date(start + 2 * HOUR));
+    expect(await closingMail(w2.basinId)).toHaveLength(0);
+    await sendClosingSoonNotices(db, new Date(start + 3 * HOUR + 60_000));
+    expect((await closingMail(w2.basinId)).length).toBeGreaterThan(0);
   });
 });
 

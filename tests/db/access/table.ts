@@ -278,7 +278,7 @@ const CORE: Record<string, Entry> = {
         expect: lead(204),
         prepare: plan("review"),
         params: planOf,
-        body: () => ({ endsAt: new Date(Date.now() + 30 * 86_400_000).toISOString(), reason: "More time was asked for" }),
+        body: () => ({ endsAt: new Date(Date.now() + 45 * 86_400_000).toISOString(), reason: "More time was asked for" }),
       },
     },
   },
