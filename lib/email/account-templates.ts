@@ -1,4 +1,5 @@
-import { formatWhen, render as renderLayout, type RenderedEmail } from "./templates";
+import { formatWhen } from "@/lib/format/zoned-time";
+import { render as renderLayout, type RenderedEmail } from "./templates";
 
 /**
  * E-mails about accounts: confirm an address, reset a password, join a basin.

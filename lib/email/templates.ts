@@ -4,6 +4,7 @@
  * become <br>. Every notice about a plan carries the planning caution.
  */
 
+import { formatWhen } from "@/lib/format/zoned-time";
 import { PLANNING_CAUTION as CAUTION_LINES } from "@/lib/results/caution";
 
 export interface RenderedEmail {
@@ -36,20 +37,6 @@ function safeUrl(url: string): string {
   const parsed = new URL(url);
   if (parsed.protocol !== "http:" && parsed.protocol !== "https:") throw new Error(`e-mail link must be http(s): ${url}`);
   return parsed.toString();
-}
-
-/** A date and time in an explicit time zone, e.g. "15 Jan 2027, 17:00 UTC" or "4 Jan 2027, 03:00 GMT-6 (America/Chicago)". */
-export function formatWhen(when: Date, timeZone: string): string {
-  const text = new Intl.DateTimeFormat("en-GB", {
-    timeZone,
-    day: "numeric",
-    month: "short",
-    year: "numeric",
-    hour: "2-digit",
-    minute: "2-digit",
-    timeZoneName: "short",
-  }).format(when);
-  return timeZone === "UTC" ? text : `${text} (${timeZone})`;
 }
 
 function fmt(value: number, digits = 1): string {

@@ -30,3 +30,17 @@ export function timeZoneNames(): string[] {
   const names = typeof Intl.supportedValuesOf === "function" ? Intl.supportedValuesOf("timeZone") : [];
   return ["UTC", ...names.filter((n) => n !== "UTC")];
 }
+
+/** A date and time in an explicit time zone, e.g. "15 Jan 2027, 17:00 UTC" or "4 Jan 2027, 03:00 GMT-6 (America/Chicago)". */
+export function formatWhen(when: Date, timeZone: string): string {
+  const text = new Intl.DateTimeFormat("en-GB", {
+    timeZone,
+    day: "numeric",
+    month: "short",
+    year: "numeric",
+    hour: "2-digit",
+    minute: "2-digit",
+    timeZoneName: "short",
+  }).format(when);
+  return timeZone === "UTC" ? text : `${text} (${timeZone})`;
+}

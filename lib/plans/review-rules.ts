@@ -1,4 +1,5 @@
 import type { FieldIssue } from "@/lib/errors";
+import { formatWhen } from "@/lib/format/zoned-time";
 
 /** How far in the past a review may be said to open (the time to click, a clock a little off). */
 export const START_GRACE_MS = 5 * 60_000;
@@ -11,10 +12,6 @@ export interface ReviewDates {
   minReviewDays: number;
   now: Date;
 }
-
-/** "1 Jan 2027, 06:00 GMT-6 (America/Chicago)", as the review e-mails write times. */
-const dateText = (d: Date, timeZone: string) =>
-  `${d.toLocaleString("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", hourCycle: "h23", timeZone, timeZoneName: "short" })} (${timeZone})`;
 
 /**
  * What is wrong with the dates of a review being opened, field by field: it may not open in
@@ -33,7 +30,7 @@ export function reviewDateIssues({ startsAt, endsAt, minReviewDays, now }: Revie
     const earliest = new Date(startsAt.getTime() + minReviewDays * DAY_MS);
     issues.push({
       path: "endsAt",
-      message: `The basin's shortest review is ${minReviewDays} day${minReviewDays === 1 ? "" : "s"}: close it on or after ${dateText(earliest, timeZone)}`,
+      message: `The basin's shortest review is ${minReviewDays} day${minReviewDays === 1 ? "" : "s"}: close it on or after ${formatWhen(earliest, timeZone)}`,
     });
   }
   return issues;

@@ -2,7 +2,6 @@ import { passwordResetEmail } from "@/lib/email/account-templates";
 import { describe, expect, it } from "vitest";
 import {
   escapeHtml,
-  formatWhen,
   planPublishedEmail,
   PLANNING_CAUTION,
   reviewClosingEmail,
@@ -10,6 +9,7 @@ import {
   threadReplyEmail,
 } from "@/lib/email/templates";
 import { retryDelayMs } from "@/lib/email/sender";
+import { formatWhen } from "@/lib/format/zoned-time";
 
 const plan = {
   recipientName: "Mira Tallow",
