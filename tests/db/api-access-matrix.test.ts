@@ -1,21 +1,12 @@
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createDb, getDb } from "@/db/client";
-import { stopBoss } from "@/lib/jobs/queue";
+import { describe, expect, it } from "vitest";
 import { callRoute } from "../support/call-route";
 import { buildWorld } from "../support/world";
-import { CALLERS, matrix, type Expect } from "./access/kit";
+import { CALLERS, matrix, openMatrixDb, type Expect } from "./access/kit";
 import { HTTP_METHODS, ROOT, TABLE, routeFiles } from "./access/table";
 
 /** Every API route × every kind of caller → the expected status (the table is ./access/table.ts). */
-beforeAll(() => {
-  matrix.db = createDb(process.env.DATABASE_URL, 3);
-});
-afterAll(async () => {
-  await stopBoss();
-  await matrix.db.destroy();
-  await getDb().destroy();
-});
+openMatrixDb();
 
 describe("API access matrix", () => {
   it("has an entry for every route file and every exported method", async () => {

@@ -1,8 +1,7 @@
 import { sql } from "kysely";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createDb, getDb, type Db } from "@/db/client";
-import { stopBoss } from "@/lib/jobs/queue";
-import { matrix, type Case } from "../db/access/kit";
+import { describe, expect, it } from "vitest";
+import type { Db } from "@/db/client";
+import { matrix, openMatrixDb, type Case } from "../db/access/kit";
 import { TABLE } from "../db/access/table";
 import { callRoute } from "../support/call-route";
 import { buildWorld, type World } from "../support/world";
@@ -83,14 +82,7 @@ async function crossCases(): Promise<CrossCase[]> {
 
 const CALLERS = ["lead", "planner", "admin"] as const;
 
-beforeAll(() => {
-  matrix.db = createDb(process.env.DATABASE_URL, 3);
-});
-afterAll(async () => {
-  await stopBoss();
-  await matrix.db.destroy();
-  await getDb().destroy();
-});
+openMatrixDb();
 
 describe("an id from another basin", async () => {
   const cases = await crossCases();

@@ -1,4 +1,6 @@
-import type { Db } from "@/db/client";
+import { afterAll, beforeAll } from "vitest";
+import { createDb, getDb, type Db } from "@/db/client";
+import { stopBoss } from "@/lib/jobs/queue";
 import { DEMO_DISCHARGER_MAPPING, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
 import { createRun, processRun } from "@/lib/services/runs";
 import { createScenario } from "@/lib/services/scenarios";
@@ -7,8 +9,20 @@ import { planAt, type PlanStage } from "../../support/plan-fixture";
 import { commitDemo, uploadDemo } from "../../support/demo-network";
 import type { World } from "../../support/world";
 
-/** The matrix's database, set by the test file before any case runs. */
+/** The matrix's database, opened by `openMatrixDb()` before any case runs. */
 export const matrix: { db: Db } = { db: undefined as unknown as Db };
+
+/** Opens the matrix's database for a test file, and closes it, the job queue and the shared pool after. */
+export function openMatrixDb(): void {
+  beforeAll(() => {
+    matrix.db = createDb(process.env.DATABASE_URL, 3);
+  });
+  afterAll(async () => {
+    await stopBoss();
+    await matrix.db.destroy();
+    await getDb().destroy();
+  });
+}
 
 /**
  * Every API route × every kind of caller → the expected status. The first
