@@ -1,4 +1,5 @@
-import { distance, length, lengthToDegrees, lineString, nearestPointOnLine } from "@turf/turf";
+import { distance, lengthToDegrees, nearestPointOnLine } from "@turf/turf";
+import { lineLengthKm } from "./geodesic";
 import { BoxGrid } from "./box-grid";
 import type { LineString, MultiLineString } from "geojson";
 import { PointGrid } from "./point-grid";
@@ -379,7 +380,7 @@ export function buildTopology(lines: readonly TopologyLine[], options: TopologyO
   }
 
   // Second pass: orient each part from its outlet.
-  const weighed = lines.map((l) => ({ ...l, lengthKm: l.lengthKm ?? length(lineString(l.coordinates)) }));
+  const weighed = lines.map((l) => ({ ...l, lengthKm: l.lengthKm ?? lineLengthKm(l.coordinates) }));
   const orientedParent = new Int32Array(nodeCount).fill(-1);
   const seen2 = new Uint8Array(nodeCount);
   const components: TopologyComponent[] = parts.map((order, c) => {
