@@ -10,3 +10,4 @@ export * from "./reach-rows";
 export * from "./compare";
 export * from "./binding-rows";
 export * from "./diagnosis-rows";
+export * from "./governing";
