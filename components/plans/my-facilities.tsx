@@ -1,6 +1,6 @@
 "use client";
 import Link from "next/link";
-import { useMemo } from "react";
+import { useMemo, useState } from "react";
 import { PlanningCaution } from "@/components/results/planning-caution";
 import { ProfileChart } from "@/components/results/profile-chart";
 import { Notice } from "@/components/ui/notice";
@@ -10,12 +10,17 @@ import type { AllocationEntry, AllocationResult, ModelFile, RunResult } from "@/
 import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
 import { isBelowCriterion } from "@/lib/results/do-scale";
 import { downstreamOf, profileSeries } from "@/lib/results/profile-series";
-import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
+import { formatWhen } from "@/lib/format/zoned-time";
+import { PLAN_STAGE_TEXT, type PlanStage } from "@/lib/plans/review-rules";
+import { governingCondition } from "@/lib/results/governing";
 import { usePlanActs } from "./plan-acts";
 import { Thread } from "./plan-view";
 
 interface Snapshot {
-  run: { result: { allocation: AllocationResult; conditions: { name: string; run: RunResult }[] }; modelFiles: { file: ModelFile }[] };
+  run: {
+    result: { allocation: AllocationResult; conditions: { name: string; run: RunResult }[] };
+    modelFiles: { name?: string; file: ModelFile }[];
+  };
 }
 
 export interface MyFacility {
@@ -24,10 +29,21 @@ export interface MyFacility {
   permitId: string;
 }
 
+/** A version as the navigation names it (lib/services/my-facilities: label by state and date). */
+export interface MyPlanVersion {
+  id: string;
+  title: string;
+  label: string;
+  governing: boolean;
+  stage: PlanStage;
+}
+
 /**
  * A discharger's page: for each facility it represents, the proposed allocation
  * beside today's load, the permit terms that follow from it, DO below its
- * outfall with the allocated loads, and its comment thread.
+ * outfall with the allocated loads (under the plan's governing condition, the
+ * others a choice away), and its comment thread. Opens on the plan that
+ * governs; every version is named by its state and date.
  */
 export function MyFacilities({
   basinId,
@@ -38,7 +54,7 @@ export function MyFacilities({
 }: {
   basinId: string;
   facilities: MyFacility[];
-  plans: { id: string; version: number; title: string; status: string }[];
+  plans: MyPlanVersion[];
   initial: PlanDto;
   unitSystem: UnitSystem;
 }) {
@@ -47,30 +63,60 @@ export function MyFacilities({
   const { act, failure } = usePlanActs(basinId, plan.id);
   const snapshot = plan.snapshot as unknown as Snapshot;
   const model = snapshot.run.modelFiles[0].file;
-  const run = snapshot.run.result.conditions[0].run;
   const open = plan.review?.open === true;
+  const shown = plans.find((p) => p.id === plan.id);
+  const governing = plans.find((p) => p.governing);
+  const later = governing?.stage === "published" ? plans.filter((p) => p.stage === "open" || p.stage === "scheduled") : [];
   return (
     <div className="space-y-6" data-testid="my-facilities">
       <PlanningCaution />
-      <div className="flex flex-wrap items-center gap-3 text-sm">
-        <span>
-          Showing <Link href={`/basins/${basinId}/plans/${plan.id}`}>{plan.title}</Link>, version {plan.version} ({PLAN_STAGE_TEXT[plan.stage]})
-        </span>
+      <div className="space-y-2">
+        <p className="text-sm" data-testid="my-plan-shown">
+          Showing <Link href={`/basins/${basinId}/plans/${plan.id}`}>{plan.title}</Link>: <strong>{shown?.label ?? `version ${plan.version} (${PLAN_STAGE_TEXT[plan.stage]})`}</strong>
+          {shown?.governing && <span className="text-ink-soft"> — the plan that governs your allocation</span>}
+        </p>
+        {governing && shown && !shown.governing && (
+          <Notice tone="warning" title="Not the plan that governs">
+            The allocation in force is{" "}
+            <Link href={`/basins/${basinId}/my-facilities?plan=${governing.id}`}>
+              {governing.title}, {governing.label}
+            </Link>
+            .
+          </Notice>
+        )}
+        {later
+          .filter((p) => p.id !== plan.id)
+          .map((p) => (
+            <Notice key={p.id} tone="info" title="A later version is proposed">
+              <Link href={`/basins/${basinId}/my-facilities?plan=${p.id}`}>
+                {p.title}, {p.label}
+              </Link>{" "}
+              would change your allocation if it is published; the published plan stays in force until then.
+            </Notice>
+          ))}
         {plans.length > 1 && (
-          <nav aria-label="Other plan versions" className="flex gap-2">
-            {plans
-              .filter((p) => p.id !== plan.id)
-              .map((p) => (
-                <Link key={p.id} href={`/basins/${basinId}/my-facilities?plan=${p.id}`}>
-                  version {p.version}
-                </Link>
+          <nav aria-label="Plan versions" className="text-sm">
+            <h2 className="mb-1 text-sm font-semibold">Every version proposed to you</h2>
+            <ul className="space-y-1" data-testid="my-plan-versions">
+              {plans.map((p) => (
+                <li key={p.id}>
+                  {p.id === plan.id ? (
+                    <span aria-current="page" className="font-semibold">
+                      {p.label}
+                    </span>
+                  ) : (
+                    <Link href={`/basins/${basinId}/my-facilities?plan=${p.id}`}>{p.label}</Link>
+                  )}{" "}
+                  <span className="text-ink-soft">{p.title}</span>
+                </li>
               ))}
+            </ul>
           </nav>
         )}
       </div>
       {open ? (
         <Notice tone="info" title="Review period open">
-          You can comment on your allocation below until {new Date(plan.review!.endsAt).toLocaleString("en-CA", { dateStyle: "medium", timeStyle: "short", timeZone: plan.review!.timeZone })} ({plan.review!.timeZone}).
+          You can comment on your allocation below until {formatWhen(new Date(plan.review!.endsAt), plan.review!.timeZone)}.
         </Notice>
       ) : (
         <p className="text-sm text-ink-soft">Comments are accepted only while a review period is open.</p>
@@ -86,7 +132,7 @@ export function MyFacilities({
             {entry ? (
               <>
                 <AllocationTerms entry={entry} model={model} permitId={f.permitId} unitSystem={unitSystem} />
-                <BelowOutfall run={run} model={model} permitId={f.permitId} unitSystem={unitSystem} />
+                <BelowOutfall result={snapshot.run.result} modelFiles={snapshot.run.modelFiles} permitId={f.permitId} unitSystem={unitSystem} />
               </>
             ) : (
               <Notice tone="warning">This plan allocates nothing to {f.name}: the facility was not a discharger in the network the plan was computed on.</Notice>
@@ -163,17 +209,63 @@ function AllocationTerms({ entry, model, permitId, unitSystem }: { entry: Alloca
   );
 }
 
-function BelowOutfall({ run, model, permitId, unitSystem }: { run: RunResult; model: ModelFile; permitId: string; unitSystem: UnitSystem }) {
+/**
+ * DO below the outfall under one condition of the plan's run: the governing one (lowest DO,
+ * lib/results/governing) first, named, with the others a choice away when the run has several.
+ */
+function BelowOutfall({
+  result,
+  modelFiles,
+  permitId,
+  unitSystem,
+}: {
+  result: Snapshot["run"]["result"];
+  modelFiles: Snapshot["run"]["modelFiles"];
+  permitId: string;
+  unitSystem: UnitSystem;
+}) {
+  const governing = useMemo(() => governingCondition(result), [result]);
+  const [index, setIndex] = useState(governing.index);
+  const condition = result.conditions[index] ?? result.conditions[governing.index];
+  // a condition's own file where the run kept one per condition; the geometry is the same in each
+  const model = (modelFiles.find((f) => f.name === condition.name) ?? modelFiles[0]).file;
   const below = useMemo(() => {
     const reach = model.dischargers.find((d) => d.id === permitId)?.reach;
-    return reach ? downstreamOf(profileSeries(run, model, reach, unitSystem), permitId) : null;
-  }, [run, model, permitId, unitSystem]);
+    return reach ? downstreamOf(profileSeries(condition.run, model, reach, unitSystem), permitId) : null;
+  }, [condition, model, permitId, unitSystem]);
   if (!below) return null;
   const { series, lowest } = below;
   const criterion = series.criterion_mg_l;
+  const isGoverning = index === governing.index;
+  const selectId = `below-condition-${permitId}`;
   return (
-    <div className="space-y-2">
-      <h3 className="font-semibold">DO below the outfall, with every discharger at its proposed allocation</h3>
+    <div className="space-y-2" data-testid="below-outfall">
+      <div className="flex flex-wrap items-end gap-3">
+        <h3 className="grow font-semibold">DO below the outfall, with every discharger at its proposed allocation</h3>
+        {result.conditions.length > 1 && (
+          <div>
+            <label htmlFor={selectId} className="field-label">
+              Critical condition
+            </label>
+            <select id={selectId} className="field-input" value={index} onChange={(e) => setIndex(Number(e.target.value))}>
+              {result.conditions.map((c, i) => (
+                <option key={c.name} value={i}>
+                  {c.name}
+                  {i === governing.index ? " (governing)" : ""}
+                </option>
+              ))}
+            </select>
+          </div>
+        )}
+      </div>
+      <p className="text-sm" data-testid="below-outfall-condition">
+        Under <strong>{condition.name}</strong>
+        {isGoverning
+          ? result.conditions.length > 1
+            ? `, the condition that governs the plan (lowest DO of its ${result.conditions.length} critical conditions).`
+            : ", the plan's critical condition."
+          : `, one of the plan's ${result.conditions.length} critical conditions; the governing one is ${governing.name}.`}
+      </p>
       {lowest && (
         <p className="text-sm" data-testid="lowest-below-outfall">
           Lowest DO downstream: <strong>{lowest.do_mg_l < 0 ? "anoxic" : `${lowest.do_mg_l.toFixed(2)} mg/L`}</strong>,{" "}
