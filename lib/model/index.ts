@@ -17,5 +17,6 @@ export * from "./network/run";
 export * from "./network/transfer";
 export * from "./allocation/allocate";
 export * from "./allocation/conditions";
+export * from "./allocation/after";
 export * from "./allocation/lp";
 export * from "./allocation/permit";

@@ -11,3 +11,4 @@ export * from "./compare";
 export * from "./binding-rows";
 export * from "./diagnosis-rows";
 export * from "./governing";
+export * from "./run-conditions";

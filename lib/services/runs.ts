@@ -6,7 +6,7 @@ import { listUnfinishedRuns, setUnfinishedRunState } from "@/db/queries/run-faul
 import { findDoneRunByHash, findRun, findRunJsonText, findScenario, insertRun, listRuns as listRunRows, runForWork } from "@/db/queries/scenarios";
 import type { RunKind } from "@/db/schema";
 import { enqueueRun, findRunJob, runTimeLimitSeconds } from "@/lib/jobs/queue";
-import { allocate, ModelInputError, runModel, type AllocationResult, type ModelFile, type RunResult } from "@/lib/model";
+import { allocate, ModelInputError, runModel, runsAfterAllocation, type AllocationResult, type ModelFile, type RunResult } from "@/lib/model";
 import { requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, notFound } from "@/lib/errors";
 import { buildConditionFiles, buildModelFile, ScenarioInputError } from "@/lib/scenarios/build-model-file";
@@ -70,7 +70,11 @@ export interface RunSummaryDto {
 
 export interface RunResultPayload {
   warnings: string[];
-  /** Model runs: today's loads under each condition. Allocation runs: the first condition with the allocated loads. */
+  /**
+   * Model runs: today's loads under each condition. Allocation runs: every condition with
+   * the allocated loads (today's when infeasible); runs stored before this held only the
+   * first condition, and their allocation calls it "base" (lib/results/run-conditions reads both).
+   */
   conditions: { name: string; run: RunResult }[];
   allocation?: AllocationResult;
 }
@@ -179,20 +183,6 @@ function methodsOf(runs: RunResult[]): Record<string, unknown> {
   return { reaeration: ka, deoxygenation_theta_rule: runs[0]?.kinetics.deoxygenation_rule, theta: runs[0]?.kinetics.theta, saturation: SATURATION_METHOD };
 }
 
-/** Replace each discharger's effluent by its allocated CBODu load (same flow). */
-export function withAllocatedLoads(file: ModelFile, allocation: AllocationResult): ModelFile {
-  const byId = new Map(allocation.allocations.map((a) => [a.id, a]));
-  return {
-    ...file,
-    dischargers: file.dischargers.map((d) => {
-      const a = byId.get(d.id);
-      if (!a) return d;
-      const { bod5_mg_l: _bod5, ...rest } = d;
-      return { ...rest, cbodu_mg_l: a.cbodu_mg_l };
-    }),
-  };
-}
-
 /**
  * The job: compute a queued run and store its result or its failure reason.
  * Every write applies only while the run is unfinished, so a run the sweeper
@@ -216,11 +206,10 @@ export async function processRun(db: Db, runId: string): Promise<void> {
       payload = { warnings: inputs.warnings, conditions };
     } else {
       const { name, file } = inputs.files[0];
-      const allocation = allocate(file);
+      // the file's own condition goes by the scenario's name, not the allocator's "base"
+      const allocation = allocate(file, { own_condition_name: name });
       await setUnfinishedRunState(db, runId, { status: "running", progress: 0.7 });
-      const { allocation: _a, ...plain } = file;
-      const after = allocation.feasible ? runModel(withAllocatedLoads(plain, allocation)) : runModel(plain);
-      payload = { warnings: inputs.warnings, conditions: [{ name, run: after }], allocation };
+      payload = { warnings: inputs.warnings, conditions: runsAfterAllocation(file, allocation, name), allocation };
     }
     await setUnfinishedRunState(db, runId, {
       status: "done",

@@ -8,7 +8,7 @@ import { locationKm } from "../network/profile";
 export type { AllocateOptions, AllocationEntry, AllocationResult, BindingCheckpoint, DiagnosisEntry, TmdlTable } from "./types";
 
 export function allocate(file: ModelFile, options: AllocateOptions = {}): AllocationResult {
-  const s = setUp(file);
+  const s = setUp(file, options.own_condition_name);
   const objective = (file.allocation as NonNullable<ModelFile["allocation"]>).objective;
   const tol = options.tolerance_mg_l ?? 1e-6;
   const maxIterations = options.max_iterations ?? 50;

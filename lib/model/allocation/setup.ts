@@ -8,6 +8,7 @@ import { transferAt, transferPath, type TransferPath } from "../network/transfer
 import type { ModelFile } from "../types";
 import { LOAD_FACTOR, loadKgPerDay } from "../units";
 import { applyCondition } from "./conditions";
+import { OWN_CONDITION } from "./own-condition";
 
 /** One row of the LP: a place, under one condition, where DO must meet the requirement. */
 export interface Checkpoint {
@@ -37,11 +38,14 @@ export interface Setup {
   zeroL: Float64Array[];
 }
 
-/** Builds plans per condition, bounds, gross-up, transfer paths. Throws ModelInputError naming the field. */
-export function setUp(file: ModelFile): Setup {
+/**
+ * Builds plans per condition, bounds, gross-up, transfer paths. The file's own condition is
+ * called `ownName` (default "base"). Throws ModelInputError naming the field.
+ */
+export function setUp(file: ModelFile, ownName = OWN_CONDITION): Setup {
   const alloc = file.allocation;
   if (!alloc) throw new ModelInputError(["allocation"], "is required to allocate");
-  const names = ["base", ...(alloc.conditions ?? []).map((c) => c.name)];
+  const names = [ownName, ...(alloc.conditions ?? []).map((c) => c.name)];
   const files = [file, ...(alloc.conditions ?? []).map((c, i) => applyCondition(file, c, ["allocation", "conditions", i]))];
   const plans = files.map(compilePlan);
   const base = plans[0];

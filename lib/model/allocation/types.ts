@@ -12,6 +12,12 @@ export interface AllocateOptions {
    * (x_k = W_k/scale_k, kg/d); the last call is the final LP. For checks and tests.
    */
   inspect_lp?: (lp: Lp, solution: number[], scale: number[]) => void;
+  /**
+   * The name the results give the model file's own condition (binding, diagnosis,
+   * conditions). Default "base", as the CLI prints it; a scenario run passes its first
+   * condition's name.
+   */
+  own_condition_name?: string;
 }
 
 export interface AllocationEntry extends PermitTerms {
