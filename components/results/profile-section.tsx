@@ -27,7 +27,7 @@ export function ProfileSection({
   from: string;
   onFrom: (reachId: string) => void;
   title?: string;
-  csv?: { fileStem: string; about: string[] };
+  csv?: { fileStem: string; about: string[]; condition?: string };
   children?: ReactNode;
 }) {
   const heads = useMemo(() => headwaterReaches(model), [model]);
@@ -49,7 +49,7 @@ export function ProfileSection({
             ))}
           </select>
         </div>
-        {csv && <ProfileCsvButton series={series} fileName={`${csv.fileStem}-profile-${from}.csv`} about={csv.about} />}
+        {csv && <ProfileCsvButton series={series} fileName={`${csv.fileStem}-profile-${from}.csv`} about={csv.about} condition={csv.condition} />}
       </div>
       {children}
       <ProfileChart series={series} />

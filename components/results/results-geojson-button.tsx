@@ -13,18 +13,23 @@ export function ResultsGeoJsonButton({
   network,
   fileName = "reaches-with-results.geojson",
   about = [],
+  condition,
+  label = "Download GeoJSON",
 }: {
   run: RunResult;
   model: ModelFile;
   network: FeatureCollection;
   fileName?: string;
   about?: string[];
+  /** The design condition the run is under: named in the file (lib/results/results-geojson). */
+  condition?: string;
+  label?: string;
 }) {
   return (
     <CsvButton
-      label="Download GeoJSON"
+      label={label}
       onClick={() => {
-        const fc = reachResultsExport({ run, model, network, caution: exportPreface(...about) });
+        const fc = reachResultsExport({ run, model, network, condition, caution: exportPreface(...about, ...(condition === undefined ? [] : [`Condition: ${condition}`])) });
         const url = URL.createObjectURL(new Blob([JSON.stringify(fc)], { type: "application/geo+json" }));
         const a = document.createElement("a");
         a.href = url;

@@ -5,6 +5,7 @@ import { useMemo, useState } from "react";
 import { ProposePlan } from "@/components/plans/propose-plan";
 import { AllocationTable } from "@/components/results/allocation-table";
 import { BindingTable } from "@/components/results/binding-table";
+import { ConditionSummary } from "@/components/results/condition-summary";
 import { DiagnosisTable } from "@/components/results/diagnosis-table";
 import { DoLegend } from "@/components/results/do-legend";
 import { DoMapLazy } from "@/components/results/do-map-lazy";
@@ -19,6 +20,7 @@ import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { useRunQuery } from "@/lib/queries/scenarios";
 import { headwaterReaches } from "@/lib/results";
 import { isBelowCriterion } from "@/lib/results/do-scale";
+import { conditionRows, conditionsLine, governingHeadline, quoted, runConditions } from "@/lib/results/run-conditions";
 import type { RunDto } from "@/lib/services/runs";
 
 /** Everything a finished run shows: map, profile, tables, allocation, exports, and the caution. */
@@ -39,21 +41,29 @@ export function RunResults({
 }) {
   const query = useRunQuery(basinId, initial.id);
   const run = query.data ?? initial;
-  const [conditionIndex, setConditionIndex] = useState(0);
+  // null: the governing condition, until the planner picks another
+  const [picked, setPicked] = useState<number | null>(null);
   const [startReach, setStartReach] = useState<string | null>(null);
 
   const result = run.result;
+  const read = useMemo(() => (result?.conditions.length ? runConditions(result) : null), [result]);
+  const conditionIndex = picked ?? read?.governing ?? 0;
   const condition = result?.conditions[conditionIndex];
+  // an allocation run keeps one model file (its other conditions inside); the network drawn is the same under each
   const model = run.modelFiles[Math.min(conditionIndex, run.modelFiles.length - 1)].file;
   const heads = useMemo(() => headwaterReaches(model), [model]);
   const from = startReach ?? heads[0];
-  const about = [`${basinName} — scenario "${run.scenarioName}" v${run.scenarioVersion}`, `run ${run.id} (${run.kind}), ${run.finishedAt ?? ""}`];
+  const about = [
+    `${basinName} — scenario "${run.scenarioName}" v${run.scenarioVersion}`,
+    `run ${run.id} (${run.kind}), ${run.finishedAt ?? ""}`,
+    ...(result?.conditions.length ? [conditionsLine(result)] : []),
+  ];
   const stem = `${run.scenarioName.replace(/[^\w-]+/g, "-").toLowerCase()}-${run.kind}`;
 
   if (run.status === "queued" || run.status === "running") {
     return <Notice tone="info">This run is {run.status} ({Math.round(run.progress * 100)}%). The page updates by itself.</Notice>;
   }
-  if (run.status === "failed" || !result || !condition) {
+  if (run.status === "failed" || !result || !condition || !read) {
     return (
       <Notice tone="error" title="This run failed">
         {run.error ?? "No result was stored."}
@@ -63,26 +73,38 @@ export function RunResults({
   const r = condition.run;
   // points a hair under the criterion are the allocation's binding checkpoints, held to the solver's tolerance
   const below = r.below_criterion.filter((b) => isBelowCriterion(b.do_mg_l, r.criterion_do_mg_l));
-  const allocation = result.allocation;
+  const allocation = read.allocation;
+  const several = result.conditions.length > 1;
+  const rows = conditionRows(result);
+  const fileStem = (name: string) => `${stem}-${name.replace(/[^\w-]+/g, "-").toLowerCase()}`;
   return (
     <div className="space-y-6" data-testid="run-results">
       <PlanningCaution />
+      <section className="card space-y-3">
+        <p className="text-xs text-ink-faint">{run.kind !== "allocation" ? "Model run on today's loads" : allocation?.feasible ? "Allocation: DO with the allocated loads" : "Allocation: no allocation meets the criterion; DO with today's loads"}</p>
+        <p className="text-xl font-semibold" data-testid="run-headline">
+          {governingHeadline(result)}
+        </p>
+        {several && (
+          <ConditionSummary rows={rows} unitSystem={unitSystem} selected={conditionIndex} onSelect={(i) => setPicked(i)} />
+        )}
+      </section>
       <div className="flex flex-wrap items-end gap-4">
-        <dl className="grid grow grid-cols-2 gap-4 sm:grid-cols-4">
-          <Stat label="Run" value={run.kind === "allocation" ? "Allocation" : "Model, today's loads"} />
-          <Stat label="Lowest DO" value={r.minimum.do_mg_l < 0 ? "anoxic" : `${r.minimum.do_mg_l.toFixed(2)} mg/L`} />
+        <dl className="grid grow grid-cols-2 gap-4 sm:grid-cols-3">
+          <Stat label={`Lowest DO under ${quoted(condition.name)}`} value={r.minimum.do_mg_l < 0 ? "anoxic" : `${r.minimum.do_mg_l.toFixed(2)} mg/L`} />
           <Stat label="Where" value={`${r.minimum.reach}, ${formatIn("length", r.minimum.km, unitSystem)} ${unitLabel("length", unitSystem)}`} />
           <Stat label="Criterion" value={`${r.criterion_do_mg_l.toFixed(1)} mg/L`} />
         </dl>
-        {result.conditions.length > 1 && (
+        {several && (
           <div>
             <label htmlFor="condition" className="field-label">
-              Condition
+              Condition on the map and profile
             </label>
-            <select id="condition" className="field-input" value={conditionIndex} onChange={(e) => setConditionIndex(Number(e.target.value))}>
+            <select id="condition" className="field-input" value={conditionIndex} onChange={(e) => setPicked(Number(e.target.value))}>
               {result.conditions.map((c, i) => (
                 <option key={c.name} value={i}>
                   {c.name}
+                  {i === read.governing ? " (governing)" : ""}
                 </option>
               ))}
             </select>
@@ -91,7 +113,7 @@ export function RunResults({
       </div>
       {below.length > 0 ? (
         <Notice tone="warning">
-          DO falls below the criterion at {below.length} point(s) in {[...new Set(below.map((b) => b.reach))].join(", ")}.
+          DO falls below the criterion at {below.length} point(s) in {[...new Set(below.map((b) => b.reach))].join(", ")} under “{condition.name}”.
         </Notice>
       ) : (
         <Notice tone="success">DO stays at or above the criterion everywhere under “{condition.name}”.</Notice>
@@ -111,12 +133,20 @@ export function RunResults({
         <DoLegend criterionMgL={r.criterion_do_mg_l} />
       </section>
 
-      <ProfileSection run={r} model={model} unitSystem={unitSystem} from={from} onFrom={setStartReach} csv={{ fileStem: stem, about }}>
+      <ProfileSection
+        run={r}
+        model={model}
+        unitSystem={unitSystem}
+        from={from}
+        onFrom={setStartReach}
+        title={several ? `DO along the river under ${quoted(condition.name)}` : undefined}
+        csv={{ fileStem: several ? fileStem(condition.name) : stem, about, condition: condition.name }}
+      >
         <p className="text-sm text-ink-soft">Click a reach on the map, or choose one, to follow its water to the outlet.</p>
       </ProfileSection>
 
       <section className="card">
-        <h2 className="mb-3">Reaches</h2>
+        <h2 className="mb-3">Reaches{several ? ` under ${quoted(condition.name)}` : ""}</h2>
         <ReachResultsTable run={r} unitSystem={unitSystem} selectedReach={from} onSelectReach={setStartReach} />
       </section>
 
@@ -154,8 +184,22 @@ export function RunResults({
           <a className="rounded-md border border-rule-strong px-3 py-1.5 text-sm" href={`/api/basins/${basinId}/runs/${run.id}/model-file`}>
             Download the model file (JSON)
           </a>
-          <ResultsGeoJsonButton run={r} model={model} network={network} fileName={`${stem}-reaches.geojson`} about={about} />
+          {result.conditions.map((c, i) => (
+            <ResultsGeoJsonButton
+              key={c.name}
+              run={c.run}
+              model={run.modelFiles[Math.min(i, run.modelFiles.length - 1)].file}
+              network={network}
+              condition={c.name}
+              label={several ? `Reaches GeoJSON, ${quoted(c.name)}` : "Reaches GeoJSON"}
+              fileName={several ? `${fileStem(c.name)}-reaches.geojson` : `${stem}-reaches.geojson`}
+              about={about}
+            />
+          ))}
         </div>
+        <p className="text-sm text-ink-soft">
+          Every export names the condition it holds; the profile CSV follows the condition shown on the map.
+        </p>
         <p className="text-sm text-ink-soft">
           Model {run.modelVersion}; deoxygenation θ rule: {String(run.methods.deoxygenation_theta_rule ?? "constant")}; saturation:{" "}
           {String(run.methods.saturation ?? "")}. The model file reproduces this run with <code>npm run model</code> or{" "}

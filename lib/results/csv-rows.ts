@@ -2,6 +2,7 @@ import type { UnitSystem } from "@/db/schema";
 import { kgToLb } from "@/lib/model/units";
 import type { AllocationEntry, AllocationResult } from "@/lib/model/allocation/types";
 import type { ModelFile } from "@/lib/model/types";
+import { nameOf, OBJECTIVE_NAMES } from "@/lib/format/labels";
 import { formatDo } from "./do-scale";
 import { exportPreface } from "./caution";
 import type { ProfileSeries, SeriesPoint } from "./profile-series";
@@ -48,7 +49,7 @@ export function allocationCsv(
 ): CsvTable<AllocationRow> {
   const u = loadUnit(system);
   return {
-    preface: exportPreface(...about, `Objective: ${allocation.objective}; feasible: ${allocation.feasible ? "yes" : "no"}`),
+    preface: exportPreface(...about, `Objective: ${nameOf(OBJECTIVE_NAMES, allocation.objective)}; feasible: ${allocation.feasible ? "yes" : "no"}`),
     rows: allocationRows(allocation, model),
     columns: [
       { header: "facility", value: (r) => r.id },
@@ -65,13 +66,17 @@ export function allocationCsv(
   };
 }
 
-/** The DO profile along a path as CSV; anoxic points read "anoxic" in the DO column. */
-export function profileCsv(series: ProfileSeries, about: string[] = []): CsvTable<SeriesPoint> {
+/**
+ * The DO profile along a path as CSV; anoxic points read "anoxic" in the DO column.
+ * With a condition name, a "condition" column and a preface line say which design condition it is.
+ */
+export function profileCsv(series: ProfileSeries, about: string[] = [], condition?: string): CsvTable<SeriesPoint> {
   const u = series.unit;
   return {
-    preface: exportPreface(...about, `Path: ${series.path.join(" → ")}; criterion ${series.criterion_mg_l} mg/L`),
+    preface: exportPreface(...about, ...(condition === undefined ? [] : [`Condition: ${condition}`]), `Path: ${series.path.join(" → ")}; criterion ${series.criterion_mg_l} mg/L`),
     rows: series.points,
     columns: [
+      ...(condition === undefined ? [] : [{ header: "condition", value: () => condition }]),
       { header: "reach", value: (p) => p.reach },
       { header: `distance along path (${u})`, value: (p) => round(p.distance, 3) },
       { header: `to outlet (${u})`, value: (p) => round(p.to_outlet, 3) },

@@ -10,6 +10,8 @@ export interface ResultsGeoJsonInput {
   /** Network map features; reach features have properties.kind "reach", properties.id and a head→mouth LineString. */
   network: FeatureCollection;
   scale?: DoScaleOptions;
+  /** The design condition the run is under (its name): every reach feature and the collection carry it. */
+  condition?: string;
 }
 
 /** Properties of the pieces a reach line is cut into (one per pair of consecutive profile points). */
@@ -108,10 +110,12 @@ export function resultsGeoJson({ run, model, network, scale }: ResultsGeoJsonInp
 
 /**
  * The export "reaches with their results": one feature per reach line with its
- * minimum DO, where it occurs, the anoxic flag and the criterion, plus the pieces
- * and points of resultsGeoJson.
+ * minimum DO, where it occurs, the anoxic flag, the criterion and (when given) the
+ * design condition, plus the pieces and points of resultsGeoJson; the collection names
+ * the condition too (a foreign member, beside the caution).
  */
-export function reachResultsExport(input: ResultsGeoJsonInput & { caution: string[] }): FeatureCollection & { caution: string[] } {
+export function reachResultsExport(input: ResultsGeoJsonInput & { caution: string[] }): FeatureCollection & { caution: string[]; condition?: string } {
+  const condition = input.condition === undefined ? {} : { condition: input.condition };
   const lines = reachLines(input.network);
   const criterion = input.run.criterion_do_mg_l;
   const reaches: Feature[] = input.run.reaches
@@ -129,7 +133,8 @@ export function reachResultsExport(input: ResultsGeoJsonInput & { caution: strin
         below_criterion: isBelowCriterion(r.critical.do_mg_l, criterion),
         anoxic: r.anoxic,
         criterion_do_mg_l: criterion,
+        ...condition,
       },
     }));
-  return { type: "FeatureCollection", caution: input.caution, features: [...reaches, ...resultsGeoJson(input).features] };
+  return { type: "FeatureCollection", caution: input.caution, ...condition, features: [...reaches, ...resultsGeoJson(input).features] };
 }

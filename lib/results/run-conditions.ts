@@ -72,3 +72,13 @@ export function governingHeadline(result: StoredRunResult): string {
   const m = c.run.minimum.do_mg_l;
   return `Lowest DO ${m < 0 ? "anoxic" : `${formatDo(m)} mg/L`} under ${quoted(c.name)}${conditions.length > 1 ? " (governing)" : ""}`;
 }
+
+/**
+ * The line exports carry about a run's conditions. Example: two conditions, the second
+ * governing → `Design conditions: “Design low flow”, “Hot, dry 7Q10” (governing: “Hot, dry 7Q10”)`.
+ */
+export function conditionsLine(result: StoredRunResult): string {
+  const { conditions, governing } = runConditions(result);
+  const names = conditions.map((c) => quoted(c.name)).join(", ");
+  return conditions.length > 1 ? `Design conditions: ${names} (governing: ${quoted(conditions[governing].name)})` : `Design condition: ${names}`;
+}

@@ -63,4 +63,15 @@ describe("profile CSV", () => {
     expect(Number(r2[0][3])).toBe(0);
     expect(Number(r2[0][1])).toBeCloseTo(3 / MI_TO_KM, 3);
   });
+
+  it("says which condition it holds, in a column and in the preface", () => {
+    const f = chainFile();
+    const s = profileSeries(runModel(f), f, "R1");
+    const t = profileCsv(s, ["Tamsel"], "Hot, dry 7Q10");
+    expect(t.preface).toContain("Condition: Hot, dry 7Q10");
+    const parsed = Papa.parse<string[]>(text(t), { comments: "#", skipEmptyLines: true }).data;
+    expect(parsed[0][0]).toBe("condition");
+    for (const r of parsed.slice(1)) expect(r[0]).toBe("Hot, dry 7Q10");
+    expect(profileCsv(s).columns[0].header).toBe("reach");
+  });
 });

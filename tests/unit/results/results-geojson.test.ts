@@ -94,6 +94,15 @@ describe("results GeoJSON of the demo basin", () => {
       expect(f.properties?.anoxic).toBe(r.anoxic);
     }
     expect(out.features.length).toBe(reaches.length + fc.features.length);
+    expect("condition" in out).toBe(false);
+  });
+
+  it("names the design condition it holds on the collection and on every reach", () => {
+    const out = reachResultsExport({ run, model, network, caution: [], condition: "Hot, dry 7Q10" });
+    expect(out.condition).toBe("Hot, dry 7Q10");
+    const reaches = out.features.filter((f) => f.properties?.kind === "reach");
+    expect(reaches.length).toBeGreaterThan(0);
+    for (const f of reaches) expect(f.properties?.condition).toBe("Hot, dry 7Q10");
   });
 });
 

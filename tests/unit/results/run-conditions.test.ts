@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { allocate, runModel, runsAfterAllocation, type RunResult } from "@/lib/model";
-import { conditionRows, governingHeadline, runConditions } from "@/lib/results/run-conditions";
+import { conditionRows, conditionsLine, governingHeadline, runConditions } from "@/lib/results/run-conditions";
 import { example } from "./fixtures";
 
 /** A copy of a run with its lowest DO and criterion set (the summary rows read only these and below_criterion). */
@@ -56,5 +56,14 @@ describe("a run's conditions as screens read them", () => {
   it("headlines one condition without \"(governing)\" and anoxic water as anoxic", () => {
     expect(governingHeadline({ conditions: [{ name: "Design low flow", run: withMinimum(today, 6.2249, 5) }] })).toBe("Lowest DO 6.22 mg/L under “Design low flow”");
     expect(governingHeadline({ conditions: [{ name: "A", run: withMinimum(today, 6, 5) }, { name: "B", run: withMinimum(today, -0.3, 5) }] })).toBe("Lowest DO anoxic under “B” (governing)");
+  });
+});
+
+describe("what exports say about conditions", () => {
+  const today = runModel(example("tamsel-river"));
+  it("lists every condition and names the governing one", () => {
+    const lo = { ...today, minimum: { ...today.minimum, do_mg_l: today.minimum.do_mg_l - 1 } };
+    expect(conditionsLine({ conditions: [{ name: "A", run: today }, { name: "B", run: lo }] })).toBe("Design conditions: “A”, “B” (governing: “B”)");
+    expect(conditionsLine({ conditions: [{ name: "A", run: today }] })).toBe("Design condition: “A”");
   });
 });
