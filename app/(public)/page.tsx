@@ -1,5 +1,4 @@
 import Link from "next/link";
-import { NameMark } from "@/components/brand/name-mark";
 import { getDb } from "@/db/client";
 import { currentActor } from "@/lib/auth/session";
 import { listPublishedPlans } from "@/lib/services/plans";
@@ -11,7 +10,6 @@ export default async function HomePage() {
   const published = await listPublishedPlans(getDb());
   return (
     <main className="mx-auto max-w-3xl px-6 py-16">
-      <NameMark className="mb-10" />
       <h1 className="mb-4 text-3xl">Keep every reach above its dissolved-oxygen criterion — and show your work.</h1>
       <p className="mb-4 text-ink-soft">
         Sagline is a shared workspace for river-basin planners. Import the reach network and the outfalls of the plants

@@ -12,7 +12,7 @@ import { isBelowCriterion } from "@/lib/results/do-scale";
 import { downstreamOf, profileSeries } from "@/lib/results/profile-series";
 import { formatWhen } from "@/lib/format/zoned-time";
 import { PLAN_STAGE_TEXT, type PlanStage } from "@/lib/plans/review-rules";
-import { governingCondition } from "@/lib/results/governing";
+import { runConditions } from "@/lib/results/run-conditions";
 import { usePlanActs } from "./plan-acts";
 import { Thread } from "./plan-view";
 
@@ -224,7 +224,11 @@ function BelowOutfall({
   permitId: string;
   unitSystem: UnitSystem;
 }) {
-  const governing = useMemo(() => governingCondition(result), [result]);
+  // runConditions names an old run's own condition as the scenario does before the governing rule reads the binding checkpoints
+  const governing = useMemo(() => {
+    const index = runConditions(result).governing;
+    return { index, name: result.conditions[index].name };
+  }, [result]);
   const [index, setIndex] = useState(governing.index);
   const condition = result.conditions[index] ?? result.conditions[governing.index];
   // a condition's own file where the run kept one per condition; the geometry is the same in each

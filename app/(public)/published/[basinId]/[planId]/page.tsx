@@ -1,12 +1,15 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { NameMark } from "@/components/brand/name-mark";
 import { PublicPlan } from "@/components/plans/public-plan";
+import { CriticalConditions, MethodGroups, ResponsivenessRecord } from "@/components/plans/public-plan-record";
 import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db/client";
 import { currentActor } from "@/lib/auth/session";
+import { formatWhen } from "@/lib/format/zoned-time";
 import type { AllocationResult, ModelFile, RunResult } from "@/lib/model";
+import { planReport, readSnapshot } from "@/lib/reports/plan-report-data";
+import { responsivenessRows } from "@/lib/results/responsiveness";
 import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
 
 export const metadata: Metadata = { title: "Published plan" };
@@ -23,15 +26,24 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
   if (!found) notFound();
   const { plan, basin, network } = found;
   const snapshot = plan.snapshot as unknown as Snapshot;
+  const record = readSnapshot(plan.snapshot);
+  // the PDF's methods, word for word; the critical conditions get their own table below
+  const methods = planReport(plan, { name: basin.name, unitSystem: basin.unitSystem }, null).methods.filter((g) => g.heading !== "Critical conditions");
+  const timeZone = plan.review?.timeZone ?? "UTC";
   return (
     <main className="mx-auto max-w-6xl px-6 py-10">
-      <Link href="/" className="no-underline hover:no-underline" aria-label="Sagline home">
-        <NameMark />
-      </Link>
-      <h1 className="mt-6">{plan.title}</h1>
-      <p className="mb-6 text-sm text-ink-soft">
-        {basin.name} · version {plan.version} · published {plan.publishedAt ? new Date(plan.publishedAt).toLocaleDateString("en-CA") : ""}
+      <p className="text-sm text-ink-soft">
+        <Link href="/published">Published plans</Link> · {basin.name}
       </p>
+      <h1 className="mt-2">{plan.title}</h1>
+      <p className="text-sm text-ink-soft" data-testid="published-line">
+        {basin.name} · version {plan.version} · published {plan.publishedAt ? formatWhen(new Date(plan.publishedAt), timeZone) : ""}
+      </p>
+      {plan.review && (
+        <p className="mb-6 text-sm text-ink-soft" data-testid="review-line">
+          Public review from {formatWhen(new Date(plan.review.startsAt), timeZone)} to {formatWhen(new Date(plan.review.closedAt ?? plan.review.endsAt), timeZone)}.
+        </p>
+      )}
       {found.supersededBy && (
         <div className="mb-6">
           <Notice tone="warning" title="Superseded">
@@ -51,6 +63,15 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
         unitSystem={basin.unitSystem}
         fileStem={`${basin.slug}-plan-v${plan.version}`}
         names={Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]))}
+        conditions={<CriticalConditions inputs={record.scenario.inputs.conditions} result={record.run.result} unitSystem={basin.unitSystem} />}
+        methods={<MethodGroups groups={methods} />}
+        responsiveness={
+          <ResponsivenessRecord
+            rows={responsivenessRows(plan.threads)}
+            timeZone={timeZone}
+            respondedAt={Object.fromEntries(plan.threads.map((t) => [t.facilityName ?? "The plan as a whole", t.respondedAt]))}
+          />
+        }
       />
     </main>
   );
