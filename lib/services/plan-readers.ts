@@ -1,8 +1,9 @@
-import type { FeatureCollection } from "geojson";
+import type { Feature, FeatureCollection } from "geojson";
 import type { Db } from "@/db/client";
 import { createdByAdministrator } from "@/db/queries/account-origin";
 import { listBasinsForUser } from "@/db/queries/basins";
 import { isFollowing } from "@/db/queries/follows";
+import { networkOutfalls } from "@/db/queries/networks";
 import { planReachLines } from "@/db/queries/plan-reports";
 import { requireActor, type Actor } from "@/lib/auth/guard";
 import { reachFeature } from "./networks";
@@ -39,11 +40,37 @@ export async function readerHome(db: Db, actor: Actor | null) {
 export type ReaderHome = Awaited<ReturnType<typeof readerHome>>;
 
 /**
- * A plan for a reader outside its basin (getPlanForReader decides who may read it) with the
- * reach lines of the network version its run was computed on, for the map of its facilities.
+ * A plan for a reader outside its basin (getPlanForReader decides who may read it) with a map
+ * of its facilities: the reach lines kept with the plan (the network version its run was
+ * computed on) and the outfalls of that version's facilities that the plan allocates to,
+ * snapped to their reaches, named as the plan names them. A plan whose snapshot does not
+ * name its network version gets the reach lines only.
  */
 export async function getPlanForReaderWithMap(db: Db, actor: Actor | null, basinId: string, planId: string) {
   const found = await getPlanForReader(db, actor, basinId, planId);
-  const network: FeatureCollection = { type: "FeatureCollection", features: (await planReachLines(db, found.plan.id)).map(reachFeature) };
+  const networkId = (found.plan.snapshot as { scenario?: { networkId?: string } }).scenario?.networkId;
+  const names = new Map(found.plan.allocations.map((a) => [a.permitId, a.facilityName]));
+  const [reaches, outfalls] = await Promise.all([planReachLines(db, found.plan.id), networkId ? networkOutfalls(db, networkId) : Promise.resolve([])]);
+  const features: Feature[] = [
+    ...reaches.map(reachFeature),
+    ...outfalls
+      .filter((o) => names.has(o.permit_id))
+      .map(
+        (o): Feature => ({
+          type: "Feature",
+          id: `outfall:${o.permit_id}`,
+          geometry: { type: "Point", coordinates: [o.snapped_lon, o.snapped_lat] },
+          properties: {
+            kind: "outfall",
+            id: o.permit_id,
+            name: names.get(o.permit_id) ?? o.facility_name,
+            reachId: o.reach_key,
+            chainageKm: o.chainage_km,
+            snapDistanceM: o.snap_distance_m,
+          },
+        }),
+      ),
+  ];
+  const network: FeatureCollection = { type: "FeatureCollection", features };
   return { ...found, network };
 }

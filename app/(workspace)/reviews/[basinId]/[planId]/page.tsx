@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound, redirect } from "next/navigation";
 import { FollowButton } from "@/components/basins/follow-button";
+import { FacilitiesMap } from "@/components/plans/facilities-map";
 import { PlanView } from "@/components/plans/plan-view";
 import { Denied } from "@/components/ui/denied";
 import { getDb } from "@/db/client";
@@ -9,13 +10,14 @@ import { basinPageAccess } from "@/lib/auth/page-access";
 import { currentActor } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { followState } from "@/lib/services/follows";
-import { getPlanForReader } from "@/lib/services/plans";
+import { getPlanForReaderWithMap } from "@/lib/services/plan-readers";
 
 export const metadata: Metadata = { title: "Plan under review" };
 
 /**
  * A plan as a reader outside its basin sees it: the allocations, the review
- * period and the threads, with a comment box while the review is open.
+ * period, a map of the facilities on the river, and the threads, with a comment box while
+ * the review is open.
  * Members go on to the plan in their workspace; published plans to the public page.
  */
 export default async function ReviewPlanPage({ params }: { params: Promise<{ basinId: string; planId: string }> }) {
@@ -25,13 +27,13 @@ export default async function ReviewPlanPage({ params }: { params: Promise<{ bas
   const actor = await currentActor();
   let found;
   try {
-    found = await getPlanForReader(db, actor, basinId, planId);
+    found = await getPlanForReaderWithMap(db, actor, basinId, planId);
   } catch (e) {
     if (e instanceof AppError && e.status === 404) notFound();
     if (e instanceof AppError) return <Denied message={e.message} />;
     throw e;
   }
-  const { plan, basin } = found;
+  const { plan, basin, network } = found;
   if (plan.status === "published") redirect(`/published/${basin.id}/${plan.id}`);
   return (
     <div>
@@ -45,6 +47,14 @@ export default async function ReviewPlanPage({ params }: { params: Promise<{ bas
           <FollowButton basinId={basin.id} followed={(await followState(db, actor, basin.id)).followed} />
         </div>
       </div>
+      {network.features.length > 0 && (
+        <div className="mb-6">
+          <FacilitiesMap
+            network={network}
+            threadIds={Object.fromEntries(plan.threads.filter((t) => t.permitId).map((t) => [t.permitId!, t.id]))}
+          />
+        </div>
+      )}
       <PlanView
         basinId={basin.id}
         initial={plan}
