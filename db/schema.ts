@@ -208,6 +208,19 @@ export interface PlansTable {
   published_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
   /** The reach lines of the plan's network version as proposed (null only for plans from before they were kept). */
   reach_lines: ColumnType<PlanReachLine[] | null, string | undefined, string | null>;
+  /** The plan's lineage: the id of its version 1 (its own id when it starts a lineage). */
+  lineage_id: string;
+  /** What the lead acknowledged on publishing with threads left unanswered (null when none was). */
+  publication_acknowledgement: ColumnType<PublicationAcknowledgement | null, string | null | undefined, string | null>;
+}
+
+/** Threads left without a response when a plan was published, as the lead acknowledged them. */
+export interface PublicationAcknowledgement {
+  by: string;
+  byId: string;
+  at: string;
+  statement: string;
+  threads: Array<{ id: string; topic: string; permitId: string | null; comments: number; lastCommentAt: string }>;
 }
 
 /** A published plan's PDF report, rendered once. */

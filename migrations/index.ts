@@ -9,6 +9,8 @@ import * as m2026120201 from "./2026120201_sessions_rate_limits";
 import * as m2026120204 from "./2026120204_frozen_plan_rows";
 import * as m2026120205 from "./2026120205_plan_report_files";
 import * as m2026120206 from "./2026120206_review_rules";
+import * as m2026120301 from "./2026120301_publication_acknowledgement";
+import * as m2026120302 from "./2026120302_plan_lineage";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -26,6 +28,8 @@ export const migrations: Record<string, Migration> = {
   "2026120204_frozen_plan_rows": m2026120204,
   "2026120205_plan_report_files": m2026120205,
   "2026120206_review_rules": m2026120206,
+  "2026120301_publication_acknowledgement": m2026120301,
+  "2026120302_plan_lineage": m2026120302,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -3,6 +3,8 @@ import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { isoToZoned, timeZoneNames, zonedToIso } from "@/lib/format/zoned-time";
 import { reviewDateIssues } from "@/lib/plans/review-rules";
+import { awaitsResponse } from "@/lib/results/responsiveness";
+import { MIN_ACK_STATEMENT } from "@/lib/validation/plan";
 import type { PlanDto } from "@/lib/queries/plans";
 import { FieldMessage, failureFor, type Act, type ActFailure } from "./plan-acts";
 import type { PlanPermissions } from "./plan-view";
@@ -63,7 +65,7 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
   const rule = Object.fromEntries(ruleIssues.map((i) => [i.path, i.message]));
   const opened = failureFor(failure, `${p}/review`, "POST", ["startsAt", "endsAt", "timeZone"]);
   const extendedFailure = failureFor(failure, `${p}/review`, "PATCH", ["endsAt", "reason"]);
-  const decided = [failureFor(failure, `${p}/publish`, "POST", []), failureFor(failure, `${p}/withdraw`, "POST", [])].find((f) => f.general);
+  const decided = failureFor(failure, `${p}/withdraw`, "POST", []);
   return (
     <section className="card space-y-3" aria-label="Lead actions">
       <h2>Lead actions</h2>
@@ -166,8 +168,8 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
           </Button>
         </div>
       )}
+      {plan.status === "closed" && can.publish && <PublishPanel plan={plan} act={act} failure={failure} />}
       <div className="flex flex-wrap gap-3">
-        {plan.status === "closed" && can.publish && <Button onClick={() => window.confirm("Publish this plan? It is frozen from then on.") && act(`${p}/publish`)}>Approve and publish</Button>}
         {(plan.status === "draft" || plan.status === "review" || plan.status === "closed") && can.manageReview && (
           <Button variant="danger" onClick={() => window.confirm("Withdraw this plan?") && act(`${p}/withdraw`)}>
             Withdraw
@@ -176,5 +178,73 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
       </div>
       <FieldMessage text={decided?.general} />
     </section>
+  );
+}
+
+/**
+ * Approve and publish: the lead confirms that the plan is frozen from then on and, when
+ * threads have comments without a response, sees them listed and acknowledges them with
+ * a statement (kept with the plan, printed in its responsiveness summary, audited).
+ */
+function PublishPanel({ plan, act, failure }: { plan: PlanDto; act: Act; failure: ActFailure | null }) {
+  const [approved, setApproved] = useState(false);
+  const [acknowledged, setAcknowledged] = useState(false);
+  const [statement, setStatement] = useState("");
+  const unanswered = plan.threads.filter(awaitsResponse);
+  const n = unanswered.length;
+  const published = failureFor(failure, `/plans/${plan.id}/publish`, "POST", ["acknowledgedThreadIds", "statement"]);
+  const ready = approved && (n === 0 || (acknowledged && statement.trim().length >= MIN_ACK_STATEMENT));
+  return (
+    <div className="space-y-3 rounded-md border border-rule-strong p-3" data-testid="publish-panel">
+      <h3 className="font-semibold">Approve and publish</h3>
+      {n === 0 ? (
+        <p className="text-sm text-ink-soft">Every comment received has its response.</p>
+      ) : (
+        <div className="space-y-2">
+          <p className="text-sm font-semibold text-ochre-700" data-testid="unanswered-count">
+            {n} thread{n === 1 ? " has" : "s have"} comments without a response:
+          </p>
+          <ul className="list-disc pl-5 text-sm" data-testid="unanswered-threads">
+            {unanswered.map((t) => {
+              const last = t.comments.reduce((m, c) => (c.at > m ? c.at : m), t.comments[0].at);
+              return (
+                <li key={t.id}>
+                  <a href={`#thread-${t.id}`}>{t.facilityName ? `${t.facilityName} (${t.permitId})` : "The plan as a whole"}</a> — {t.comments.length} comment
+                  {t.comments.length === 1 ? "" : "s"}, the last on{" "}
+                  {new Intl.DateTimeFormat("en-CA", { dateStyle: "medium", timeZone: plan.review?.timeZone ?? "UTC" }).format(new Date(last))}
+                </li>
+              );
+            })}
+          </ul>
+          <label className="flex items-start gap-2 text-sm">
+            <input type="checkbox" className="mt-1" checked={acknowledged} onChange={(e) => setAcknowledged(e.target.checked)} />
+            <span>
+              I have read {n === 1 ? "this thread" : `these ${n} threads`} and publish without a response to {n === 1 ? "it" : "them"}. This is recorded in the
+              audit trail and printed in the responsiveness summary.
+            </span>
+          </label>
+          <FieldMessage text={published.field.acknowledgedThreadIds} />
+          <div>
+            <label htmlFor="publish-statement" className="field-label">
+              Why the plan is published without these responses
+            </label>
+            <textarea id="publish-statement" rows={2} className="field-input" value={statement} onChange={(e) => setStatement(e.target.value)} maxLength={2000} />
+            <p className="text-xs text-ink-faint">At least {MIN_ACK_STATEMENT} characters; printed with the responsiveness summary.</p>
+            <FieldMessage text={published.field.statement} />
+          </div>
+        </div>
+      )}
+      <label className="flex items-start gap-2 text-sm">
+        <input type="checkbox" className="mt-1" checked={approved} onChange={(e) => setApproved(e.target.checked)} />
+        <span>I approve this plan as it stands. Once published it is frozen: it cannot be edited or withdrawn.</span>
+      </label>
+      <Button
+        disabled={!ready}
+        onClick={() => void act(`/plans/${plan.id}/publish`, { acknowledgedThreadIds: unanswered.map((t) => t.id), statement: n > 0 ? statement : "" })}
+      >
+        Approve and publish
+      </Button>
+      <FieldMessage text={published.general} />
+    </div>
   );
 }

@@ -3,7 +3,7 @@ import { useMemo, useState } from "react";
 import { PlanningCaution } from "@/components/results/planning-caution";
 import { ProfileSection } from "@/components/results/profile-section";
 import { CsvButton, downloadCsv } from "@/components/tables/sortable-table";
-import { RESPONSIVENESS_COLUMNS, awaitsResponse, responsivenessPreface, responsivenessRows } from "@/lib/results/responsiveness";
+import { RESPONSIVENESS_COLUMNS, acknowledgementSummary, awaitsResponse, responsivenessPreface, responsivenessRows } from "@/lib/results/responsiveness";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
@@ -127,7 +127,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
             onClick={() =>
               downloadCsv(
                 `plan-v${plan.version}-responsiveness.csv`,
-                responsivenessRows(plan.threads),
+                responsivenessRows(plan.threads, plan.publicationAcknowledgement),
                 RESPONSIVENESS_COLUMNS,
                 responsivenessPreface(plan.title, plan.version),
               )
@@ -135,6 +135,11 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
           />
         </div>
         {!open && <p className="text-sm text-ink-soft">Comments are accepted only while a review period is open.</p>}
+        {plan.publicationAcknowledgement && (
+          <Notice tone="warning" title="Published with threads unanswered">
+            <span data-testid="publication-acknowledgement">{acknowledgementSummary(plan.publicationAcknowledgement, plan.review?.timeZone ?? "UTC")}</span>
+          </Notice>
+        )}
         <div className="flex flex-wrap items-center gap-4 text-sm" data-testid="comment-counts">
           <span>
             {commentCount} comment{commentCount === 1 ? "" : "s"} in {plan.threads.filter((t) => t.comments.length > 0).length} of {plan.threads.length} threads;{" "}
@@ -198,7 +203,7 @@ export function Thread({
   const [writing, setWriting] = useState(mine || thread.facilityId === null);
   const title = thread.facilityName ? `${thread.facilityName} (${thread.permitId})` : "The plan as a whole";
   return (
-    <article className={`card space-y-3 ${mine ? "ring-2 ring-ochre-500" : ""}`} aria-label={`Thread: ${title}`} data-testid="thread">
+    <article id={`thread-${thread.id}`} className={`card scroll-mt-4 space-y-3 ${mine ? "ring-2 ring-ochre-500" : ""}`} aria-label={`Thread: ${title}`} data-testid="thread">
       <div className="flex items-center justify-between">
         <h3 className="font-semibold">{title}</h3>
         {awaitsResponse(thread) ? (

@@ -1,19 +1,47 @@
+import { randomUUID } from "node:crypto";
 import { sql } from "kysely";
 import type { Db } from "../client";
-import type { PlanStatus } from "../schema";
+import type { PlanStatus, PublicationAcknowledgement } from "../schema";
 import { isUuid } from "./users";
 
-export async function nextPlanVersion(db: Db, basinId: string): Promise<number> {
+/**
+ * Where a new plan goes: the lineage of the plan it revises (its next version), or a
+ * lineage of its own (version 1). With `revises` undefined, the plan revises the newest
+ * plan proposed from the same scenario, if any. Locks the basin row so two proposals
+ * cannot take the same version.
+ */
+export async function nextPlanPlace(
+  db: Db,
+  basinId: string,
+  revises: string | null | undefined,
+  scenarioId: string,
+): Promise<{ lineageId: string | null; version: number; revisedPlanId: string | null } | "unknown_plan"> {
   await sql`select id from basins where id = ${basinId} for update`.execute(db);
-  const row = await db.selectFrom("plans").select((eb) => eb.fn.max("version").as("v")).where("basin_id", "=", basinId).executeTakeFirst();
-  return Number(row?.v ?? 0) + 1;
+  let base: { id: string; lineage_id: string } | undefined;
+  if (revises === undefined) {
+    base = await db
+      .selectFrom("plans")
+      .select(["id", "lineage_id"])
+      .where("basin_id", "=", basinId)
+      .where(sql<string>`snapshot->'scenario'->>'id'`, "=", scenarioId)
+      .orderBy("created_at", "desc")
+      .limit(1)
+      .executeTakeFirst();
+  } else if (revises !== null) {
+    if (!isUuid(revises)) return "unknown_plan";
+    base = await db.selectFrom("plans").select(["id", "lineage_id"]).where("basin_id", "=", basinId).where("id", "=", revises).executeTakeFirst();
+    if (!base) return "unknown_plan";
+  }
+  if (!base) return { lineageId: null, version: 1, revisedPlanId: null };
+  const row = await db.selectFrom("plans").select((eb) => eb.fn.max("version").as("v")).where("lineage_id", "=", base.lineage_id).executeTakeFirst();
+  return { lineageId: base.lineage_id, version: Number(row?.v ?? 0) + 1, revisedPlanId: base.id };
 }
 
 export const planQuery = (db: Db, basinId: string) =>
   db
     .selectFrom("plans as p")
     .leftJoin("users as u", "u.id", "p.created_by")
-    .select(["p.id", "p.basin_id", "p.version", "p.title", "p.run_id", "p.status", "p.created_at", "p.published_at", "u.name as created_by_name"])
+    .select(["p.id", "p.basin_id", "p.lineage_id", "p.version", "p.title", "p.run_id", "p.status", "p.created_at", "p.published_at", "p.publication_acknowledgement", "u.name as created_by_name"])
     .where("p.basin_id", "=", basinId);
 
 /**
@@ -128,7 +156,7 @@ export async function listPublishedPlans(db: Db, limit = 50) {
   return db
     .selectFrom("plans as p")
     .innerJoin("basins as b", "b.id", "p.basin_id")
-    .select(["p.id", "p.basin_id", "p.title", "p.version", "p.published_at", "b.name as basin_name", "b.unit_system"])
+    .select(["p.id", "p.basin_id", "p.lineage_id", "p.title", "p.version", "p.published_at", "b.name as basin_name", "b.unit_system"])
     .where("p.status", "=", "published")
     .orderBy("p.published_at", "desc")
     .limit(limit)
@@ -137,11 +165,23 @@ export async function listPublishedPlans(db: Db, limit = 50) {
 
 export async function insertPlan(
   db: Db,
-  v: { basinId: string; version: number; title: string; runId: string; snapshot: unknown; reachLines: unknown[]; createdBy: string },
+  v: { basinId: string; lineageId: string | null; version: number; title: string; runId: string; snapshot: unknown; reachLines: unknown[]; createdBy: string },
 ): Promise<{ id: string }> {
+  // a plan that starts a lineage is its own lineage
+  const id = randomUUID();
   return db
     .insertInto("plans")
-    .values({ basin_id: v.basinId, version: v.version, title: v.title, run_id: v.runId, snapshot: JSON.stringify(v.snapshot), reach_lines: JSON.stringify(v.reachLines), created_by: v.createdBy })
+    .values({
+      id,
+      basin_id: v.basinId,
+      lineage_id: v.lineageId ?? id,
+      version: v.version,
+      title: v.title,
+      run_id: v.runId,
+      snapshot: JSON.stringify(v.snapshot),
+      reach_lines: JSON.stringify(v.reachLines),
+      created_by: v.createdBy,
+    })
     .returning("id")
     .executeTakeFirstOrThrow();
 }
@@ -308,15 +348,25 @@ export async function listPlansUnderReview(db: Db) {
     .execute();
 }
 
-/** The newest plan of a basin published after `version`, if any. */
-export async function newerPublishedPlan(db: Db, basinId: string, version: number) {
+/** The newest version of a plan's lineage published after `version`, if any. */
+export async function newerPublishedPlan(db: Db, lineageId: string, version: number) {
   return db
     .selectFrom("plans")
     .select(["id", "version", "published_at"])
-    .where("basin_id", "=", basinId)
+    .where("lineage_id", "=", lineageId)
     .where("status", "=", "published")
     .where("version", ">", version)
     .orderBy("version", "desc")
     .limit(1)
     .executeTakeFirst();
+}
+
+/** Set what the lead acknowledged on publishing (in the publishing transaction). */
+export async function setPublicationAcknowledgement(db: Db, planId: string, ack: PublicationAcknowledgement): Promise<void> {
+  await db.updateTable("plans").set({ publication_acknowledgement: JSON.stringify(ack) }).where("id", "=", planId).execute();
+}
+
+/** A plan's frozen snapshot (what its run used and produced). */
+export async function planSnapshot(db: Db, planId: string): Promise<unknown> {
+  return (await db.selectFrom("plans").select("snapshot").where("id", "=", planId).executeTakeFirst())?.snapshot;
 }

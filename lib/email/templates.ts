@@ -153,8 +153,24 @@ function loadText(kgDay: number): string {
   return `${fmt(kgDay)} kg/d (${fmt(kgDay * KG_TO_LB)} lb/d)`;
 }
 
+/** The lowest DO of a plan's run under its governing condition (the one with the lowest DO). */
+export interface GoverningFigure {
+  condition: string;
+  /** How many design conditions the run has. */
+  conditions: number;
+  lowestDoMgL: number;
+  reach: string;
+  criterionMgL: number;
+}
+
+function governingSentence(g: GoverningFigure): string {
+  const where = g.conditions > 1 ? `under "${g.condition}", the governing one of its ${g.conditions} design conditions` : `under "${g.condition}"`;
+  const value = g.lowestDoMgL < 0 ? "anoxic" : `${g.lowestDoMgL.toFixed(2)} mg/L`;
+  return `With the allocated loads the lowest dissolved oxygen is ${value} (in reach ${g.reach}) ${where}, against a criterion of ${g.criterionMgL.toFixed(1)} mg/L.`;
+}
+
 export function planPublishedEmail(
-  p: PlanRef & { publishedAt: Date; timeZone: string; allocations: FacilityAllocationNotice[] },
+  p: PlanRef & { publishedAt: Date; timeZone: string; allocations: FacilityAllocationNotice[]; governing?: GoverningFigure | null },
 ): RenderedEmail {
   const lines = p.allocations.map((a) => ({
     facility: a.facilityName,
@@ -182,6 +198,7 @@ export function planPublishedEmail(
     paragraphs: [
       `The plan "${p.planTitle}" (version ${p.planVersion}) for ${p.basinName} was published on ${formatWhen(p.publishedAt, p.timeZone)}.` +
         (p.allocations.length > 0 ? ` Below is ${yours}.` : ""),
+      ...(p.governing ? [governingSentence(p.governing)] : []),
     ],
     textExtra: textExtra || undefined,
     htmlExtra,

@@ -1,7 +1,37 @@
 import type { CsvColumn } from "@/components/tables/sortable-table";
 import { exportPreface } from "./caution";
 
+/** What the lead acknowledged on publishing with threads unanswered (db/schema PublicationAcknowledgement). */
+export interface PublicationAcknowledgementLike {
+  by: string;
+  at: string;
+  statement: string;
+  threads: Array<{ id: string; topic: string; comments: number }>;
+}
+
+/**
+ * The line a thread left unanswered carries in the responsiveness summary: that it had no
+ * response when the plan was published, who acknowledged that, when (in `timeZone`'s
+ * date), and the lead's statement.
+ */
+export function acknowledgementNote(ack: PublicationAcknowledgementLike, timeZone = "UTC"): string {
+  const day = new Intl.DateTimeFormat("en-CA", { dateStyle: "medium", timeZone }).format(new Date(ack.at));
+  return `No response when the plan was published on ${day}; acknowledged by ${ack.by}: "${ack.statement}"`;
+}
+
+/** One sentence for the summary's head: how many threads went out unanswered, and the statement. */
+export function acknowledgementSummary(ack: PublicationAcknowledgementLike, timeZone = "UTC"): string {
+  const n = ack.threads.length;
+  const day = new Intl.DateTimeFormat("en-CA", { dateStyle: "medium", timeZone }).format(new Date(ack.at));
+  return (
+    `${n} thread${n === 1 ? " was" : "s were"} published without a response (${ack.threads.map((t) => t.topic).join("; ")}). ` +
+    `${ack.by} acknowledged this on ${day}: "${ack.statement}"`
+  );
+}
+
 export interface ThreadForSummary {
+  /** The thread's id (matches a publication acknowledgement's threads). */
+  id?: string;
   facilityName: string | null;
   permitId: string | null;
   status: string;
@@ -26,7 +56,8 @@ export interface ResponsivenessRow {
  * The responsiveness summary: every comment with the response its thread
  * received, thread by thread (the plan as a whole first), oldest comment first.
  */
-export function responsivenessRows(threads: ThreadForSummary[]): ResponsivenessRow[] {
+export function responsivenessRows(threads: ThreadForSummary[], ack: PublicationAcknowledgementLike | null = null): ResponsivenessRow[] {
+  const acknowledged = new Set(ack?.threads.map((t) => t.id) ?? []);
   const ordered = [...threads].sort((a, b) => (a.facilityName === null ? -1 : b.facilityName === null ? 1 : a.facilityName.localeCompare(b.facilityName)));
   return ordered.flatMap((t) =>
     [...t.comments]
@@ -38,7 +69,8 @@ export function responsivenessRows(threads: ThreadForSummary[]): ResponsivenessR
         author: c.author,
         role: c.role,
         comment: c.body,
-        response: t.response ?? "",
+        // a thread with later comments than its response keeps the response and gains the note
+        response: [t.response ?? "", ack && t.id && acknowledged.has(t.id) ? acknowledgementNote(ack) : ""].filter(Boolean).join(" — "),
         responder: t.responder ?? "",
         status: t.status,
       })),

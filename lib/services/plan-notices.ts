@@ -2,11 +2,13 @@ import type { Db } from "@/db/client";
 import { findBasinById } from "@/db/queries/basins";
 import { basinFollowersWithEmail } from "@/db/queries/follows";
 import { isThreadComment, lockThreadNotices, outboxRowExists, threadCommentsSince, upsertPendingOutboxRow } from "@/db/queries/thread-digest";
-import { basinMembersWithEmail, dischargerAllocations, planCommenters, threadParticipants } from "@/db/queries/plans";
+import { basinMembersWithEmail, dischargerAllocations, planCommenters, planSnapshot, threadParticipants } from "@/db/queries/plans";
 import { appUrl } from "@/lib/email/app-url";
 import { queueEmail } from "@/lib/email/outbox";
 import { DIGEST_QUOTED, threadDigestEmail } from "@/lib/email/thread-digest-template";
-import { planPublishedEmail, reviewClosingEmail, reviewOpenedEmail, threadReplyEmail } from "@/lib/email/templates";
+import { planPublishedEmail, reviewClosingEmail, reviewOpenedEmail, threadReplyEmail, type GoverningFigure } from "@/lib/email/templates";
+import type { AllocationResult } from "@/lib/model/allocation/types";
+import { governingCondition, type ConditionResult } from "@/lib/results/governing";
 
 /** Works for everyone signed in: members are sent on to the workspace page, others read the plan there. */
 const planUrl = (basinId: string, planId: string) => `${appUrl()}/reviews/${basinId}/${planId}`;
@@ -179,34 +181,44 @@ export async function noticeThreadReply(
   }
 }
 
+/** A published plan is open to anyone: its link needs no sign-in. */
+const publishedUrl = (basinId: string, planId: string) => `${appUrl()}/published/${basinId}/${planId}`;
+
 /**
- * Each discharger linked to a facility gets its final allocation when the plan
- * is published; the basin's other followers hear that it was published.
+ * Everyone with a stake hears that a plan was published: every member of the basin,
+ * every follower, and everyone who commented on the plan — each once. A discharger
+ * linked to facilities also gets their final allocations. The link is the public page of
+ * the published plan, which opens without signing in. The governing condition's lowest
+ * DO (with the allocated loads) is stated, named.
  */
 export async function noticePlanPublished(trx: Db, plan: PlanInfo, publishedAt: Date, timeZone: string) {
   const name = await basinName(trx, plan.basin_id);
   const rows = await dischargerAllocations(trx, plan.id);
-  const byUser = new Map<string, typeof rows>();
-  for (const r of rows) byUser.set(r.user_id, [...(byUser.get(r.user_id) ?? []), r]);
-  const recipients = [
-    ...[...byUser].map(([userId, own]) => ({ userId, person: { id: userId, name: own[0].name, email: own[0].email }, own })),
-    ...(await basinFollowersWithEmail(trx, plan.basin_id)).filter((f) => !byUser.has(f.id)).map((f) => ({ userId: f.id, person: f, own: [] as typeof rows })),
-  ];
-  for (const { userId, person, own } of recipients) {
+  const own = new Map<string, typeof rows>();
+  for (const r of rows) own.set(r.user_id, [...(own.get(r.user_id) ?? []), r]);
+  const people = everyone(
+    rows.map((r) => ({ id: r.user_id, name: r.name, email: r.email })),
+    await basinMembersWithEmail(trx, plan.basin_id),
+    await basinFollowersWithEmail(trx, plan.basin_id),
+    await planCommenters(trx, plan.id),
+  );
+  const governing = await planGoverningFigure(trx, plan.id);
+  for (const person of people) {
     await queueEmail(trx, {
       to: person.email,
       kind: "plan_published",
       basinId: plan.basin_id,
-      dedupeKey: `plan_published:${plan.id}:${userId}`,
+      dedupeKey: `plan_published:${plan.id}:${person.id}`,
       ...planPublishedEmail({
         recipientName: person.name,
         basinName: name,
         planTitle: plan.title,
         planVersion: plan.version,
-        url: planUrl(plan.basin_id, plan.id),
+        url: publishedUrl(plan.basin_id, plan.id),
         publishedAt,
         timeZone,
-        allocations: own.map((r) => ({
+        governing,
+        allocations: (own.get(person.id) ?? []).map((r) => ({
           facilityName: r.facility_name,
           todayCbodUKgDay: r.today_cbodu_kg_day,
           allocatedCbodUKgDay: r.cbodu_kg_day,
@@ -217,4 +229,19 @@ export async function noticePlanPublished(trx: Db, plan: PlanInfo, publishedAt: 
       }),
     });
   }
+}
+
+/** The lowest DO of the plan's run under its governing condition (lib/results/governing), or null for a snapshot without results. */
+async function planGoverningFigure(trx: Db, planId: string): Promise<GoverningFigure | null> {
+  const snapshot = (await planSnapshot(trx, planId)) as { run?: { result?: { conditions?: ConditionResult[]; allocation?: AllocationResult } } } | undefined;
+  const result = snapshot?.run?.result;
+  if (!result?.conditions?.length) return null;
+  const g = governingCondition({ conditions: result.conditions, allocation: result.allocation });
+  return {
+    condition: g.name,
+    conditions: result.conditions.length,
+    lowestDoMgL: g.run.minimum.do_mg_l,
+    reach: g.run.minimum.reach,
+    criterionMgL: g.run.criterion_do_mg_l,
+  };
 }

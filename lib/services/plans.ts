@@ -16,15 +16,17 @@ import {
   listPublishedPlans as listPublishedRows,
   markThreadAddressed,
   newerPublishedPlan,
-  nextPlanVersion,
+  nextPlanPlace,
+  setPublicationAcknowledgement,
   reviewsClosingSoon,
   threadTitle,
   updateReviewPeriod, planAllocations, listBasinPlans, planThreads, transitionPlanStatus, lockPlanStatus } from "@/db/queries/plans";
-import type { PlanStatus } from "@/db/schema";
+import type { PlanStatus, PublicationAcknowledgement } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { planStage, reviewDateIssues } from "@/lib/plans/review-rules";
 import { AppError, conflict, notFound } from "@/lib/errors";
-import type { PlanPropose, ReviewExtend, ReviewOpen } from "@/lib/validation/plan";
+import { awaitsResponse } from "@/lib/results/responsiveness";
+import { MIN_ACK_STATEMENT, type PlanPropose, type PlanPublish, type ReviewExtend, type ReviewOpen } from "@/lib/validation/plan";
 import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
 import { getRun, runScenarioRecord } from "./runs";
 import { findBasinById } from "@/db/queries/basins";
@@ -80,9 +82,12 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
   }
   const reachLines = await networkReachLines(db, scenario.networkId);
   return db.transaction().execute(async (trx) => {
-    const version = await nextPlanVersion(trx, basin.id);
+    const place = await nextPlanPlace(trx, basin.id, input.revises, scenario.id);
+    if (place === "unknown_plan") throw new AppError("invalid", "The plan to revise is not a plan of this basin", [{ path: "revises", message: "Not a plan of this basin" }]);
+    const { version, lineageId, revisedPlanId } = place;
     const plan = await insertPlan(trx, {
       basinId: basin.id,
+      lineageId,
       version,
       title: input.title,
       runId: run.id,
@@ -109,8 +114,8 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
       });
     }
     await insertThreads(trx, plan.id, facilityIds);
-    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.proposed", targetType: "plan", targetId: plan.id, details: { version, runId: run.id } });
-    return { id: plan.id, version };
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.proposed", targetType: "plan", targetId: plan.id, details: { version, runId: run.id, revises: revisedPlanId } });
+    return { id: plan.id, version, revises: revisedPlanId };
   });
 }
 
@@ -121,6 +126,8 @@ export async function listPlans(db: Db, actor: Actor | null, basinId: string) {
   const now = new Date();
   return rows.map((p) => ({
     id: p.id,
+    /** Versions count within a lineage (a plan and its revisions); lineageId is its version 1's id. */
+    lineageId: p.lineage_id,
     version: p.version,
     title: p.title,
     status: p.status,
@@ -141,6 +148,7 @@ export async function getPlan(db: Db, actor: Actor | null, basinId: string, plan
   const [allocations, threads] = await Promise.all([planAllocations(db, plan.id), planThreads(db, plan.id)]);
   return {
     id: plan.id,
+    lineageId: plan.lineage_id,
     version: plan.version,
     title: plan.title,
     status: plan.status,
@@ -148,6 +156,8 @@ export async function getPlan(db: Db, actor: Actor | null, basinId: string, plan
     createdAt: plan.created_at.toISOString(),
     createdBy: plan.created_by_name,
     publishedAt: plan.published_at?.toISOString() ?? null,
+    /** Threads the lead published without a response, and why (null when every comment had its response). */
+    publicationAcknowledgement: plan.publication_acknowledgement,
     /** The basin's shortest review, days: the lead's form checks the dates against it as the server does. */
     minReviewDays: basin.min_review_days,
     snapshot: (plan as typeof plan & { snapshot: Record<string, unknown> }).snapshot,
@@ -267,16 +277,75 @@ export async function sendClosingSoonNotices(db: Db, now = new Date()): Promise<
   return queued;
 }
 
-/** Approve and publish a plan whose review has closed (lead). The plan is frozen from then on. */
-export async function publishPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
+/** Who a thread is about, as readers see it. */
+const threadTopic = (facilityName: string | null) => facilityName ?? "The plan as a whole";
+
+/**
+ * Approve and publish a plan whose review has closed (lead). The plan is frozen from then
+ * on. A thread whose comments have no response (awaitsResponse) must be acknowledged by
+ * the lead, by id, with a statement of why the plan goes out without answering it; the
+ * acknowledgement is kept with the plan, printed in its responsiveness summary and
+ * written to the audit trail. A thread left unanswered that the lead did not see (a
+ * comment written or a response withdrawn meanwhile) is refused by name.
+ */
+export async function publishPlan(db: Db, actor: Actor | null, basinId: string, planId: string, input: PlanPublish = { acknowledgedThreadIds: [], statement: "" }) {
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "plan.publish");
   if (plan.status !== "closed") throw conflict(`A plan is published after its review closes; this one is ${plan.status}`);
   await db.transaction().execute(async (trx) => {
+    // the row lock holds responses and the closing job off until this transaction ends
+    if ((await lockPlanStatus(trx, plan.id, "update")) !== "closed") throw raced();
+    const threads = await planThreads(trx, plan.id);
+    const unanswered = threads.filter((t) =>
+      awaitsResponse({ respondedAt: t.responded_at?.toISOString() ?? null, comments: t.comments.map((c) => ({ at: c.created_at.toISOString() })) }),
+    );
+    const acknowledged = new Set(input.acknowledgedThreadIds);
+    const missing = unanswered.filter((t) => !acknowledged.has(t.id));
+    if (missing.length > 0) {
+      const names = missing.map((t) => `"${threadTopic(t.facility_name)}"`).join(", ");
+      throw new AppError(
+        "invalid",
+        `${missing.length} thread${missing.length === 1 ? " has" : "s have"} comments without a response: ${names}. Respond, or acknowledge each before publishing`,
+        [{ path: "acknowledgedThreadIds", message: `Not acknowledged: ${names}` }],
+      );
+    }
+    if (unanswered.length > 0 && input.statement.length < MIN_ACK_STATEMENT) {
+      throw new AppError("invalid", "Say why the plan is published with threads unanswered", [
+        { path: "statement", message: `Say why the plan is published with threads unanswered (at least ${MIN_ACK_STATEMENT} characters)` },
+      ]);
+    }
     const publishedAt = new Date();
+    let ack: PublicationAcknowledgement | null = null;
+    if (unanswered.length > 0) {
+      ack = {
+        by: actor!.name,
+        byId: actor!.id,
+        at: publishedAt.toISOString(),
+        statement: input.statement,
+        threads: unanswered.map((t) => ({
+          id: t.id,
+          topic: threadTopic(t.facility_name),
+          permitId: t.permit_id,
+          comments: t.comments.length,
+          lastCommentAt: t.comments.reduce((m, c) => (c.created_at > m ? c.created_at : m), t.comments[0].created_at).toISOString(),
+        })),
+      };
+      // written while the plan is still closed: once published, its row is frozen
+      await setPublicationAcknowledgement(trx, plan.id, ack);
+    }
     if (!(await transitionPlanStatus(trx, plan.id, ["closed"], "published", { published_by: actor!.id, published_at: publishedAt }))) throw raced();
     const period = await currentPeriod(trx, plan.id);
     await noticePlanPublished(trx, plan, publishedAt, period?.time_zone ?? "UTC");
-    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.published", targetType: "plan", targetId: plan.id, details: { version: plan.version } });
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor!.id,
+      action: "plan.published",
+      targetType: "plan",
+      targetId: plan.id,
+      details: {
+        version: plan.version,
+        ...(ack ? { unansweredThreads: ack.threads.map((t) => ({ id: t.id, topic: t.topic, comments: t.comments })), statement: ack.statement } : {}),
+      },
+    });
   });
 }
 
@@ -332,6 +401,9 @@ export async function respondToThread(db: Db, actor: Actor | null, basinId: stri
   if (!thread) throw notFound("Thread");
   if (thread.plan_status === "published" || thread.plan_status === "withdrawn") throw conflict(`This plan is ${thread.plan_status}; its threads are closed`);
   await db.transaction().execute(async (trx) => {
+    // publishing locks the plan for update: a response waits for it, then finds the plan frozen
+    const status = await lockPlanStatus(trx, thread.plan_id, "share");
+    if (status === "published" || status === "withdrawn") throw conflict(`This plan is ${status}; its threads are closed`);
     await markThreadAddressed(trx, thread.id, response, actor!.id);
     const plan = (await findPlan(trx, basin.id, thread.plan_id))!;
     await noticeThreadReply(
@@ -348,10 +420,10 @@ export async function respondToThread(db: Db, actor: Actor | null, basinId: stri
 export async function listPublishedPlans(db: Db) {
   const rows = await listPublishedRows(db);
   const newest = new Map<string, number>();
-  for (const p of rows) newest.set(p.basin_id, Math.max(newest.get(p.basin_id) ?? 0, p.version));
+  for (const p of rows) newest.set(p.lineage_id, Math.max(newest.get(p.lineage_id) ?? 0, p.version));
   return rows.map((p) => ({
-    /** A later version of the basin's plan has been published since. */
-    superseded: p.version < newest.get(p.basin_id)!,
+    /** A later version of this plan (its lineage) has been published since. */
+    superseded: p.version < newest.get(p.lineage_id)!,
     id: p.id,
     basinId: p.basin_id,
     basinName: p.basin_name,
@@ -368,7 +440,7 @@ export async function getPublishedPlan(db: Db, actor: Actor | null, basinId: str
     throw e;
   });
   if (found?.plan.status !== "published") return null;
-  const newer = await newerPublishedPlan(db, basinId, found.plan.version);
+  const newer = await newerPublishedPlan(db, found.plan.lineageId, found.plan.version);
   return { ...found, supersededBy: newer ? { id: newer.id, version: newer.version } : null };
 }
 

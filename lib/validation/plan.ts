@@ -3,6 +3,11 @@ import { z } from "zod";
 export const planProposeSchema = z.object({
   runId: z.uuid("runId must be a run id"),
   title: z.string().trim().min(3, "Give the plan a title").max(200),
+  /**
+   * The plan this one revises (it becomes that plan's next version); null starts a plan of
+   * its own (version 1). Left out, the plan revises the newest plan from the same scenario.
+   */
+  revises: z.uuid("revises must be a plan id").nullable().optional(),
 });
 export type PlanPropose = z.infer<typeof planProposeSchema>;
 
@@ -38,3 +43,16 @@ export const commentSchema = z.object({
 export const responseSchema = z.object({
   response: z.string().trim().min(1, "Write the response").max(10_000),
 });
+
+/**
+ * Publishing: threads with a comment and no response must each be acknowledged by the
+ * lead, with a statement of why the plan is published without answering them.
+ */
+export const planPublishSchema = z.object({
+  acknowledgedThreadIds: z.array(z.uuid("Each acknowledged thread must be a thread id")).max(1000).default([]),
+  statement: z.string().trim().max(2000, "Keep the statement under 2 000 characters").default(""),
+});
+export type PlanPublish = z.infer<typeof planPublishSchema>;
+
+/** The shortest statement a lead may give for publishing with threads unanswered. */
+export const MIN_ACK_STATEMENT = 10;

@@ -1,5 +1,6 @@
 import { sql } from "kysely";
 import { beforeAll, describe, expect, it } from "vitest";
+import { awaitsResponse } from "@/lib/results/responsiveness";
 import * as planRoute from "@/app/api/basins/[basinId]/plans/[planId]/route";
 import * as plansRoute from "@/app/api/basins/[basinId]/plans/route";
 import * as reviewRoute from "@/app/api/basins/[basinId]/plans/[planId]/review/route";
@@ -129,10 +130,14 @@ describe("a plan from proposal to publication", () => {
     await expect(publishPlan(db, w.users.planner, w.basinId, planId)).rejects.toThrow(/does not allow plan.publish/);
     const dp1001 = await db.selectFrom("plan_allocations").select("facility_id").where("plan_id", "=", planId).where("permit_id", "=", "DP-1001").executeTakeFirstOrThrow();
     await db.insertInto("facility_users").values({ facility_id: dp1001.facility_id, user_id: w.users.discharger.id }).execute();
-    await publishPlan(db, w.users.lead, w.basinId, planId);
+    // threads with comments after their last response: the lead acknowledges them (tests/db/publication.test.ts has the rules)
+    const waiting = (await getPlan(db, w.users.lead, w.basinId, planId)).threads.filter(awaitsResponse).map((t) => t.id);
+    expect(waiting.length).toBeGreaterThan(0);
+    await publishPlan(db, w.users.lead, w.basinId, planId, { acknowledgedThreadIds: waiting, statement: "Answered in the permit notices that follow." });
     const published = await db.selectFrom("email_outbox").select(["to_address", "text_body"]).where("basin_id", "=", w.basinId).where("kind", "=", "plan_published").execute();
-    expect(published.map((p) => p.to_address)).toEqual([w.users.discharger.email]);
-    expect(published[0].text_body).toMatch(/Quillford Water Reclamation Plant/);
+    // every member hears of it; the linked discharger with its final allocation
+    expect(published.map((p) => p.to_address)).toContain(w.users.stakeholder.email);
+    expect(published.find((p) => p.to_address === w.users.discharger.email)!.text_body).toMatch(/Quillford Water Reclamation Plant/);
     const signedOut = await callRoute(planRoute.GET, "GET", { params: { basinId: w.basinId, planId } });
     expect(signedOut.status).toBe(200);
     expect((signedOut.json as PlanJson).status).toBe("published");

@@ -189,18 +189,22 @@ describe("versions", () => {
     expect(await listPlans(db, null, w.basinId)).toEqual([]);
   });
 
-  it("a published plan says when a later version has been published", async () => {
+  it("a published plan says when a later version of it has been published", async () => {
     const w = await buildWorld(db);
     const first = await planAt(db, w, "published");
     expect((await getPublishedPlan(db, null, w.basinId, first.planId))!.supersededBy).toBeNull();
-    const second = await planAt(db, w, "published");
+    // a plan of its own (another scenario, not a revision) supersedes nothing
+    const separate = await planAt(db, w, "published", { revises: null });
+    expect((await getPublishedPlan(db, null, w.basinId, first.planId))!.supersededBy).toBeNull();
+    const second = await planAt(db, w, "published", { revises: first.planId });
     const old = (await getPublishedPlan(db, null, w.basinId, first.planId))!;
     expect(old.supersededBy?.id).toBe(second.planId);
     expect((await getPublishedPlan(db, null, w.basinId, second.planId))!.supersededBy).toBeNull();
     const front = (await listPublishedPlans(db)).filter((p) => p.basinId === w.basinId);
-    expect(front.map((p) => [p.id, p.superseded])).toEqual([
-      [second.planId, false],
-      [first.planId, true],
+    expect(front.map((p) => [p.id, p.version, p.superseded])).toEqual([
+      [second.planId, 2, false],
+      [separate.planId, 1, false],
+      [first.planId, 1, true],
     ]);
   });
 });
@@ -214,7 +218,7 @@ describe("a discharger's own facilities", () => {
 
   it("is empty for a member who represents no facility", async () => {
     const v = await getMyFacilities(db, w.users.stakeholder, w.basinId);
-    expect(v).toEqual({ facilities: [], plans: [], plan: null });
+    expect(v).toMatchObject({ facilities: [], plans: [], plan: null });
   });
 
   it("offers no plan while the only plan is a draft", async () => {

@@ -185,13 +185,24 @@ describe("from a proposed plan to a published one", () => {
       await lead.waitForTimeout(1000);
     }
     expect(await lead.getByTestId("plan-status").textContent()).toMatch(/review closed/);
-    lead.once("dialog", (d) => void d.accept());
-    await lead.getByRole("button", { name: "Approve and publish" }).click();
+    // the plan as a whole had two comments and no response: listed, and to be acknowledged with a statement
+    const panel = lead.getByTestId("publish-panel");
+    expect(await panel.getByTestId("unanswered-count").textContent()).toBe("1 thread has comments without a response:");
+    expect(await panel.getByTestId("unanswered-threads").textContent()).toMatch(/The plan as a whole — 2 comments, the last on/);
+    const button = panel.getByRole("button", { name: "Approve and publish" });
+    await panel.getByLabel(/I approve this plan as it stands/).check();
+    expect(await button.isDisabled()).toBe(true);
+    await panel.getByLabel(/publish without a response to it/).check();
+    await panel.getByLabel("Why the plan is published without these responses").fill("The August flow question is taken up in the basin's next revision.");
+    await lead.screenshot({ path: `${SHOTS}/publish-acknowledge.png`, fullPage: true });
+    await button.click();
     await lead.getByTestId("plan-status").filter({ hasText: "published" }).waitFor();
+    expect(await lead.getByTestId("publication-acknowledgement").textContent()).toMatch(/1 thread was published without a response \(The plan as a whole\)\. .* acknowledged this on .*: "The August flow question/);
     // the audit trail shows who closed, who published
     await lead.goto(`${baseUrl}/basins/${basinId}/audit?area=plans`);
     const audit = (await lead.getByTestId("audit-table").textContent()) ?? "";
     expect(audit).toMatch(/Plan published/);
+    expect(audit).toMatch(/The August flow question is taken up/);
     expect(audit).toMatch(/Review period closed/);
     await lead.close();
   });
@@ -202,6 +213,9 @@ describe("from a proposed plan to a published one", () => {
     expect(mail.text).toMatch(/Final allocation \(CBODu\): [\d,.]+ kg\/d/);
     const follower = await waitForMail(mailDir, PUBLIC.email, (m) => m.subject.startsWith("Plan published:"));
     expect(follower.text).not.toMatch(/Final allocation/);
+    // every member hears too, and each link opens the public page, no sign-in needed
+    const member = await waitForMail(mailDir, user("stakeholder").email, (m) => m.subject.startsWith("Plan published:"));
+    for (const m of [mail, follower, member]) expect(m.text).toContain(`/published/${basinId}/${planId}`);
     const planner = await demo("planner");
     const threads = ((await (await planner.request.get(`${baseUrl}/api/basins/${basinId}/plans/${planId}`)).json()) as { threads: { id: string }[] }).threads;
     const refused = await planner.request.post(`${baseUrl}/api/basins/${basinId}/threads/${threads[0].id}/response`, { data: { response: "Too late" } });

@@ -284,7 +284,7 @@ const CORE: Record<string, Entry> = {
   },
   "app/api/basins/[basinId]/plans/[planId]/publish/route.ts": {
     load: () => import("@/app/api/basins/[basinId]/plans/[planId]/publish/route"),
-    methods: { POST: { expect: lead(204), prepare: plan("closed"), params: planOf } },
+    methods: { POST: { expect: lead(204), prepare: plan("closed"), params: planOf, body: () => ({}) } },
   },
   "app/api/basins/[basinId]/plans/[planId]/withdraw/route.ts": {
     load: () => import("@/app/api/basins/[basinId]/plans/[planId]/withdraw/route"),

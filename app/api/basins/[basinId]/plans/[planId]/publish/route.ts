@@ -1,7 +1,9 @@
 import { route } from "@/lib/api/route";
 import { publishPlan } from "@/lib/services/plans";
 import { planParams } from "@/lib/validation/params";
+import { planPublishSchema } from "@/lib/validation/plan";
 
-export const POST = route({ access: { basin: "plan.publish" }, params: planParams, status: 204 }, ({ db, actor, params }) =>
-  publishPlan(db, actor, params.basinId, params.planId),
+/** Approve and publish a closed review's plan; unanswered threads are acknowledged by id, with a statement. */
+export const POST = route({ access: { basin: "plan.publish" }, params: planParams, body: planPublishSchema, status: 204 }, ({ db, actor, params, body }) =>
+  publishPlan(db, actor, params.basinId, params.planId, body),
 );
