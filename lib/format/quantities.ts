@@ -48,3 +48,25 @@ export function formatIn(kind: Kind, si: number | null | undefined, system: Unit
   const t = TABLE[kind][system];
   return t.convert(si).toFixed(t.digits);
 }
+
+/**
+ * A percentage to `digits` decimals that never reads "-0.0": anything that rounds to
+ * zero is "0.0". "—" when missing. Example: formatPercent(-0.02) → "0.0"; formatPercent(12.345) → "12.3".
+ */
+export function formatPercent(pct: number | null | undefined, digits = 1): string {
+  if (pct === null || pct === undefined || !Number.isFinite(pct)) return "—";
+  const shown = pct.toFixed(digits);
+  return Number(shown) === 0 ? (0).toFixed(digits) : shown;
+}
+
+/**
+ * A reduction from today's load in words: "12.5 % cut"; "no cut" when it rounds to zero;
+ * "2.0 % above today" when the allocation exceeds today's load; "—" when unknown
+ * (today's load is zero). Example: reductionText(-0.03) → "no cut".
+ */
+export function reductionText(pct: number | null | undefined, digits = 1): string {
+  if (pct === null || pct === undefined || !Number.isFinite(pct)) return "—";
+  const shown = formatPercent(Math.abs(pct), digits);
+  if (Number(shown) === 0) return "no cut";
+  return pct > 0 ? `${shown} % cut` : `${shown} % above today`;
+}

@@ -12,3 +12,5 @@ export * from "./binding-rows";
 export * from "./diagnosis-rows";
 export * from "./governing";
 export * from "./run-conditions";
+export * from "./objective-text";
+export * from "./input-diff";

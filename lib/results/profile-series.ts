@@ -149,3 +149,71 @@ export function downstreamOf(series: ProfileSeries, dischargerId: string) {
   };
   return { series: out, lowest };
 }
+
+/** One run's DO line on an overlay chart. */
+export interface OverlayLine {
+  label: string;
+  /** The condition the line is under. */
+  condition: string;
+  points: Array<{ distance: number; do_shown_mg_l: number; do_mg_l: number; reach: string }>;
+  /** Lowest DO on the path and where (distance in the overlay's unit). */
+  lowest: { do_mg_l: number; distance: number; reach: string };
+}
+
+export interface ProfileOverlay {
+  unit: DistanceUnit;
+  path: string[];
+  length: number;
+  /** Criteria of the runs (one value when they agree). */
+  criteria_mg_l: number[];
+  reaches: ProfileSeries["reaches"];
+  dischargers: ProfileSeries["dischargers"];
+  lines: OverlayLine[];
+  /** Runs left out because the start reach or its path is not in their network. */
+  skipped: string[];
+}
+
+/**
+ * DO profiles of several runs along one path, on one distance axis, for overlaying: each
+ * run's series from `startReach` (profileSeries), the reach bounds and dischargers from the
+ * first run that has the path. A run whose model lacks the start reach, or whose path
+ * differs, is listed in `skipped` rather than drawn on a wrong axis.
+ */
+export function profileOverlay(
+  runs: Array<{ label: string; condition: string; run: RunResult; model: ModelFile }>,
+  startReach: string,
+  system: UnitSystem = "SI",
+): ProfileOverlay {
+  const out: ProfileOverlay = { unit: distanceUnit(system), path: [], length: 0, criteria_mg_l: [], reaches: [], dischargers: [], lines: [], skipped: [] };
+  for (const r of runs) {
+    let s: ProfileSeries;
+    try {
+      s = profileSeries(r.run, r.model, startReach, system);
+    } catch {
+      out.skipped.push(r.label);
+      continue;
+    }
+    if (out.lines.length === 0) {
+      out.path = s.path;
+      out.length = s.length;
+      out.reaches = s.reaches;
+      out.dischargers = s.dischargers;
+    } else if (s.path.join("›") !== out.path.join("›")) {
+      out.skipped.push(r.label);
+      continue;
+    }
+    if (!out.criteria_mg_l.includes(s.criterion_mg_l)) out.criteria_mg_l.push(s.criterion_mg_l);
+    const low = s.points.reduce((a, p) => (p.do_mg_l < a.do_mg_l ? p : a), s.points[0]);
+    // the exact critical points belong on the line too: the lowest DO is often between profile points
+    const points = [...s.points.map((p) => ({ distance: p.distance, do_shown_mg_l: p.do_shown_mg_l, do_mg_l: p.do_mg_l, reach: p.reach }))];
+    for (const c of s.criticals) {
+      // a critical point at a profile point (a segment end) is already on the line
+      if (!s.points.some((p) => Math.abs(p.distance - c.distance) < 1e-9)) points.push({ distance: c.distance, do_shown_mg_l: c.do_shown_mg_l, do_mg_l: c.do_mg_l, reach: c.reach });
+    }
+    points.sort((a, b) => a.distance - b.distance);
+    const crit = s.criticals.reduce((a, c) => (c.do_mg_l < a.do_mg_l ? c : a), s.criticals[0]);
+    const lowest = crit && crit.do_mg_l < low.do_mg_l ? crit : low;
+    out.lines.push({ label: r.label, condition: r.condition, points, lowest: { do_mg_l: lowest.do_mg_l, distance: lowest.distance, reach: lowest.reach } });
+  }
+  return out;
+}

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { runModel } from "@/lib/model";
 import { MI_TO_KM } from "@/lib/model/units";
-import { anoxicStretches, downstreamOf, profileSeries } from "@/lib/results/profile-series";
+import { anoxicStretches, downstreamOf, profileOverlay, profileSeries } from "@/lib/results/profile-series";
 import { chainFile, example } from "./fixtures";
 
 describe("DO-versus-distance series", () => {
@@ -130,5 +130,40 @@ describe("the stretch below an outfall", () => {
 
   it("refuses a discharger that is not on the path", () => {
     expect(() => downstreamOf(full, "NOPE")).toThrow(/not on the path/);
+  });
+});
+
+describe("profiles of several runs overlaid", () => {
+  it("puts each run on the same path and axis, with its lowest DO, and skips a run without the start reach", () => {
+    const run = runModel;
+    const chain = chainFile;
+    const series = profileSeries;
+        const a = chain();
+    const b = chain();
+    b.dischargers[0].cbodu_mg_l = 120;
+    // another network where the first reach is called Q1
+    const other = chain();
+    other.reaches[0].id = "Q1";
+    other.headwaters[0].reach = "Q1";
+    const o = profileOverlay(
+      [
+        { label: "today", condition: "c", run: run(a), model: a },
+        { label: "double load", condition: "c", run: run(b), model: b },
+        { label: "no R1", condition: "c", run: run(other), model: other },
+      ],
+      "R1",
+    );
+    expect(o.path).toEqual(["R1", "R2", "R3"]);
+    expect(o.lines.map((l) => l.label)).toEqual(["today", "double load"]);
+    expect(o.skipped).toEqual(["no R1"]);
+    expect(o.criteria_mg_l).toEqual([5]);
+    const sa = series(run(a), a, "R1");
+    // every profile point is on the line, and the lowest is the run's exact minimum on the path
+    expect(o.lines[0].points.length).toBeGreaterThanOrEqual(sa.points.length);
+    const exactMin = Math.min(...sa.criticals.map((c) => c.do_mg_l));
+    expect(o.lines[0].lowest.do_mg_l).toBeCloseTo(exactMin, 12);
+    // more load never raises DO (monotonicity, MODEL.md §7)
+    expect(o.lines[1].lowest.do_mg_l).toBeLessThan(o.lines[0].lowest.do_mg_l);
+    for (let i = 1; i < o.lines[0].points.length; i++) expect(o.lines[0].points[i].distance).toBeGreaterThanOrEqual(o.lines[0].points[i - 1].distance);
   });
 });
