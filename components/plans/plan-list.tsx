@@ -2,8 +2,13 @@
 import Link from "next/link";
 import { Notice } from "@/components/ui/notice";
 import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
-import { usePlansQuery } from "@/lib/queries/plans";
+import { usePlansQuery, type PlanSummaryDto } from "@/lib/queries/plans";
 
+/** "version 1 of “Title”": the version a revision follows, as the reader can see it listed. */
+function lineageTitle(plans: PlanSummaryDto[], p: PlanSummaryDto): string {
+  const before = plans.filter((q) => q.lineageId === p.lineageId && q.version < p.version).sort((a, b) => b.version - a.version)[0];
+  return before ? `version ${before.version}${before.title === p.title ? "" : ` of “${before.title}”`}` : `version ${p.version - 1}`;
+}
 
 export function PlanList({ basinId }: { basinId: string }) {
   const plans = usePlansQuery(basinId);
@@ -17,8 +22,8 @@ export function PlanList({ basinId }: { basinId: string }) {
       <table className="data-table" data-testid="plan-table">
         <thead>
           <tr>
-            <th>Version</th>
             <th>Plan</th>
+            <th>Version</th>
             <th>State</th>
             <th>Proposed</th>
           </tr>
@@ -26,11 +31,15 @@ export function PlanList({ basinId }: { basinId: string }) {
         <tbody>
           {plans.data.map((p) => (
             <tr key={p.id}>
-              <td>v{p.version}</td>
               <td>
                 <Link href={`/basins/${basinId}/plans/${p.id}`} className="font-medium">
                   {p.title}
                 </Link>
+              </td>
+              <td className="whitespace-nowrap">
+                {/* versions count within a plan and its revisions */}
+                version {p.version}
+                {p.version > 1 && <span className="text-xs text-ink-faint"> · revises {lineageTitle(plans.data, p)}</span>}
               </td>
               <td>{PLAN_STAGE_TEXT[p.stage]}</td>
               <td className="text-xs">

@@ -53,7 +53,7 @@ export async function listBasinPlans(db: Db, basinId: string, reader: "planner" 
   // a plan has at most one review period (it goes from draft to review once)
   let q = planQuery(db, basinId)
     .leftJoin("review_periods as rp", "rp.plan_id", "p.id")
-    .select(["rp.starts_at", "rp.ends_at", "rp.closed_at"]);
+    .select(["rp.starts_at", "rp.ends_at", "rp.closed_at", sql<string | null>`p.snapshot->'scenario'->>'id'`.as("scenario_id")]);
   if (reader === "public") q = q.where("p.status", "=", "published");
   if (reader === "signedIn") {
     q = q.where((eb) =>
@@ -63,7 +63,8 @@ export async function listBasinPlans(db: Db, basinId: string, reader: "planner" 
       ]),
     );
   }
-  return q.orderBy("p.version", "desc").execute();
+  // newest first: versions count within a lineage, so only the time orders plans across lineages
+  return q.orderBy("p.created_at", "desc").orderBy("p.version", "desc").execute();
 }
 
 export async function findPlan(db: Db, basinId: string, planId: string, withSnapshot = false) {

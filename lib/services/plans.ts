@@ -131,6 +131,8 @@ export async function listPlans(db: Db, actor: Actor | null, basinId: string) {
     version: p.version,
     title: p.title,
     status: p.status,
+    /** The scenario the plan's run came from (a new plan from it revises this lineage by default). */
+    scenarioId: p.scenario_id,
     stage: planStage(p.status, p.starts_at && p.ends_at ? { startsAt: p.starts_at, endsAt: p.ends_at, closedAt: p.closed_at } : null, now),
     createdAt: p.created_at.toISOString(),
     createdBy: p.created_by_name,
