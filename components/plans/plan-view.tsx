@@ -9,7 +9,7 @@ import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import type { ModelFile, RunResult } from "@/lib/model";
-import { headwaterReaches } from "@/lib/results";
+import { governingCondition, headwaterReaches, type StoredRunResult } from "@/lib/results";
 import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
 import { FieldMessage, failureFor, usePlanActs, type Act, type ActFailure } from "./plan-acts";
 import { LeadActions } from "./lead-actions";
@@ -170,7 +170,7 @@ function PlanProfile({ plan, unitSystem }: { plan: PlanDto; unitSystem: UnitSyst
   const [from, setFrom] = useState(heads[0]);
   return (
     <ProfileSection
-      run={snapshot.run.result.conditions[0].run}
+      run={governingCondition(snapshot.run.result as unknown as StoredRunResult).run}
       model={model}
       unitSystem={unitSystem}
       from={from}

@@ -228,6 +228,16 @@ export function PlanPdf({ report: r }: { report: PlanReport }) {
         </View>
         {r.reviewLine && <Text style={s.note}>{r.reviewLine}</Text>}
 
+        <Section title="Design conditions">
+          <Table table={r.conditions} widths={[2.2, 1, 2.4, 1, 1]} />
+          {r.conditions.rows.length > 1 && (
+            <Text style={s.note}>
+              The allocation is checked under every condition at once; the governing condition is the one with the lowest DO, and it stands for
+              the plan in the figures below.
+            </Text>
+          )}
+        </Section>
+
         {r.profile && (
           <View wrap={false}>
             <Text style={s.h2}>Dissolved oxygen from the farthest headwater to the outlet</Text>

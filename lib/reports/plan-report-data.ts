@@ -1,11 +1,12 @@
 import type { FeatureCollection } from "geojson";
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { formatIn, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { RunResult } from "@/lib/model/network/run";
 import type { ModelFile } from "@/lib/model/types";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { formatDo } from "@/lib/results/do-scale";
+import { conditionRows, quoted, runConditions } from "@/lib/results/run-conditions";
 import { headwaterReaches, pathToOutlet } from "@/lib/results/path";
 import { profileSeries } from "@/lib/results/profile-series";
 import { resultsGeoJson } from "@/lib/results/results-geojson";
@@ -82,6 +83,8 @@ export interface PlanReport {
   generatedAt: string;
   caution: readonly string[];
   summary: Array<{ label: string; value: string }>;
+  /** A row per design condition: lowest DO with the allocated loads, where, and whether the criterion is met; the governing one marked. */
+  conditions: ReportTable;
   allocations: ReportTable;
   tmdl: ReportTable | null;
   tmdlNote: string | null;
@@ -136,12 +139,26 @@ function allocationTable(plan: ReportPlanInput, model: ModelFile, system: UnitSy
       formatIn("load", a.bod5KgDay, system),
       num(a.bod5MgL, 1),
       formatIn("load", a.todayCboduKgDay, system),
-      a.reductionPct === null ? "—" : (Math.abs(a.reductionPct) < 0.05 ? 0 : a.reductionPct).toFixed(1),
+      formatPercent(a.reductionPct),
     ]);
   return {
     columns: ["Facility", "Permit", `Design flow (${unitLabel("flow", system)})`, `Allocated CBODu (${u})`, `Allocated BOD5 (${u})`, "Effluent BOD5 (mg/L)", `Today's CBODu (${u})`, "Reduction (%)"],
     numeric: [false, false, true, true, true, true, true, true],
     rows,
+  };
+}
+
+function conditionsTable(rows: ReturnType<typeof conditionRows>, system: UnitSystem): ReportTable {
+  return {
+    columns: ["Condition", "Lowest DO (mg/L)", "Where", "Criterion (mg/L)", "Criterion met"],
+    numeric: [false, true, false, true, false],
+    rows: rows.map((r) => [
+      `${r.name}${r.governing && rows.length > 1 ? " (governing)" : ""}`,
+      formatDo(r.minimum.do_mg_l),
+      `${r.minimum.reach}, ${formatIn("length", r.minimum.km, system)} ${unitLabel("length", system)} from its head`,
+      r.criterion_do_mg_l.toFixed(1),
+      r.meets ? "yes" : "no",
+    ]),
   };
 }
 
@@ -162,7 +179,7 @@ function tmdlTable(allocation: AllocationResult, system: UnitSystem): ReportTabl
   };
 }
 
-function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, system: UnitSystem): PlanReport["methods"] {
+function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, system: UnitSystem, governing: string): PlanReport["methods"] {
   const i = s.scenario.inputs;
   const k = i.kinetics;
   const t = (c: number | null | undefined) => (c === null || c === undefined ? "each reach's own" : `${formatIn("temperature", c, system)} ${unitLabel("temperature", system)}`);
@@ -221,7 +238,7 @@ function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, 
         { label: "Technology floor", value: i.allocation.floorBod5MgL === null ? "none" : `effluent BOD5 ${num(i.allocation.floorBod5MgL, 1)} mg/L at design flow` },
         { label: "Margin of safety", value: `${num(i.allocation.mosDoMgL, 2)} mg/L DO and ${pct(i.allocation.mosFraction)} of the loading capacity` },
         { label: "Reserve capacity", value: pct(i.allocation.reserveFraction) },
-        { label: "Conditions checked", value: i.conditions.map((c) => c.name).join(", ") },
+        { label: "Conditions checked", value: `${i.conditions.map((c) => c.name).join(", ")}${i.conditions.length > 1 ? `; the governing one is ${quoted(governing)}` : ""}` },
         { label: "Checkpoints", value: `${allocation.checkpoints} (${allocation.iterations} round${allocation.iterations === 1 ? "" : "s"})` },
       ],
     },
@@ -237,9 +254,13 @@ function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, 
 export function planReport(plan: ReportPlanInput, basin: ReportBasinInput, network: FeatureCollection | null, now = new Date()): PlanReport {
   const s = readSnapshot(plan.snapshot);
   const system = basin.unitSystem;
-  const model = s.run.modelFiles[0].file;
-  const run = s.run.result.conditions[0].run;
-  const allocation = s.allocation;
+  // the governing condition stands for the plan; every condition has its row in `conditions`
+  const read = runConditions({ conditions: s.run.result.conditions, allocation: s.allocation });
+  const governing = s.run.result.conditions[read.governing];
+  const model = s.run.modelFiles[Math.min(read.governing, s.run.modelFiles.length - 1)].file;
+  const run = governing.run;
+  const allocation = read.allocation ?? s.allocation;
+  const several = s.run.result.conditions.length > 1;
   const published = plan.status === "published";
   const head = farthestHeadwater(model);
   const series = head ? profileSeries(run, model, head, system) : null;
@@ -256,17 +277,21 @@ export function planReport(plan: ReportPlanInput, basin: ReportBasinInput, netwo
     caution: PLANNING_CAUTION,
     summary: [
       { label: "DO criterion", value: `${run.criterion_do_mg_l.toFixed(1)} mg/L` },
-      { label: `Lowest DO (${s.run.result.conditions[0].name})`, value: run.minimum.do_mg_l < 0 ? "anoxic" : `${formatDo(run.minimum.do_mg_l)} mg/L in ${run.minimum.reach}` },
+      {
+        label: several ? "Lowest DO (governing condition)" : "Lowest DO",
+        value: `${run.minimum.do_mg_l < 0 ? "anoxic" : `${formatDo(run.minimum.do_mg_l)} mg/L`} in ${run.minimum.reach} under ${quoted(governing.name)}`,
+      },
       { label: "Facilities", value: String(plan.allocations.length) },
       { label: `Total allocated CBODu`, value: `${formatIn("load", totalWla, system)} ${unitLabel("load", system)}` },
     ],
+    conditions: conditionsTable(conditionRows({ conditions: s.run.result.conditions, allocation }), system),
     allocations: allocationTable(plan, model, system),
     tmdl: tmdlTable(allocation, system),
     tmdlNote:
       allocation.tmdl && allocation.tmdl.mos_do_mg_l > 0
         ? `A further margin of safety of ${allocation.tmdl.mos_do_mg_l.toFixed(2)} mg/L DO was added to the criterion; it is implicit in the loads above.`
         : null,
-    methods: methods(s, run, allocation, system),
+    methods: methods(s, run, allocation, system, governing.name),
     warnings: s.run.result.warnings ?? [],
     responsiveness: [...plan.threads]
       .sort((a, b) => (a.facilityName === null ? -1 : b.facilityName === null ? 1 : a.facilityName.localeCompare(b.facilityName)))
@@ -285,9 +310,9 @@ export function planReport(plan: ReportPlanInput, basin: ReportBasinInput, netwo
     profile: series
       ? {
           ...profileFigure(series, { width: 515, height: 210 }),
-          caption: `Dissolved oxygen with the allocated loads (${s.run.result.conditions[0].name}) from the head of ${head} to the outlet: ${series.path.join(" › ")}. Dashed: the ${run.criterion_do_mg_l.toFixed(1)} mg/L criterion; dotted: saturation.`,
+          caption: `Dissolved oxygen with the allocated loads under ${quoted(governing.name)}${several ? " (the governing condition)" : ""} from the head of ${head} to the outlet: ${series.path.join(" › ")}. Dashed: the ${run.criterion_do_mg_l.toFixed(1)} mg/L criterion; dotted: saturation.`,
         }
       : null,
-    map: map ? { ...map, caption: "Reaches coloured by their dissolved oxygen with the allocated loads." } : null,
+    map: map ? { ...map, caption: `Reaches coloured by their dissolved oxygen with the allocated loads under ${quoted(governing.name)}.` } : null,
   };
 }

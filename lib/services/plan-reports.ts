@@ -10,6 +10,7 @@ import { planReport, readSnapshot } from "@/lib/reports/plan-report-data";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { allocationCsv } from "@/lib/results/csv-rows";
 import { reachResultsExport } from "@/lib/results/results-geojson";
+import { conditionRows, conditionsLine, runConditions } from "@/lib/results/run-conditions";
 import { reachFeature } from "./networks";
 import { getPlan, getPlanForReader, getPublishedPlan } from "./plans";
 
@@ -89,7 +90,9 @@ export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: s
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const s = readSnapshot(plan.snapshot);
   const names = Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]));
-  const text = csvText(allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unitSystem, about(basin.name, plan), names));
+  const text = csvText(
+    allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unitSystem, [...about(basin.name, plan), conditionsLine({ conditions: s.run.result.conditions, allocation: s.allocation })], names),
+  );
   await recordExport(db, actor, basin.id, plan, "csv");
   return { body: text, contentType: "text/csv; charset=utf-8", fileName: `${stem}-allocations.csv` };
 }
@@ -103,11 +106,31 @@ export async function planReachesGeoJson(db: Db, actor: Actor | null, basinId: s
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const s = readSnapshot(plan.snapshot);
   const network = await planNetwork(db, plan.id);
-  const collection = reachResultsExport({ run: s.run.result.conditions[0].run, model: s.run.modelFiles[0].file, network, caution: [...PLANNING_CAUTION] });
+  // the governing condition's DO; the file says which it is and lists every condition's lowest DO
+  const read = runConditions({ conditions: s.run.result.conditions, allocation: s.allocation });
+  const governing = s.run.result.conditions[read.governing];
+  const model = s.run.modelFiles[Math.min(read.governing, s.run.modelFiles.length - 1)].file;
+  const collection = reachResultsExport({ run: governing.run, model, network, condition: governing.name, caution: [...PLANNING_CAUTION] });
   const json = {
     type: collection.type,
     caution: collection.caution,
-    plan: { title: plan.title, basin: basin.name, version: plan.version, status: plan.status, publishedAt: plan.publishedAt, condition: s.run.result.conditions[0].name },
+    plan: {
+      title: plan.title,
+      basin: basin.name,
+      version: plan.version,
+      status: plan.status,
+      publishedAt: plan.publishedAt,
+      condition: governing.name,
+      governing: s.run.result.conditions.length > 1,
+      conditions: conditionRows({ conditions: s.run.result.conditions, allocation: read.allocation }).map((r) => ({
+        name: r.name,
+        governing: r.governing,
+        min_do_mg_l: r.minimum.do_mg_l,
+        min_do_reach: r.minimum.reach,
+        min_do_km: r.minimum.km,
+        meets_criterion: r.meets,
+      })),
+    },
     features: collection.features,
   };
   await recordExport(db, actor, basin.id, plan, "geojson");

@@ -130,3 +130,27 @@ describe("planReport", () => {
     expect(() => planReport({ ...p, snapshot: { run: { result: { conditions: [] } } } }, { name: "T", unitSystem: "SI" }, null)).toThrow(/no allocation/);
   });
 });
+
+describe("planReport with several design conditions", () => {
+  it("names the governing condition in the summary, the figures and a row per condition", async () => {
+    const { runsAfterAllocation } = await import("@/lib/model");
+    const file = example("tamsel-river-allocate");
+    file.allocation!.reserve_fraction = 0;
+    file.allocation!.conditions = [{ name: "Hot, dry 7Q10", temperature_c: 28 }];
+    const al = allocate(file, { own_condition_name: "Design low flow" });
+    const conditions = runsAfterAllocation(file, al, "Design low flow");
+    const p = plan("published");
+    const snap = p.snapshot as { run: { result: Record<string, unknown> } };
+    snap.run.result = { warnings: [], conditions, allocation: al };
+    const r = planReport(p, { name: "Tamsel", unitSystem: "SI" }, null);
+    const hot = conditions[1].run.minimum;
+    // the hot condition sits at the criterion and binds: it governs
+    expect(hot.do_mg_l).toBeLessThan(conditions[0].run.minimum.do_mg_l);
+    expect(r.summary.find((x) => x.label === "Lowest DO (governing condition)")!.value).toBe(`${hot.do_mg_l.toFixed(2)} mg/L in ${hot.reach} under “Hot, dry 7Q10”`);
+    expect(r.conditions.rows.map((row) => [row[0], row[4]])).toEqual([
+      ["Design low flow", "yes"],
+      ["Hot, dry 7Q10 (governing)", "yes"],
+    ]);
+    expect(r.profile!.caption).toContain("under “Hot, dry 7Q10” (the governing condition)");
+  });
+});

@@ -9,6 +9,7 @@ import { currentActor } from "@/lib/auth/session";
 import { formatWhen } from "@/lib/format/zoned-time";
 import type { AllocationResult, ModelFile, RunResult } from "@/lib/model";
 import { planReport, readSnapshot } from "@/lib/reports/plan-report-data";
+import { governingCondition } from "@/lib/results/governing";
 import { responsivenessRows } from "@/lib/results/responsiveness";
 import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
 
@@ -59,7 +60,7 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
         network={network}
         allocation={snapshot.run.result.allocation}
         model={snapshot.run.modelFiles[0].file}
-        run={snapshot.run.result.conditions[0].run}
+        run={governingCondition(record.run.result).run}
         unitSystem={basin.unitSystem}
         fileStem={`${basin.slug}-plan-v${plan.version}`}
         names={Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]))}
