@@ -31,7 +31,7 @@ export function FacilitiesMap({ network, threadIds }: { network: FeatureCollecti
         <BasinMapLazy data={network} selectedId={selected} onSelect={onSelect} height={420} />
         <div className="space-y-2 text-sm">
           <p className="flex items-center gap-2 text-ink-soft">
-            <span aria-hidden className="inline-block h-3 w-3 rounded-full border-2 border-white" style={{ background: MAP_COLOURS.outfall }} />
+            <span aria-hidden className="inline-block h-3 w-3 shrink-0 rounded-full border-2 border-white" style={{ background: MAP_COLOURS.outfall }} />
             outfall of a facility in this plan; the chevrons on the reaches point downstream
           </p>
           <ul className="space-y-1" data-testid="map-facilities">

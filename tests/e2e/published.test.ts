@@ -3,23 +3,33 @@ import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDb, type Db } from "@/db/client";
 import { stopBoss } from "@/lib/jobs/queue";
-import { launchBrowser } from "./support/browser";
+import { addComment, closeDueReviews, publishPlan, respondToThread } from "@/lib/services/plans";
+import { launchBrowser, signInAs } from "./support/browser";
 import { inkPixels } from "./support/pixels";
 import { planAt } from "../support/plan-fixture";
-import { buildWorld } from "../support/world";
+import { buildWorld, WORLD_PASSWORD, type World } from "../support/world";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
 let db: Db;
 let url: string;
 let draftUrl: string;
+let w: World;
+
+const COMMENT = "Please keep the lower Tamsel fishable through August.";
+const RESPONSE = "The allocation holds DO above 5.0 mg/L at the August design temperature; see the critical conditions.";
 
 beforeAll(async () => {
   // a plan taken all the way to publication in the server's own database
   process.env.DATABASE_URL = inject("e2eDatabaseUrl");
   db = createDb(inject("e2eDatabaseUrl"), 2);
-  const w = await buildWorld(db);
-  const { planId } = await planAt(db, w, "published");
+  w = await buildWorld(db);
+  // a plan taken through a review with a comment and its response, then published
+  const { planId, planThreadId } = await planAt(db, w, "review");
+  await addComment(db, w.users.stakeholder, w.basinId, planThreadId, COMMENT);
+  await respondToThread(db, w.users.planner, w.basinId, planThreadId, RESPONSE);
+  await closeDueReviews(db, new Date(Date.now() + 32 * 86_400_000));
+  await publishPlan(db, w.users.lead, w.basinId, planId);
   url = `${baseUrl}/published/${w.basinId}/${planId}`;
   const other = await buildWorld(db);
   const draft = await planAt(db, other, "draft");
@@ -62,6 +72,68 @@ describe("a published plan", () => {
     expect(geo.caution.join(" ")).toMatch(/qualified \(licensed\) engineer/);
     expect(geo.features.length).toBeGreaterThan(10);
     await page.screenshot({ path: "test-results/screens/published-plan-signed-out.png", fullPage: true });
+    await page.close();
+  });
+
+  it("carries what a TMDL documents: critical conditions, methods with MOS and reserve, the comments with their responses; and the header", async () => {
+    for (const [width, name] of [
+      [1440, "1440"],
+      [390, "390"],
+    ] as const) {
+      const page = await browser.newPage({ viewport: { width, height: 900 } });
+      await page.goto(url);
+      await page.getByTestId("public-plan").waitFor();
+      // critical conditions, with their flow and temperature and the governing one marked
+      const conditions = page.getByTestId("critical-conditions");
+      expect(await conditions.locator("tbody tr").count()).toBe(1);
+      const row = (await conditions.locator("tbody tr").first().textContent()) ?? "";
+      expect(row).toMatch(/7Q10/);
+      expect(row).toMatch(/governing/);
+      expect(row).toMatch(/network design low flow × 1/);
+      expect(row).toMatch(/°C/);
+      // the PDF's methods: kinetics and reaeration, the allocation's MOS and reserve
+      const methods = page.getByTestId("plan-methods");
+      const kinetics = (await methods.getByRole("region", { name: "Kinetics (rates at 20 °C)" }).textContent()) ?? "";
+      expect(kinetics).toMatch(/Deoxygenation k_d0\.300 1\/d/);
+      expect(kinetics).toMatch(/Reaeration methodChosen per reach by depth and velocity/);
+      expect(kinetics).toMatch(/Reaeration formulas used.+\(\d+ reach/);
+      const allocation = (await methods.getByRole("region", { name: "Allocation" }).textContent()) ?? "";
+      expect(allocation).toMatch(/Margin of safety0\.00 mg\/L DO and 0\.0 % of the loading capacity/);
+      expect(allocation).toMatch(/Reserve capacity0\.0 %/);
+      // the comment and its response, with who and when (in the review's zone)
+      const thread = page.getByTestId("responsiveness").getByRole("article", { name: "Comments on The plan as a whole" });
+      const text = (await thread.textContent()) ?? "";
+      expect(text).toContain(COMMENT);
+      expect(text).toContain(RESPONSE);
+      expect(text).toMatch(new RegExp(`${w.users.stakeholder.name} · stakeholder · .+\\(America/Chicago\\)`));
+      expect(text).toMatch(new RegExp(`Response by ${w.users.planner.name}`));
+      // header: home, published plans, plans under review, sign in
+      const header = page.getByTestId("public-header");
+      for (const [label, href] of [
+        ["Home", "/"],
+        ["Published plans", "/published"],
+        ["Plans under review", "/reviews"],
+        ["Sign in", "/signin"],
+      ]) {
+        expect(await header.getByRole("link", { name: label, exact: true }).getAttribute("href")).toBe(href);
+      }
+      await page.locator('[aria-label="Map of dissolved oxygen"] [data-ready="true"]').waitFor({ timeout: 30_000 });
+      await page.screenshot({ path: `test-results/screens/published-plan-record-${name}.png`, fullPage: true });
+      await page.close();
+    }
+  });
+
+  it("signed in, the header names the reader and links to their basins; the published list links the plan", async () => {
+    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+    await signInAs(page, baseUrl, w.users.stakeholder.email, WORLD_PASSWORD);
+    await page.goto(url);
+    const header = page.getByTestId("public-header");
+    expect(await header.getByTestId("signed-in-as").textContent()).toBe(w.users.stakeholder.name);
+    expect(await header.getByRole("link", { name: "Your basins" }).getAttribute("href")).toBe("/basins");
+    expect(await header.getByRole("link", { name: "Sign in" }).count()).toBe(0);
+    await header.getByRole("link", { name: "Published plans" }).click();
+    await page.waitForURL(`${baseUrl}/published`);
+    expect(await page.getByTestId("published-list").getByRole("link").evaluateAll((links) => links.map((a) => a.getAttribute("href")))).toContain(new URL(url).pathname);
     await page.close();
   });
 

@@ -18,7 +18,7 @@ export default async function ReviewsPage() {
         <h1>Plans under review</h1>
         <p className="text-sm text-ink-soft">
           Proposed waste-load allocations open for public comment. You may read each one and comment on any facility&apos;s allocation, or on the plan as a whole,
-          while its review period is open. Published plans are on the <Link href="/">front page</Link>.
+          while its review period is open. Adopted plans are under <Link href="/published">Published plans</Link>.
         </p>
       </div>
       {reviews.length === 0 ? (
