@@ -2,7 +2,7 @@
 import { useMemo } from "react";
 import { CsvButton, downloadCsv, SortableTable } from "@/components/tables/sortable-table";
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { formatIn, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { ModelFile } from "@/lib/model/types";
 import { allocationCsv, allocationRows, type AllocationRow } from "@/lib/results/csv-rows";
@@ -55,7 +55,7 @@ export function AllocationTable({
       column<AllocationRow>("reduction", "Reduction (%)", (r) => r.reduction_pct, {
         numeric: true,
         // a reduction that rounds to zero is shown as 0.0, never as -0.0
-        show: (r) => (r.reduction_pct === null ? "—" : (Math.abs(r.reduction_pct) < 0.05 ? 0 : r.reduction_pct).toFixed(1)),
+        show: (r) => formatPercent(r.reduction_pct),
       }),
     ];
   }, [load, unitSystem, names]);

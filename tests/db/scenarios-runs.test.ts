@@ -7,7 +7,7 @@ import * as scenarioRunsRoute from "@/app/api/basins/[basinId]/scenarios/[scenar
 import * as scenariosRoute from "@/app/api/basins/[basinId]/scenarios/route";
 import * as duplicateRoute from "@/app/api/basins/[basinId]/scenarios/[scenarioId]/duplicate/route";
 import { getBoss, RUN_QUEUE } from "@/lib/jobs/queue";
-import { allocate, runModel, type ModelFile } from "@/lib/model";
+import { allocate, runModel, withAllocatedLoads, type ModelFile } from "@/lib/model";
 import { getRun, processRun, sweepStuckRuns, type RunDto, type RunSummaryDto } from "@/lib/services/runs";
 import type { ScenarioDto } from "@/lib/services/scenarios";
 import { fileDb } from "../support/file-db";
@@ -137,10 +137,35 @@ describe("runs", () => {
     await processRun(db, summary.id);
     const run = await readRun(summary.id);
     expect(run.status).toBe("done");
-    expect(run.result!.allocation).toEqual(allocate(run.modelFiles[0].file));
+    // the file's own condition goes by the scenario's name ("base" only in the CLI's output)
+    expect(run.result!.allocation).toEqual(allocate(run.modelFiles[0].file, { own_condition_name: "7Q10, August" }));
     if (run.result!.allocation!.feasible) {
       expect(run.result!.conditions[0].run.minimum.do_mg_l).toBeGreaterThanOrEqual(run.modelFiles[0].file.criterion_do_mg_l - 1e-6);
     }
+  });
+
+  it("an allocation run with two conditions stores DO with the allocated loads under each, named as the scenario names them", async () => {
+    const conditions = [
+      { name: "Design low flow", temperatureC: 24 },
+      { name: "Hot, dry 7Q10", temperatureC: 29, flowScale: 0.8 },
+    ];
+    const s = await createScenario("Two conditions", { conditions, allocation: { objective: "max-total", floorBod5MgL: 5 } });
+    const alloc = (await queueRun(s.id, "allocation")).json as RunSummaryDto;
+    const model = (await queueRun(s.id, "model")).json as RunSummaryDto;
+    await processRun(db, alloc.id);
+    await processRun(db, model.id);
+    const a = await readRun(alloc.id);
+    const m = await readRun(model.id);
+    expect(a.result!.conditions.map((c) => c.name)).toEqual(conditions.map((c) => c.name));
+    const allocation = a.result!.allocation!;
+    expect(allocation.conditions).toEqual(conditions.map((c) => c.name));
+    for (const b of allocation.binding) expect(conditions.map((c) => c.name)).toContain(b.condition);
+    // the model run's files are built one per condition on their own: with the allocated loads they give the stored DO
+    a.result!.conditions.forEach((c, i) => {
+      const independent = runModel(allocation.feasible ? withAllocatedLoads(m.modelFiles[i].file, allocation) : m.modelFiles[i].file);
+      expect(c.run.minimum.do_mg_l).toBeCloseTo(independent.minimum.do_mg_l, 9);
+      expect(c.run.minimum.reach).toBe(independent.minimum.reach);
+    });
   });
 
   it("a failed run surfaces a readable reason", async () => {
