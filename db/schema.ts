@@ -31,6 +31,8 @@ export interface BasinsTable {
   unit_system: ColumnType<UnitSystem, UnitSystem | undefined, UnitSystem>;
   /** Shortest review period the lead allows, days (0: none). */
   min_review_days: Generated<number>;
+  /** IANA time zone every date and time of the basin is shown in (null until set or a first review opens). */
+  time_zone: ColumnType<string | null, string | null | undefined, string | null>;
   created_by: string | null;
   created_at: CreatedAt;
   updated_at: UpdatedAt;

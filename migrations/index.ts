@@ -11,6 +11,7 @@ import * as m2026120205 from "./2026120205_plan_report_files";
 import * as m2026120206 from "./2026120206_review_rules";
 import * as m2026120301 from "./2026120301_publication_acknowledgement";
 import * as m2026120302 from "./2026120302_plan_lineage";
+import * as m2026120303 from "./2026120303_basin_time_zone";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -30,6 +31,7 @@ export const migrations: Record<string, Migration> = {
   "2026120206_review_rules": m2026120206,
   "2026120301_publication_acknowledgement": m2026120301,
   "2026120302_plan_lineage": m2026120302,
+  "2026120303_basin_time_zone": m2026120303,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -3,13 +3,14 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+import { TimeZoneInput } from "@/components/forms/time-zone-field";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { basinCreateSchema, type BasinCreateInput } from "@/lib/validation/basin";
 
-const FIELDS = ["name", "slug", "description", "doCriterionMgL", "unitSystem", "minReviewDays"] as const;
+const FIELDS = ["name", "slug", "description", "doCriterionMgL", "unitSystem", "minReviewDays", "timeZone"] as const;
 
 /** Create or edit a basin's settings; validated by the same schema as the API. */
 export function BasinForm({
@@ -40,6 +41,7 @@ export function BasinForm({
       unitSystem: "SI",
       minReviewDays: 30,
       ...initial,
+      timeZone: initial?.timeZone ?? "",
     },
   });
 
@@ -106,6 +108,17 @@ export function BasinForm({
         hint="A plan's review period must run at least this long (0: no minimum). 30 days is common practice; your jurisdiction's rules decide."
         {...register("minReviewDays")}
       />
+      <div>
+        <label htmlFor="basin-time-zone" className="field-label">
+          Time zone
+        </label>
+        <TimeZoneInput id="basin-time-zone" aria-describedby="basin-time-zone-hint" {...register("timeZone")} />
+        <p id="basin-time-zone-hint" className="text-xs text-ink-faint">
+          Every date and time of this basin — review periods, comments, e-mails, reports — is shown in this zone, named. Type to search (e.g. “Chicago”). Left
+          empty, the first review&apos;s zone is taken.
+        </p>
+        {errors.timeZone && <p className="field-error">{errors.timeZone.message}</p>}
+      </div>
       <fieldset>
         <legend className="field-label">Units on screens and exports</legend>
         <div className="flex gap-6 text-sm">

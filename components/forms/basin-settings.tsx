@@ -17,6 +17,7 @@ export function BasinSettings({ basin }: { basin: BasinDto }) {
         doCriterionMgL: b.doCriterionMgL,
         unitSystem: b.unitSystem,
         minReviewDays: b.minReviewDays,
+        timeZone: b.timeZone,
       }}
       onSubmit={(values) => update.mutateAsync(values)}
     />

@@ -1,4 +1,6 @@
 "use client";
+import { formatTime } from "@/lib/format/zoned-time";
+import { useBasinZone } from "@/components/layout/basin-zone";
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import { BasinMapLazy } from "@/components/map/basin-map-lazy";
@@ -25,6 +27,7 @@ export function NetworkView({
   savedVersion?: number;
 }) {
   const versions = useNetworksQuery(basinId);
+  const zone = useBasinZone();
   const [networkId, setNetworkId] = useState("latest");
   const network = useNetworkQuery(basinId, networkId, (versions.data?.length ?? 0) > 0);
   const [selected, setSelected] = useState<string | null>(null);
@@ -87,7 +90,7 @@ export function NetworkView({
             <option value="latest">Latest (v{versions.data[0].version})</option>
             {versions.data.map((v) => (
               <option key={v.id} value={v.id}>
-                v{v.version} — {new Date(v.createdAt).toLocaleString("en-CA", { dateStyle: "medium", timeStyle: "short" })}
+                v{v.version} — {formatTime(new Date(v.createdAt), zone)}
                 {v.createdBy ? ` by ${v.createdBy}` : ""}
               </option>
             ))}

@@ -1,7 +1,9 @@
 "use client";
-import { useMemo, useState } from "react";
+import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { isoToZoned, timeZoneNames, zonedToIso } from "@/lib/format/zoned-time";
+import { TimeZoneInput, ZoneNow } from "@/components/forms/time-zone-field";
+import { formatDay, formatTime, isoToZoned, zonedToIso } from "@/lib/format/zoned-time";
+import { isKnownTimeZone } from "@/lib/validation/time-zone";
 import { reviewDateIssues } from "@/lib/plans/review-rules";
 import { awaitsResponse } from "@/lib/results/responsiveness";
 import { MIN_ACK_STATEMENT } from "@/lib/validation/plan";
@@ -22,7 +24,7 @@ function Instant({ local, zone }: { local: string; zone: string }) {
   if (!iso) return <p className="field-error">Not a time that exists in {zone}</p>;
   return (
     <p className="text-xs text-ink-faint">
-      = {new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" })} UTC
+      = {formatTime(new Date(iso), "UTC")}
     </p>
   );
 }
@@ -32,9 +34,12 @@ function Instant({ local, zone }: { local: string; zone: string }) {
  * they are read in), extend it with a reason, publish after it closes, withdraw.
  */
 export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: PlanPermissions; act: Act; failure: ActFailure | null }) {
-  const zones = useMemo(() => timeZoneNames(), []);
-  const browserZone = Intl.DateTimeFormat().resolvedOptions().timeZone;
-  const [timeZone, setTimeZone] = useState(zones.includes(browserZone) ? browserZone : "UTC");
+  // the basin's zone when it has one; else the lead's own (the first review's zone becomes the basin's)
+  const [timeZone, setTimeZone] = useState(() => {
+    const browserZone = Intl.DateTimeFormat().resolvedOptions().timeZone;
+    return plan.basinTimeZone ?? (isKnownTimeZone(browserZone) ? browserZone : "UTC");
+  });
+  const [zoneText, setZoneText] = useState(timeZone);
   // by default the review opens when the lead clicks, and runs the basin's shortest review (at least 30 days)
   const [opensNow, setOpensNow] = useState(true);
   const [startsAt, setStartsAt] = useState(() => fromNow(timeZone));
@@ -76,13 +81,22 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
               <label htmlFor="review-zone" className="field-label">
                 Time zone
               </label>
-              <select id="review-zone" className="field-input w-64" value={timeZone} onChange={(e) => changeZone(e.target.value)}>
-                {zones.map((z) => (
-                  <option key={z} value={z}>
-                    {z}
-                  </option>
-                ))}
-              </select>
+              <TimeZoneInput
+                id="review-zone"
+                className="field-input w-64"
+                value={zoneText}
+                onChange={(e) => {
+                  setZoneText(e.target.value);
+                  if (isKnownTimeZone(e.target.value.trim()) && e.target.value.trim() !== "") changeZone(e.target.value.trim());
+                }}
+              />
+              <div className="mt-1">
+                {zoneText.trim() !== timeZone ? (
+                  <p className="field-error">Not a time zone; type part of a name (e.g. Chicago) and pick one. Using {timeZone}.</p>
+                ) : (
+                  <ZoneNow zone={timeZone} />
+                )}
+              </div>
             </div>
             <div>
               <span className="field-label">Review opens</span>
@@ -211,7 +225,7 @@ function PublishPanel({ plan, act, failure }: { plan: PlanDto; act: Act; failure
                 <li key={t.id}>
                   <a href={`#thread-${t.id}`}>{t.facilityName ? `${t.facilityName} (${t.permitId})` : "The plan as a whole"}</a> — {t.comments.length} comment
                   {t.comments.length === 1 ? "" : "s"}, the last on{" "}
-                  {new Intl.DateTimeFormat("en-CA", { dateStyle: "medium", timeZone: plan.review?.timeZone ?? "UTC" }).format(new Date(last))}
+                  {formatDay(new Date(last), plan.basinTimeZone ?? plan.review?.timeZone ?? "UTC")}
                 </li>
               );
             })}

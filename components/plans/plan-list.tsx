@@ -1,4 +1,5 @@
 "use client";
+import { When } from "@/components/layout/basin-zone";
 import Link from "next/link";
 import { Notice } from "@/components/ui/notice";
 import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
@@ -43,7 +44,7 @@ export function PlanList({ basinId }: { basinId: string }) {
               </td>
               <td>{PLAN_STAGE_TEXT[p.stage]}</td>
               <td className="text-xs">
-                {new Date(p.createdAt).toLocaleDateString("en-CA")}
+                <When at={p.createdAt} day />
                 {p.createdBy ? ` · ${p.createdBy}` : ""}
               </td>
             </tr>

@@ -5,7 +5,9 @@ import { ProfileSection } from "@/components/results/profile-section";
 import { CsvButton, downloadCsv } from "@/components/tables/sortable-table";
 import { RESPONSIVENESS_COLUMNS, acknowledgementSummary, awaitsResponse, responsivenessPreface, responsivenessRows } from "@/lib/results/responsiveness";
 import { Button } from "@/components/ui/button";
+import { BasinZoneProvider, When } from "@/components/layout/basin-zone";
 import { Notice } from "@/components/ui/notice";
+import { formatTime } from "@/lib/format/zoned-time";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import type { ModelFile, RunResult } from "@/lib/model";
@@ -24,12 +26,6 @@ export interface PlanPermissions {
   /** Facilities the viewer represents (highlighted). */
   myFacilityIds: string[];
 }
-
-const fmtTime = (iso: string, timeZone: string) =>
-  // dateStyle cannot be combined with timeZoneName, so the parts are named one by one
-  new Intl.DateTimeFormat("en-CA", { year: "numeric", month: "short", day: "numeric", hour: "2-digit", minute: "2-digit", timeZone, timeZoneName: "short" }).format(
-    new Date(iso),
-  );
 
 /** "closes in 3 days" / "closes in 5 hours" / "closes within the hour", from now. */
 function closesIn(endsAt: string): string {
@@ -51,6 +47,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
   const waiting = plan.threads.filter(awaitsResponse);
   const commentCount = plan.threads.reduce((n, t) => n + t.comments.length, 0);
   return (
+    <BasinZoneProvider zone={plan.basinTimeZone ?? plan.review?.timeZone ?? null}>
     <div className="space-y-6" data-testid="plan-view">
       <PlanningCaution />
       <div className="flex flex-wrap items-center gap-3">
@@ -58,15 +55,21 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
           {PLAN_STAGE_TEXT[plan.stage]}
         </span>
         <span className="text-sm text-ink-soft">
-          Version {plan.version}, proposed {new Date(plan.createdAt).toLocaleDateString("en-CA")}
+          Version {plan.version}, proposed <When at={plan.createdAt} day />
           {plan.createdBy ? ` by ${plan.createdBy}` : ""}
-          {plan.publishedAt ? `; published ${new Date(plan.publishedAt).toLocaleDateString("en-CA")}` : ""}
+          {plan.publishedAt && (
+            <>
+              ; published <When at={plan.publishedAt} />
+            </>
+          )}
         </span>
       </div>
 
       {plan.review && (
         <Notice tone={open ? "info" : "warning"} title={open ? "Review period open" : "Review period"}>
-          {fmtTime(plan.review.startsAt, plan.review.timeZone)} to {fmtTime(plan.review.endsAt, plan.review.timeZone)} ({plan.review.timeZone})
+          <span data-testid="review-period">
+            {formatTime(new Date(plan.review.startsAt), plan.review.timeZone)} to {formatTime(new Date(plan.review.endsAt), plan.review.timeZone)} ({plan.review.timeZone})
+          </span>
           {open && (
             <span suppressHydrationWarning className="font-semibold">
               {" "}
@@ -77,7 +80,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
             <ul className="mt-1 list-disc pl-5">
               {plan.review.extensions.map((x, i) => (
                 <li key={i}>
-                  Extended by {x.by}: {x.reason}
+                  Extended by {x.by} on <When at={x.at} zone={plan.review!.timeZone} />: {x.reason}
                 </li>
               ))}
             </ul>
@@ -155,6 +158,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
         ))}
       </section>
     </div>
+    </BasinZoneProvider>
   );
 }
 
@@ -217,7 +221,7 @@ export function Thread({
         {thread.comments.map((c) => (
           <li key={c.id} className="rounded-md bg-paper px-3 py-2">
             <p className="text-xs text-ink-faint">
-              {c.author} · {c.role} · {new Date(c.at).toLocaleString("en-CA", { dateStyle: "medium", timeStyle: "short" })}
+              {c.author} · {c.role} · <When at={c.at} />
             </p>
             <p className="whitespace-pre-wrap text-sm">{c.body}</p>
           </li>
@@ -225,7 +229,15 @@ export function Thread({
       </ul>
       {thread.response && (
         <div className="rounded-md border-l-4 border-reed-500 bg-reed-100 px-3 py-2 text-sm">
-          <p className="text-xs font-semibold text-reed-700">Response{thread.responder ? ` by ${thread.responder}` : ""}</p>
+          <p className="text-xs font-semibold text-reed-700">
+            Response{thread.responder ? ` by ${thread.responder}` : ""}
+            {thread.respondedAt && (
+              <>
+                {" · "}
+                <When at={thread.respondedAt} />
+              </>
+            )}
+          </p>
           <p className="whitespace-pre-wrap">{thread.response}</p>
         </div>
       )}

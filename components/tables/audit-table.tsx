@@ -1,4 +1,5 @@
 "use client";
+import { When } from "@/components/layout/basin-zone";
 import Link from "next/link";
 import { CsvButton, downloadCsv, type CsvColumn } from "@/components/tables/sortable-table";
 import type { AuditEventDto } from "@/lib/services/audit";
@@ -79,7 +80,9 @@ export function AuditTable({ basinId, basinName, events }: { basinId: string; ba
         <tbody>
           {events.map((e) => (
             <tr key={e.id}>
-              <td className="whitespace-nowrap text-xs">{new Date(e.at).toLocaleString("en-CA", { dateStyle: "medium", timeStyle: "medium" })}</td>
+              <td className="whitespace-nowrap text-xs">
+                <When at={e.at} />
+              </td>
               <td>{e.actor ?? <span className="text-ink-faint">Sagline (scheduled)</span>}</td>
               <td>
                 {actionText(e.action)} <span className="font-mono text-xs text-ink-faint">{e.action}</span>

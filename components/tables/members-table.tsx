@@ -1,4 +1,5 @@
 "use client";
+import { When } from "@/components/layout/basin-zone";
 import {
   createColumnHelper,
   flexRender,
@@ -56,7 +57,7 @@ export function MembersTable({
       }),
       col.accessor("since", {
         header: "Member since",
-        cell: (c) => new Date(c.getValue()).toLocaleDateString("en-CA"),
+        cell: (c) => <When at={c.getValue()} day />,
       }),
       ...(canManage
         ? [

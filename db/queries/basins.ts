@@ -70,3 +70,8 @@ export async function findBasinWithRole(db: Db, basinId: string, userId: string)
 export async function lockBasin(db: Db, basinId: string): Promise<void> {
   await db.selectFrom("basins").select("id").where("id", "=", basinId).forUpdate().executeTakeFirst();
 }
+
+/** Give a basin a time zone unless it has one (the first review's zone becomes the basin's). */
+export async function setBasinTimeZoneIfUnset(db: Db, basinId: string, timeZone: string): Promise<void> {
+  await db.updateTable("basins").set({ time_zone: timeZone }).where("id", "=", basinId).where("time_zone", "is", null).execute();
+}

@@ -1,3 +1,4 @@
+import { formatWhen } from "@/lib/format/zoned-time";
 import { escapeHtml, render, type PlanRef, type RenderedEmail } from "./templates";
 
 export interface DigestComment {
@@ -21,11 +22,11 @@ const clip = (text: string) => {
  * the latest of them (newest last), each clipped, with a link to the rest.
  */
 export function threadDigestEmail(
-  p: PlanRef & { threadTitle: string; windowMinutes: number; total: number; latest: DigestComment[] },
+  p: PlanRef & { threadTitle: string; windowMinutes: number; total: number; latest: DigestComment[]; timeZone?: string },
 ): RenderedEmail {
   const shown = p.latest.slice(-DIGEST_QUOTED);
   const more = p.total - shown.length;
-  const line = (c: DigestComment) => `${c.authorName} (${c.authorRole}), ${c.at.toISOString().slice(11, 16)} UTC`;
+  const line = (c: DigestComment) => `${c.authorName} (${c.authorRole}), ${formatWhen(c.at, p.timeZone ?? "UTC")}`;
   return render(`${p.total} new comments: ${p.threadTitle} (${p.planTitle})`, {
     greeting: `Hello ${p.recipientName},`,
     paragraphs: [

@@ -31,16 +31,39 @@ export function timeZoneNames(): string[] {
   return ["UTC", ...names.filter((n) => n !== "UTC")];
 }
 
-/** A date and time in an explicit time zone, e.g. "15 Jan 2027, 17:00 UTC" or "4 Jan 2027, 03:00 GMT-6 (America/Chicago)". */
+/**
+ * The zone's short name at that instant: the abbreviation where one is in common use
+ * (CST, CDT, EST, PST, UTC…, from the runtime's CLDR data), otherwise the offset written
+ * "UTC+1", "UTC−3:30" — never "GMT-6", so every screen, e-mail and report names a zone
+ * the same way.
+ */
+export function zoneLabel(when: Date, timeZone: string): string {
+  const part = (locale: string, timeZoneName: "short" | "shortOffset") =>
+    new Intl.DateTimeFormat(locale, { timeZone, timeZoneName }).formatToParts(when).find((p) => p.type === "timeZoneName")?.value ?? "";
+  const abbreviation = part("en-US", "short");
+  if (/^[A-Z]{2,5}$/.test(abbreviation) && abbreviation !== "GMT") return abbreviation;
+  const offset = part("en-US", "shortOffset"); // "GMT", "GMT+1", "GMT-3:30"
+  return offset === "GMT" || offset === "" ? "UTC" : offset.replace(/^GMT/, "UTC").replace("-", "−");
+}
+
+const dayParts = { day: "numeric", month: "short", year: "numeric" } as const;
+
+/** A date as it falls in `timeZone`, e.g. "4 Jan 2027". */
+export function formatDay(when: Date, timeZone: string): string {
+  return new Intl.DateTimeFormat("en-GB", { timeZone, ...dayParts }).format(when);
+}
+
+/** A date and time with its zone's short name, for screens: "4 Jan 2027, 03:00 CST". */
+export function formatTime(when: Date, timeZone: string): string {
+  const text = new Intl.DateTimeFormat("en-GB", { timeZone, ...dayParts, hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).format(when);
+  return `${text} ${zoneLabel(when, timeZone)}`;
+}
+
+/**
+ * A date and time that names its zone in full, for e-mails and reports read away from the
+ * basin's pages: "15 Jan 2027, 17:00 UTC" or "4 Jan 2027, 03:00 CST (America/Chicago)".
+ */
 export function formatWhen(when: Date, timeZone: string): string {
-  const text = new Intl.DateTimeFormat("en-GB", {
-    timeZone,
-    day: "numeric",
-    month: "short",
-    year: "numeric",
-    hour: "2-digit",
-    minute: "2-digit",
-    timeZoneName: "short",
-  }).format(when);
-  return timeZone === "UTC" ? text : `${text} (${timeZone})`;
+  const text = formatTime(when, timeZone);
+  return timeZone === "UTC" || timeZone === "Etc/UTC" ? text : `${text} (${timeZone})`;
 }

@@ -36,6 +36,7 @@ export async function createBasin(db: Db, actor: Actor | null, input: BasinCreat
       do_criterion_mg_l: input.doCriterionMgL,
       unit_system: input.unitSystem,
       min_review_days: input.minReviewDays,
+      time_zone: input.timeZone,
       created_by: a.id,
     });
     await insertMembership(trx, basin.id, a.id, "lead");
@@ -71,6 +72,7 @@ export async function updateBasin(
   if (input.doCriterionMgL !== undefined) patch.do_criterion_mg_l = input.doCriterionMgL;
   if (input.unitSystem !== undefined) patch.unit_system = input.unitSystem;
   if (input.minReviewDays !== undefined) patch.min_review_days = input.minReviewDays;
+  if (input.timeZone !== undefined) patch.time_zone = input.timeZone;
   return db.transaction().execute(async (trx) => {
     if (input.slug !== undefined && input.slug !== basin.slug) {
       const other = await findBasinBySlug(trx, input.slug);

@@ -14,6 +14,8 @@ export interface BasinDto {
   unitSystem: UnitSystem;
   /** Shortest review period a plan of this basin may have, days (0: none). */
   minReviewDays: number;
+  /** The basin's time zone (IANA); null until the lead sets it or the first review opens. */
+  timeZone: string | null;
   createdAt: string;
   updatedAt: string;
   myRole: BasinRole | null;
@@ -29,6 +31,7 @@ export function basinDto(b: BasinRecord, myRole: BasinRole | null, memberCount?:
     doCriterionMgL: b.do_criterion_mg_l,
     unitSystem: b.unit_system,
     minReviewDays: b.min_review_days,
+    timeZone: b.time_zone,
     createdAt: b.created_at.toISOString(),
     updatedAt: b.updated_at.toISOString(),
     myRole,

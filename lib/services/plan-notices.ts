@@ -24,6 +24,11 @@ async function basinName(db: Db, basinId: string): Promise<string> {
   return (await findBasinById(db, basinId))?.name ?? "";
 }
 
+/** The zone a basin's notices give times in: the basin's own, else `fallback` (a review's zone). */
+async function basinZone(db: Db, basinId: string, fallback = "UTC"): Promise<string> {
+  return (await findBasinById(db, basinId))?.time_zone ?? fallback;
+}
+
 interface Person {
   id: string;
   name: string;
@@ -120,6 +125,7 @@ export async function noticeThreadReply(
 ) {
   const name = await basinName(trx, plan.basin_id);
   const participants = await threadParticipants(trx, thread.id, comment.authorId);
+  const zone = await basinZone(trx, plan.basin_id);
   const digested = await isThreadComment(trx, thread.id, comment.id);
   const minutes = threadDigestMinutes();
   const windowMs = minutes * 60_000;
@@ -161,6 +167,7 @@ export async function noticeThreadReply(
     const { total, latest } = await threadCommentsSince(trx, thread.id, p.id, windowStart, DIGEST_QUOTED);
     const digest = threadDigestEmail({
       ...ref,
+      timeZone: zone,
       threadTitle: thread.title,
       windowMinutes: minutes,
       total: Math.max(total, 1),
@@ -191,8 +198,9 @@ const publishedUrl = (basinId: string, planId: string) => `${appUrl()}/published
  * the published plan, which opens without signing in. The governing condition's lowest
  * DO (with the allocated loads) is stated, named.
  */
-export async function noticePlanPublished(trx: Db, plan: PlanInfo, publishedAt: Date, timeZone: string) {
+export async function noticePlanPublished(trx: Db, plan: PlanInfo, publishedAt: Date, reviewZone: string) {
   const name = await basinName(trx, plan.basin_id);
+  const timeZone = await basinZone(trx, plan.basin_id, reviewZone);
   const rows = await dischargerAllocations(trx, plan.id);
   const own = new Map<string, typeof rows>();
   for (const r of rows) own.set(r.user_id, [...(own.get(r.user_id) ?? []), r]);

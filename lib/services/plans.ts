@@ -29,7 +29,7 @@ import { awaitsResponse } from "@/lib/results/responsiveness";
 import { MIN_ACK_STATEMENT, type PlanPropose, type PlanPublish, type ReviewExtend, type ReviewOpen } from "@/lib/validation/plan";
 import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
 import { getRun, runScenarioRecord } from "./runs";
-import { findBasinById } from "@/db/queries/basins";
+import { findBasinById, setBasinTimeZoneIfUnset } from "@/db/queries/basins";
 import { networkReachLines } from "@/db/queries/plan-reports";
 
 /** Another request changed the plan's state first. */
@@ -162,6 +162,8 @@ export async function getPlan(db: Db, actor: Actor | null, basinId: string, plan
     publicationAcknowledgement: plan.publication_acknowledgement,
     /** The basin's shortest review, days: the lead's form checks the dates against it as the server does. */
     minReviewDays: basin.min_review_days,
+    /** The basin's time zone (null until set or a first review opens): dates and times are shown in it. */
+    basinTimeZone: basin.time_zone,
     snapshot: (plan as typeof plan & { snapshot: Record<string, unknown> }).snapshot,
     allocations: allocations.map((a) => ({
       facilityId: a.facility_id,
@@ -220,6 +222,8 @@ export async function openReview(db: Db, actor: Actor | null, basinId: string, p
     // the state changes first, in one statement: a second "open" sent at the same time finds it changed
     if (!(await transitionPlanStatus(trx, plan.id, ["draft"], "review"))) throw raced();
     const period = await insertReviewPeriod(trx, { planId: plan.id, startsAt: input.startsAt, endsAt: input.endsAt, timeZone: input.timeZone, openedBy: actor!.id });
+    // a basin without a time zone of its own takes its first review's
+    await setBasinTimeZoneIfUnset(trx, basin.id, input.timeZone);
     await noticeReviewOpened(trx, plan, { id: period.id, startsAt: period.starts_at, endsAt: period.ends_at, timeZone: input.timeZone });
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.opened", targetType: "plan", targetId: plan.id, details: { ...input } });
   });

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { timeZoneSchema } from "./time-zone";
 
 export const unitSystemSchema = z.enum(["SI", "US"]);
 
@@ -24,10 +25,12 @@ const basinFields = z.object({
     .lt(20, "DO criterion must be below 20 mg/L"),
   unitSystem: unitSystemSchema,
   minReviewDays: minReviewDaysSchema,
+  /** Every date and time of the basin is shown in this zone; null leaves it to the first review. */
+  timeZone: z.preprocess((v) => (v === "" ? null : v), timeZoneSchema.nullable()),
 });
 
 /** A new basin: the shortest review defaults to 30 days (common practice for a formal comment period). */
-export const basinCreateSchema = basinFields.extend({ minReviewDays: minReviewDaysSchema.default(30) });
+export const basinCreateSchema = basinFields.extend({ minReviewDays: minReviewDaysSchema.default(30), timeZone: z.preprocess((v) => (v === "" || v === undefined ? null : v), timeZoneSchema.nullable()) });
 export type BasinCreateInput = z.infer<typeof basinCreateSchema>;
 
 // from the fields without defaults: a setting left out of a change is left as it is

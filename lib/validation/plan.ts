@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { timeZoneSchema } from "./time-zone";
 
 export const planProposeSchema = z.object({
   runId: z.uuid("runId must be a run id"),
@@ -18,14 +19,7 @@ export const reviewOpenSchema = z
   .object({
     startsAt: isoWithZone,
     endsAt: isoWithZone,
-    timeZone: z.string().trim().min(1).max(64).refine((tz) => {
-      try {
-        new Intl.DateTimeFormat("en", { timeZone: tz });
-        return true;
-      } catch {
-        return false;
-      }
-    }, "Unknown time zone; use an IANA name such as America/Chicago"),
+    timeZone: timeZoneSchema,
   })
   .refine((v) => Date.parse(v.endsAt) > Date.parse(v.startsAt), { message: "The review must end after it starts", path: ["endsAt"] });
 export type ReviewOpen = z.infer<typeof reviewOpenSchema>;

@@ -91,17 +91,27 @@ describe("from a proposed plan to a published one", () => {
   it("the lead opens the review, and the members are e-mailed a link to it", async () => {
     const lead = await demo("lead");
     await lead.goto(planUrl);
-    await lead.getByLabel("Time zone").selectOption("America/Chicago");
+    // a searchable zone: a name that is not a zone is said so, and the zone in use kept
+    const zone = lead.getByLabel("Time zone");
+    await zone.fill("Chicago");
+    await lead.getByText(/Not a time zone; type part of a name/).waitFor();
+    await zone.fill("America/Chicago");
+    await lead.getByText(/^now C[SD]T$/).waitFor();
     // opens now (the default start), closes on a wall-clock time in Chicago
     await lead.getByLabel("Review closes").fill("2031-03-14T17:00");
     await lead.getByRole("button", { name: "Open the review" }).click();
     await lead.getByTestId("plan-status").filter({ hasText: "in review" }).waitFor();
+    // the review period in the basin's zone, named
+    expect(await lead.getByTestId("review-period").textContent()).toMatch(/to 14 Mar 2031, 17:00 CDT/);
+    // the basin had no zone of its own: it takes its first review's
+    await lead.goto(`${baseUrl}/basins/${basinId}/settings`);
+    expect(await lead.getByLabel("Time zone").inputValue()).toBe("America/Chicago");
     await lead.close();
     for (const key of ["discharger", "stakeholder", "planner"]) {
       const mail = await waitForMail(mailDir, user(key).email, (m) => m.subject.startsWith("Review open:"));
       expect(mail.text).toMatch(/America\/Chicago/);
       // the wall-clock end as typed, in summer time (from the second Sunday of March, 9 March 2031): UTC−5
-      expect(mail.text).toMatch(/14 Mar 2031, 17:00 GMT-5 \(America\/Chicago\)/);
+      expect(mail.text).toMatch(/14 Mar 2031, 17:00 CDT \(America\/Chicago\)/);
       expect(mail.text).toMatch(/qualified \(licensed\) engineer/);
     }
   });

@@ -61,7 +61,7 @@ describe("notices about plans", () => {
 
   it("states times with their time zone", () => {
     expect(all[0].text).toContain(formatWhen(new Date("2027-01-04T09:00:00Z"), "America/Chicago"));
-    expect(formatWhen(new Date("2027-01-04T09:00:00Z"), "America/Chicago")).toBe("4 Jan 2027, 03:00 GMT-6 (America/Chicago)");
+    expect(formatWhen(new Date("2027-01-04T09:00:00Z"), "America/Chicago")).toBe("4 Jan 2027, 03:00 CST (America/Chicago)");
     expect(all[1].text).toContain("4 Feb 2027, 17:00 UTC");
   });
 

@@ -11,7 +11,7 @@ describe("review dates", () => {
     expect(reviewDateIssues({ startsAt: at(DAY), endsAt: at(DAY), minReviewDays: 0, now }).map((i) => i.path)).toEqual(["endsAt"]);
     const short = reviewDateIssues({ startsAt: now, endsAt: at(29 * DAY), minReviewDays: 30, now }, "America/Chicago");
     // 30 days after 2 Dec 2026 12:00 UTC is 1 Jan 2027 12:00 UTC = 06:00 in Chicago (UTC−6 in winter)
-    expect(short).toEqual([{ path: "endsAt", message: "The basin's shortest review is 30 days: close it on or after 1 Jan 2027, 06:00 GMT-6 (America/Chicago)" }]);
+    expect(short).toEqual([{ path: "endsAt", message: "The basin's shortest review is 30 days: close it on or after 1 Jan 2027, 06:00 CST (America/Chicago)" }]);
     expect(reviewDateIssues({ startsAt: now, endsAt: at(30 * DAY), minReviewDays: 30, now })).toEqual([]);
   });
 

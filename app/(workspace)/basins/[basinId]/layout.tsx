@@ -1,6 +1,7 @@
 import { notFound } from "next/navigation";
 import type { ReactNode } from "react";
 import { BasinTabs } from "@/components/layout/basin-tabs";
+import { BasinZoneProvider } from "@/components/layout/basin-zone";
 import { Denied } from "@/components/ui/denied";
 import { RoleBadge } from "@/components/ui/role-badge";
 import { getDb } from "@/db/client";
@@ -39,7 +40,9 @@ export default async function BasinLayout({
         {!role && access.actor.isAdmin && <RoleBadge role="admin" />}
       </div>
       <BasinTabs tabs={tabs.map(({ href, label }) => ({ href, label }))} />
-      <div className="mt-6">{children}</div>
+      <div className="mt-6">
+        <BasinZoneProvider zone={basin.timeZone}>{children}</BasinZoneProvider>
+      </div>
     </div>
   );
 }
