@@ -106,9 +106,12 @@ export function ResponsivenessRecord({
   rows,
   timeZone,
   respondedAt = {},
+  acknowledgement = null,
 }: {
   rows: ResponsivenessRow[];
   timeZone: string;
+  /** The lead's acknowledgement of threads published without a response (acknowledgementSummary), or null. */
+  acknowledgement?: string | null;
   /** When each topic's thread was answered (ISO), by topic. */
   respondedAt?: Record<string, string | null>;
 }) {
@@ -116,6 +119,11 @@ export function ResponsivenessRecord({
   const topics = [...new Set(rows.map((r) => r.topic))];
   return (
     <div className="space-y-4" data-testid="responsiveness">
+      {acknowledgement && (
+        <p className="rounded-md border-l-4 border-ochre-500 bg-ochre-100 p-3 text-sm" data-testid="publication-acknowledgement">
+          {acknowledgement}
+        </p>
+      )}
       {topics.map((topic) => {
         const of = rows.filter((r) => r.topic === topic);
         const responses = [...new Set(of.map((r) => r.response).filter(Boolean))];

@@ -28,6 +28,7 @@ export function PublicPlan({
   unitSystem,
   fileStem,
   names,
+  conditionName,
   conditions,
   methods,
   responsiveness,
@@ -43,6 +44,8 @@ export function PublicPlan({
   fileStem: string;
   /** Facility names by permit id. */
   names?: Record<string, string>;
+  /** The condition `run` is computed under (the governing one), named above the map and profile. */
+  conditionName?: string;
   /** The critical-conditions table (server-rendered). */
   conditions?: ReactNode;
   /** Model, kinetics and reaeration, headwaters, allocation settings with MOS and reserve. */
@@ -87,7 +90,8 @@ export function PublicPlan({
           <DoLegend criterionMgL={run.criterion_do_mg_l} />
         </section>
       )}
-      <ProfileSection run={run} model={model} unitSystem={unitSystem} from={from} onFrom={setFrom} title="Dissolved oxygen with the allocated loads">
+      <ProfileSection run={run} model={model} unitSystem={unitSystem} from={from} onFrom={setFrom} title={conditionName ? `Dissolved oxygen with the allocated loads — ${conditionName}` : "Dissolved oxygen with the allocated loads"}>
+        {conditionName && <p className="text-sm text-ink-soft" data-testid="shown-condition">Map and profile under {conditionName}, the governing condition.</p>}
         {network.features.length > 0 && <p className="text-sm text-ink-soft">Click a reach on the map, or choose one, to follow its water to the outlet.</p>}
       </ProfileSection>
       {responsiveness && (

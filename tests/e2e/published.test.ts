@@ -17,6 +17,8 @@ let draftUrl: string;
 let w: World;
 
 const COMMENT = "Please keep the lower Tamsel fishable through August.";
+const UNANSWERED = "Why is the creamery held at today's load?";
+const ACK = "Answered at the public meeting of 1 December; the minutes are on the basin page.";
 const RESPONSE = "The allocation holds DO above 5.0 mg/L at the August design temperature; see the critical conditions.";
 
 beforeAll(async () => {
@@ -24,12 +26,15 @@ beforeAll(async () => {
   process.env.DATABASE_URL = inject("e2eDatabaseUrl");
   db = createDb(inject("e2eDatabaseUrl"), 2);
   w = await buildWorld(db);
-  // a plan taken through a review with a comment and its response, then published
-  const { planId, planThreadId } = await planAt(db, w, "review");
+  // a plan taken through a review with a comment and its response, and one comment left
+  // unanswered that the lead acknowledged on publishing
+  const { planId, planThreadId, threads } = await planAt(db, w, "review");
   await addComment(db, w.users.stakeholder, w.basinId, planThreadId, COMMENT);
   await respondToThread(db, w.users.planner, w.basinId, planThreadId, RESPONSE);
+  const facilityThread = threads.find((t) => t.facility_id !== null)!.id;
+  await addComment(db, w.users.stakeholder, w.basinId, facilityThread, UNANSWERED);
   await closeDueReviews(db, new Date(Date.now() + 32 * 86_400_000));
-  await publishPlan(db, w.users.lead, w.basinId, planId);
+  await publishPlan(db, w.users.lead, w.basinId, planId, { acknowledgedThreadIds: [facilityThread], statement: ACK });
   url = `${baseUrl}/published/${w.basinId}/${planId}`;
   const other = await buildWorld(db);
   const draft = await planAt(db, other, "draft");
@@ -107,6 +112,11 @@ describe("a published plan", () => {
       expect(text).toContain(RESPONSE);
       expect(text).toMatch(new RegExp(`${w.users.stakeholder.name} · stakeholder · .+\\(America/Chicago\\)`));
       expect(text).toMatch(new RegExp(`Response by ${w.users.planner.name}`));
+      // the comment published without a response, and the lead's acknowledgement of it
+      const record = (await page.getByTestId("responsiveness").textContent()) ?? "";
+      expect(record).toContain(UNANSWERED);
+      expect(await page.getByTestId("publication-acknowledgement").textContent()).toContain(ACK);
+      expect(await page.getByTestId("shown-condition").textContent()).toBe("Map and profile under 7Q10, the governing condition.");
       // header: home, published plans, plans under review, sign in
       const header = page.getByTestId("public-header");
       for (const [label, href] of [

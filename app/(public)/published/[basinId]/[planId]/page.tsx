@@ -10,7 +10,7 @@ import { formatWhen } from "@/lib/format/zoned-time";
 import type { AllocationResult, ModelFile, RunResult } from "@/lib/model";
 import { planReport, readSnapshot } from "@/lib/reports/plan-report-data";
 import { governingCondition } from "@/lib/results/governing";
-import { responsivenessRows } from "@/lib/results/responsiveness";
+import { acknowledgementSummary, responsivenessRows } from "@/lib/results/responsiveness";
 import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
 
 export const metadata: Metadata = { title: "Published plan" };
@@ -31,6 +31,7 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
   // the PDF's methods, word for word; the critical conditions get their own table below
   const methods = planReport(plan, { name: basin.name, unitSystem: basin.unitSystem }, null).methods.filter((g) => g.heading !== "Critical conditions");
   const timeZone = plan.review?.timeZone ?? "UTC";
+  const ack = plan.publicationAcknowledgement;
   return (
     <main className="mx-auto max-w-6xl px-6 py-10">
       <p className="text-sm text-ink-soft">
@@ -64,11 +65,13 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
         unitSystem={basin.unitSystem}
         fileStem={`${basin.slug}-plan-v${plan.version}`}
         names={Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]))}
+        conditionName={governingCondition(record.run.result).name}
         conditions={<CriticalConditions inputs={record.scenario.inputs.conditions} result={record.run.result} unitSystem={basin.unitSystem} />}
         methods={<MethodGroups groups={methods} />}
         responsiveness={
           <ResponsivenessRecord
-            rows={responsivenessRows(plan.threads)}
+            rows={responsivenessRows(plan.threads, ack)}
+            acknowledgement={ack ? acknowledgementSummary(ack, timeZone) : null}
             timeZone={timeZone}
             respondedAt={Object.fromEntries(plan.threads.map((t) => [t.facilityName ?? "The plan as a whole", t.respondedAt]))}
           />
