@@ -25,6 +25,7 @@ import type { PlanStatus, PublicationAcknowledgement } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { planStage, reviewDateIssues } from "@/lib/plans/review-rules";
 import { AppError, conflict, notFound } from "@/lib/errors";
+import { formatWhen } from "@/lib/format/zoned-time";
 import { awaitsResponse } from "@/lib/results/responsiveness";
 import { MIN_ACK_STATEMENT, type PlanPropose, type PlanPublish, type ReviewExtend, type ReviewOpen } from "@/lib/validation/plan";
 import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
@@ -234,20 +235,22 @@ export async function extendReview(db: Db, actor: Actor | null, basinId: string,
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
   const period = await currentPeriod(db, plan.id);
   if (plan.status !== "review" || !period) throw conflict("Only a plan in review can have its review extended");
-  if (Date.parse(input.endsAt) <= period.ends_at.getTime()) {
-    throw new AppError("invalid", "The new end must be later than the current one", [{ path: "endsAt", message: "Not later" }]);
-  }
+  if (Date.parse(input.endsAt) <= period.ends_at.getTime()) throw notLater(period);
   await db.transaction().execute(async (trx) => {
     // under the plan's lock, against the period as it is now (a concurrent extension or the closing job may have moved it)
     if ((await lockPlanStatus(trx, plan.id, "update")) !== "review") throw raced();
     const locked = (await currentPeriod(trx, plan.id))!;
-    if (Date.parse(input.endsAt) <= locked.ends_at.getTime()) {
-      throw new AppError("invalid", "The new end must be later than the current one", [{ path: "endsAt", message: "Not later" }]);
-    }
+    if (Date.parse(input.endsAt) <= locked.ends_at.getTime()) throw notLater(locked);
     const extensions = [...locked.extensions, { at: new Date().toISOString(), by: actor!.name, from: locked.ends_at.toISOString(), to: input.endsAt, reason: input.reason }];
     await updateReviewPeriod(trx, locked.id, { ends_at: input.endsAt, closed_at: null, extensions });
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.extended", targetType: "plan", targetId: plan.id, details: { ...input } });
   });
+}
+
+/** An extension only moves the end later: the message names the current end in the period's zone. */
+function notLater(period: { ends_at: Date; time_zone: string }) {
+  const message = `An extension moves the end later: choose a time after the current end, ${formatWhen(period.ends_at, period.time_zone)}`;
+  return new AppError("invalid", message, [{ path: "endsAt", message }]);
 }
 
 /** Close review periods whose end has passed (the scheduled job); returns how many closed. */

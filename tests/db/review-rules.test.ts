@@ -101,4 +101,22 @@ describe("opening a review", () => {
     const comment = await callRoute(commentsRoute.POST, "POST", { userId: w3.users.stakeholder.id, params: { basinId: w3.basinId, threadId: planThreadId }, body: { body: "Too early" } });
     expect(comment.status).toBe(409);
   });
+
+  it("an extension only moves the end later, the current end named in the period's zone; a later end is kept with its reason", async () => {
+    const { planId } = await draftIn(w);
+    const now = Date.now();
+    const end = now + 31 * DAY;
+    expect((await open(w, planId, { startsAt: iso(now), endsAt: iso(end) })).status).toBe(204);
+    const extend = (endsAt: string) =>
+      callRoute(reviewRoute.PATCH, "PATCH", { userId: w.users.lead.id, params: { basinId: w.basinId, planId }, body: { endsAt, reason: "Two dischargers asked for more time" } });
+    for (const earlier of [iso(end), iso(end - DAY)]) {
+      const res = await extend(earlier);
+      expect(res.status).toBe(422);
+      expect(err(res.json).details![0]).toMatchObject({ path: "endsAt", message: expect.stringMatching(/after the current end, .* C[SD]T \(America\/Chicago\)$/) });
+    }
+    expect((await extend(iso(end + 7 * DAY))).status).toBe(204);
+    const period = await db.selectFrom("review_periods").select(["ends_at", "extensions"]).where("plan_id", "=", planId).executeTakeFirstOrThrow();
+    expect(period.ends_at.toISOString()).toBe(iso(end + 7 * DAY));
+    expect(period.extensions).toMatchObject([{ from: iso(end), to: iso(end + 7 * DAY), reason: "Two dischargers asked for more time" }]);
+  });
 });
