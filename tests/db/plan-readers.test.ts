@@ -66,11 +66,21 @@ describe("the review page's map", () => {
     ({ planId: review } = await readerPlan(db, w, { stage: "open" }));
   });
 
-  it("carries the reach lines the plan's run used, for anyone signed in", async () => {
+  it("carries the reach lines the plan's run used and the outfalls of the facilities it allocates to, for anyone signed in", async () => {
     const found = await getPlanForReaderWithMap(db, w.users.outsider, w.basinId, review);
     expect(found.plan.id).toBe(review);
-    expect(found.network.features.length).toBeGreaterThan(10);
-    expect(found.network.features.every((f) => f.geometry.type === "LineString")).toBe(true);
+    const kinds = (k: string) => found.network.features.filter((f) => f.properties?.kind === k);
+    expect(kinds("reach").length).toBeGreaterThan(10);
+    expect(kinds("reach").every((f) => f.geometry.type === "LineString")).toBe(true);
+    // one outfall per allocated facility, on the reach the model file places it, named as the plan names it
+    const outfalls = kinds("outfall");
+    expect(outfalls.map((f) => f.properties!.id).sort()).toEqual(found.plan.allocations.map((a) => a.permitId).sort());
+    const model = (found.plan.snapshot as { run: { modelFiles: { file: { dischargers: { id: string; reach: string }[] } }[] } }).run.modelFiles[0].file;
+    for (const o of outfalls) {
+      expect(o.geometry.type).toBe("Point");
+      expect(o.properties!.reachId).toBe(model.dischargers.find((d) => d.id === o.properties!.id)!.reach);
+      expect(o.properties!.name).toBe(found.plan.allocations.find((a) => a.permitId === o.properties!.id)!.facilityName);
+    }
   });
 
   it("follows the plan's own rules: nothing signed out, no drafts outside the basin", async () => {
