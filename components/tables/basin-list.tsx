@@ -57,9 +57,7 @@ export function ReaderLanding({ home }: { home: Pick<ReaderHome, "reviews" | "pu
   return (
     <div className="space-y-6" data-testid="reader-landing">
       <section className="card space-y-2" aria-label="Plans under review">
-        <h2>
-          <Link href="/reviews">Plans under review</Link>
-        </h2>
+        <h2>Plans under review</h2>
         {home.reviews.length === 0 ? (
           <p className="text-sm text-ink-soft">No plan is under review at the moment. Follow a basin below to hear when one opens.</p>
         ) : (
@@ -78,12 +76,13 @@ export function ReaderLanding({ home }: { home: Pick<ReaderHome, "reviews" | "pu
             ))}
           </ul>
         )}
-        <p className="text-xs text-ink-faint">While a review is open you may comment on any facility&apos;s allocation or on the plan as a whole; your comment shows your name.</p>
+        <p className="text-xs text-ink-faint">
+          While a review is open you may comment on any facility&apos;s allocation or on the plan as a whole; your comment shows your name.{" "}
+          <Link href="/reviews">Every plan under review, with its dates</Link>
+        </p>
       </section>
       <section className="card space-y-2" aria-label="Published plans">
-        <h2>
-          <Link href="/published">Published plans</Link>
-        </h2>
+        <h2>Published plans</h2>
         {home.published.length === 0 ? (
           <p className="text-sm text-ink-soft">No plan has been published yet.</p>
         ) : (
@@ -100,6 +99,9 @@ export function ReaderLanding({ home }: { home: Pick<ReaderHome, "reviews" | "pu
             ))}
           </ul>
         )}
+        <p className="text-xs text-ink-faint">
+          Published plans are readable by anyone, signed in or not: <Link href="/published">all published plans</Link>.
+        </p>
       </section>
       <section className="card space-y-3" aria-label="Follow a basin">
         <h2>Follow a basin</h2>
