@@ -150,7 +150,8 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
           </p>
         </div>
       )}
-      {plan.status === "review" && can.manageReview && (
+      {/* the stage, not the stored status: a review whose end has passed is closed even before the closing job runs */}
+      {(plan.stage === "open" || plan.stage === "scheduled") && can.manageReview && (
         <div className="flex flex-wrap items-start gap-3">
           <div>
             <label htmlFor="extend-end" className="field-label">
@@ -182,7 +183,7 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
           </Button>
         </div>
       )}
-      {plan.status === "closed" && can.publish && <PublishPanel plan={plan} act={act} failure={failure} />}
+      {plan.stage === "closed" && can.publish && <PublishPanel plan={plan} act={act} failure={failure} />}
       <div className="flex flex-wrap gap-3">
         {(plan.status === "draft" || plan.status === "review" || plan.status === "closed") && can.manageReview && (
           <Button variant="danger" onClick={() => window.confirm("Withdraw this plan?") && act(`${p}/withdraw`)}>

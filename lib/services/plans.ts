@@ -23,7 +23,7 @@ import {
   updateReviewPeriod, planAllocations, listBasinPlans, planThreads, transitionPlanStatus, lockPlanStatus } from "@/db/queries/plans";
 import type { PlanStatus, PublicationAcknowledgement } from "@/db/schema";
 import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
-import { planStage, reviewDateIssues } from "@/lib/plans/review-rules";
+import { PLAN_STAGE_TEXT, planStage, reviewDateIssues } from "@/lib/plans/review-rules";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import { formatWhen } from "@/lib/format/zoned-time";
 import { awaitsResponse } from "@/lib/results/responsiveness";
@@ -235,11 +235,13 @@ export async function extendReview(db: Db, actor: Actor | null, basinId: string,
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
   const period = await currentPeriod(db, plan.id);
   if (plan.status !== "review" || !period) throw conflict("Only a plan in review can have its review extended");
+  if (period.ends_at.getTime() <= Date.now()) throw reviewEnded(period);
   if (Date.parse(input.endsAt) <= period.ends_at.getTime()) throw notLater(period);
   await db.transaction().execute(async (trx) => {
     // under the plan's lock, against the period as it is now (a concurrent extension or the closing job may have moved it)
     if ((await lockPlanStatus(trx, plan.id, "update")) !== "review") throw raced();
     const locked = (await currentPeriod(trx, plan.id))!;
+    if (locked.closed_at !== null || locked.ends_at.getTime() <= Date.now()) throw reviewEnded(locked);
     if (Date.parse(input.endsAt) <= locked.ends_at.getTime()) throw notLater(locked);
     const extensions = [...locked.extensions, { at: new Date().toISOString(), by: actor!.name, from: locked.ends_at.toISOString(), to: input.endsAt, reason: input.reason }];
     await updateReviewPeriod(trx, locked.id, { ends_at: input.endsAt, closed_at: null, extensions });
@@ -247,10 +249,21 @@ export async function extendReview(db: Db, actor: Actor | null, basinId: string,
   });
 }
 
+/** A review whose end has passed is closed: it is not reopened by an extension. */
+const reviewEnded = (period: { ends_at: Date; time_zone: string }) =>
+  conflict(`The review closed at ${formatWhen(period.ends_at, period.time_zone)}; a closed review is not extended`);
+
 /** An extension only moves the end later: the message names the current end in the period's zone. */
 function notLater(period: { ends_at: Date; time_zone: string }) {
   const message = `An extension moves the end later: choose a time after the current end, ${formatWhen(period.ends_at, period.time_zone)}`;
   return new AppError("invalid", message, [{ path: "endsAt", message }]);
+}
+
+/** Close a review whose end has passed (plan locked by the caller): by the scheduled job, or by the publication that finds it ended. */
+async function closeEndedReview(trx: Db, basinId: string, planId: string, period: { id: string }, now: Date, by: "schedule" | "publication") {
+  await transitionPlanStatus(trx, planId, ["review"], "closed");
+  await updateReviewPeriod(trx, period.id, { closed_at: now });
+  await insertAuditEvent(trx, { basinId, actorId: null, action: "review.closed", targetType: "plan", targetId: planId, details: { by } });
 }
 
 /** Close review periods whose end has passed (the scheduled job); returns how many closed. */
@@ -263,10 +276,8 @@ export async function closeDueReviews(db: Db, now = new Date()): Promise<number>
       if ((await lockPlanStatus(trx, d.plan_id, "update")) !== "review") continue;
       const period = await currentPeriod(trx, d.plan_id);
       if (!period || period.id !== d.id || period.closed_at !== null || period.ends_at > now) continue;
-      await transitionPlanStatus(trx, d.plan_id, ["review"], "closed");
+      await closeEndedReview(trx, d.basin_id, d.plan_id, period, now, "schedule");
       closed++;
-      await updateReviewPeriod(trx, d.id, { closed_at: now });
-      await insertAuditEvent(trx, { basinId: d.basin_id, actorId: null, action: "review.closed", targetType: "plan", targetId: d.plan_id, details: { by: "schedule" } });
     }
     return closed;
   });
@@ -299,10 +310,15 @@ const threadTopic = (facilityName: string | null) => facilityName ?? "The plan a
  */
 export async function publishPlan(db: Db, actor: Actor | null, basinId: string, planId: string, input: PlanPublish = { acknowledgedThreadIds: [], statement: "" }) {
   const { basin, plan } = await planForLead(db, actor, basinId, planId, "plan.publish");
-  if (plan.status !== "closed") throw conflict(`A plan is published after its review closes; this one is ${plan.status}`);
   await db.transaction().execute(async (trx) => {
     // the row lock holds responses and the closing job off until this transaction ends
-    if ((await lockPlanStatus(trx, plan.id, "update")) !== "closed") throw raced();
+    const status = await lockPlanStatus(trx, plan.id, "update");
+    const period = await currentPeriod(trx, plan.id);
+    const now = new Date();
+    const stage = status ? planStage(status, period ? { startsAt: period.starts_at, endsAt: period.ends_at, closedAt: period.closed_at } : null, now) : null;
+    if (stage !== "closed") throw conflict(`A plan is published after its review closes; this one is ${stage ? PLAN_STAGE_TEXT[stage] : "gone"}`);
+    // a review whose end has passed is closed, whether or not the closing job has run yet: close it here, as the job would
+    if (status === "review") await closeEndedReview(trx, basin.id, plan.id, period!, now, "publication");
     const threads = await planThreads(trx, plan.id);
     const unanswered = threads.filter((t) =>
       awaitsResponse({ respondedAt: t.responded_at?.toISOString() ?? null, comments: t.comments.map((c) => ({ at: c.created_at.toISOString() })) }),
@@ -342,7 +358,6 @@ export async function publishPlan(db: Db, actor: Actor | null, basinId: string, 
       await setPublicationAcknowledgement(trx, plan.id, ack);
     }
     if (!(await transitionPlanStatus(trx, plan.id, ["closed"], "published", { published_by: actor!.id, published_at: publishedAt }))) throw raced();
-    const period = await currentPeriod(trx, plan.id);
     await noticePlanPublished(trx, plan, publishedAt, period?.time_zone ?? "UTC");
     await insertAuditEvent(trx, {
       basinId: basin.id,

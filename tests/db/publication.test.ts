@@ -1,6 +1,7 @@
 import { beforeEach, describe, expect, it } from "vitest";
 import * as publishRoute from "@/app/api/basins/[basinId]/plans/[planId]/publish/route";
 import * as plansRoute from "@/app/api/basins/[basinId]/plans/route";
+import * as reviewRoute from "@/app/api/basins/[basinId]/plans/[planId]/review/route";
 import { findFacilityByPermit, linkFacilityUser } from "@/db/queries/facilities";
 import { insertUser } from "@/db/queries/users";
 import { responsivenessRows } from "@/lib/results/responsiveness";
@@ -121,6 +122,36 @@ describe("publishing with threads unanswered", () => {
     const publishedAt = (await db.selectFrom("plans").select("published_at").where("id", "=", p.planId).executeTakeFirstOrThrow()).published_at!;
     if (resp.status === "fulfilled") expect(thread.responded_at!.getTime()).toBeLessThanOrEqual(publishedAt.getTime());
     else expect(String(resp.reason)).toMatch(/published/);
+  });
+});
+
+describe("a review whose end has passed", () => {
+  it("is closed by the publication itself when the closing job has not run yet, and is not extended", async () => {
+    const p = await planAt(db, w, "review");
+    // the end passes; the scheduled job has not run
+    await db.updateTable("review_periods").set({ starts_at: new Date(Date.now() - 40 * DAY), ends_at: new Date(Date.now() - 1000) }).where("plan_id", "=", p.planId).execute();
+    expect((await getPlan(db, w.users.lead, w.basinId, p.planId)).stage).toBe("closed");
+    const extend = await callRoute(reviewRoute.PATCH, "PATCH", {
+      userId: w.users.lead.id,
+      params: { basinId: w.basinId, planId: p.planId },
+      body: { endsAt: new Date(Date.now() + 10 * DAY).toISOString(), reason: "Asked for after the end" },
+    });
+    expect(extend.status).toBe(409);
+    expect(err(extend.json).message).toMatch(/closed at .*; a closed review is not extended/);
+    expect((await publish(p.planId, {})).status).toBe(204);
+    expect((await planRow(p.planId)).status).toBe("published");
+    const audit = await db.selectFrom("audit_events").select(["action", "details"]).where("target_id", "=", p.planId).orderBy("id").execute();
+    expect(audit.map((a) => a.action).slice(-2)).toEqual(["review.closed", "plan.published"]);
+    expect(audit.at(-2)!.details).toEqual({ by: "publication" });
+    const period = await db.selectFrom("review_periods").select("closed_at").where("plan_id", "=", p.planId).executeTakeFirstOrThrow();
+    expect(period.closed_at).not.toBeNull();
+  });
+
+  it("a plan whose review is still open is not published", async () => {
+    const p = await planAt(db, w, "review");
+    const res = await publish(p.planId, {});
+    expect(res.status).toBe(409);
+    expect(err(res.json).message).toMatch(/this one is in review/);
   });
 });
 

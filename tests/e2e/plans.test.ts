@@ -152,7 +152,7 @@ describe("from a proposed plan to a published one", () => {
     expect(made.status()).toBe(201);
     await admin.close();
     const outsider = await pageAs(PUBLIC.email, PUBLIC.password);
-    await outsider.getByRole("link", { name: "Plans under review" }).click();
+    await outsider.getByRole("navigation").getByRole("link", { name: "Plans under review" }).click();
     await outsider.getByTestId("reviews-table").getByRole("link", { name: /Tamsel/ }).first().click();
     await outsider.waitForURL(`${baseUrl}/reviews/${basinId}/${planId}`);
     await outsider.getByRole("button", { name: "Follow this basin" }).click();
