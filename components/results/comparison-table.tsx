@@ -33,11 +33,12 @@ export function ComparisonTable({
   const load = (kg: number | null) => formatIn("load", kg, unitSystem);
   const where = (m: { reach: string; km: number }) => `${m.reach}, ${formatIn("length", m.km, unitSystem)} ${len}`;
   const span = c.columns.length + 1;
+  const baselineName = c.baseline === 0 ? "the first run" : `run ${(c.baseline ?? 0) + 1}`;
   const change = (kg: number | null) => {
     if (kg === null) return null;
     const shown = load(Math.abs(kg));
-    if (Number(shown) === 0) return "same as the first run";
-    return `${kg > 0 ? "+" : "−"}${shown} ${u} against the first run`;
+    if (Number(shown) === 0) return `same as ${baselineName}`;
+    return `${kg > 0 ? "+" : "−"}${shown} ${u} against ${baselineName}`;
   };
   return (
     <div className="overflow-x-auto">
@@ -94,7 +95,9 @@ export function ComparisonTable({
             differences.map((d) => <Row key={d.key} label={d.label} values={d.values} />)
           )}
 
-          <Section span={span}>Allocated CBODu ({u}), reduction from today and change from the first run</Section>
+          <Section span={span}>
+            Allocated CBODu ({u}), reduction from today{c.baseline !== null && c.facilities.length > 0 ? ` and change from ${baselineName} (${c.columns[c.baseline].label})` : ""}
+          </Section>
           {c.facilities.length === 0 && (
             <tr>
               <td colSpan={span} className="text-sm text-ink-soft">
@@ -115,6 +118,8 @@ export function ComparisonTable({
                       {load(e.cbodu_kg_day)} ({reductionText(e.reduction_pct)})
                       {change(f.change_kg_day[i]) && <span className="block text-xs text-ink-soft">{change(f.change_kg_day[i])}</span>}
                     </>
+                  ) : c.columns[i].feasible === false ? (
+                    "no allocation"
                   ) : (
                     "—"
                   )}

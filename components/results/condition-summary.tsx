@@ -41,7 +41,7 @@ export function ConditionSummary({
             <th>Condition</th>
             <th className="num">Lowest DO (mg/L)</th>
             <th>Where</th>
-            <th className="num">Criterion (mg/L)</th>
+            <th className="num hidden sm:table-cell">Criterion (mg/L)</th>
             <th>Criterion</th>
             {onSelect && <th />}
           </tr>
@@ -54,21 +54,21 @@ export function ConditionSummary({
                 {r.governing && rows.length > 1 && <GoverningBadge />}
               </td>
               <td className="num">{formatDo(r.minimum.do_mg_l)}</td>
-              <td>
-                {r.minimum.reach}, {formatIn("length", r.minimum.km, unitSystem)} {len} from its head
+              <td className="whitespace-nowrap">
+                {r.minimum.reach}, {formatIn("length", r.minimum.km, unitSystem)} {len}
               </td>
-              <td className="num">{r.criterion_do_mg_l.toFixed(1)}</td>
+              <td className="num hidden sm:table-cell">{r.criterion_do_mg_l.toFixed(1)}</td>
               <td>
                 <MeetsBadge meets={r.meets} />
-                {r.points_below > 0 && <span className="ml-2 text-xs text-ink-soft">{r.points_below} point(s) below</span>}
+                {r.points_below > 0 && <span className="ml-2 hidden text-xs text-ink-soft sm:inline">{r.points_below} point(s) below</span>}
               </td>
               {onSelect && (
                 <td>
                   {i === selected ? (
                     <span className="text-xs text-ink-soft">shown below</span>
                   ) : (
-                    <button type="button" className="text-sm underline" onClick={() => onSelect(i)}>
-                      Show on map and profile
+                    <button type="button" className="text-sm underline" onClick={() => onSelect(i)} aria-label={`Show “${r.name}” on the map and profile`}>
+                      Show
                     </button>
                   )}
                 </td>

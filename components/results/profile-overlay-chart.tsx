@@ -12,16 +12,19 @@ import { profileOverlay } from "@/lib/results/profile-series";
 
 const FAINT = "#6f7d86";
 const RULE = "#d9d6cc";
-/** One colour and dash per run, from the palette (tailwind.config.ts), so lines stay apart in grey print too. */
+/**
+ * One colour and dash per run, from the palette (tailwind.config.ts), so lines stay apart in
+ * grey print too; clay is left to the criterion line.
+ */
 const LINES: Array<{ colour: string; dash?: string }> = [
   { colour: "#245659" },
-  { colour: "#b5523b", dash: "7 3" },
-  { colour: "#c08a2e", dash: "2 3" },
+  { colour: "#c08a2e", dash: "8 3" },
+  { colour: "#1d2a33", dash: "2 3" },
   { colour: "#55652f", dash: "10 3 2 3" },
-  { colour: "#1d2a33", dash: "4 4" },
-  { colour: "#7fb1ae", dash: "1 2" },
-  { colour: "#853726" },
-  { colour: "#143234", dash: "6 2" },
+  { colour: "#7fb1ae", dash: "4 4" },
+  { colour: "#143234", dash: "1 2" },
+  { colour: "#7b8f4a" },
+  { colour: "#6f7d86", dash: "6 2" },
 ];
 
 export interface OverlayRun {
@@ -128,7 +131,7 @@ export function ProfileOverlayChart({ runs, unitSystem, height = 380 }: { runs: 
                 dataKey="do_shown_mg_l"
                 stroke={LINES[i % LINES.length].colour}
                 strokeDasharray={LINES[i % LINES.length].dash}
-                strokeWidth={2}
+                strokeWidth={2.25}
                 dot={false}
                 isAnimationActive={false}
                 type="linear"

@@ -64,6 +64,29 @@ describe("run comparison", () => {
     expect(cc.conditions[0].cells.map((x) => x!.meets)).toEqual([true, true]);
   });
 
+  it("measures changes from the first run that allocates when the first is a model run", () => {
+    const cc = compareRuns([runs[2], runs[0], runs[1]]);
+    expect(cc.baseline).toBe(1);
+    for (const f of cc.facilities) {
+      expect(f.change_kg_day[0]).toBeNull();
+      expect(f.change_kg_day[1]).toBeNull();
+      expect(f.change_kg_day[2]).toBeCloseTo(f.entries[2]!.cbodu_kg_day - f.entries[1]!.cbodu_kg_day, 12);
+    }
+    expect(compareRuns([runs[2], runs[2]]).baseline).toBeNull();
+  });
+
+  it("gives an infeasible allocation no loads (its entries are the floors it failed at)", () => {
+    const f = example("tamsel-river-allocate");
+    f.criterion_do_mg_l = 8.5;
+    const bad = allocate(f, { own_condition_name: "Design" });
+    expect(bad.feasible).toBe(false);
+    const cc = compareRuns([runs[0], { label: "too strict", conditions: runsAfterAllocation(f, bad, "Design"), allocation: bad }]);
+    expect(cc.columns[1].feasible).toBe(false);
+    expect(cc.columns[1].total_cbodu_kg_day).toBeNull();
+    expect(cc.columns[1].meets).toBe(false);
+    for (const fac of cc.facilities) expect(fac.entries[1]).toBeNull();
+  });
+
   it("needs two runs", () => {
     expect(() => compareRuns(runs.slice(0, 1))).toThrow(RangeError);
   });

@@ -7,6 +7,7 @@ import { Denied } from "@/components/ui/denied";
 import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
+import { formatTime } from "@/lib/format/zoned-time";
 import { inputDifferences } from "@/lib/results/input-diff";
 import { runConditions } from "@/lib/results/run-conditions";
 import { listFacilities } from "@/lib/services/facilities";
@@ -33,7 +34,7 @@ export default async function ComparePage({
   // names beside permit ids; a reader without the facility list still gets the ids
   const names = Object.fromEntries((await listFacilities(db, access.actor, access.basin.id).catch(() => [])).map((f) => [f.permitId, f.name]));
   const label = (r: (typeof done)[number]) =>
-    `${r.scenarioName} v${r.scenarioVersion} · ${r.kind} · ${new Date(r.createdAt).toLocaleString("en-CA", { dateStyle: "short", timeStyle: "short" })}`;
+    `${r.scenarioName} · ${r.kind} · version ${r.scenarioVersion}, ${formatTime(new Date(r.createdAt), access.basin.timeZone ?? "UTC")}`;
   const compared = done.map((r) => ({ run: r, read: runConditions(r.result!) }));
   return (
     <div className="space-y-4">
