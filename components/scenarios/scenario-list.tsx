@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { nameOf, OBJECTIVE_NAMES } from "@/lib/format/labels";
 import {
   useCreateScenarioMutation,
   useDeleteScenarioMutation,
@@ -70,7 +71,7 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
                   </td>
                   <td>v{s.networkVersion}</td>
                   <td>{s.inputs.conditions.map((c) => c.name).join("; ")}</td>
-                  <td>{s.inputs.allocation.objective}</td>
+                  <td>{nameOf(OBJECTIVE_NAMES, s.inputs.allocation.objective)}</td>
                   <td className="text-xs">
                     {when(s.updatedAt)}
                     {s.updatedBy ? ` · ${s.updatedBy}` : ""}

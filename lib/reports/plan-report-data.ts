@@ -99,7 +99,7 @@ export interface PlanReport {
 /** "2026-12-02 14:05 UTC" */
 export const utcMinute = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 const day = (iso: string) => iso.slice(0, 10);
-const pct = (fraction: number) => `${(fraction * 100).toFixed(1)} %`;
+const pct = (fraction: number) => `${formatPercent(fraction * 100)} %`;
 const num = (x: number | null | undefined, digits: number) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(digits));
 
 /**
