@@ -129,6 +129,13 @@ describe("a published plan", () => {
       }
       await page.locator('[aria-label="Map of dissolved oxygen"] [data-ready="true"]').waitFor({ timeout: 30_000 });
       await page.screenshot({ path: `test-results/screens/published-plan-record-${name}.png`, fullPage: true });
+      // the front page under the same header, and the list of published plans
+      await page.goto(baseUrl);
+      await page.getByTestId("published-plans").waitFor();
+      await page.screenshot({ path: `test-results/screens/home-signed-out-${name}.png`, fullPage: true });
+      await header.getByRole("link", { name: "Published plans" }).click();
+      await page.getByTestId("published-list").first().waitFor();
+      await page.screenshot({ path: `test-results/screens/published-list-${name}.png`, fullPage: true });
       await page.close();
     }
   });
