@@ -11,6 +11,7 @@ import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { allocationCsv } from "@/lib/results/csv-rows";
 import { reachResultsExport } from "@/lib/results/results-geojson";
 import { conditionRows, conditionsLine, runConditions } from "@/lib/results/run-conditions";
+import { AppError } from "@/lib/errors";
 import { reachFeature } from "./networks";
 import { getPlan, getPlanForReader, getPublishedPlan } from "./plans";
 
@@ -100,17 +101,24 @@ export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: s
 /**
  * Reaches with their results under the allocated loads (reachResultsExport: one feature
  * per reach with its lowest DO, plus the DO-coloured pieces, critical points and
- * dischargers), the caution and what the file is as foreign members.
+ * dischargers), the caution and what the file is as foreign members. The DO is the
+ * governing condition's unless `conditionName` names another of the plan's conditions
+ * (a 422 naming `condition` when it names none); the file says which it holds and lists
+ * every condition's lowest DO.
  */
-export async function planReachesGeoJson(db: Db, actor: Actor | null, basinId: string, planId: string): Promise<PlanDownload> {
+export async function planReachesGeoJson(db: Db, actor: Actor | null, basinId: string, planId: string, conditionName?: string): Promise<PlanDownload> {
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const s = readSnapshot(plan.snapshot);
   const network = await planNetwork(db, plan.id);
-  // the governing condition's DO; the file says which it is and lists every condition's lowest DO
   const read = runConditions({ conditions: s.run.result.conditions, allocation: s.allocation });
-  const governing = s.run.result.conditions[read.governing];
-  const model = s.run.modelFiles[Math.min(read.governing, s.run.modelFiles.length - 1)].file;
-  const collection = reachResultsExport({ run: governing.run, model, network, condition: governing.name, caution: [...PLANNING_CAUTION] });
+  const index = conditionName === undefined ? read.governing : s.run.result.conditions.findIndex((c) => c.name === conditionName);
+  if (index < 0) {
+    const message = `The plan has no condition "${conditionName}"; it has ${s.run.result.conditions.map((c) => `"${c.name}"`).join(", ")}`;
+    throw new AppError("invalid", message, [{ path: "condition", message }]);
+  }
+  const shown = s.run.result.conditions[index];
+  const model = s.run.modelFiles[Math.min(index, s.run.modelFiles.length - 1)].file;
+  const collection = reachResultsExport({ run: shown.run, model, network, condition: shown.name, caution: [...PLANNING_CAUTION] });
   const json = {
     type: collection.type,
     caution: collection.caution,
@@ -120,8 +128,8 @@ export async function planReachesGeoJson(db: Db, actor: Actor | null, basinId: s
       version: plan.version,
       status: plan.status,
       publishedAt: plan.publishedAt,
-      condition: governing.name,
-      governing: s.run.result.conditions.length > 1,
+      condition: shown.name,
+      governing: index === read.governing,
       conditions: conditionRows({ conditions: s.run.result.conditions, allocation: read.allocation }).map((r) => ({
         name: r.name,
         governing: r.governing,
@@ -134,7 +142,7 @@ export async function planReachesGeoJson(db: Db, actor: Actor | null, basinId: s
     features: collection.features,
   };
   await recordExport(db, actor, basin.id, plan, "geojson");
-  return { body: JSON.stringify(json), contentType: "application/geo+json", fileName: `${stem}-reaches.geojson` };
+  return { body: JSON.stringify(json), contentType: "application/geo+json", fileName: `${stem}-reaches${index === read.governing ? "" : `-${shown.name.replace(/[^\w-]+/g, "-").toLowerCase()}`}.geojson` };
 }
 
 /** The public page's plan (null unless published) with the reach lines its DO map is drawn on. */

@@ -8,9 +8,10 @@ import * as csvRoute from "@/app/api/basins/[basinId]/plans/[planId]/csv/route";
 import * as geojsonRoute from "@/app/api/basins/[basinId]/plans/[planId]/geojson/route";
 import * as reportRoute from "@/app/api/basins/[basinId]/plans/[planId]/report/route";
 import { findBasinById, updateBasin } from "@/db/queries/basins";
+import { AppError } from "@/lib/errors";
 import { formatIn } from "@/lib/format/quantities";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
-import { planReportPdf } from "@/lib/services/plan-reports";
+import { planReachesGeoJson, planReportPdf } from "@/lib/services/plan-reports";
 import { addComment, closeDueReviews, getPlan, publishPlan, respondToThread } from "@/lib/services/plans";
 import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
@@ -131,6 +132,21 @@ describe("the report of a published plan (US units) with a comment and its respo
       expect(typeof f.properties!.below_criterion).toBe("boolean");
     }
     expect(json.features.some((f) => f.properties?.kind === "reach-piece")).toBe(true);
+  });
+
+  it("GeoJSON names the condition it holds (the governing one by default) and lists every condition; an unknown one is refused naming the field", async () => {
+    const plan = await getPlan(db, null, w.basinId, planId);
+    const names = (plan.snapshot as { run: { result: { conditions: { name: string }[] } } }).run.result.conditions.map((c) => c.name);
+    const byDefault = JSON.parse((await planReachesGeoJson(db, null, w.basinId, planId)).body as string);
+    expect(names).toContain(byDefault.plan.condition);
+    expect(byDefault.plan.conditions.map((c: { name: string }) => c.name)).toEqual(names);
+    for (const f of byDefault.features.filter((x: { properties: { kind: string } }) => x.properties.kind === "reach")) expect(f.properties.condition).toBe(byDefault.plan.condition);
+    const named = JSON.parse((await planReachesGeoJson(db, null, w.basinId, planId, names[0])).body as string);
+    expect(named.plan.condition).toBe(names[0]);
+    const e = await planReachesGeoJson(db, null, w.basinId, planId, "No such condition").catch((x: unknown) => x);
+    expect(e).toBeInstanceOf(AppError);
+    expect((e as AppError).status).toBe(422);
+    expect(((e as AppError).details as { path: string }[])[0].path).toBe("condition");
   });
 
   it("CSV: the caution first, then one row per facility in lb/d", async () => {
