@@ -139,7 +139,8 @@ describe("each demo role sees what its role allows", () => {
   it("admin: manages users and sees every basin", async () => {
     const page = await pageAs("admin");
     const names = await page.getByTestId("basin-list").getByRole("link").allTextContents();
-    expect(names.sort()).toEqual(["Kestle Water basin", "Tamsel River basin"]);
+    // both demo basins, though the admin is a member of neither (other test files may have made more basins by now)
+    expect(names).toEqual(expect.arrayContaining(["Kestle Water basin", "Tamsel River basin"]));
     await page.getByRole("link", { name: "Users" }).click();
     await page.getByTestId("users-table").waitFor();
     await page.getByLabel("Name").fill("Orla Vance");
