@@ -186,6 +186,15 @@ export function buildModelFile(network: NetworkForModel, inputs: ScenarioInputs,
   };
   if (withAllocation) {
     const conditions: ConditionInput[] = others.map((c, i) => {
+      // One model file carries every condition: a condition sets all reach temperatures, or
+      // leaves the file's own. Under a first condition that sets one, a condition that sets
+      // none would silently take the first one's, not the reaches' own (as its model run does).
+      if (main.temperatureC !== null && c.temperatureC === null) {
+        throw new ScenarioInputError(
+          `inputs.conditions.${i + 1}.temperatureC`,
+          `Condition "${c.name}" gives no water temperature while "${main.name}" sets ${main.temperatureC} °C; in an allocation every condition is checked in one model file, so give "${c.name}" a temperature too (or put the condition without one first)`,
+        );
+      }
       const inc = flowIncrements(network, c, `inputs.conditions.${i + 1}`, warnings);
       const hws = headwaters(network, inputs, c, inc);
       const sameReaches =

@@ -59,6 +59,21 @@ describe("model file from a scenario and a network version", () => {
     expect(result.allocations).toHaveLength(5);
   });
 
+  it("refuses an allocation whose further condition gives no temperature under a first that sets one (it would take the first's), naming the field", async () => {
+    const net = await demoNetwork();
+    const mixed = inputs({ conditions: [{ name: "Hot", temperatureC: 28 }, { name: "Reaches' own" }] });
+    expect(() => buildModelFile(net, mixed, 5, true)).toThrow(ScenarioInputError);
+    try {
+      buildModelFile(net, mixed, 5, true);
+    } catch (e) {
+      expect((e as ScenarioInputError).path).toBe("inputs.conditions.1.temperatureC");
+    }
+    // a model run builds one file per condition: no such mixing
+    expect(buildConditionFiles(net, mixed, 5)).toHaveLength(2);
+    // the other way round is one file whose own reaches keep their temperatures and a condition that sets all of them
+    expect(buildModelFile(net, inputs({ conditions: [{ name: "Reaches' own" }, { name: "Hot", temperatureC: 28 }] }), 5, true).file.allocation?.conditions?.[0].temperature_c).toBe(28);
+  });
+
   it("applies per-reach kinetics and flows; a null override keeps the network's value", async () => {
     const net = await demoNetwork();
     const { file } = buildModelFile(
