@@ -172,9 +172,10 @@ function Thread({ t }: { t: ReportThread }) {
           </Text>
           <Text>{t.response}</Text>
         </View>
-      ) : (
+      ) : t.acknowledged ? null : (
         <Text style={[s.meta, { marginTop: 4 }]}>No response recorded.</Text>
       )}
+      {t.acknowledged && <Text style={[s.meta, { marginTop: 4 }]}>{t.acknowledged}</Text>}
     </View>
   );
 }
@@ -286,6 +287,7 @@ export function PlanPdf({ report: r }: { report: PlanReport }) {
         </Section>
 
         <Section title="Responsiveness summary">
+          {r.acknowledgement && <Text style={s.note}>{r.acknowledgement}</Text>}
           {r.responsiveness.length === 0 ? (
             <Text style={s.note}>No comments were received on this plan.</Text>
           ) : (

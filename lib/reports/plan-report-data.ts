@@ -10,7 +10,8 @@ import { conditionRows, quoted, runConditions } from "@/lib/results/run-conditio
 import { headwaterReaches, pathToOutlet } from "@/lib/results/path";
 import { profileSeries } from "@/lib/results/profile-series";
 import { resultsGeoJson } from "@/lib/results/results-geojson";
-import type { ThreadForSummary } from "@/lib/results/responsiveness";
+import { acknowledgementNote, acknowledgementSummary, type PublicationAcknowledgementLike, type ThreadForSummary } from "@/lib/results/responsiveness";
+import { formatDay, formatTime } from "@/lib/format/zoned-time";
 import type { ScenarioInputs } from "@/lib/validation/scenario";
 import { mapFigure, profileFigure, type MapFigure, type ProfileFigure } from "./figures";
 import { nameOf, OBJECTIVE_NAMES, REAERATION_NAMES } from "@/lib/format/labels";
@@ -49,11 +50,15 @@ export interface ReportPlanInput {
   }>;
   review: { startsAt: string; endsAt: string; timeZone: string; closedAt: string | null } | null;
   threads: Array<ThreadForSummary & { respondedAt: string | null }>;
+  /** Threads the lead published without a response, and the statement (null when none was). */
+  publicationAcknowledgement?: PublicationAcknowledgementLike | null;
 }
 
 export interface ReportBasinInput {
   name: string;
   unitSystem: UnitSystem;
+  /** The zone the report's dates and times are given in (else the review's, else UTC). */
+  timeZone?: string | null;
 }
 
 export interface ReportTable {
@@ -70,6 +75,8 @@ export interface ReportThread {
   response: string | null;
   responder: string | null;
   respondedAt: string | null;
+  /** The lead's acknowledgement when the thread went out without a (later) response. */
+  acknowledged: string | null;
 }
 
 /** Everything the PDF prints, already formatted in the basin's units. */
@@ -91,14 +98,15 @@ export interface PlanReport {
   methods: Array<{ heading: string; items: Array<{ label: string; value: string }> }>;
   warnings: string[];
   responsiveness: ReportThread[];
+  /** How many threads were published unanswered, and the lead's statement (null when none). */
+  acknowledgement: string | null;
   reviewLine: string | null;
   profile: (ProfileFigure & { caption: string }) | null;
   map: (MapFigure & { caption: string }) | null;
 }
 
-/** "2026-12-02 14:05 UTC" */
-export const utcMinute = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
-const day = (iso: string) => iso.slice(0, 10);
+/** "2 Dec 2026, 08:05 CST" in the report's zone. */
+const minuteIn = (zone: string) => (iso: string) => formatTime(new Date(iso), zone);
 const pct = (fraction: number) => `${formatPercent(fraction * 100)} %`;
 const num = (x: number | null | undefined, digits: number) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(digits));
 
@@ -179,7 +187,8 @@ function tmdlTable(allocation: AllocationResult, system: UnitSystem): ReportTabl
   };
 }
 
-function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, system: UnitSystem, governing: string): PlanReport["methods"] {
+function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, system: UnitSystem, governing: string, zone: string): PlanReport["methods"] {
+  const utcMinute = minuteIn(zone);
   const i = s.scenario.inputs;
   const k = i.kinetics;
   const t = (c: number | null | undefined) => (c === null || c === undefined ? "each reach's own" : `${formatIn("temperature", c, system)} ${unitLabel("temperature", system)}`);
@@ -254,6 +263,10 @@ function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, 
 export function planReport(plan: ReportPlanInput, basin: ReportBasinInput, network: FeatureCollection | null, now = new Date()): PlanReport {
   const s = readSnapshot(plan.snapshot);
   const system = basin.unitSystem;
+  const zone = basin.timeZone ?? plan.review?.timeZone ?? "UTC";
+  const utcMinute = minuteIn(zone);
+  const ack = plan.publicationAcknowledgement ?? null;
+  const acknowledged = new Set(ack?.threads.map((t) => t.id) ?? []);
   // the governing condition stands for the plan; every condition has its row in `conditions`
   const read = runConditions({ conditions: s.run.result.conditions, allocation: s.allocation });
   const governing = s.run.result.conditions[read.governing];
@@ -272,7 +285,7 @@ export function planReport(plan: ReportPlanInput, basin: ReportBasinInput, netwo
     basinName: basin.name,
     version: plan.version,
     published,
-    statusLine: published && plan.publishedAt ? `Published ${day(plan.publishedAt)}` : `DRAFT — not published (status: ${plan.status})`,
+    statusLine: published && plan.publishedAt ? `Published ${formatDay(new Date(plan.publishedAt), zone)}` : `DRAFT — not published (status: ${plan.status})`,
     generatedAt: utcMinute(now.toISOString()),
     caution: PLANNING_CAUTION,
     summary: [
@@ -291,7 +304,7 @@ export function planReport(plan: ReportPlanInput, basin: ReportBasinInput, netwo
       allocation.tmdl && allocation.tmdl.mos_do_mg_l > 0
         ? `A further margin of safety of ${allocation.tmdl.mos_do_mg_l.toFixed(2)} mg/L DO was added to the criterion; it is implicit in the loads above.`
         : null,
-    methods: methods(s, run, allocation, system, governing.name),
+    methods: methods(s, run, allocation, system, governing.name, zone),
     warnings: s.run.result.warnings ?? [],
     responsiveness: [...plan.threads]
       .sort((a, b) => (a.facilityName === null ? -1 : b.facilityName === null ? 1 : a.facilityName.localeCompare(b.facilityName)))
@@ -303,10 +316,12 @@ export function planReport(plan: ReportPlanInput, basin: ReportBasinInput, netwo
         response: t.response,
         responder: t.responder,
         respondedAt: t.respondedAt ? utcMinute(t.respondedAt) : null,
+        acknowledged: ack && t.id && acknowledged.has(t.id) ? acknowledgementNote(ack, zone) : null,
       })),
+    acknowledgement: ack ? acknowledgementSummary(ack, zone) : null,
     reviewLine: plan.review
-      ? `Review period ${utcMinute(plan.review.startsAt)} to ${utcMinute(plan.review.closedAt ?? plan.review.endsAt)} (the basin's time zone is ${plan.review.timeZone}).`
-      : null,
+      ? `Review period ${utcMinute(plan.review.startsAt)} to ${utcMinute(plan.review.closedAt ?? plan.review.endsAt)}. Dates and times in this report are in ${zone}.`
+      : `Dates and times in this report are in ${zone}.`,
     profile: series
       ? {
           ...profileFigure(series, { width: 515, height: 210 }),

@@ -1,4 +1,5 @@
 import type { CsvColumn } from "@/components/tables/sortable-table";
+import { formatDay } from "@/lib/format/zoned-time";
 import { exportPreface } from "./caution";
 
 /** What the lead acknowledged on publishing with threads unanswered (db/schema PublicationAcknowledgement). */
@@ -15,14 +16,14 @@ export interface PublicationAcknowledgementLike {
  * date), and the lead's statement.
  */
 export function acknowledgementNote(ack: PublicationAcknowledgementLike, timeZone = "UTC"): string {
-  const day = new Intl.DateTimeFormat("en-CA", { dateStyle: "medium", timeZone }).format(new Date(ack.at));
+  const day = formatDay(new Date(ack.at), timeZone);
   return `No response when the plan was published on ${day}; acknowledged by ${ack.by}: "${ack.statement}"`;
 }
 
 /** One sentence for the summary's head: how many threads went out unanswered, and the statement. */
 export function acknowledgementSummary(ack: PublicationAcknowledgementLike, timeZone = "UTC"): string {
   const n = ack.threads.length;
-  const day = new Intl.DateTimeFormat("en-CA", { dateStyle: "medium", timeZone }).format(new Date(ack.at));
+  const day = formatDay(new Date(ack.at), timeZone);
   return (
     `${n} thread${n === 1 ? " was" : "s were"} published without a response (${ack.threads.map((t) => t.topic).join("; ")}). ` +
     `${ack.by} acknowledged this on ${day}: "${ack.statement}"`

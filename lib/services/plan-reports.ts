@@ -1,4 +1,5 @@
 import type { FeatureCollection } from "geojson";
+import { formatWhen } from "@/lib/format/zoned-time";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
 import { findPlanReportFile, planReachLines, storePlanReportFile } from "@/db/queries/plan-reports";
@@ -47,9 +48,11 @@ async function planNetwork(db: Db, planId: string): Promise<FeatureCollection> {
   return { type: "FeatureCollection", features: (await planReachLines(db, planId)).map(reachFeature) };
 }
 
-const about = (basinName: string, plan: PlanDto) => [
-  `${basinName}: ${plan.title}, version ${plan.version}`,
-  plan.status === "published" && plan.publishedAt ? `Published ${plan.publishedAt.slice(0, 10)}` : `DRAFT — not published (status: ${plan.status})`,
+const about = (basin: { name: string; timeZone: string | null }, plan: PlanDto) => [
+  `${basin.name}: ${plan.title}, version ${plan.version}`,
+  plan.status === "published" && plan.publishedAt
+    ? `Published ${formatWhen(new Date(plan.publishedAt), basin.timeZone ?? plan.review?.timeZone ?? "UTC")}`
+    : `DRAFT — not published (status: ${plan.status})`,
 ];
 
 /** The plan report as PDF (see lib/reports/plan-pdf.tsx). */
@@ -57,7 +60,7 @@ export async function planReportPdf(db: Db, actor: Actor | null, basinId: string
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const render = async () => {
     const network = await planNetwork(db, plan.id);
-    const report = planReport(plan, { name: basin.name, unitSystem: basin.unitSystem }, network.features.length ? network : null, now);
+    const report = planReport(plan, { name: basin.name, unitSystem: basin.unitSystem, timeZone: basin.timeZone }, network.features.length ? network : null, now);
     return new Uint8Array(await renderPlanPdf(report));
   };
   if (plan.status !== "published") {
@@ -92,7 +95,7 @@ export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: s
   const s = readSnapshot(plan.snapshot);
   const names = Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]));
   const text = csvText(
-    allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unitSystem, [...about(basin.name, plan), conditionsLine({ conditions: s.run.result.conditions, allocation: s.allocation })], names),
+    allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unitSystem, [...about(basin, plan), conditionsLine({ conditions: s.run.result.conditions, allocation: s.allocation })], names),
   );
   await recordExport(db, actor, basin.id, plan, "csv");
   return { body: text, contentType: "text/csv; charset=utf-8", fileName: `${stem}-allocations.csv` };

@@ -490,5 +490,5 @@ export async function listReviews(db: Db, actor: Actor | null, now = new Date())
 export async function getPlanForReader(db: Db, actor: Actor | null, basinId: string, planId: string) {
   const plan = await getPlan(db, actor, basinId, planId);
   const basin = (await findBasinById(db, basinId))!;
-  return { plan, basin: { id: basin.id, name: basin.name, slug: basin.slug, unitSystem: basin.unit_system } };
+  return { plan, basin: { id: basin.id, name: basin.name, slug: basin.slug, unitSystem: basin.unit_system, timeZone: basin.time_zone } };
 }

@@ -248,6 +248,9 @@ describe("from a proposed plan to a published one", () => {
     expect(text).toMatch(/qualified \(licensed\) engineer/);
     expect(text).toMatch(/We need until 2028 to upgrade/);
     expect(text).toMatch(/A compliance schedule to 2028 is proposed/);
+    // the lead's acknowledgement, in the responsiveness summary; times in the basin's zone
+    expect(text).toMatch(/1 thread was published without a response \(The plan as a whole\)\. .* acknowledged this on .*"The August flow question is taken up/);
+    expect(text).toMatch(/Dates and times in this report are in America\/Chicago/);
     await page.close();
   });
 });

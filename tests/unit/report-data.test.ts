@@ -72,7 +72,7 @@ describe("planReport", () => {
   it("says published with its date, or DRAFT with the state", () => {
     const pub = planReport(plan("published"), { name: "Tamsel", unitSystem: "SI" }, null);
     expect(pub.published).toBe(true);
-    expect(pub.statusLine).toBe("Published 2026-11-20");
+    expect(pub.statusLine).toBe("Published 20 Nov 2026");
     const review = planReport(plan("review"), { name: "Tamsel", unitSystem: "SI" }, null);
     expect(review.published).toBe(false);
     expect(review.statusLine).toBe("DRAFT — not published (status: review)");
@@ -120,9 +120,22 @@ describe("planReport", () => {
       null,
     );
     expect(r.responsiveness.map((x) => x.topic)).toEqual(["The plan as a whole", "Marrowby Creamery (DP-1)"]);
-    expect(r.responsiveness[0].comments[0]).toEqual({ author: "Sam", role: "stakeholder", at: "2026-11-06 08:15 UTC", body: "whole plan" });
+    expect(r.responsiveness[0].comments[0]).toEqual({ author: "Sam", role: "stakeholder", at: "6 Nov 2026, 08:15 UTC", body: "whole plan" });
     expect(r.responsiveness[1].comments.map((c) => c.body)).toEqual(["earlier", "later"]);
-    expect(r.responsiveness[1]).toMatchObject({ response: "We agree.", responder: "Ada Planner", respondedAt: "2026-11-10 12:00 UTC" });
+    expect(r.responsiveness[1]).toMatchObject({ response: "We agree.", responder: "Ada Planner", respondedAt: "10 Nov 2026, 12:00 UTC", acknowledged: null });
+    expect(r.acknowledgement).toBeNull();
+    // in the basin's zone, named (America/Chicago is UTC−6 in November: IANA rules)
+    const chicago = planReport(plan("closed", [t(null, [{ body: "whole plan", at: "2026-11-06T08:15:00.000Z" }], null)]), { name: "Tamsel", unitSystem: "SI", timeZone: "America/Chicago" }, null);
+    expect(chicago.responsiveness[0].comments[0].at).toBe("6 Nov 2026, 02:15 CST");
+    expect(chicago.reviewLine).toBe("Dates and times in this report are in America/Chicago.");
+  });
+
+  it("prints the lead's acknowledgement of threads published without a response", () => {
+    const thread = { id: "th-1", facilityName: null, permitId: null, status: "open", response: null, responder: null, respondedAt: null, comments: [{ body: "No answer came", at: "2026-11-06T08:15:00.000Z", author: "Sam", role: "stakeholder" }] };
+    const ack = { by: "Maren Lead", at: "2026-11-20T15:00:00.000Z", statement: "Taken up in the next revision.", threads: [{ id: "th-1", topic: "The plan as a whole", comments: 1 }] };
+    const r = planReport({ ...plan("published", [thread]), publicationAcknowledgement: ack }, { name: "Tamsel", unitSystem: "SI", timeZone: "America/Chicago" }, null);
+    expect(r.acknowledgement).toBe('1 thread was published without a response (The plan as a whole). Maren Lead acknowledged this on 20 Nov 2026: "Taken up in the next revision."');
+    expect(r.responsiveness[0].acknowledged).toBe('No response when the plan was published on 20 Nov 2026; acknowledged by Maren Lead: "Taken up in the next revision."');
   });
 
   it("refuses a snapshot without an allocation", () => {
