@@ -1,3 +1,4 @@
+import { formatDay } from "@/lib/format/zoned-time";
 import Link from "next/link";
 import { getDb } from "@/db/client";
 import { currentActor } from "@/lib/auth/session";
@@ -50,7 +51,7 @@ export default async function HomePage() {
                 <Link href={`/published/${p.basinId}/${p.id}`}>{p.title}</Link>{" "}
                 <span className="text-sm text-ink-faint">
                   — {p.basinName}, version {p.version}
-                  {p.publishedAt ? `, ${new Date(p.publishedAt).toLocaleDateString("en-CA")}` : ""}
+                  {p.publishedAt ? `, ${formatDay(new Date(p.publishedAt), p.timeZone)}` : ""}
                   {p.superseded ? " — superseded by a later version" : ""}
                 </span>
               </li>

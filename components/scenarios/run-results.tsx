@@ -1,4 +1,6 @@
 "use client";
+import { useBasinZone } from "@/components/layout/basin-zone";
+import { formatWhen } from "@/lib/format/zoned-time";
 import type { FeatureCollection } from "geojson";
 import Link from "next/link";
 import { useMemo, useState } from "react";
@@ -41,6 +43,7 @@ export function RunResults({
 }) {
   const query = useRunQuery(basinId, initial.id);
   const run = query.data ?? initial;
+  const zone = useBasinZone();
   // null: the governing condition, until the planner picks another
   const [picked, setPicked] = useState<number | null>(null);
   const [startReach, setStartReach] = useState<string | null>(null);
@@ -55,7 +58,7 @@ export function RunResults({
   const from = startReach ?? heads[0];
   const about = [
     `${basinName} — scenario "${run.scenarioName}" v${run.scenarioVersion}`,
-    `run ${run.id} (${run.kind}), ${run.finishedAt ?? ""}`,
+    `run ${run.id} (${run.kind})${run.finishedAt ? `, finished ${formatWhen(new Date(run.finishedAt), zone)}` : ""}`,
     ...(result?.conditions.length ? [conditionsLine(result)] : []),
   ];
   const stem = `${run.scenarioName.replace(/[^\w-]+/g, "-").toLowerCase()}-${run.kind}`;

@@ -2,7 +2,9 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { useBasinZone } from "@/components/layout/basin-zone";
 import { Button } from "@/components/ui/button";
+import { formatTime } from "@/lib/format/zoned-time";
 import { Notice } from "@/components/ui/notice";
 import { nameOf, OBJECTIVE_NAMES } from "@/lib/format/labels";
 import {
@@ -14,11 +16,11 @@ import {
 } from "@/lib/queries/scenarios";
 import { scenarioInputsSchema } from "@/lib/validation/scenario";
 
-const when = (iso: string) => new Date(iso).toLocaleString("en-CA", { dateStyle: "medium", timeStyle: "short" });
-
 /** Scenarios of the basin, recent runs, and choosing runs to compare. */
 export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: boolean }) {
   const router = useRouter();
+  const zone = useBasinZone();
+  const when = (iso: string) => formatTime(new Date(iso), zone);
   const scenarios = useScenariosQuery(basinId);
   const runs = useRunsQuery(basinId);
   const create = useCreateScenarioMutation(basinId);

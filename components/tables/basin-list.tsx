@@ -3,7 +3,7 @@ import Link from "next/link";
 import { FollowButton } from "@/components/basins/follow-button";
 import { Notice } from "@/components/ui/notice";
 import { RoleBadge } from "@/components/ui/role-badge";
-import { formatWhen } from "@/lib/format/zoned-time";
+import { formatDay, formatWhen } from "@/lib/format/zoned-time";
 import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
 import { useBasinsQuery } from "@/lib/queries/basins";
 import type { ReaderHome } from "@/lib/services/plan-readers";
@@ -46,7 +46,6 @@ export function BasinList() {
   );
 }
 
-const day = (iso: string) => new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(new Date(iso));
 
 /**
  * What a signed-in person outside every basin can do: read the plans under review (and
@@ -92,7 +91,7 @@ export function ReaderLanding({ home }: { home: Pick<ReaderHome, "reviews" | "pu
                 <Link href={`/published/${p.basinId}/${p.id}`}>{p.title}</Link>{" "}
                 <span className="text-ink-soft">
                   — {p.basinName}, version {p.version}
-                  {p.publishedAt ? `, published ${day(p.publishedAt)} (UTC)` : ""}
+                  {p.publishedAt ? `, published ${formatDay(new Date(p.publishedAt), p.timeZone)}` : ""}
                   {p.superseded ? " — superseded by a later version" : ""}
                 </span>
               </li>

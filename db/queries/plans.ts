@@ -157,7 +157,7 @@ export async function listPublishedPlans(db: Db, limit = 50) {
   return db
     .selectFrom("plans as p")
     .innerJoin("basins as b", "b.id", "p.basin_id")
-    .select(["p.id", "p.basin_id", "p.lineage_id", "p.title", "p.version", "p.published_at", "b.name as basin_name", "b.unit_system"])
+    .select(["p.id", "p.basin_id", "p.lineage_id", "p.title", "p.version", "p.published_at", "b.name as basin_name", "b.unit_system", "b.time_zone"])
     .where("p.status", "=", "published")
     .orderBy("p.published_at", "desc")
     .limit(limit)

@@ -454,6 +454,8 @@ export async function listPublishedPlans(db: Db) {
     title: p.title,
     version: p.version,
     publishedAt: p.published_at?.toISOString() ?? null,
+    /** The basin's zone, that the publication date is given in. */
+    timeZone: p.time_zone ?? "UTC",
   }));
 }
 

@@ -1,3 +1,4 @@
+import { formatDay } from "@/lib/format/zoned-time";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { getDb } from "@/db/client";
@@ -6,7 +7,6 @@ import { listPublishedPlans } from "@/lib/services/plans";
 export const metadata: Metadata = { title: "Published plans" };
 export const dynamic = "force-dynamic";
 
-const day = (iso: string) => new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(new Date(iso));
 
 /** Every published plan, basin by basin: readable by anyone, without signing in. */
 export default async function PublishedPlansPage() {
@@ -38,7 +38,7 @@ export default async function PublishedPlansPage() {
                   <Link href={`/published/${p.basinId}/${p.id}`}>{p.title}</Link>{" "}
                   <span className="text-sm text-ink-faint">
                     version {p.version}
-                    {p.publishedAt ? `, published ${day(p.publishedAt)} (UTC)` : ""}
+                    {p.publishedAt ? `, published ${formatDay(new Date(p.publishedAt), p.timeZone)}` : ""}
                     {p.superseded ? " — superseded by a later version" : ""}
                   </span>
                 </li>
