@@ -10,6 +10,7 @@ import * as reportRoute from "@/app/api/basins/[basinId]/plans/[planId]/report/r
 import { findBasinById, updateBasin } from "@/db/queries/basins";
 import { AppError } from "@/lib/errors";
 import { formatIn } from "@/lib/format/quantities";
+import { formatDay } from "@/lib/format/zoned-time";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { planReachesGeoJson, planReportPdf } from "@/lib/services/plan-reports";
 import { addComment, closeDueReviews, getPlan, publishPlan, respondToThread } from "@/lib/services/plans";
@@ -71,7 +72,9 @@ describe("the report of a published plan (US units) with a comment and its respo
     expect(Buffer.from(pdf.body as Uint8Array).subarray(0, 5).toString()).toBe("%PDF-");
     const text = pdfText(pdf.body as Uint8Array, "published");
     expect(text).toContain(plan.title);
-    expect(text).toContain(`Published ${plan.publishedAt!.slice(0, 10)}`);
+    // the date as it falls in the basin's zone (its first review's, America/Chicago)
+    expect(text).toContain(`Published ${formatDay(new Date(plan.publishedAt!), "America/Chicago")}`);
+    expect(text).toContain("Dates and times in this report are in America/Chicago.");
     expect(text).not.toContain("DRAFT");
     for (const line of PLANNING_CAUTION) expect(text).toContain(line);
     // loads in lb/d, never kg/d; each facility's row: name, permit, (the rest of a wrapped name,) design flow, then its allocated CBODu as formatted
@@ -90,7 +93,7 @@ describe("the report of a published plan (US units) with a comment and its respo
     expect(text).toContain("Most total load");
     expect(text).toContain(COMMENT);
     expect(text).toContain(RESPONSE);
-    expect(text).toMatch(new RegExp(`${w.users.stakeholder.name} \\(stakeholder\\), \\d{4}-\\d{2}-\\d{2} \\d{2}:\\d{2} UTC`));
+    expect(text).toMatch(new RegExp(`${w.users.stakeholder.name} \\(stakeholder\\), \\d{1,2} \\w{3} \\d{4}, \\d{2}:\\d{2} C[SD]T`));
     expect(text).toContain(`Response by ${w.users.planner.name}`);
     // the caution on the first page and in every page's footer
     const pages = Number(/Page 1 of (\d+)/.exec(text)![1]);
@@ -147,6 +150,13 @@ describe("the report of a published plan (US units) with a comment and its respo
     expect(e).toBeInstanceOf(AppError);
     expect((e as AppError).status).toBe(422);
     expect(((e as AppError).details as { path: string }[])[0].path).toBe("condition");
+    // through the route: ?condition= picks one, an unknown one is a 422 naming it
+    const viaRoute = await callRoute(geojsonRoute.GET, "GET", { params: { basinId: w.basinId, planId }, query: { condition: names[0] } });
+    expect(viaRoute.status).toBe(200);
+    expect((viaRoute.json as { plan: { condition: string } }).plan.condition).toBe(names[0]);
+    const unknown = await callRoute(geojsonRoute.GET, "GET", { params: { basinId: w.basinId, planId }, query: { condition: "No such condition" } });
+    expect(unknown.status).toBe(422);
+    expect(err(unknown.json).details![0].path).toBe("condition");
   });
 
   it("CSV: the caution first, then one row per facility in lb/d", async () => {

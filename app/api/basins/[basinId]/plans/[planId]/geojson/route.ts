@@ -1,9 +1,13 @@
+import { z } from "zod";
 import { route } from "@/lib/api/route";
 import { downloadResponse } from "@/lib/reports/download";
 import { planReachesGeoJson } from "@/lib/services/plan-reports";
 import { planParams } from "@/lib/validation/params";
 
+/** ?condition= names one of the plan's design conditions; left out, the governing one. */
+const query = z.object({ condition: z.string().trim().min(1, "Name one of the plan's conditions").max(200).optional() });
+
 /** Reaches with their DO results under the plan's allocation (GeoJSON); same access and audit as the report. */
-export const GET = route({ access: { public: true }, params: planParams }, async ({ db, actor, params }) =>
-  downloadResponse(await planReachesGeoJson(db, actor, params.basinId, params.planId)),
+export const GET = route({ access: { public: true }, params: planParams, query }, async ({ db, actor, params, query }) =>
+  downloadResponse(await planReachesGeoJson(db, actor, params.basinId, params.planId, query.condition)),
 );
