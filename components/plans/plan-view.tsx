@@ -91,6 +91,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
 
       <section className="card">
         <h2 className="mb-3">Allocations</h2>
+        <div className="overflow-x-auto">
         <table className="data-table" data-testid="plan-allocations">
           <thead>
             <tr>
@@ -117,6 +118,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
             ))}
           </tbody>
         </table>
+        </div>
       </section>
 
       <PlanProfile plan={plan} unitSystem={unitSystem} />
