@@ -53,7 +53,8 @@ export function syntheticNetwork(target: number): Array<{ id: string; down: stri
 
 const mb = (bytes: number) => `${(bytes / 1024 / 1024).toFixed(1)} MB`;
 
-export async function geoImportBench(target: number, dischargerCount: number): Promise<void> {
+/** The synthetic network as a zipped UTM shapefile with `dischargerCount` dischargers as a lat/lon CSV near its reaches. */
+export function syntheticFiles(target: number, dischargerCount: number): { net: ReturnType<typeof syntheticNetwork>; zip: Uint8Array; csv: string } {
   const net = syntheticNetwork(target);
   const zip = zipShapefile(
     "synthetic",
@@ -73,7 +74,15 @@ export async function geoImportBench(target: number, dischargerCount: number): P
     const [lon, lat] = toWgs84(x + 30, y + 10);
     return `Facility ${k},P-${k},${lat.toFixed(7)},${lon.toFixed(7)},1.5,30`;
   });
-  const csv = ["name,permit,lat,lon,mgd,bod5", ...rows].join("\n");
+  return { net, zip, csv: ["name,permit,lat,lon,mgd,bod5", ...rows].join("\n") };
+}
+
+/** The field mappings of the synthetic files, in the API's own schema. */
+export const SYNTHETIC_REACH_MAPPING = { reachId: "REACH_ID", downstreamId: "DOWN_ID", designFlow: { source: "FLOW_CFS", unit: "cfs" } } as const;
+export const SYNTHETIC_DISCHARGER_MAPPING = { name: "name", permitId: "permit", designFlow: { source: "mgd", unit: "MGD" }, effluentBod: { source: "bod5", kind: "BOD5" } } as const;
+
+export async function geoImportBench(target: number, dischargerCount: number): Promise<void> {
+  const { net, zip, csv } = syntheticFiles(target, dischargerCount);
 
   global.gc?.();
   const heap0 = process.memoryUsage().heapUsed;
@@ -84,9 +93,9 @@ export async function geoImportBench(target: number, dischargerCount: number): P
   const report = validateImport(
     {
       reaches,
-      reachMapping: { reachId: "REACH_ID", downstreamId: "DOWN_ID", designFlow: { source: "FLOW_CFS", unit: "cfs" } },
+      reachMapping: SYNTHETIC_REACH_MAPPING,
       dischargers: points,
-      dischargerMapping: { name: "name", permitId: "permit", designFlow: { source: "mgd", unit: "MGD" }, effluentBod: { source: "bod5", kind: "BOD5" } },
+      dischargerMapping: SYNTHETIC_DISCHARGER_MAPPING,
     },
     { maxReachLengthKm: 10 },
   );

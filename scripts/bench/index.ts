@@ -7,6 +7,8 @@
  *      (parse + reprojection + topology + snapping); target ≤ 3 s.
  *   5. Self-crossing check of 2k/16k/100k-vertex lines against turf kinks().
  *   6. Lengths on the WGS84 ellipsoid against turf's sphere and GeographicLib, per million segments.
+ *   7. Committing a 2k-reach network with 200 dischargers into PostgreSQL (a throwaway database
+ *      on the test cluster, started when needed); target ≤ 2 s. `--no-db` skips it.
  * Targets (issue 3): 10k-reach run ≤ 20 ms; ≥ 100× faster than the ODE integrator;
  * 500-discharger allocation ≤ 2 s and no slower than HiGHS on the full LP.
  * Options: `npm run bench -- --quick` skips the 10k ODE comparison and the 500-discharger case.
@@ -17,6 +19,7 @@ import { allocationBench } from "./allocation-bench";
 import { geoImportBench } from "./geo-import";
 import { selfCrossingsBench } from "./self-crossings-bench";
 import { geodesicBench } from "./geodesic-bench";
+import { networkCommitBench } from "./network-commit-bench";
 
 const quick = process.argv.includes("--quick");
 
@@ -30,9 +33,10 @@ async function main() {
   await geoImportBench(10_000, 1000);
   selfCrossingsBench();
   geodesicBench();
+  if (!process.argv.includes("--no-db")) await networkCommitBench(2000, 200);
 }
 
-main().catch((e: unknown) => {
+main().then(() => process.exit(0), (e: unknown) => {
   console.error(e instanceof Error ? e.message : String(e));
   process.exit(1);
 });
