@@ -52,14 +52,17 @@ beforeAll(async () => {
   await signInAs(page, baseUrl, planner.email, planner.password);
   const basins = (await (await page.request.get(`${baseUrl}/api/basins`)).json()) as { id: string; slug: string }[];
   basinId = basins.find((b) => b.slug === "tamsel-river")!.id;
-  const created = await page.request.post(`${baseUrl}/api/basins/${basinId}/scenarios`, { data: SCENARIO });
+  // the seeded network (version 1): other browser tests import and edit later versions of the demo basin's network
+  const versions = (await (await page.request.get(`${baseUrl}/api/basins/${basinId}/networks`)).json()) as { id: string; version: number }[];
+  const networkId = versions.find((v) => v.version === 1)!.id;
+  const created = await page.request.post(`${baseUrl}/api/basins/${basinId}/scenarios`, { data: { ...SCENARIO, networkId } });
   expect(created.status()).toBe(201);
   const { id } = (await created.json()) as { id: string };
   runIds.model = await runToEnd(id, "model");
   runIds.allocation = await runToEnd(id, "allocation");
   // the same river under another rule, for the inputs that differ
   const other = await page.request.post(`${baseUrl}/api/basins/${basinId}/scenarios`, {
-    data: { name: "Two conditions, equal cuts", inputs: { ...SCENARIO.inputs, allocation: { objective: "equal-percent", mosDoMgL: 0.2 } } },
+    data: { name: "Two conditions, equal cuts", networkId, inputs: { ...SCENARIO.inputs, allocation: { objective: "equal-percent", mosDoMgL: 0.2 } } },
   });
   expect(other.status()).toBe(201);
   runIds.other = await runToEnd(((await other.json()) as { id: string }).id, "allocation");
