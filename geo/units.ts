@@ -4,6 +4,7 @@
  * US gallon = 231 in³, MGD = 10⁶ US gal/d). The names here are the
  * importer's; the numbers are that table's.
  */
+import { withoutFloatNoise } from "@/lib/format/quantities";
 import { FT3_TO_M3, FT_TO_M, MGD_TO_M3_S, MI_TO_KM, SECONDS_PER_DAY as DAY_S, US_GAL_TO_L } from "@/lib/model/units";
 
 export const METRES_PER_FOOT = FT_TO_M;
@@ -41,18 +42,24 @@ const DISTANCE_TO_KM: Record<DistanceUnit, number> = {
 };
 const VELOCITY_TO_MPS: Record<VelocityUnit, number> = { "m/s": 1, "ft/s": METRES_PER_FOOT };
 
+/**
+ * An imported value times its exact factor, kept to 12 significant digits so the stored SI
+ * value carries no float noise (1.05 ft → 0.32004 m, not 0.32004000000000005); SI values pass unchanged.
+ */
+const convert = (value: number, factor: number) => (factor === 1 ? value : withoutFloatNoise(value * factor));
+
 /** Flow to m³/s. Example: `flowToM3s(1, "cfs")` → 0.028316846592. */
-export const flowToM3s = (value: number, unit: FlowUnit): number => value * FLOW_TO_M3S[unit];
+export const flowToM3s = (value: number, unit: FlowUnit): number => convert(value, FLOW_TO_M3S[unit]);
 
 /** Depth or elevation to metres. Example: `depthToM(10, "ft")` → 3.048. */
-export const depthToM = (value: number, unit: DepthUnit): number => value * DEPTH_TO_M[unit];
+export const depthToM = (value: number, unit: DepthUnit): number => convert(value, DEPTH_TO_M[unit]);
 
 /** Distance to kilometres. Example: `distanceToKm(1, "mi")` → 1.609344. */
-export const distanceToKm = (value: number, unit: DistanceUnit): number => value * DISTANCE_TO_KM[unit];
+export const distanceToKm = (value: number, unit: DistanceUnit): number => convert(value, DISTANCE_TO_KM[unit]);
 
 /** Velocity to m/s. Example: `velocityToMps(1, "ft/s")` → 0.3048. */
-export const velocityToMps = (value: number, unit: VelocityUnit): number => value * VELOCITY_TO_MPS[unit];
+export const velocityToMps = (value: number, unit: VelocityUnit): number => convert(value, VELOCITY_TO_MPS[unit]);
 
 /** Temperature to °C. Example: `temperatureToC(68, "degF")` → 20. */
 export const temperatureToC = (value: number, unit: TemperatureUnit): number =>
-  unit === "degC" ? value : ((value - 32) * 5) / 9;
+  unit === "degC" ? value : withoutFloatNoise(((value - 32) * 5) / 9);
