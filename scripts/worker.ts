@@ -2,7 +2,8 @@ import { getDb, isDatabaseUnavailable, noteDatabaseDown } from "@/db/client";
 import { getBoss, RUN_QUEUE, runTimeLimitSeconds, stopBoss } from "@/lib/jobs/queue";
 import { runJob } from "@/lib/jobs/run-job";
 import { closeDueReviews, sendClosingSoonNotices } from "@/lib/services/plans";
-import { sweepStuckRuns } from "@/lib/services/runs";
+import { sweepStuckRuns, type RunCompute } from "@/lib/services/runs";
+import { createComputePool } from "@/lib/compute/pool";
 import { sendPending } from "@/lib/email/sender";
 import { smtpUrl } from "@/lib/email/transport";
 
@@ -41,10 +42,16 @@ async function startQueue() {
 
 const boss = await startQueue();
 const limit = runTimeLimitSeconds();
+// The computation runs in a worker thread, so the mail loop and the review timers below
+// keep their turns during a long solve, and a solve past the run's time limit is stopped
+// (its thread terminated) and the run failed with the reason — a few seconds before
+// pg-boss would expire the job.
+const compute = createComputePool({ size: 1, timeoutMs: Math.max(1, limit - 5) * 1000 });
+const pooled: RunCompute = (job, onProgress) => compute.payload(job, onProgress);
 await boss.work<{ runId: string }>(RUN_QUEUE, { pollingIntervalSeconds: 0.5, batchSize: 1 }, async (jobs) => {
-  for (const job of jobs) await runJob(job.data.runId, limit);
+  for (const job of jobs) await runJob(job.data.runId, limit, pooled);
 });
-console.log(`Sagline worker listening on queue ${RUN_QUEUE} (pid ${process.pid}, time limit ${limit} s per run)`);
+console.log(`Sagline worker listening on queue ${RUN_QUEUE} (pid ${process.pid}, time limit ${limit} s per run, computed in a worker thread)`);
 
 const quietly = (what: string) => (error: unknown) => {
   if (isDatabaseUnavailable(error)) noteDatabaseDown(what, error);
@@ -100,6 +107,7 @@ const shutdown = async () => {
   clearTimeout(sweepTimer);
   clearInterval(reviewTimer);
   await stopBoss();
+  await compute.close();
   await getDb().destroy();
   process.exit(0);
 };

@@ -1,6 +1,7 @@
 import { ModelInputError } from "../model/errors";
 import type { AllocationResult } from "../model/allocation/allocate";
 import type { RunResult } from "../model/network/run";
+import type { RunPayload } from "../model/run-payload";
 import type { ModelFile } from "../model/types";
 import type { ComputeJob, ComputeResponse, SerializedError } from "./protocol";
 import { createWorkerPool } from "./worker-pool";
@@ -15,7 +16,7 @@ export class ComputeError extends Error {
 
 /** A job ran past its time limit; its worker was terminated and will be replaced. */
 export class ComputeTimeoutError extends Error {
-  constructor(ms: number) {
+  constructor(readonly ms: number) {
     super(`the computation did not finish within ${ms} ms`);
     this.name = "ComputeTimeoutError";
   }
@@ -33,13 +34,17 @@ export interface ComputePoolOptions {
 export interface ComputePool {
   run(file: ModelFile): Promise<RunResult>;
   allocate(file: ModelFile, options?: Extract<ComputeJob, { kind: "allocate" }>["options"]): Promise<AllocationResult>;
+  /** Everything a stored run computes (lib/model/run-payload), with its progress (0–1). */
+  payload(job: Omit<Extract<ComputeJob, { kind: "payload" }>, "kind">, onProgress?: (done: number) => void): Promise<RunPayload>;
   /** Terminates every worker; pending jobs are rejected. */
   close(): Promise<void>;
 }
 
 function revive(e: SerializedError): Error {
   if (e.name === "ModelInputError" && e.path) return new ModelInputError(e.path, e.message.slice(e.message.indexOf(": ") + 2));
-  return new ComputeError(e.message, e.name);
+  const err = new ComputeError(e.message, e.name);
+  if (e.stack) err.stack = `${e.name}: ${e.message}\n    (in the compute worker)\n${e.stack.split("\n").slice(1).join("\n")}`;
+  return err;
 }
 
 /**
@@ -54,7 +59,13 @@ export function createComputePool(options: ComputePoolOptions = {}): ComputePool
     url: options.workerUrl ?? new URL(`./worker.${ext}`, import.meta.url),
     size: options.size ?? 1,
     timeoutMs,
-    settle: (res) => (res.ok ? { value: res.result } : { error: revive(res.error) }),
+    settle: (res, observe) => {
+      if ("progress" in res) {
+        observe?.(res);
+        return undefined;
+      }
+      return res.ok ? { value: res.result } : { error: revive(res.error) };
+    },
     failure: (f) => {
       if (f.kind === "timeout") return new ComputeTimeoutError(f.ms);
       if (f.kind === "closed") return new ComputeError("the compute pool is closed");
@@ -64,6 +75,10 @@ export function createComputePool(options: ComputePoolOptions = {}): ComputePool
   return {
     run: (file) => pool.submit({ kind: "run", file }) as Promise<RunResult>,
     allocate: (file, opts) => pool.submit({ kind: "allocate", file, options: opts }) as Promise<AllocationResult>,
+    payload: (job, onProgress) =>
+      pool.submit({ kind: "payload", ...job }, (res) => {
+        if ("progress" in res) onProgress?.(res.progress);
+      }) as Promise<RunPayload>,
     close: pool.close,
   };
 }

@@ -1,27 +1,31 @@
 /**
- * Worker-thread entry: runs model and allocation jobs off the server's event loop.
- * Messages in: ComputeRequest; out: ComputeResponse. Pure computation, no I/O.
+ * Worker-thread entry: runs model and allocation jobs off the event loop of the process
+ * that asked (the web server or the background worker). Messages in: ComputeRequest; out:
+ * ComputeResponse (progress messages first for a payload job). Pure computation, no I/O.
  */
 import { parentPort } from "node:worker_threads";
 import { allocate } from "../model/allocation/allocate";
 import { ModelInputError } from "../model/errors";
 import { runModel } from "../model/network/run";
+import { computeRunPayload } from "../model/run-payload";
 import type { ComputeRequest, ComputeResponse } from "./protocol";
 
-function handle(req: ComputeRequest): ComputeResponse {
+function handle(req: ComputeRequest, progress: (done: number) => void): ComputeResponse {
   try {
-    const result = req.job.kind === "run" ? runModel(req.job.file) : allocate(req.job.file, req.job.options);
+    const job = req.job;
+    const result =
+      job.kind === "run" ? runModel(job.file) : job.kind === "allocate" ? allocate(job.file, job.options) : computeRunPayload(job.runKind, job.files, job.warnings, progress);
     return { id: req.id, ok: true, result };
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));
     return {
       id: req.id,
       ok: false,
-      error: { name: err.name, message: err.message, ...(e instanceof ModelInputError ? { path: [...e.path] } : {}) },
+      error: { name: err.name, message: err.message, ...(e instanceof ModelInputError ? { path: [...e.path] } : { stack: err.stack }) },
     };
   }
 }
 
 if (!parentPort) throw new Error("lib/compute/worker.ts must be started as a worker thread");
 const port = parentPort;
-port.on("message", (req: ComputeRequest) => port.postMessage(handle(req)));
+port.on("message", (req: ComputeRequest) => port.postMessage(handle(req, (done) => port.postMessage({ id: req.id, progress: done } satisfies ComputeResponse))));

@@ -1,6 +1,6 @@
 import { getDb, isDatabaseUnavailable, noteDatabaseDown, noteDatabaseUp } from "@/db/client";
 import { pingDatabase } from "@/db/queries/health";
-import { processRun } from "@/lib/services/runs";
+import { processRun, type RunCompute } from "@/lib/services/runs";
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
@@ -24,17 +24,18 @@ export async function waitForDatabase(deadline: number, everyMs = 1_000): Promis
 }
 
 /**
- * One run job, within its time limit: a database outage in the middle waits
+ * One run job, within its time limit (`compute` does the computation — in the background
+ * worker, a worker thread that is terminated past the limit): a database outage in the middle waits
  * for the database and computes the run again (processRun starts over from
  * the stored inputs), instead of leaving the job to expire. Any error left is
  * thrown to pg-boss, which retries the job or fails it; the sweeper then
  * fails the run with a reason.
  */
-export async function runJob(runId: string, limitSeconds: number): Promise<void> {
+export async function runJob(runId: string, limitSeconds: number, compute?: RunCompute): Promise<void> {
   const deadline = Date.now() + limitSeconds * 1000 - 2_000;
   for (;;) {
     try {
-      await processRun(getDb(), runId);
+      await processRun(getDb(), runId, compute);
       return;
     } catch (error) {
       if (!isDatabaseUnavailable(error)) throw error;

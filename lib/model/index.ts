@@ -18,5 +18,6 @@ export * from "./network/transfer";
 export * from "./allocation/allocate";
 export * from "./allocation/conditions";
 export * from "./allocation/after";
+export * from "./run-payload";
 export * from "./allocation/lp";
 export * from "./allocation/permit";

@@ -6,7 +6,8 @@ import { listUnfinishedRuns, setUnfinishedRunState } from "@/db/queries/run-faul
 import { findDoneRunByHash, findRun, findRunJsonText, findScenario, insertRun, listRuns as listRunRows, runForWork } from "@/db/queries/scenarios";
 import type { RunKind } from "@/db/schema";
 import { enqueueRun, findRunJob, runTimeLimitSeconds } from "@/lib/jobs/queue";
-import { allocate, ModelInputError, runModel, runsAfterAllocation, type AllocationResult, type ModelFile, type RunResult } from "@/lib/model";
+import { ComputeTimeoutError } from "@/lib/compute/pool";
+import { computeRunPayload, ModelInputError, type ModelFile, type RunPayload, type RunResult } from "@/lib/model";
 import { requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { AppError, notFound } from "@/lib/errors";
 import { buildConditionFiles, buildModelFile, ScenarioInputError } from "@/lib/scenarios/build-model-file";
@@ -68,16 +69,8 @@ export interface RunSummaryDto {
   finishedAt: string | null;
 }
 
-export interface RunResultPayload {
-  warnings: string[];
-  /**
-   * Model runs: today's loads under each condition. Allocation runs: every condition with
-   * the allocated loads (today's when infeasible); runs stored before this held only the
-   * first condition, and their allocation calls it "base" (lib/results/run-conditions reads both).
-   */
-  conditions: { name: string; run: RunResult }[];
-  allocation?: AllocationResult;
-}
+/** A stored run's result (lib/model/run-payload). */
+export type RunResultPayload = RunPayload;
 
 export interface RunDto extends RunSummaryDto {
   result: RunResultPayload | null;
@@ -170,6 +163,7 @@ export async function createRun(
 /** A readable reason for a failed run (never a stack trace). */
 export function failureReason(error: unknown): string {
   if (error instanceof ModelInputError) return `${error.path.join(".")}: ${error.message}`;
+  if (error instanceof ComputeTimeoutError) return `The computation did not finish within the run's time limit (${Math.round(error.ms / 1000)} s) and was stopped; the network or the allocation may be too large for one run`;
   if (error instanceof Error) return error.message;
   return String(error);
 }
@@ -183,6 +177,11 @@ function methodsOf(runs: RunResult[]): Record<string, unknown> {
   return { reaeration: ka, deoxygenation_theta_rule: runs[0]?.kinetics.deoxygenation_rule, theta: runs[0]?.kinetics.theta, saturation: SATURATION_METHOD };
 }
 
+/** How a run's computation is done: in this thread (tests, CLI) or in a worker thread with a time limit (the background worker). */
+export type RunCompute = (job: { runKind: "model" | "allocation"; files: RunInputs["files"]; warnings: string[] }, onProgress: (done: number) => void) => Promise<RunPayload>;
+
+const computeInline: RunCompute = async (job, onProgress) => computeRunPayload(job.runKind, job.files, job.warnings, onProgress);
+
 /**
  * The job: compute a queued run and store its result or its failure reason.
  * Every write applies only while the run is unfinished, so a run the sweeper
@@ -190,27 +189,19 @@ function methodsOf(runs: RunResult[]): Record<string, unknown> {
  * be stored; the worker tries again when the database is back); any other
  * error fails the run with a readable reason and is logged once with its stack.
  */
-export async function processRun(db: Db, runId: string): Promise<void> {
+export async function processRun(db: Db, runId: string, compute: RunCompute = computeInline): Promise<void> {
   const run = await runForWork(db, runId);
   if (!run || run.status === "done" || run.status === "failed") return;
   if (!(await setUnfinishedRunState(db, runId, { status: "running", progress: 0.05, started: true }))) return;
+  // progress is written in order, one update at a time, while the computation goes on
+  let written: Promise<unknown> = Promise.resolve();
+  const onProgress = (done: number) => {
+    written = written.then(() => setUnfinishedRunState(db, runId, { status: "running", progress: 0.05 + 0.9 * done })).catch(() => undefined);
+  };
   try {
     const inputs = run.model_file as unknown as RunInputs;
-    let payload: RunResultPayload;
-    if (run.kind === "model") {
-      const conditions: RunResultPayload["conditions"] = [];
-      for (const [i, f] of inputs.files.entries()) {
-        conditions.push({ name: f.name, run: runModel(f.file) });
-        await setUnfinishedRunState(db, runId, { status: "running", progress: 0.05 + (0.9 * (i + 1)) / inputs.files.length });
-      }
-      payload = { warnings: inputs.warnings, conditions };
-    } else {
-      const { name, file } = inputs.files[0];
-      // the file's own condition goes by the scenario's name, not the allocator's "base"
-      const allocation = allocate(file, { own_condition_name: name });
-      await setUnfinishedRunState(db, runId, { status: "running", progress: 0.7 });
-      payload = { warnings: inputs.warnings, conditions: runsAfterAllocation(file, allocation, name), allocation };
-    }
+    const payload = await compute({ runKind: run.kind, files: inputs.files, warnings: inputs.warnings }, onProgress);
+    await written;
     await setUnfinishedRunState(db, runId, {
       status: "done",
       progress: 1,
@@ -219,7 +210,9 @@ export async function processRun(db: Db, runId: string): Promise<void> {
       finished: true,
     });
   } catch (error) {
+    await written;
     if (isDatabaseUnavailable(error)) throw error;
+    // bad input is the planner's to fix and says so; anything else is a fault the operator must see, once, with the run id
     if (!(error instanceof ModelInputError)) console.error(`[runs] run ${runId} failed`, error);
     await setUnfinishedRunState(db, runId, { status: "failed", error: failureReason(error), finished: true });
   }
