@@ -20,7 +20,10 @@ const SAME_DO_MG_L = 1e-6;
  * criterion), the one with most binding checkpoints in the allocation governs, then
  * the first in the scenario's order. Throws on an empty list.
  */
-export function governingIndex(conditions: readonly ConditionResult[], allocation?: Pick<AllocationResult, "binding"> | null): number {
+export function governingIndex(
+  conditions: readonly { name: string; run: { minimum: { do_mg_l: number } } }[],
+  allocation?: { binding: readonly { condition: string }[] } | null,
+): number {
   if (conditions.length === 0) throw new RangeError("A run result has at least one condition");
   const bindingCount = (name: string) => allocation?.binding.filter((b) => b.condition === name).length ?? 0;
   let best = 0;

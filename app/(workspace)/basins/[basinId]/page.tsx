@@ -4,6 +4,8 @@ import { listFacilities } from "@/lib/services/facilities";
 import { Notice } from "@/components/ui/notice";
 import { FollowButton } from "@/components/basins/follow-button";
 import { followState } from "@/lib/services/follows";
+import { BasinHub } from "@/components/basins/basin-hub";
+import { basinOverview } from "@/lib/services/basin-overview";
 
 const ROLE_HELP = {
   lead: "You lead this basin: you manage its members and settings, open review periods and publish final plans.",
@@ -17,9 +19,13 @@ export default async function BasinOverviewPage({ params }: { params: Promise<{ 
   const access = await basinPageAccess(basinId, "basin.read");
   if (!access.ok) return null; // the layout already shows why
   const { basin, role, actor } = access;
-  const facilities = (await access.can("facilities.read")) ? await listFacilities(getDb(), actor, basin.id) : null;
+  const db = getDb();
+  const [facilities, follow, overview] = await Promise.all([
+    access.can("facilities.read").then((ok) => (ok ? listFacilities(db, actor, basin.id) : null)),
+    followState(db, actor, basin.id),
+    basinOverview(db, actor, basin.id),
+  ]);
   const us = basin.unitSystem === "US";
-  const follow = await followState(getDb(), actor, basin.id);
   return (
     <div className="grid gap-6 lg:grid-cols-3">
       <section className="card lg:col-span-2">
@@ -47,6 +53,7 @@ export default async function BasinOverviewPage({ params }: { params: Promise<{ 
           <FollowButton basinId={basin.id} followed={follow.followed} />
         </div>
       </section>
+      <BasinHub basinId={basin.id} basinName={basin.name} overview={overview} unitSystem={basin.unitSystem} />
       {facilities && (
         <section className="card lg:col-span-3">
           <h2 className="mb-3">{role === "discharger" ? "Your facilities" : "Facilities"}</h2>
@@ -76,9 +83,8 @@ export default async function BasinOverviewPage({ params }: { params: Promise<{ 
       )}
       <div className="lg:col-span-3">
         <Notice tone="info">
-          Networks, scenarios and plans for this basin appear here as they are added. Allocations are planning estimates to
-          be confirmed with a calibrated model and by a qualified engineer; the jurisdiction&apos;s standards and
-          permitting rules take precedence.
+          Allocations are planning estimates to be confirmed with a calibrated model and by a qualified engineer; the
+          jurisdiction&apos;s standards and permitting rules take precedence.
         </Notice>
       </div>
     </div>

@@ -1,0 +1,68 @@
+import { sql } from "kysely";
+import type { Db } from "../client";
+
+/**
+ * What a finished run's outcome is read from, cut out of its stored result by PostgreSQL:
+ * each condition's name and minimum, and the allocation's feasibility, condition names and
+ * the condition of each binding checkpoint. The profiles (most of a result's bytes) stay in
+ * the database.
+ */
+export interface RunOutcomeRow {
+  id: string;
+  scenario_id: string;
+  kind: "model" | "allocation";
+  finished_at: Date | null;
+  conditions: { name: string; minimum: { reach: string; km: number; do_mg_l: number }; criterion_do_mg_l: number }[] | null;
+  allocation: { feasible: boolean; conditions: string[]; binding: string[] } | null;
+}
+
+const outcomeColumns = sql<Pick<RunOutcomeRow, "conditions" | "allocation">>`
+  (select jsonb_agg(jsonb_build_object('name', c->'name', 'minimum', c->'run'->'minimum', 'criterion_do_mg_l', c->'run'->'criterion_do_mg_l') order by o)
+     from jsonb_array_elements(r.result->'conditions') with ordinality as t(c, o)) as conditions,
+  case when jsonb_typeof(r.result->'allocation') = 'object' then jsonb_build_object(
+    'feasible', r.result->'allocation'->'feasible',
+    'conditions', coalesce(r.result->'allocation'->'conditions', '[]'::jsonb),
+    'binding', coalesce((select jsonb_agg(b->'condition') from jsonb_array_elements(r.result->'allocation'->'binding') as b), '[]'::jsonb)
+  ) end as allocation`;
+
+/** The newest finished run of each scenario of a basin (one row per scenario that has one). */
+export async function latestDoneRunPerScenario(db: Db, basinId: string): Promise<RunOutcomeRow[]> {
+  const { rows } = await sql<RunOutcomeRow>`
+    select distinct on (r.scenario_id) r.id, r.scenario_id, r.kind, r.finished_at, ${outcomeColumns}
+    from runs r
+    where r.basin_id = ${basinId} and r.status = 'done'
+    order by r.scenario_id, r.finished_at desc nulls last, r.created_at desc`.execute(db);
+  return rows;
+}
+
+/** Outcomes of a basin's finished runs, newest first (as many as the runs list shows). */
+export async function doneRunOutcomes(db: Db, basinId: string, limit = 200): Promise<RunOutcomeRow[]> {
+  const { rows } = await sql<RunOutcomeRow>`
+    select r.id, r.scenario_id, r.kind, r.finished_at, ${outcomeColumns}
+    from runs r
+    where r.basin_id = ${basinId} and r.status = 'done'
+    order by r.created_at desc
+    limit ${limit}`.execute(db);
+  return rows;
+}
+
+/** The basin's newest network version with its size and who saved it. */
+export async function currentNetworkSummary(db: Db, basinId: string) {
+  return db
+    .selectFrom("networks as n")
+    .leftJoin("users as u", "u.id", "n.created_by")
+    .select([
+      "n.id",
+      "n.version",
+      "n.total_length_km",
+      "n.note",
+      "n.created_at",
+      "u.name as created_by_name",
+      (eb) => eb.selectFrom("reaches as r").whereRef("r.network_id", "=", "n.id").select((e) => e.fn.countAll<string>().as("c")).as("reach_count"),
+      (eb) => eb.selectFrom("outfalls as o").whereRef("o.network_id", "=", "n.id").select((e) => e.fn.countAll<string>().as("c")).as("outfall_count"),
+    ])
+    .where("n.basin_id", "=", basinId)
+    .orderBy("n.version", "desc")
+    .limit(1)
+    .executeTakeFirst();
+}
