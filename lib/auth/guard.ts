@@ -3,7 +3,8 @@ import { findBasinWithRole, type BasinRecord } from "@/db/queries/basins";
 import { findUserById } from "@/db/queries/users";
 import type { BasinRole } from "@/db/schema";
 import { AppError, forbidden, notFound, unauthenticated } from "@/lib/errors";
-import { roleAllows, type BasinAction, type SiteAction } from "./permissions";
+import { refusal, SITE_ACTION_PHRASES } from "@/lib/format/labels";
+import { roleAllows, rolesAllowing, type BasinAction, type SiteAction } from "./permissions";
 
 /** The signed-in person, as re-read from the database for every check. */
 export interface Actor {
@@ -45,7 +46,7 @@ export function requireActor(actor: Actor | null): Actor {
 
 export function requireSiteAction(actor: Actor | null, action: SiteAction): Actor {
   const a = requireActor(actor);
-  if (!a.isAdmin) throw forbidden(`Only site administrators may do this (${action})`);
+  if (!a.isAdmin) throw forbidden(`Only site administrators can ${SITE_ACTION_PHRASES[action] ?? "do this"}.`);
   return a;
 }
 
@@ -72,8 +73,8 @@ export async function requireBasinAction(
   if (roleAllows(role, action) || (a.isAdmin && ADMIN_BASIN_ACTIONS.includes(action))) {
     return { basin, role };
   }
-  if (!role && !a.isAdmin) throw new AppError("forbidden", "You are not a member of this basin");
-  throw forbidden(`Your role in this basin (${role ?? "none"}) does not allow ${action}`);
+  if (!role && !a.isAdmin) throw new AppError("forbidden", "You are not a member of this basin; its lead can invite you.");
+  throw forbidden(refusal(action, rolesAllowing(action), role));
 }
 
 /** The same check as a boolean, for deciding what a page shows. */

@@ -57,6 +57,11 @@ export function roleAllows(role: BasinRole | null | undefined, action: BasinActi
   return role != null && ROLE_PERMISSIONS[role].includes(action);
 }
 
+/** The roles that hold `action`, for the sentence a refusal reads ("Only the basin's planners and lead can …"). */
+export function rolesAllowing(action: BasinAction): BasinRole[] {
+  return BASIN_ROLES.filter((r) => ROLE_PERMISSIONS[r].includes(action));
+}
+
 /** Who may create a basin: site admins, and anyone who already leads a basin. */
 export function mayCreateBasin(user: { isAdmin: boolean; leadsAnyBasin: boolean }): boolean {
   return user.isAdmin || user.leadsAnyBasin;

@@ -1,93 +1,119 @@
 import { z } from "zod";
+import { SCENARIO_FIELD_LABELS as L } from "@/lib/format/labels";
 
 const KA_METHODS = ["given", "oconnor-dobbins", "churchill", "owens-gibbs", "tsivoglou-neal", "depth-velocity"] as const;
 export const OBJECTIVES = ["max-total", "min-removal", "equal-percent", "equal-concentration", "max-min-share"] as const;
 
-const rate = (what: string, max = 20) =>
-  z.number({ message: `${what} must be a number` }).min(0, `${what} cannot be negative`).max(max, `${what} must be at most ${max}`);
+// Messages name the field by the label the editor shows (SCENARIO_FIELD_LABELS), with its unit.
+const rate = (what: string, max = 20, unit = "1/d") =>
+  z.number({ message: `${what} must be a number` }).min(0, `${what} cannot be negative`).max(max, `${what} must be at most ${max} ${unit}`);
 const conc = (what: string, max = 100_000) =>
-  z.number({ message: `${what} must be a number` }).min(0, `${what} cannot be negative`).max(max, `${what} must be at most ${max}`);
-const temperature = z.number({ message: "temperature must be a number" }).min(0, "temperature must be at least 0 °C").max(45, "temperature must be at most 45 °C");
+  z.number({ message: `${what} must be a number` }).min(0, `${what} cannot be negative`).max(max, `${what} must be at most ${max} mg/L`);
+const temperature = (what: string) =>
+  z.number({ message: `${what} must be a number` }).min(0, `${what} must be at least 0 °C (32 °F)`).max(45, `${what} must be at most 45 °C (113 °F)`);
+const share = (what: string) =>
+  z.number({ message: `${what} must be a number` }).min(0, `${what} cannot be negative`).max(0.9, `${what} must be at most 0.9 (90 % of the capacity)`);
 
 /** One critical (design) condition: flows and temperature the river is checked at. */
 export const conditionSchema = z.object({
-  name: z.string().trim().min(1, "Give the condition a name").max(80),
+  name: z.string().trim().min(1, "Give the condition a name").max(80, `${L.conditionName} must be at most 80 characters`),
   /** Multiplier on every reach's design flow from the network (1 = the imported low flow). */
-  flowScale: z.number().positive("flow scale must be above zero").max(100).default(1),
+  flowScale: z.number({ message: `${L.flowScale} must be a number` }).positive(`${L.flowScale} must be above zero`).max(100, `${L.flowScale} must be at most 100 times the design flow`).default(1),
+  /**
+   * Design flow at the outlet (m³/s; the sum over outlet reaches where there are several).
+   * When given it sets the scale instead of flowScale: every reach's network design flow
+   * times outletFlowM3s / the network's own outlet flow. null = use flowScale.
+   */
+  outletFlowM3s: z.number().positive("design flow at the outlet must be above zero").max(100_000).nullable().default(null),
   /** Design flow entered per reach (m³/s), overriding the network's value. */
-  reachFlowsM3s: z.record(z.string(), z.number().positive("design flow must be above zero").max(100_000).nullable()).default({}),
+  reachFlowsM3s: z
+    .record(z.string(), z.number({ message: `${L.designFlow} must be a number` }).positive(`${L.designFlow} must be above zero`).max(100_000, `${L.designFlow} must be at most 100 000 m³/s`).nullable())
+    .default({}),
   /** One design temperature for every reach (°C); null keeps each reach's own. */
-  temperatureC: temperature.nullable().default(null),
+  temperatureC: temperature(L.designTemperature).nullable().default(null),
 });
 export type ConditionInputs = z.infer<typeof conditionSchema>;
 
 export const kineticsSchema = z.object({
-  kd20PerDay: rate("k_d", 5).default(0.3),
+  kd20PerDay: rate(L.kd, 5).default(0.3),
   kaMethod: z.enum(KA_METHODS).default("depth-velocity"),
   kaFloor: z.boolean().default(false),
-  ks20PerDay: rate("k_s", 5).default(0),
-  sod20GPerM2Day: rate("SOD", 50).default(0),
-  kn20PerDay: rate("k_n", 5).default(0),
+  ks20PerDay: rate(L.ks, 5).default(0),
+  sod20GPerM2Day: rate(L.sod, 50, "g O₂/m²/d").default(0),
+  kn20PerDay: rate(L.kn, 5).default(0),
   thetaRule: z.enum(["constant", "piecewise"]).default("constant"),
 });
 
 /** Per-reach kinetics for this scenario; missing or null keeps the network's value or the scenario default. */
 export const reachOverrideSchema = z
   .object({
-    kd20PerDay: rate("k_d", 5).nullable(),
+    kd20PerDay: rate(L.kd, 5).nullable(),
     kaMethod: z.enum(KA_METHODS).nullable(),
-    ka20PerDay: rate("k_a", 200).nullable(),
-    ks20PerDay: rate("k_s", 5).nullable(),
-    sod20GPerM2Day: rate("SOD", 50).nullable(),
-    kn20PerDay: rate("k_n", 5).nullable(),
+    ka20PerDay: rate(L.ka, 200).nullable(),
+    ks20PerDay: rate(L.ks, 5).nullable(),
+    sod20GPerM2Day: rate(L.sod, 50, "g O₂/m²/d").nullable(),
+    kn20PerDay: rate(L.kn, 5).nullable(),
   })
   .partial();
 
 export const waterQualitySchema = z.object({
-  cbodUMgL: conc("CBODu", 1000).default(2),
-  nbodUMgL: conc("NBODu", 1000).default(0),
-  doMgL: conc("DO", 20).default(7.5),
+  cbodUMgL: conc(L.headwaterCbodu, 1000).default(2),
+  nbodUMgL: conc(L.headwaterNbodu, 1000).default(0),
+  doMgL: conc(L.headwaterDo, 20).default(7.5),
   /** Used when neither the condition nor the reach sets a temperature. */
-  temperatureC: temperature.default(20),
+  temperatureC: temperature("Temperature if none set").default(20),
 });
 
 /** Per-discharger values for this scenario; missing or null keeps the network's value. */
 /** Quality of the natural water entering one reach's head (headwater or tributary); null keeps the scenario default. */
 export const inflowOverrideSchema = z
   .object({
-    cbodUMgL: conc("CBODu", 1000).nullable(),
-    nbodUMgL: conc("NBODu", 1000).nullable(),
-    doMgL: conc("DO", 20).nullable(),
+    cbodUMgL: conc(L.headwaterCbodu, 1000).nullable(),
+    nbodUMgL: conc(L.headwaterNbodu, 1000).nullable(),
+    doMgL: conc(L.headwaterDo, 20).nullable(),
   })
   .partial();
 
 export const dischargerOverrideSchema = z
   .object({
-    designFlowM3s: z.number().positive("design flow must be above zero").max(1000).nullable(),
-    bod5MgL: conc("BOD5").nullable(),
-    cbodUMgL: conc("CBODu").nullable(),
-    bottleKPerDay: z.number().positive("bottle rate must be above zero").max(5).nullable(),
-    doMgL: conc("DO", 20).nullable(),
-    temperatureC: temperature.nullable(),
+    designFlowM3s: z.number({ message: `${L.designFlow} must be a number` }).positive(`${L.designFlow} must be above zero`).max(1000, `${L.designFlow} must be at most 1000 m³/s`).nullable(),
+    bod5MgL: conc(L.effluentBod5).nullable(),
+    cbodUMgL: conc(L.effluentCbodu).nullable(),
+    bottleKPerDay: z.number({ message: `${L.bottleRate} must be a number` }).positive(`${L.bottleRate} must be above zero`).max(5, `${L.bottleRate} must be at most 5 1/d`).nullable(),
+    doMgL: conc(L.effluentDo, 20).nullable(),
+    temperatureC: temperature(L.effluentTemperature).nullable(),
   })
   .partial();
 
 export const allocationSettingsSchema = z.object({
   objective: z.enum(OBJECTIVES).default("max-total"),
   /** Technology floor as effluent BOD5 at design flow (e.g. 30 mg/L secondary treatment); null = none. */
-  floorBod5MgL: conc("floor BOD5", 1000).nullable().default(30),
-  mosDoMgL: z.number().min(0, "MOS cannot be negative").max(5, "a DO margin above 5 mg/L leaves nothing to allocate").default(0),
-  mosFraction: z.number().min(0).max(0.9, "MOS fraction must be below 0.9").default(0),
-  reserveFraction: z.number().min(0).max(0.9, "reserve fraction must be below 0.9").default(0),
+  floorBod5MgL: conc(L.floorBod5, 1000).nullable().default(30),
+  mosDoMgL: z
+    .number({ message: `${L.mosDo} must be a number` })
+    .min(0, `${L.mosDo} cannot be negative`)
+    .max(5, `${L.mosDo} must be at most 5 mg/L: a larger margin leaves nothing to allocate`)
+    .default(0),
+  mosFraction: share(L.mosFraction).default(0),
+  reserveFraction: share(L.reserveFraction).default(0),
 });
 
 /** Everything a scenario adds to a network version to make model files. */
 export const scenarioInputsSchema = z
   .object({
     /** null = the basin's criterion. */
-    criterionDoMgL: z.number().gt(0, "criterion must be above 0 mg/L").lt(20, "criterion must be below 20 mg/L").nullable().default(null),
-    stepKm: z.number().min(0.05, "profile spacing must be at least 0.05 km").max(10).default(0.5),
-    conditions: z.array(conditionSchema).min(1, "Give at least one critical condition").max(6),
+    criterionDoMgL: z
+      .number({ message: `${L.criterion} must be a number` })
+      .gt(0, `${L.criterion} must be above 0 mg/L`)
+      .lt(20, `${L.criterion} must be below 20 mg/L`)
+      .nullable()
+      .default(null),
+    stepKm: z
+      .number({ message: `${L.stepKm} must be a number` })
+      .min(0.05, `${L.stepKm} must be at least 0.05 km (50 m)`)
+      .max(10, `${L.stepKm} must be at most 10 km`)
+      .default(0.5),
+    conditions: z.array(conditionSchema).min(1, "Give at least one critical condition").max(6, "A scenario holds at most 6 critical conditions"),
     kinetics: kineticsSchema.default(kineticsSchema.parse({})),
     reachOverrides: z.record(z.string(), reachOverrideSchema).default({}),
     headwater: waterQualitySchema.default(waterQualitySchema.parse({})),
@@ -96,16 +122,16 @@ export const scenarioInputsSchema = z
     allocation: allocationSettingsSchema.default(allocationSettingsSchema.parse({})),
   })
   .refine((v) => new Set(v.conditions.map((c) => c.name)).size === v.conditions.length, {
-    message: "condition names must be unique",
+    message: "Each critical condition needs its own name",
     path: ["conditions"],
   });
 export type ScenarioInputs = z.infer<typeof scenarioInputsSchema>;
 
 export const scenarioCreateSchema = z.object({
-  name: z.string().trim().min(1, "Give the scenario a name").max(120),
+  name: z.string().trim().min(1, "Give the scenario a name").max(120, `${L.scenarioName} must be at most 120 characters`),
   description: z.string().trim().max(2000).default(""),
   /** Network version; omitted = the newest. */
-  networkId: z.uuid("networkId must be a network id").optional(),
+  networkId: z.uuid(`${L.network} must be one of the basin's network versions`).optional(),
   inputs: scenarioInputsSchema,
 });
 export type ScenarioCreate = z.infer<typeof scenarioCreateSchema>;

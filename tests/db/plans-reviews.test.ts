@@ -127,7 +127,7 @@ describe("a plan from proposal to publication", () => {
   });
 
   it("is published by a lead, then frozen: readable signed out, no edit path, and direct SQL refused by the trigger", async () => {
-    await expect(publishPlan(db, w.users.planner, w.basinId, planId)).rejects.toThrow(/does not allow plan.publish/);
+    await expect(publishPlan(db, w.users.planner, w.basinId, planId)).rejects.toThrow("Only the basin's lead can publish plans; you are a planner here.");
     const dp1001 = await db.selectFrom("plan_allocations").select("facility_id").where("plan_id", "=", planId).where("permit_id", "=", "DP-1001").executeTakeFirstOrThrow();
     await db.insertInto("facility_users").values({ facility_id: dp1001.facility_id, user_id: w.users.discharger.id }).execute();
     // threads with comments after their last response: the lead acknowledges them (tests/db/publication.test.ts has the rules)

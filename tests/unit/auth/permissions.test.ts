@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { BASIN_ACTIONS, BASIN_ROLES, mayCreateBasin, ROLE_PERMISSIONS, roleAllows } from "@/lib/auth/permissions";
+import { BASIN_ACTIONS, BASIN_ROLES, mayCreateBasin, ROLE_PERMISSIONS, roleAllows, rolesAllowing, SITE_ACTIONS } from "@/lib/auth/permissions";
+import { ACTION_PHRASES, refusal, SITE_ACTION_PHRASES } from "@/lib/format/labels";
 
 describe("role → permission table", () => {
   it("names only known actions, without repeats", () => {
@@ -43,5 +44,24 @@ describe("role → permission table", () => {
     expect(mayCreateBasin({ isAdmin: true, leadsAnyBasin: false })).toBe(true);
     expect(mayCreateBasin({ isAdmin: false, leadsAnyBasin: true })).toBe(true);
     expect(mayCreateBasin({ isAdmin: false, leadsAnyBasin: false })).toBe(false);
+  });
+});
+
+describe("refusals in a sentence", () => {
+  it("every action has a phrase, so no refusal names an action code", () => {
+    for (const a of BASIN_ACTIONS) expect(ACTION_PHRASES[a], a).toBeTruthy();
+    for (const a of SITE_ACTIONS) expect(SITE_ACTION_PHRASES[a], a).toBeTruthy();
+  });
+
+  it("says who may do it and what the reader is", () => {
+    expect(refusal("scenario.read", rolesAllowing("scenario.read"), "discharger")).toBe(
+      "Only the basin's planners and lead can see scenarios and runs; you are a discharger here.",
+    );
+    expect(refusal("plan.publish", rolesAllowing("plan.publish"), "planner")).toBe("Only the basin's lead can publish plans; you are a planner here.");
+    expect(refusal("facilities.read", rolesAllowing("facilities.read"), "stakeholder")).toBe(
+      "Only the basin's planners, dischargers and lead can see the basin's facilities; you are a stakeholder here.",
+    );
+    expect(refusal("audit.read", rolesAllowing("audit.read"), null)).toBe("Only the basin's lead can read the audit trail.");
+    for (const a of BASIN_ACTIONS) expect(refusal(a, rolesAllowing(a), "stakeholder")).not.toMatch(/[a-z]\.[a-z]/);
   });
 });
