@@ -27,6 +27,7 @@ import { PLAN_STAGE_TEXT, planStage, reviewDateIssues } from "@/lib/plans/review
 import { AppError, conflict, notFound } from "@/lib/errors";
 import { formatWhen } from "@/lib/format/zoned-time";
 import { awaitsResponse } from "@/lib/results/responsiveness";
+import { PLAN_SNAPSHOT_VERSION, readPlanSnapshot } from "@/lib/plans/snapshot";
 import { MIN_ACK_STATEMENT, type PlanPropose, type PlanPublish, type ReviewExtend, type ReviewOpen } from "@/lib/validation/plan";
 import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
 import { getRun, runScenarioRecord } from "./runs";
@@ -82,6 +83,13 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
     );
   }
   const reachLines = await networkReachLines(db, scenario.networkId);
+  const snapshot = {
+    snapshotVersion: PLAN_SNAPSHOT_VERSION,
+    run: { ...run, scenarioName: scenario.name },
+    scenario: { id: scenario.id, name: scenario.name, version: scenario.version, networkId: scenario.networkId, inputs: scenario.inputs },
+  };
+  // nothing is frozen that the readers could not read back (a round trip through JSON, as stored)
+  readPlanSnapshot("(new)", JSON.parse(JSON.stringify(snapshot)));
   return db.transaction().execute(async (trx) => {
     const place = await nextPlanPlace(trx, basin.id, input.revises, scenario.id);
     if (place === "unknown_plan") throw new AppError("invalid", "The plan to revise is not a plan of this basin", [{ path: "revises", message: "Not a plan of this basin" }]);
@@ -93,7 +101,7 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
       title: input.title,
       runId: run.id,
       reachLines,
-      snapshot: { run: { ...run, scenarioName: scenario.name }, scenario: { id: scenario.id, name: scenario.name, version: scenario.version, networkId: scenario.networkId, inputs: scenario.inputs } },
+      snapshot,
       createdBy: actor!.id,
     });
     const facilityIds: string[] = [];
@@ -165,7 +173,8 @@ export async function getPlan(db: Db, actor: Actor | null, basinId: string, plan
     minReviewDays: basin.min_review_days,
     /** The basin's time zone (null until set or a first review opens): dates and times are shown in it. */
     basinTimeZone: basin.time_zone,
-    snapshot: (plan as typeof plan & { snapshot: Record<string, unknown> }).snapshot,
+    /** What the run used and produced, checked against its schema (lib/plans/snapshot.ts) and as stored. */
+    snapshot: readPlanSnapshot(plan.id, (plan as typeof plan & { snapshot: unknown }).snapshot),
     allocations: allocations.map((a) => ({
       facilityId: a.facility_id,
       facilityName: a.facility_name,
