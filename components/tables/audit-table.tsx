@@ -2,71 +2,74 @@
 import { When } from "@/components/layout/basin-zone";
 import Link from "next/link";
 import { CsvButton, downloadCsv, type CsvColumn } from "@/components/tables/sortable-table";
+import { AUDIT_DETAIL_NAMES, AUDIT_TARGET_NAMES, auditAction, nameOf } from "@/lib/format/labels";
 import type { AuditEventDto } from "@/lib/services/audit";
 
-/** Plain words for each recorded action; unknown actions show as recorded. */
-const ACTION_TEXT: Record<string, string> = {
-  "basin.created": "Basin created",
-  "basin.updated": "Basin settings changed",
-  "member.added": "Member added",
-  "member.removed": "Member removed",
-  "member.role_changed": "Member's role changed",
-  "facility.created": "Facility added",
-  "facility.user_linked": "Discharger linked to a facility",
-  "facility.user_unlinked": "Discharger unlinked from a facility",
-  "invitation.sent": "Invitation sent",
-  "invitation.accepted": "Invitation accepted",
-  "invitation.revoked": "Invitation revoked",
-  "import.uploaded": "GIS file uploaded",
-  "network.committed": "Network version saved",
-  "network.reach_edited": "Reach edited",
-  "network.discharger_edited": "Outfall edited",
-  "scenario.created": "Scenario created",
-  "scenario.updated": "Scenario changed",
-  "scenario.deleted": "Scenario deleted",
-  "run.queued": "Run started",
-  "plan.proposed": "Plan proposed",
-  "plan.exported": "Unpublished plan exported",
-  "plan.published": "Plan published",
-  "plan.withdrawn": "Plan withdrawn",
-  "review.opened": "Review period opened",
-  "review.extended": "Review period extended",
-  "review.closed": "Review period closed",
-  "comment.added": "Comment added",
-  "thread.addressed": "Thread answered",
-};
+const actionText = (e: AuditEventDto) => auditAction(e.action);
 
-const actionText = (action: string) => ACTION_TEXT[action] ?? action;
+/** Where an event's target can be opened, when it still can: the page that shows what the event changed. */
+export function auditTargetHref(basinId: string, e: Pick<AuditEventDto, "action" | "targetType" | "targetId" | "planId">): string | null {
+  const base = `/basins/${basinId}`;
+  if (!e.targetId) return null;
+  switch (e.targetType) {
+    case "plan":
+      return `${base}/plans/${e.targetId}`;
+    case "thread":
+      return e.planId ? `${base}/plans/${e.planId}#thread-${e.targetId}` : null;
+    case "scenario":
+      return e.action === "scenario.deleted" ? null : `${base}/scenarios/${e.targetId}`;
+    case "run":
+      return `${base}/runs/${e.targetId}`;
+    case "network":
+    case "reach":
+    case "import":
+      return `${base}/network`;
+    case "facility":
+    case "user":
+    case "invitation":
+      return `${base}/members`;
+    case "basin":
+      return `${base}/settings`;
+    default:
+      return null;
+  }
+}
 
-/** "key: value" pairs of an event's details, on one line. */
+/** Plain names for a detail key: the table's, else the camelCase key in words ("closedAt" → "closed at"). */
+const detailName = (k: string) => AUDIT_DETAIL_NAMES[k] ?? k.replace(/([a-z])([A-Z])/g, "$1 $2").replace(/_/g, " ").toLowerCase();
+
+/** "name: value" pairs of an event's details, on one line. */
 function detailText(details: Record<string, unknown>): string {
   return Object.entries(details)
-    .map(([k, v]) => `${k}: ${typeof v === "object" && v !== null ? JSON.stringify(v) : String(v)}`)
+    .filter(([, v]) => v !== null && v !== undefined && v !== "")
+    .map(([k, v]) => `${detailName(k)}: ${typeof v === "object" ? JSON.stringify(v) : String(v)}`)
     .join("; ");
 }
 
 const COLUMNS: CsvColumn<AuditEventDto>[] = [
-  { header: "time (UTC)", value: (e) => e.at },
-  { header: "who", value: (e) => e.actor ?? "Sagline (scheduled)" },
-  { header: "action", value: (e) => e.action },
-  { header: "what", value: (e) => actionText(e.action) },
-  { header: "target type", value: (e) => e.targetType },
-  { header: "target id", value: (e) => e.targetId },
-  { header: "details", value: (e) => detailText(e.details) },
+  { header: "Time (UTC)", value: (e) => e.at },
+  { header: "Who", value: (e) => e.actor ?? "Sagline (on schedule)" },
+  { header: "What happened", value: (e) => actionText(e) },
+  { header: "On", value: (e) => nameOf(AUDIT_TARGET_NAMES, e.targetType) },
+  { header: "Target id", value: (e) => e.targetId },
+  { header: "Details", value: (e) => detailText(e.details) },
+  // the stored code, for matching the trail against the database or another export
+  { header: "Event code", value: (e) => e.action },
 ];
 
 export function AuditTable({ basinId, basinName, events }: { basinId: string; basinName: string; events: AuditEventDto[] }) {
   if (events.length === 0) return <p className="text-sm text-ink-soft">Nothing recorded here yet.</p>;
   const target = (e: AuditEventDto) => {
-    if (e.targetType === "plan" && e.targetId) return <Link href={`/basins/${basinId}/plans/${e.targetId}`}>plan</Link>;
-    if (e.targetType === "scenario" && e.targetId && e.action !== "scenario.deleted") return <Link href={`/basins/${basinId}/scenarios/${e.targetId}`}>scenario</Link>;
-    return e.targetType;
+    const word = nameOf(AUDIT_TARGET_NAMES, e.targetType);
+    const href = auditTargetHref(basinId, e);
+    return href ? <Link href={href}>{word}</Link> : word;
   };
   return (
     <div className="space-y-2">
       <div className="flex justify-end">
-        <CsvButton label="Download these events (CSV)" onClick={() => downloadCsv(`audit-${basinId}.csv`, events, COLUMNS, [`Audit trail of ${basinName}`])} />
+        <CsvButton label="Download these events (CSV)" onClick={() => downloadCsv(`audit-trail-${basinId}.csv`, events, COLUMNS, [`Audit trail of ${basinName}`])} />
       </div>
+      <div className="overflow-x-auto">
       <table className="data-table" data-testid="audit-table">
         <thead>
           <tr>
@@ -83,16 +86,15 @@ export function AuditTable({ basinId, basinName, events }: { basinId: string; ba
               <td className="whitespace-nowrap text-xs">
                 <When at={e.at} />
               </td>
-              <td>{e.actor ?? <span className="text-ink-faint">Sagline (scheduled)</span>}</td>
-              <td>
-                {actionText(e.action)} <span className="font-mono text-xs text-ink-faint">{e.action}</span>
-              </td>
+              <td>{e.actor ?? <span className="text-ink-faint">Sagline (on schedule)</span>}</td>
+              <td>{actionText(e)}</td>
               <td>{target(e)}</td>
               <td className="max-w-md break-words text-xs text-ink-soft">{detailText(e.details)}</td>
             </tr>
           ))}
         </tbody>
       </table>
+      </div>
     </div>
   );
 }

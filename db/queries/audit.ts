@@ -1,3 +1,4 @@
+import { sql } from "kysely";
 import type { Db } from "../client";
 
 export interface AuditInput {
@@ -35,7 +36,9 @@ export async function listAuditEvents(db: Db, basinId: string, filter: AuditFilt
   let q = db
     .selectFrom("audit_events as a")
     .leftJoin("users as u", "u.id", "a.actor_id")
-    .select(["a.id", "a.action", "a.target_type", "a.target_id", "a.details", "a.created_at", "u.name as actor_name"])
+    // a thread's plan, so the trail can link to the thread on its plan's page
+    .leftJoin("threads as t", (j) => j.on("a.target_type", "=", "thread").on(sql`t.id::text`, "=", sql.ref("a.target_id")))
+    .select(["a.id", "a.action", "a.target_type", "a.target_id", "a.details", "a.created_at", "u.name as actor_name", "t.plan_id as thread_plan_id"])
     .where("a.basin_id", "=", basinId);
   const { prefixes, beforeId } = filter;
   if (prefixes && prefixes.length > 0) q = q.where((eb) => eb.or(prefixes.map((p) => eb("a.action", "like", `${p.replace(/[%_\\]/g, "\\$&")}%`))));

@@ -108,6 +108,32 @@ export const AUDIT_ACTION_NAMES: Record<string, string> = {
   "user.created": "created an account",
 };
 
+/** "Opened a review period" — what the "What" column of the audit trail reads beside "Who". */
+export function auditAction(action: string): string {
+  const verb = AUDIT_ACTION_NAMES[action] ?? `recorded an event (${action})`;
+  return verb.charAt(0).toUpperCase() + verb.slice(1);
+}
+
+/** Names of the keys audit events keep in their details. */
+export const AUDIT_DETAIL_NAMES: Record<string, string> = {
+  format: "file",
+  version: "version",
+  status: "state",
+  runId: "run",
+  revises: "revises plan",
+  name: "name",
+  role: "role",
+  from: "from",
+  to: "to",
+  startsAt: "starts",
+  endsAt: "ends",
+  reason: "reason",
+  by: "by",
+  email: "e-mail",
+  kind: "kind",
+  fields: "fields",
+};
+
 /** "Maren Oakhurst opened a review period." — an unknown action reads as a recorded event, never as its code alone. */
 export function auditSentence(actor: string | null, action: string): string {
   const verb = AUDIT_ACTION_NAMES[action] ?? `recorded an event (${action})`;

@@ -11,6 +11,8 @@ export interface AuditEventDto {
   details: Record<string, unknown>;
   at: string;
   actor: string | null;
+  /** For a thread's events: the plan the thread belongs to (the trail links to the thread on that plan's page). */
+  planId?: string | null;
 }
 
 type AuditArea = NonNullable<AuditQuery["area"]>;
@@ -44,5 +46,6 @@ export async function listBasinAudit(
     details: r.details,
     at: r.created_at.toISOString(),
     actor: r.actor_name,
+    planId: r.thread_plan_id ?? null,
   }));
 }

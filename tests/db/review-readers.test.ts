@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as auditRoute from "@/app/api/basins/[basinId]/audit/route";
 import { findFacilityByPermit, linkFacilityUser } from "@/db/queries/facilities";
+import { auditTargetHref } from "@/components/tables/audit-table";
 import { listBasinAudit } from "@/lib/services/audit";
 import { updateBasin } from "@/lib/services/basins";
 import { followBasin } from "@/lib/services/follows";
@@ -274,6 +275,20 @@ describe("the audit trail", () => {
     expect(network.every((e) => /^(import|network)\./.test(e.action))).toBe(true);
     // the scheduled close has no person behind it
     expect(plans.find((e) => e.action === "review.closed")!.actor).toBeNull();
+  });
+
+  it("a comment's and a response's events name the thread's plan, so the trail links to the thread on its page", async () => {
+    const v = await buildWorld(db);
+    const plan = await planAt(db, v, "review");
+    await addComment(db, v.users.stakeholder, v.basinId, plan.planThreadId, "When is the next survey?");
+    await respondToThread(db, v.users.planner, v.basinId, plan.planThreadId, "In August");
+    const events = await listBasinAudit(db, v.users.lead, v.basinId, { area: "plans" });
+    const threadEvents = events.filter((e) => e.targetType === "thread");
+    expect(threadEvents.map((e) => e.action).sort()).toEqual(["comment.added", "thread.addressed"]);
+    for (const e of threadEvents) expect(e).toMatchObject({ targetId: plan.planThreadId, planId: plan.planId });
+    expect(auditTargetHref(v.basinId, threadEvents[0])).toBe(`/basins/${v.basinId}/plans/${plan.planId}#thread-${plan.planThreadId}`);
+    // every other event has no thread plan
+    expect(events.filter((e) => e.targetType !== "thread").every((e) => e.planId === null)).toBe(true);
   });
 
   it("pages backwards by event id without gaps or repeats", async () => {

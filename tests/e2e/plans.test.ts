@@ -211,9 +211,9 @@ describe("from a proposed plan to a published one", () => {
     // the audit trail shows who closed, who published
     await lead.goto(`${baseUrl}/basins/${basinId}/audit?area=plans`);
     const audit = (await lead.getByTestId("audit-table").textContent()) ?? "";
-    expect(audit).toMatch(/Plan published/);
+    expect(audit).toMatch(/Published a plan/);
     expect(audit).toMatch(/The August flow question is taken up/);
-    expect(audit).toMatch(/Review period closed/);
+    expect(audit).toMatch(/Closed a review period/);
     await lead.close();
   });
 
