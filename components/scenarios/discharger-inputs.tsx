@@ -44,30 +44,30 @@ export function DischargerInputs<T extends FieldValues>({
               {o.permitId} · reach {o.reachId}
             </p>
           </div>
-          <div>
-            <UnitField control={control} name={field(o.permitId, "designFlowM3s")} label="Design flow" kind="flow" system={system} nullable />
+          <div className="flex flex-col">
+            <UnitField control={control} name={field(o.permitId, "designFlowM3s")} label="Design flow" kind="flow" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">
               network: {formatIn("flow", n(o.attributes.designFlowM3s), system)} {unitLabel("flow", system)}
             </p>
           </div>
-          <div>
-            <UnitField control={control} name={field(o.permitId, "bod5MgL")} label="Effluent BOD5" plainUnit="mg/L" system={system} nullable />
+          <div className="flex flex-col">
+            <UnitField control={control} name={field(o.permitId, "bod5MgL")} label="Effluent BOD5" plainUnit="mg/L" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.effluentBod5MgL)?.toFixed(1) ?? "—"} mg/L</p>
           </div>
-          <div>
-            <UnitField control={control} name={field(o.permitId, "cbodUMgL")} label="or CBODu" plainUnit="mg/L" system={system} nullable />
+          <div className="flex flex-col">
+            <UnitField control={control} name={field(o.permitId, "cbodUMgL")} label="or CBODu" plainUnit="mg/L" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.effluentCbodUMgL)?.toFixed(1) ?? "—"} mg/L</p>
           </div>
-          <div>
-            <UnitField control={control} name={field(o.permitId, "bottleKPerDay")} label="Bottle rate k1" plainUnit="1/d" system={system} nullable />
+          <div className="flex flex-col">
+            <UnitField control={control} name={field(o.permitId, "bottleKPerDay")} label="Bottle rate k1" plainUnit="1/d" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.bottleRatePerDay)?.toFixed(2) ?? "0.23 (default)"} 1/d</p>
           </div>
-          <div>
-            <UnitField control={control} name={field(o.permitId, "doMgL")} label="Effluent DO" plainUnit="mg/L" system={system} nullable />
+          <div className="flex flex-col">
+            <UnitField control={control} name={field(o.permitId, "doMgL")} label="Effluent DO" plainUnit="mg/L" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.dissolvedOxygenMgL)?.toFixed(1) ?? "—"} mg/L</p>
           </div>
-          <div>
-            <UnitField control={control} name={field(o.permitId, "temperatureC")} label="Effluent temperature" kind="temperature" system={system} nullable />
+          <div className="flex flex-col">
+            <UnitField control={control} name={field(o.permitId, "temperatureC")} label="Effluent temperature" kind="temperature" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">
               network: {formatIn("temperature", n(o.attributes.temperatureC), system)} {unitLabel("temperature", system)}
             </p>

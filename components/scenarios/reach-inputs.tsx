@@ -9,6 +9,8 @@ import { UnitField } from "./unit-field";
 export interface ReachRow {
   id: string;
   name: string | null;
+  /** null at the outlet. */
+  downstreamId: string | null;
   attributes: Record<string, unknown>;
 }
 
@@ -36,7 +38,7 @@ export function ReachInputs<T extends FieldValues>({
   conditions: { name: string; flowScale: number }[];
   system: UnitSystem;
   /** Scenario-wide values shown where a reach has none of its own. */
-  defaults: { kn20PerDay: number; cbodUMgL: number; doMgL: number };
+  defaults: { kn20PerDay: number; cbodUMgL: number; doMgL: number | null };
 }) {
   const [open, setOpen] = useState(false);
   const path = (p: string) => p as Path<T>;
@@ -132,7 +134,7 @@ export function ReachInputs<T extends FieldValues>({
                         system={system}
                         nullable
                         compact
-                        placeholder={String(fallback)}
+                        placeholder={fallback === null ? "90 % sat." : String(fallback)}
                       />
                     </td>
                   ))}

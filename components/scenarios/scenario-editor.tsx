@@ -10,7 +10,10 @@ import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
 import { ApiError } from "@/lib/queries/fetcher";
 import { OBJECTIVE_NAMES, REAERATION_NAMES } from "@/lib/format/labels";
+import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { DEFAULT_HEADWATER_DO_TEXT, defaultHeadwaterDoMgL, networkOutletFlowM3s } from "@/lib/scenarios/design-defaults";
 import { fromFormKeys, toFormKeys } from "@/lib/scenarios/form-keys";
+import { useNetworksQuery } from "@/lib/queries/networks";
 import { useScenarioQuery, useStartRunMutation, useUpdateScenarioMutation } from "@/lib/queries/scenarios";
 import type { ScenarioDto } from "@/lib/services/scenarios";
 import { OBJECTIVES, scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
@@ -101,6 +104,8 @@ export function ScenarioEditor({
   const query = useScenarioQuery(basinId, initial.id);
   const scenario = query.data ?? initial;
   const update = useUpdateScenarioMutation(basinId, initial.id);
+  const networks = useNetworksQuery(basinId);
+  const newest = networks.data?.reduce((v, n) => Math.max(v, n.version), 0) ?? 0;
   const start = useStartRunMutation(basinId);
   const [notice, setNotice] = useState<{ tone: "success" | "error"; text: string; stale?: boolean } | null>(null);
   const form = useForm<FormValues>({
@@ -112,6 +117,14 @@ export function ScenarioEditor({
   const errors = formState.errors;
   const criterionOverride = useWatch({ control, name: "inputs.criterionDoMgL" });
   const watchedConditions = useWatch({ control, name: "inputs.conditions" });
+  const headwaterTemperature = useWatch({ control, name: "inputs.headwater.temperatureC" });
+  const outletFlow = networkOutletFlowM3s(reaches);
+  // the default at the first condition's temperature, or the headwater's own when the condition sets none
+  const exampleT = watchedConditions?.[0]?.temperatureC ?? headwaterTemperature;
+  const headwaterDoExample =
+    typeof exampleT === "number" && Number.isFinite(exampleT)
+      ? `${defaultHeadwaterDoMgL(exampleT).toFixed(2)} mg/L at ${formatIn("temperature", exampleT, unitSystem)} ${unitLabel("temperature", unitSystem)} at sea level`
+      : null;
 
   const save = handleSubmit(async (values) => {
     setNotice(null);
@@ -137,6 +150,15 @@ export function ScenarioEditor({
 
   return (
     <form onSubmit={save} noValidate className="space-y-6" aria-label="Scenario">
+      {newest > scenario.networkVersion && (
+        <Notice tone="info">
+          <span data-testid="newer-network">
+            This scenario uses network version {scenario.networkVersion}; version {newest} is newer. Runs of this scenario keep
+            using version {scenario.networkVersion}. To model the newer network, create a scenario on it from{" "}
+            <Link href={`/basins/${basinId}/scenarios`}>All scenarios and runs</Link>.
+          </span>
+        </Notice>
+      )}
       {notice && (
         <Notice tone={notice.tone}>
           {notice.text}
@@ -175,6 +197,7 @@ export function ScenarioEditor({
                 conditions.append({
                   name: `Condition ${conditions.fields.length + 1}`,
                   flowScale: 1,
+                  outletFlowM3s: null,
                   reachFlowsM3s: toFormKeys(Object.fromEntries(reaches.map((r) => [r.id, null]))),
                   temperatureC: null,
                 })
@@ -185,14 +208,34 @@ export function ScenarioEditor({
             </Button>
           </div>
           <p className="text-sm text-ink-soft">
-            Design flows come from the network&apos;s reach table (its low-flow statistic, e.g. 7Q10), scaled here; a blank
-            temperature keeps each reach&apos;s own. An allocation keeps DO above the criterion under every condition at once.
+            Design flows come from the network&apos;s reach table (its low-flow statistic, e.g. 7Q10). Scale them here, or
+            enter the design flow at the outlet and every reach is scaled to match; a flow for one reach goes in{" "}
+            <em>Reach by reach</em> below. A blank temperature keeps each reach&apos;s own. An allocation keeps DO above the
+            criterion under every condition at once.
           </p>
           {errors.inputs?.conditions?.message && <p className="field-error">{errors.inputs.conditions.message}</p>}
           {conditions.fields.map((c, i) => (
-            <div key={c.id} className="grid items-end gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_1fr_1fr_auto]">
+            <div key={c.id} className="grid items-start gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_1fr_1fr_1fr_auto]">
               <Field label="Name" error={errors.inputs?.conditions?.[i]?.name?.message} {...register(`inputs.conditions.${i}.name`)} />
-              {num("Flow scale", `inputs.conditions.${i}.flowScale`, "× design flow")}
+              {watchedConditions?.[i]?.outletFlowM3s != null ? (
+                <div>
+                  <span className="field-label">Flow scale</span>
+                  <p className="py-2 text-sm" data-testid={`effective-scale-${i}`}>
+                    {outletFlow ? `× ${(watchedConditions[i].outletFlowM3s! / outletFlow).toFixed(3)} (from the outlet flow)` : "set by the outlet flow"}
+                  </p>
+                </div>
+              ) : (
+                num("Flow scale", `inputs.conditions.${i}.flowScale`, "× design flow")
+              )}
+              <UnitField
+                control={control}
+                name={`inputs.conditions.${i}.outletFlowM3s`}
+                label="or design flow at the outlet"
+                kind="flow"
+                system={unitSystem}
+                nullable
+                hint={outletFlow !== undefined ? `network: ${formatIn("flow", outletFlow, unitSystem)} ${unitLabel("flow", unitSystem)}` : "the network gives none at the outlet"}
+              />
               <UnitField
                 control={control}
                 name={`inputs.conditions.${i}.temperatureC`}
@@ -201,7 +244,7 @@ export function ScenarioEditor({
                 system={unitSystem}
                 nullable
               />
-              <Button variant="quiet" disabled={conditions.fields.length === 1} onClick={() => conditions.remove(i)}>
+              <Button variant="quiet" className="md:mt-6" disabled={conditions.fields.length === 1} onClick={() => conditions.remove(i)}>
                 Remove
               </Button>
             </div>
@@ -244,14 +287,25 @@ export function ScenarioEditor({
           <h2 className="md:col-span-4">Headwater and tributary water</h2>
           {num("CBODu", "inputs.headwater.cbodUMgL", "mg/L")}
           {num("NBODu", "inputs.headwater.nbodUMgL", "mg/L")}
-          {num("DO", "inputs.headwater.doMgL", "mg/L")}
+          <UnitField
+            control={control}
+            name="inputs.headwater.doMgL"
+            label="DO"
+            plainUnit="mg/L"
+            system={unitSystem}
+            nullable
+            hint={`Blank: ${DEFAULT_HEADWATER_DO_TEXT}${headwaterDoExample ? `, e.g. ${headwaterDoExample}` : ""}.`}
+          />
           <UnitField control={control} name="inputs.headwater.temperatureC" label="Temperature if none set" kind="temperature" system={unitSystem} />
         </section>
 
         <ReachInputs
           control={control}
           reaches={reaches}
-          conditions={(watchedConditions ?? []).map((c) => ({ name: c.name, flowScale: c.flowScale }))}
+          conditions={(watchedConditions ?? []).map((c) => ({
+            name: c.name,
+            flowScale: c.outletFlowM3s != null && outletFlow ? c.outletFlowM3s / outletFlow : c.flowScale,
+          }))}
           system={unitSystem}
           defaults={{ kn20PerDay: scenario.inputs.kinetics.kn20PerDay, cbodUMgL: scenario.inputs.headwater.cbodUMgL, doMgL: scenario.inputs.headwater.doMgL }}
         />

@@ -14,7 +14,9 @@ import {
   useRunsQuery,
   useScenariosQuery,
 } from "@/lib/queries/scenarios";
+import { useRunOutcomesQuery } from "@/lib/queries/run-outcomes";
 import { scenarioInputsSchema } from "@/lib/validation/scenario";
+import { RunOutcomeCell } from "./run-outcome-cell";
 
 /** Scenarios of the basin, recent runs, and choosing runs to compare. */
 export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: boolean }) {
@@ -23,6 +25,9 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
   const when = (iso: string) => formatTime(new Date(iso), zone);
   const scenarios = useScenariosQuery(basinId);
   const runs = useRunsQuery(basinId);
+  const doneIds = (runs.data ?? []).filter((r) => r.status === "done").map((r) => r.id);
+  const outcomes = useRunOutcomesQuery(basinId, doneIds);
+  const latestNetwork = outcomes.data?.latestNetworkVersion ?? null;
   const create = useCreateScenarioMutation(basinId);
   const duplicate = useDuplicateScenarioMutation(basinId);
   const remove = useDeleteScenarioMutation(basinId);
@@ -52,6 +57,7 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
         <h2 className="mb-3">Scenarios</h2>
         {scenarios.data?.length === 0 && <p className="text-sm text-ink-soft">No scenarios yet.</p>}
         {scenarios.data && scenarios.data.length > 0 && (
+          <div className="overflow-x-auto">
           <table className="data-table" data-testid="scenario-table">
             <thead>
               <tr>
@@ -71,7 +77,12 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
                       {s.name}
                     </Link>
                   </td>
-                  <td>v{s.networkVersion}</td>
+                  <td>
+                    v{s.networkVersion}
+                    {latestNetwork !== null && s.networkVersion < latestNetwork && (
+                      <span className="block text-xs text-ochre-700">newer: v{latestNetwork}</span>
+                    )}
+                  </td>
                   <td>{s.inputs.conditions.map((c) => c.name).join("; ")}</td>
                   <td>{nameOf(OBJECTIVE_NAMES, s.inputs.allocation.objective)}</td>
                   <td className="text-xs">
@@ -100,6 +111,7 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
               ))}
             </tbody>
           </table>
+          </div>
         )}
         {canEdit && (
           <div className="mt-4 flex items-end gap-3 border-t border-rule pt-4">
@@ -129,6 +141,7 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
         </div>
         {runs.data?.length === 0 && <p className="text-sm text-ink-soft">No runs yet: open a scenario and run it.</p>}
         {runs.data && runs.data.length > 0 && (
+          <div className="overflow-x-auto">
           <table className="data-table" data-testid="run-table">
             <thead>
               <tr>
@@ -136,6 +149,7 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
                 <th>Scenario</th>
                 <th>Kind</th>
                 <th>Status</th>
+                <th>Outcome</th>
                 <th>Started</th>
                 <th />
               </tr>
@@ -163,12 +177,14 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
                     </span>
                     {r.error && <span className="block text-xs text-clay-700">{r.error}</span>}
                   </td>
+                  <td className="text-sm">{r.status === "done" ? <RunOutcomeCell outcome={outcomes.data?.runs[r.id]} /> : null}</td>
                   <td className="text-xs">{when(r.createdAt)}</td>
                   <td>{r.status === "done" && <Link href={`/basins/${basinId}/runs/${r.id}`}>Results</Link>}</td>
                 </tr>
               ))}
             </tbody>
           </table>
+          </div>
         )}
       </section>
     </div>

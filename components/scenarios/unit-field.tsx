@@ -20,6 +20,7 @@ export function UnitField<T extends FieldValues>({
   plainUnit,
   compact = false,
   placeholder,
+  alignBottom = false,
 }: {
   control: Control<T>;
   name: FieldPath<T>;
@@ -33,6 +34,11 @@ export function UnitField<T extends FieldValues>({
   /** In a table cell: the label is for screen readers only and the input is narrow. */
   compact?: boolean;
   placeholder?: string;
+  /**
+   * In a row of fields whose labels may wrap: the field fills its cell's height and the
+   * label sits just above the input, so inputs line up however many lines a label takes.
+   */
+  alignBottom?: boolean;
 }) {
   const id = `f-${String(name).replace(/\W+/g, "-")}`;
   const unit = kind ? unitLabel(kind, system) : plainUnit;
@@ -41,8 +47,8 @@ export function UnitField<T extends FieldValues>({
       control={control}
       name={name}
       render={({ field, fieldState }) => (
-        <div>
-          <label htmlFor={id} className={compact ? "sr-only" : "field-label"}>
+        <div className={alignBottom ? "flex grow flex-col" : undefined}>
+          <label htmlFor={id} className={compact ? "sr-only" : alignBottom ? "field-label mt-auto" : "field-label"}>
             {label}
             {unit ? ` (${unit})` : ""}
           </label>

@@ -1,5 +1,6 @@
 import { cbodToBod5Ratio, loadKgPerDay, type ConditionInput, type DischargerInput, type HeadwaterInput, type ModelFile, type ReachInput } from "@/lib/model";
 import type { ConditionInputs, ScenarioInputs } from "@/lib/validation/scenario";
+import { defaultHeadwaterDoMgL, networkOutletFlowM3s } from "./design-defaults";
 
 /** A saved network as the builder needs it (SI attributes as imported). */
 export interface NetworkForModel {
@@ -26,14 +27,33 @@ export const DEFAULT_EFFLUENT_DO_MG_L = 2;
 export const DEFAULT_BOTTLE_K_PER_DAY = 0.23;
 
 /**
+ * The factor on every reach's network design flow under a condition: the ratio of the
+ * condition's outlet flow to the network's when the planner entered one, else flowScale.
+ * Example: network outlet 2.0 m³/s, outletFlowM3s 1.5 → 0.75.
+ */
+export function conditionFlowScale(network: NetworkForModel, condition: ConditionInputs, conditionPath: string): number {
+  const outlet = condition.outletFlowM3s ?? null;
+  if (outlet === null) return condition.flowScale;
+  const own = networkOutletFlowM3s(network.reaches);
+  if (own === undefined) {
+    throw new ScenarioInputError(
+      `${conditionPath}.outletFlowM3s`,
+      `Condition "${condition.name}": the network gives no design flow at the outlet to scale from; enter the design flow reach by reach instead`,
+    );
+  }
+  return outlet / own;
+}
+
+/**
  * The natural (upstream of effluents) design flow added at the head of each
  * reach under one condition: the reach's design flow minus that of the reaches
  * flowing into it. Returns m³/s per reach id; warnings for negative increments.
  */
 export function flowIncrements(network: NetworkForModel, condition: ConditionInputs, conditionPath: string, warnings: string[]): Map<string, number> {
   const natural = new Map<string, number>();
+  const scale = conditionFlowScale(network, condition, conditionPath);
   for (const r of network.reaches) {
-    const q = condition.reachFlowsM3s[r.id] ?? (num(r.attributes.designFlowM3s) !== undefined ? num(r.attributes.designFlowM3s)! * condition.flowScale : undefined);
+    const q = condition.reachFlowsM3s[r.id] ?? (num(r.attributes.designFlowM3s) !== undefined ? num(r.attributes.designFlowM3s)! * scale : undefined);
     if (q === undefined) {
       throw new ScenarioInputError(
         `${conditionPath}.reachFlowsM3s.${r.id}`,
@@ -127,13 +147,14 @@ function headwaters(network: NetworkForModel, inputs: ScenarioInputs, condition:
     .map((r) => {
       const o = inputs.inflowOverrides[r.id] ?? {};
       const nbodu = o.nbodUMgL ?? hw.nbodUMgL;
+      const temperature = condition.temperatureC ?? num(r.attributes.temperatureC) ?? hw.temperatureC;
       return {
         reach: r.id,
         flow_m3_s: increments.get(r.id)!,
         cbodu_mg_l: o.cbodUMgL ?? hw.cbodUMgL,
         ...(nbodu > 0 ? { nbodu_mg_l: nbodu } : {}),
-        do_mg_l: o.doMgL ?? hw.doMgL,
-        temperature_c: condition.temperatureC ?? num(r.attributes.temperatureC) ?? hw.temperatureC,
+        do_mg_l: o.doMgL ?? hw.doMgL ?? defaultHeadwaterDoMgL(temperature, num(r.attributes.elevationM) ?? 0),
+        temperature_c: temperature,
       };
     });
 }
@@ -210,7 +231,9 @@ export function buildModelFile(network: NetworkForModel, inputs: ScenarioInputs,
         ...(c.temperatureC !== null ? { temperature_c: c.temperatureC } : {}),
         headwaters: file.headwaters.map((m) => {
           const h = hws.find((x) => x.reach === m.reach)!;
-          return { reach: m.reach, flow_m3_s: h.flow_m3_s, temperature_c: h.temperature_c };
+          // a DO taken from saturation follows the condition's temperature; a DO the scenario gives stays the file's own
+          const fromSaturation = (inputs.inflowOverrides[m.reach]?.doMgL ?? inputs.headwater.doMgL) == null;
+          return { reach: m.reach, flow_m3_s: h.flow_m3_s, temperature_c: h.temperature_c, ...(fromSaturation ? { do_mg_l: h.do_mg_l } : {}) };
         }),
       };
     });

@@ -59,7 +59,12 @@ export const reachOverrideSchema = z
 export const waterQualitySchema = z.object({
   cbodUMgL: conc(L.headwaterCbodu, 1000).default(2),
   nbodUMgL: conc(L.headwaterNbodu, 1000).default(0),
-  doMgL: conc(L.headwaterDo, 20).default(7.5),
+  /**
+   * null = a share of saturation at each inflow's own temperature and elevation
+   * (lib/scenarios/build-model-file DEFAULT_HEADWATER_DO_SHARE). Scenarios saved before
+   * this was the default hold the 7.5 mg/L they were given, and keep it.
+   */
+  doMgL: conc(L.headwaterDo, 20).nullable().default(null),
   /** Used when neither the condition nor the reach sets a temperature. */
   temperatureC: temperature("Temperature if none set").default(20),
 });

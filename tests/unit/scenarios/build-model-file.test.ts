@@ -81,6 +81,8 @@ describe("model file from a scenario and a network version", () => {
       inputs({
         reachOverrides: { "TR-01": { kd20PerDay: 0.5, sod20GPerM2Day: null, ka20PerDay: 4, kn20PerDay: 0.1 } },
         inflowOverrides: { "OC-01": { cbodUMgL: 6, doMgL: null } },
+        // the scenario's headwater DO, which a null inflow override keeps
+        headwater: { doMgL: 7.5 },
         conditions: [{ name: "c", reachFlowsM3s: { "TR-01": null, "OC-01": 0.08 } }],
       }),
       5,

@@ -29,7 +29,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ basin
         unitSystem={access.basin.unitSystem}
         basinCriterion={access.basin.doCriterionMgL}
         canEdit={await access.can("scenario.edit")}
-        reaches={network.reaches.map((r) => ({ id: r.id, name: r.name, attributes: r.attributes }))}
+        reaches={network.reaches.map((r) => ({ id: r.id, name: r.name, downstreamId: r.downstreamId, attributes: r.attributes }))}
         outfalls={network.outfalls.map((o) => ({ permitId: o.permitId, facilityName: o.facilityName, reachId: o.reachId, attributes: o.attributes }))}
       />
     </div>
