@@ -2,7 +2,7 @@
 import { useMemo } from "react";
 import { CsvButton, downloadCsv, SortableTable } from "@/components/tables/sortable-table";
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, formatPercent, unitLabel } from "@/lib/format/quantities";
+import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { ModelFile } from "@/lib/model/types";
 import { allocationCsv, allocationRows, type AllocationRow } from "@/lib/results/csv-rows";
@@ -50,7 +50,7 @@ export function AllocationTable({
       }),
       column<AllocationRow>("cbodu", `Allocated CBODu (${load})`, (r) => r.cbodu_kg_day, { numeric: true, show: (r) => l(r.cbodu_kg_day) }),
       column<AllocationRow>("bod5", `Allocated BOD5 (${load})`, (r) => r.bod5_kg_day, { numeric: true, show: (r) => l(r.bod5_kg_day) }),
-      column<AllocationRow>("bod5_mg_l", "Effluent BOD5 (mg/L)", (r) => r.bod5_mg_l, { numeric: true, show: (r) => r.bod5_mg_l.toFixed(1) }),
+      column<AllocationRow>("bod5_mg_l", "Effluent BOD5 (mg/L)", (r) => r.bod5_mg_l, { numeric: true, show: (r) => formatNumber("concentration", r.bod5_mg_l) }),
       column<AllocationRow>("today", `Today's CBODu (${load})`, (r) => r.today_cbodu_kg_day, { numeric: true, show: (r) => l(r.today_cbodu_kg_day) }),
       column<AllocationRow>("reduction", "Reduction (%)", (r) => r.reduction_pct, {
         numeric: true,

@@ -2,12 +2,11 @@
 import { useMemo } from "react";
 import { SortableTable } from "@/components/tables/sortable-table";
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { conditionName } from "@/lib/format/labels";
+import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";
 import { bindingRows, type BindingRow } from "@/lib/results/binding-rows";
 import { column } from "./columns";
-
-const sig = (x: number) => (Math.abs(x) >= 1 ? x.toFixed(1) : x.toPrecision(3));
 
 /** The checkpoints that limit the allocation, with what one more mg/L of room at each is worth. */
 export function BindingTable({ allocation, unitSystem }: { allocation: AllocationResult; unitSystem: UnitSystem }) {
@@ -15,13 +14,13 @@ export function BindingTable({ allocation, unitSystem }: { allocation: Allocatio
   const columns = useMemo(() => {
     const first = rows[0];
     return [
-      column<BindingRow>("condition", "Condition", (r) => r.condition),
+      column<BindingRow>("condition", "Condition", (r) => conditionName(r.condition)),
       column<BindingRow>("reach", "Reach", (r) => r.reach),
       column<BindingRow>("km", `at (${unitLabel("length", unitSystem)} from head)`, (r) => r.km, { numeric: true, show: (r) => formatIn("length", r.km, unitSystem) }),
-      column<BindingRow>("do", "DO (mg/L)", (r) => r.do_mg_l, { numeric: true, show: (r) => r.do_mg_l.toFixed(2) }),
-      column<BindingRow>("dual", `Worth of 1 mg/L (${first?.dual_unit ?? ""})`, (r) => r.dual_shown, { numeric: true, show: (r) => sig(r.dual_shown) }),
+      column<BindingRow>("do", "DO (mg/L)", (r) => r.do_mg_l, { numeric: true, show: (r) => formatNumber("do", r.do_mg_l) }),
+      column<BindingRow>("dual", `Worth of 1 mg/L (${first?.dual_unit ?? ""})`, (r) => r.dual_shown, { numeric: true, show: (r) => formatNumber("dual", r.dual_shown) }),
       ...(first?.gain_unit
-        ? [column<BindingRow>("gain", `DO gained (${first.gain_unit})`, (r) => r.gain_shown, { numeric: true, show: (r) => (r.gain_shown === null ? "—" : sig(r.gain_shown)) })]
+        ? [column<BindingRow>("gain", `DO gained (${first.gain_unit})`, (r) => r.gain_shown, { numeric: true, show: (r) => formatNumber("dual", r.gain_shown) })]
         : []),
     ];
   }, [rows, unitSystem]);

@@ -1,5 +1,6 @@
 "use client";
 import type { ColumnDef } from "@tanstack/react-table";
+import { formatNumber } from "@/lib/format/quantities";
 import { isBelowCriterion } from "@/lib/results/do-scale";
 import type { ReactNode } from "react";
 
@@ -26,5 +27,5 @@ export function column<T>(
 /** DO in a table cell: "anoxic" in a dark badge instead of a negative figure, clay when below the criterion. */
 export function DoCell({ value, criterion }: { value: number; criterion: number }) {
   if (value < 0) return <span className="rounded bg-ink px-1.5 py-0.5 text-xs font-semibold uppercase text-paper">anoxic</span>;
-  return <span className={isBelowCriterion(value, criterion) ? "font-semibold text-clay-700" : undefined}>{value.toFixed(2)}</span>;
+  return <span className={isBelowCriterion(value, criterion) ? "font-semibold text-clay-700" : undefined}>{formatNumber("do", value)}</span>;
 }

@@ -1,5 +1,5 @@
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import { formatDo } from "@/lib/results/do-scale";
 import type { ConditionRow } from "@/lib/results/run-conditions";
 
@@ -57,7 +57,7 @@ export function ConditionSummary({
               <td className="whitespace-nowrap">
                 {r.minimum.reach}, {formatIn("length", r.minimum.km, unitSystem)} {len}
               </td>
-              <td className="num hidden sm:table-cell">{r.criterion_do_mg_l.toFixed(1)}</td>
+              <td className="num hidden sm:table-cell">{formatNumber("do", r.criterion_do_mg_l)}</td>
               <td>
                 <MeetsBadge meets={r.meets} />
                 {r.points_below > 0 && <span className="ml-2 hidden text-xs text-ink-soft sm:inline">{r.points_below} point(s) below</span>}

@@ -3,13 +3,15 @@ import { useMemo } from "react";
 import { SortableTable } from "@/components/tables/sortable-table";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { conditionName } from "@/lib/format/labels";
+import { formatIn, formatNumber, roundDecimals, unitLabel } from "@/lib/format/quantities";
 import type { DiagnosisEntry } from "@/lib/model/allocation/types";
 import { diagnosisRows, type DiagnosisRow } from "@/lib/results/diagnosis-rows";
 import { column, DoCell } from "./columns";
 
-const mgl = (x: number) => x.toFixed(2);
-const share = (x: number, p: number) => <span className="whitespace-nowrap">{`${mgl(x)} (${p.toFixed(0)} %)`}</span>;
+const mgl = (x: number) => formatNumber("do", x);
+// shares of a deficit to the whole per cent: a breakdown, not a measurement
+const share = (x: number, p: number) => <span className="whitespace-nowrap">{`${mgl(x)} (${roundDecimals(p, 0)} %)`}</span>;
 
 /**
  * Why no allocation meets the criterion: the checkpoints that fail with every discharger
@@ -23,7 +25,7 @@ export function DiagnosisTable({ diagnosis, unitSystem }: { diagnosis: Diagnosis
     () => [
       column<DiagnosisRow>("reach", "Reach", (r) => r.reach),
       column<DiagnosisRow>("km", `at (${unitLabel("length", unitSystem)} from head)`, (r) => r.km, { numeric: true, show: (r) => formatIn("length", r.km, unitSystem) }),
-      column<DiagnosisRow>("condition", "Condition", (r) => r.condition),
+      column<DiagnosisRow>("condition", "Condition", (r) => conditionName(r.condition)),
       column<DiagnosisRow>("do", "DO at floors (mg/L)", (r) => r.do_mg_l, { numeric: true, show: (r) => <DoCell value={r.do_mg_l} criterion={r.required_do_mg_l} /> }),
       column<DiagnosisRow>("required", "Required (mg/L)", (r) => r.required_do_mg_l, { numeric: true, show: (r) => mgl(r.required_do_mg_l) }),
       column<DiagnosisRow>("short", "Short by (mg/L)", (r) => r.shortfall_mg_l, { numeric: true, show: (r) => mgl(r.shortfall_mg_l) }),

@@ -2,10 +2,14 @@
 import { useMemo } from "react";
 import { SortableTable } from "@/components/tables/sortable-table";
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { nameOf, REAERATION_NAMES } from "@/lib/format/labels";
+import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import type { RunResult } from "@/lib/model/network/run";
 import { reachRows, type ReachRow } from "@/lib/results/reach-rows";
 import { column, DoCell } from "./columns";
+
+/** "O'Connor–Dobbins, Owens–Edwards–Gibbs (raised to the 0.6/H floor)": the formulas that gave k_a, by name. */
+export const kaMethodText = (r: ReachRow) => `${r.ka_methods.map((m) => nameOf(REAERATION_NAMES, m)).join(", ")}${r.ka_floored ? " (raised to the 0.6/H floor)" : ""}`;
 
 /** Per-reach results: minimum DO and where, travel time, k_a and the method that gave it. */
 export function ReachResultsTable({
@@ -13,9 +17,12 @@ export function ReachResultsTable({
   unitSystem,
   selectedReach,
   onSelectReach,
+  reachNames,
 }: {
   run: RunResult;
   unitSystem: UnitSystem;
+  /** Reach names by id (from the network the run used); a column appears when any reach has one. */
+  reachNames?: Readonly<Record<string, string | null>>;
   selectedReach?: string | null;
   onSelectReach?: (reachId: string) => void;
 }) {
@@ -24,22 +31,28 @@ export function ReachResultsTable({
   const columns = useMemo(
     () => [
       column<ReachRow>("id", "Reach", (r) => r.id),
-      column<ReachRow>("min_do", "Minimum DO (mg/L)", (r) => r.min_do_mg_l, {
-        numeric: true,
-        show: (r) => <DoCell value={r.min_do_mg_l} criterion={run.criterion_do_mg_l} />,
-      }),
+      ...(reachNames && Object.values(reachNames).some(Boolean) ? [column<ReachRow>("name", "Name", (r) => reachNames[r.id] ?? null)] : []),
+      // the first click on minimum DO puts the worst reach on top
+      {
+        ...column<ReachRow>("min_do", "Minimum DO (mg/L)", (r) => r.min_do_mg_l, {
+          numeric: true,
+          show: (r) => <DoCell value={r.min_do_mg_l} criterion={run.criterion_do_mg_l} />,
+        }),
+        sortDescFirst: false,
+      },
       column<ReachRow>("min_at", `at (${len} from head)`, (r) => r.min_do_km, { numeric: true, show: (r) => formatIn("length", r.min_do_km, unitSystem) }),
       column<ReachRow>("length", `Length (${len})`, (r) => r.length_km, { numeric: true, show: (r) => formatIn("length", r.length_km, unitSystem) }),
-      column<ReachRow>("travel", "Travel time (d)", (r) => r.travel_time_day, { numeric: true, show: (r) => r.travel_time_day.toFixed(3) }),
+      column<ReachRow>("travel", "Travel time (d)", (r) => r.travel_time_day, { numeric: true, show: (r) => formatNumber("time", r.travel_time_day) }),
       column<ReachRow>("ka", "k_a (1/d)", (r) => r.ka_min_per_day, {
         numeric: true,
-        show: (r) => (r.ka_max_per_day - r.ka_min_per_day < 5e-4 ? r.ka_min_per_day.toFixed(3) : `${r.ka_min_per_day.toFixed(3)}–${r.ka_max_per_day.toFixed(3)}`),
+        show: (r) => {
+          const [lo, hi] = [formatNumber("rate", r.ka_min_per_day), formatNumber("rate", r.ka_max_per_day)];
+          return lo === hi ? lo : `${lo}–${hi}`;
+        },
       }),
-      column<ReachRow>("method", "k_a from", (r) => r.ka_methods.join(", "), {
-        show: (r) => `${r.ka_methods.join(", ")}${r.ka_floored ? " (raised to the 0.6/H floor)" : ""}`,
-      }),
+      column<ReachRow>("method", "Reaeration formula", (r) => kaMethodText(r), { show: (r) => kaMethodText(r) }),
     ],
-    [len, unitSystem, run.criterion_do_mg_l],
+    [len, unitSystem, run.criterion_do_mg_l, reachNames],
   );
   return (
     <SortableTable

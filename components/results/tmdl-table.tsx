@@ -1,5 +1,5 @@
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import type { TmdlTable } from "@/lib/model/allocation/types";
 
 /** TMDL = ΣWLA + ΣLA + MOS + reserve, in the basin's load unit (CBODu). */
@@ -12,6 +12,7 @@ export function TmdlSummary({ tmdl, unitSystem }: { tmdl: TmdlTable; unitSystem:
     ["Reserve", "capacity kept for growth", tmdl.rc_kg_day],
   ];
   return (
+    <div className="overflow-x-auto">
     <table className="data-table" data-testid="tmdl-table">
       <thead>
         <tr>
@@ -36,9 +37,10 @@ export function TmdlSummary({ tmdl, unitSystem }: { tmdl: TmdlTable; unitSystem:
       </tbody>
       {tmdl.mos_do_mg_l > 0 && (
         <caption className="caption-bottom pt-2 text-left text-xs text-ink-faint">
-          A further margin of safety of {tmdl.mos_do_mg_l.toFixed(2)} mg/L DO was added to the criterion; it is implicit in the loads above.
+          A further margin of safety of {formatNumber("do", tmdl.mos_do_mg_l)} mg/L DO was added to the criterion; it is implicit in the loads above.
         </caption>
       )}
     </table>
+    </div>
   );
 }

@@ -1,6 +1,6 @@
 import type { FeatureCollection } from "geojson";
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, formatPercent, unitLabel } from "@/lib/format/quantities";
+import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { RunResult } from "@/lib/model/network/run";
 import type { ModelFile } from "@/lib/model/types";
@@ -14,7 +14,7 @@ import { acknowledgementNote, acknowledgementSummary, type PublicationAcknowledg
 import { formatDay, formatTime } from "@/lib/format/zoned-time";
 import type { ScenarioInputs } from "@/lib/validation/scenario";
 import { mapFigure, profileFigure, type MapFigure, type ProfileFigure } from "./figures";
-import { nameOf, OBJECTIVE_NAMES, REAERATION_NAMES } from "@/lib/format/labels";
+import { nameOf, OBJECTIVE_NAMES, PLAN_STATUS_NAMES, REAERATION_NAMES, THETA_RULE_NAMES } from "@/lib/format/labels";
 
 /** What a plan's snapshot holds (lib/services/plans.ts proposePlan): the run as proposed and the scenario inputs. */
 export interface PlanSnapshot {
@@ -221,13 +221,13 @@ function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, 
     {
       heading: "Kinetics (rates at 20 °C)",
       items: [
-        { label: "Deoxygenation k_d", value: `${num(k.kd20PerDay, 3)} 1/d` },
+        { label: "Deoxygenation k_d", value: `${formatNumber("rate", k.kd20PerDay)} 1/d` },
         { label: "Reaeration method", value: `${nameOf(REAERATION_NAMES, k.kaMethod)}${k.kaFloor ? ", with a minimum rate" : ""}` },
         { label: "Reaeration formulas used", value: usedText || "—" },
-        { label: "Settling k_s", value: `${num(k.ks20PerDay, 3)} 1/d` },
+        { label: "Settling k_s", value: `${formatNumber("rate", k.ks20PerDay)} 1/d` },
         { label: "Sediment oxygen demand", value: `${num(k.sod20GPerM2Day, 2)} g/m²/d` },
-        { label: "Nitrogenous k_n", value: `${num(k.kn20PerDay, 3)} 1/d` },
-        { label: "Temperature correction", value: `${k.thetaRule === "piecewise" ? "piecewise" : "constant"} theta rule` },
+        { label: "Nitrogenous k_n", value: `${formatNumber("rate", k.kn20PerDay)} 1/d` },
+        { label: "Temperature correction", value: nameOf(THETA_RULE_NAMES, k.thetaRule) },
         { label: "Reaches with their own kinetics", value: String(Object.keys(i.reachOverrides ?? {}).length) },
       ],
     },
@@ -285,7 +285,7 @@ export function planReport(plan: ReportPlanInput, basin: ReportBasinInput, netwo
     basinName: basin.name,
     version: plan.version,
     published,
-    statusLine: published && plan.publishedAt ? `Published ${formatDay(new Date(plan.publishedAt), zone)}` : `DRAFT — not published (status: ${plan.status})`,
+    statusLine: published && plan.publishedAt ? `Published ${formatDay(new Date(plan.publishedAt), zone)}` : `DRAFT — not published (${nameOf(PLAN_STATUS_NAMES, plan.status).toLowerCase()})`,
     generatedAt: utcMinute(now.toISOString()),
     caution: PLANNING_CAUTION,
     summary: [

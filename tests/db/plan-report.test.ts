@@ -206,7 +206,7 @@ describe("the report of a draft", () => {
 
     const pdf = await planReportPdf(db, w.users.lead, w.basinId, planId);
     const text = pdfText(pdf.body as Uint8Array, "draft");
-    expect(text).toContain("DRAFT — not published (status: draft)");
+    expect(text).toContain("DRAFT — not published (draft)");
     expect(text).toContain("No comments were received on this plan.");
     expect(text).toContain("CBODu (kg/d)");
     expect(await exportEvents(planId)).toHaveLength(2);

@@ -75,7 +75,7 @@ describe("planReport", () => {
     expect(pub.statusLine).toBe("Published 20 Nov 2026");
     const review = planReport(plan("review"), { name: "Tamsel", unitSystem: "SI" }, null);
     expect(review.published).toBe(false);
-    expect(review.statusLine).toBe("DRAFT — not published (status: review)");
+    expect(review.statusLine).toBe("DRAFT — not published (in review)");
     expect(review.caution).toEqual(PLANNING_CAUTION);
   });
 

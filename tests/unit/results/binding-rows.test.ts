@@ -24,13 +24,14 @@ describe("binding checkpoints in plain units", () => {
     const [si] = bindingRows(a, "SI");
     expect(si.dual_shown).toBe(2000);
     expect(si.dual_unit).toBe("kg/d of total load per mg/L");
-    expect(si.gain_shown).toBe(0.0005);
+    expect(si.gain_shown).toBe(0.5); // per 1000 kg/d
+    expect(si.gain_unit).toBe("mg/L per 1000 kg/d given up");
     const [us] = bindingRows(a, "US");
     expect(us.dual_shown).toBeCloseTo(2000 / LB_TO_KG, 9);
-    expect(us.gain_shown).toBeCloseTo(0.0005 * LB_TO_KG, 12);
-    expect(us.gain_unit).toBe("mg/L per lb/d given up");
-    // the two readings stay inverse of each other in either system
-    expect(us.dual_shown * us.gain_shown!).toBeCloseTo(1, 12);
+    expect(us.gain_shown).toBeCloseTo(0.5 * LB_TO_KG, 12);
+    expect(us.gain_unit).toBe("mg/L per 1000 lb/d given up");
+    // the two readings stay inverse of each other in either system (the gain per 1000 units)
+    expect((us.dual_shown * us.gain_shown!) / 1000).toBeCloseTo(1, 12);
   });
 
   it("leaves other objectives' duals in their own unit", () => {
