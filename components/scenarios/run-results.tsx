@@ -21,8 +21,9 @@ import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { useRunQuery } from "@/lib/queries/scenarios";
 import { headwaterReaches } from "@/lib/results";
-import { isBelowCriterion } from "@/lib/results/do-scale";
+import { formatDo, isBelowCriterion } from "@/lib/results/do-scale";
 import { conditionRows, conditionsLine, governingHeadline, quoted, runConditions } from "@/lib/results/run-conditions";
+import { sagBelowOutlet } from "@/lib/results/sag-below-outlet";
 import type { RunDto } from "@/lib/services/runs";
 
 /** Everything a finished run shows: map, profile, tables, allocation, exports, and the caution. */
@@ -55,6 +56,14 @@ export function RunResults({
   // an allocation run keeps one model file (its other conditions inside); the network drawn is the same under each
   const model = run.modelFiles[Math.min(conditionIndex, run.modelFiles.length - 1)].file;
   const heads = useMemo(() => headwaterReaches(model), [model]);
+  const reachNames = useMemo(() => {
+    const names: Record<string, string | null> = {};
+    for (const f of network.features) {
+      const p = f.properties;
+      if (p?.kind === "reach" && typeof p.id === "string") names[p.id] = typeof p.name === "string" && p.name.trim() ? p.name : null;
+    }
+    return names;
+  }, [network]);
   const from = startReach ?? heads[0];
   const about = [
     `${basinName} — scenario "${run.scenarioName}" v${run.scenarioVersion}`,
@@ -79,6 +88,7 @@ export function RunResults({
   const allocation = read.allocation;
   const several = result.conditions.length > 1;
   const rows = conditionRows(result);
+  const sag = sagBelowOutlet(r, model.reaches);
   const fileStem = (name: string) => `${stem}-${name.replace(/[^\w-]+/g, "-").toLowerCase()}`;
   return (
     <div className="space-y-6" data-testid="run-results">
@@ -121,6 +131,17 @@ export function RunResults({
       ) : (
         <Notice tone="success">DO stays at or above the criterion everywhere under “{condition.name}”.</Notice>
       )}
+      {sag && (
+        <Notice tone="warning" title="The sag continues below the modelled network">
+          <span data-testid="sag-below-outlet">
+            The lowest DO under “{condition.name}”, {sag.doMgL < 0 ? "anoxic" : `${formatDo(sag.doMgL)} mg/L`}, is at the
+            downstream end of {sag.reach}
+            {reachNames[sag.reach] ? ` (${reachNames[sag.reach]})` : ""}, where the network ends, and DO is still falling
+            there. Below the outlet DO will be lower still, so the critical point is not in these results: extend the
+            network downstream to find it before relying on them.
+          </span>
+        </Notice>
+      )}
       {result.warnings.length > 0 && (
         <Notice tone="warning" title="Assumptions made while building the model file">
           <ul className="list-disc pl-5">
@@ -150,7 +171,7 @@ export function RunResults({
 
       <section className="card">
         <h2 className="mb-3">Reaches{several ? ` under ${quoted(condition.name)}` : ""}</h2>
-        <ReachResultsTable run={r} unitSystem={unitSystem} selectedReach={from} onSelectReach={setStartReach} />
+        <ReachResultsTable run={r} unitSystem={unitSystem} selectedReach={from} onSelectReach={setStartReach} reachNames={reachNames} />
       </section>
 
       {allocation && (

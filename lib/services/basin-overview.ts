@@ -1,14 +1,13 @@
 import type { Db } from "@/db/client";
-import { listAuditEvents } from "@/db/queries/audit";
 import { listBasinPlans } from "@/db/queries/plans";
 import { currentNetworkSummary, doneRunOutcomes, latestDoneRunPerScenario, type RunOutcomeRow } from "@/db/queries/run-outcomes";
 import { listScenarios as listScenarioRows } from "@/db/queries/scenarios";
 import { canInBasin, requireBasinAction, type Actor } from "@/lib/auth/guard";
 import { PLAN_STAGE_TEXT, planStage, type PlanStage } from "@/lib/plans/review-rules";
 import { runOutcome, type RunOutcome } from "@/lib/results/run-outcome";
-import type { AuditEventDto } from "./audit";
+import { listBasinAudit, type AuditEventDto } from "./audit";
 
-export interface NetworkSummaryDto {
+export interface CurrentNetworkDto {
   id: string;
   version: number;
   reachCount: number;
@@ -48,7 +47,7 @@ export interface PlanOverviewDto {
  */
 export interface BasinOverviewDto {
   /** Planners and leads (scenario.read): the newest network version. */
-  network: NetworkSummaryDto | null;
+  network: CurrentNetworkDto | null;
   /** Whether a network exists at all is planner knowledge too; null for others. */
   scenarios: ScenarioOverviewDto[] | null;
   /** Every reader: the plans they may read (drafts only for planners and leads). */
@@ -70,7 +69,7 @@ export async function basinOverview(db: Db, actor: Actor | null, basinId: string
     planner ? listScenarioRows(db, basin.id) : [],
     planner ? latestDoneRunPerScenario(db, basin.id) : [],
     listBasinPlans(db, basin.id, planner ? "planner" : "signedIn"),
-    auditor ? listAuditEvents(db, basin.id, { limit: RECENT_EVENTS }) : [],
+    auditor ? listBasinAudit(db, actor, basin.id, { limit: RECENT_EVENTS }) : null,
   ]);
   const runBy = new Map(latestRuns.map((r) => [r.scenario_id, r]));
   return {
@@ -114,17 +113,7 @@ export async function basinOverview(db: Db, actor: Actor | null, basinId: string
         publishedAt: p.published_at?.toISOString() ?? null,
       };
     }),
-    activity: auditor
-      ? events.map((r) => ({
-          id: String(r.id),
-          action: r.action,
-          targetType: r.target_type,
-          targetId: r.target_id,
-          details: r.details,
-          at: r.created_at.toISOString(),
-          actor: r.actor_name,
-        }))
-      : null,
+    activity: events,
   };
 }
 

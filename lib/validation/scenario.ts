@@ -61,7 +61,7 @@ export const waterQualitySchema = z.object({
   nbodUMgL: conc(L.headwaterNbodu, 1000).default(0),
   /**
    * null = a share of saturation at each inflow's own temperature and elevation
-   * (lib/scenarios/build-model-file DEFAULT_HEADWATER_DO_SHARE). Scenarios saved before
+   * (DEFAULT_HEADWATER_DO_SHARE in lib/scenarios/design-defaults). Scenarios saved before
    * this was the default hold the 7.5 mg/L they were given, and keep it.
    */
   doMgL: conc(L.headwaterDo, 20).nullable().default(null),
