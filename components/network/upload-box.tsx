@@ -139,6 +139,7 @@ export function UploadBox({
           </label>
           <input
             id={`${id}-epsg`}
+            aria-describedby={`${id}-epsg-hint`}
             inputMode="numeric"
             className="field-input py-1"
             value={epsg}
@@ -149,6 +150,13 @@ export function UploadBox({
           {busy ? "Reading…" : "Read again"}
         </Button>
       </div>
+      <p id={`${id}-epsg-hint`} className="mt-1 text-xs text-ink-faint" data-testid={`${id}-epsg-hint`}>
+        Sagline reprojects every file to WGS 84 latitude and longitude, so it must know the coordinate system the file is in.
+        It reads it from the shapefile&apos;s .prj or the GeoJSON&apos;s own coordinates, and asks for an EPSG code only
+        when it cannot: a shapefile without a .prj (or with one it cannot read), a GeoJSON that names a system it does not
+        know, or a CSV whose positions are X and Y rather than latitude and longitude. The code is in the file&apos;s
+        metadata or in the GIS program it came from (for example 26915 for NAD83 / UTM zone 15N); then choose Read again.
+      </p>
       {error && (
         <p className="field-error" role="alert">
           {error}
