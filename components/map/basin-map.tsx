@@ -3,7 +3,9 @@ import type { Feature, FeatureCollection, Geometry } from "geojson";
 import { useEffect, useRef } from "react";
 import { escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "./map-setup";
 import { MapFrame, useBaseMap } from "./use-base-map";
-import { arrowImage, MAP_COLOURS } from "./map-style";
+import { addLabelLayers } from "./label-layers";
+import { BasinLegend } from "./map-legend";
+import { arrowImage, MAP_COLOURS, SELECTION_HALO_PX } from "./map-style";
 
 export interface MapSelection {
   kind: "reach" | "node" | "outfall";
@@ -26,9 +28,10 @@ function describe(p: Record<string, unknown>): string {
 }
 
 /**
- * The basin on a plain background: reaches with flow-direction chevrons,
- * nodes, outfalls, and (optionally) problem geometries to highlight. Hover
- * shows details; a click reports the feature.
+ * The basin on a plain background (or the configured basemap): reaches with
+ * flow-direction chevrons and their ids (names too when zoomed in), nodes, outfalls
+ * labelled with the facility's name, and (optionally) problem geometries to
+ * highlight; a legend below. Hover shows details; a click reports the feature.
  */
 export function BasinMap({
   data,
@@ -59,16 +62,26 @@ export function BasinMap({
       filter: ["!=", ["geometry-type"], "Point"],
       paint: { "line-color": MAP_COLOURS.problem, "line-width": 9, "line-opacity": 0.35 },
     });
+    // the selection: a wide violet halo under the line, a colour nothing else on the map uses
+    map.addLayer({
+      id: "selected-halo",
+      type: "line",
+      source: "basin",
+      filter: ["==", ["get", "kind"], "reach"],
+      layout: { "line-cap": "round", "line-join": "round" },
+      paint: {
+        "line-color": MAP_COLOURS.selection,
+        "line-width": SELECTION_HALO_PX,
+        "line-opacity": ["case", ["boolean", ["feature-state", "selected"], false], 0.6, 0],
+      },
+    });
     map.addLayer({
       id: "reaches",
       type: "line",
       source: "basin",
       filter: ["==", ["get", "kind"], "reach"],
       layout: { "line-cap": "round", "line-join": "round" },
-      paint: {
-        "line-color": ["case", ["boolean", ["feature-state", "selected"], false], MAP_COLOURS.reachSelected, MAP_COLOURS.reach],
-        "line-width": ["case", ["boolean", ["feature-state", "selected"], false], 5, 3],
-      },
+      paint: { "line-color": MAP_COLOURS.reach, "line-width": 3 },
     });
     map.addLayer({
       id: "reach-direction",
@@ -102,12 +115,13 @@ export function BasinMap({
       source: "basin",
       filter: ["==", ["get", "kind"], "outfall"],
       paint: {
-        "circle-radius": ["case", ["boolean", ["feature-state", "selected"], false], 9, 6.5],
+        "circle-radius": 6.5,
         "circle-color": MAP_COLOURS.outfall,
-        "circle-stroke-color": "#ffffff",
-        "circle-stroke-width": 2,
+        "circle-stroke-color": ["case", ["boolean", ["feature-state", "selected"], false], MAP_COLOURS.selection, "#ffffff"],
+        "circle-stroke-width": ["case", ["boolean", ["feature-state", "selected"], false], 5, 2],
       },
     });
+    addLabelLayers(map, "basin", { reaches: ["==", ["get", "kind"], "reach"], outfalls: ["==", ["get", "kind"], "outfall"] });
     return wireLayerEvents(map, ["reaches", "nodes", "outfalls"], describe, (p) =>
       onSelectRef.current?.({ kind: p.kind as MapSelection["kind"], id: String(p.id), properties: p }),
     );
@@ -139,5 +153,9 @@ export function BasinMap({
     if (selectedId) map.setFeatureState({ source: "basin", id: selectedId }, { selected: true });
   }, [selectedId, loaded, data]);
 
-  return <MapFrame ref={container} height={height} label="Basin map" testId="basin-map" ready={loaded !== null} />;
+  return (
+    <MapFrame ref={container} height={height} label="Basin map" testId="basin-map" ready={loaded !== null}>
+      <BasinLegend problems={(highlight?.length ?? 0) > 0} />
+    </MapFrame>
+  );
 }

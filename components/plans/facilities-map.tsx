@@ -3,7 +3,6 @@ import type { FeatureCollection } from "geojson";
 import { useState } from "react";
 import { BasinMapLazy } from "@/components/map/basin-map-lazy";
 import type { MapSelection } from "@/components/map/basin-map";
-import { MAP_COLOURS } from "@/components/map/map-style";
 
 /**
  * The facilities a plan allocates to, as outfalls on the reach network its run was computed
@@ -30,10 +29,7 @@ export function FacilitiesMap({ network, threadIds }: { network: FeatureCollecti
       <div className="grid gap-4 lg:grid-cols-[3fr_1fr]">
         <BasinMapLazy data={network} selectedId={selected} onSelect={onSelect} height={420} />
         <div className="space-y-2 text-sm">
-          <p className="flex items-center gap-2 text-ink-soft">
-            <span aria-hidden className="inline-block h-3 w-3 shrink-0 rounded-full border-2 border-white" style={{ background: MAP_COLOURS.outfall }} />
-            outfall of a facility in this plan; the chevrons on the reaches point downstream
-          </p>
+          <p className="text-ink-soft">The facilities in this plan, each at its outfall on the map (the key is under the map).</p>
           <ul className="space-y-1" data-testid="map-facilities">
             {outfalls.map((o) => (
               <li key={o.id}>

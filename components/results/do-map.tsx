@@ -2,6 +2,8 @@
 import type { FeatureCollection } from "geojson";
 import { useEffect, useMemo, useRef } from "react";
 import { escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "@/components/map/map-setup";
+import { addLabelLayers } from "@/components/map/label-layers";
+import { MAP_COLOURS, SELECTION_HALO_PX } from "@/components/map/map-style";
 import { MapFrame, useBaseMap } from "@/components/map/use-base-map";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
@@ -13,8 +15,15 @@ import { resultsGeoJson } from "@/lib/results/results-geojson";
 const EMPTY: FeatureCollection = { type: "FeatureCollection", features: [] };
 const NONE = "\u0000";
 
-const isKind = (k: string): maplibregl.FilterSpecification => ["==", ["get", "kind"], k];
+const isKind = (k: string): maplibregl.ExpressionSpecification => ["==", ["get", "kind"], k];
 const pieceWhere = (key: string, value: string | boolean) => ["all", isKind("reach-piece"), ["==", ["get", key], value]] as maplibregl.FilterSpecification;
+const reachWhere = (id: string): maplibregl.FilterSpecification => ["all", isKind("reach"), ["==", ["to-string", ["get", "id"]], id]];
+/** Critical points worth a ring: below the criterion, or the lowest DO of the whole network. */
+const ringWhere = (lowestReach: string): maplibregl.FilterSpecification => [
+  "all",
+  isKind("critical"),
+  ["any", ["==", ["get", "below"], true], ["==", ["get", "reach"], lowestReach]],
+];
 
 /** MapLibre colour expression for the `band` property written by resultsGeoJson. */
 const BAND_COLOUR = ["match", ["get", "band"], ...Object.entries(DO_BAND_COLOURS).flat(), DO_BAND_COLOURS.ample] as unknown as maplibregl.ExpressionSpecification;
@@ -33,8 +42,10 @@ function describe(p: Record<string, unknown>, system: UnitSystem): string {
 
 /**
  * The basin coloured by DO along every reach (bands relative to the criterion, anoxic
- * water drawn dark with a dashed core), each reach's critical point ringed, dischargers
- * as white dots. A click on a reach reports its id.
+ * water drawn dark with a dashed core), reach ids and facility names as labels, the
+ * outlet, dischargers as white dots, and a ring on each critical point that matters
+ * (a sag below the criterion, the network's lowest DO). The selected reach has a violet
+ * halo. A click on a reach reports its id. The key is DoLegend, beside the map.
  */
 export function DoMap({
   run,
@@ -64,15 +75,18 @@ export function DoMap({
   }, [onSelectReach, unitSystem]);
   const data = useMemo(() => resultsGeoJson({ run, model, network, scale }), [run, model, network, scale]);
 
+  const lowestReachRef = useRef(run.minimum.reach);
   const { container, map: loaded } = useBaseMap((map) => {
     map.addSource("results", { type: "geojson", data: EMPTY });
+    map.addSource("network", { type: "geojson", data: EMPTY });
+    // the selection: a wide violet halo under the reach, a colour no DO band or mark uses
     map.addLayer({
       id: "selected-reach",
       type: "line",
-      source: "results",
-      filter: pieceWhere("reach", NONE),
+      source: "network",
+      filter: reachWhere(NONE),
       layout: { "line-cap": "round", "line-join": "round" },
-      paint: { "line-color": "#143234", "line-width": 10 },
+      paint: { "line-color": MAP_COLOURS.selection, "line-width": SELECTION_HALO_PX, "line-opacity": 0.6 },
     });
     map.addLayer({
       id: "do-pieces",
@@ -90,24 +104,33 @@ export function DoMap({
       paint: { "line-color": "#f7f6f1", "line-width": 1.5, "line-dasharray": [2, 2] },
     });
     map.addLayer({
+      id: "outlet",
+      type: "circle",
+      source: "network",
+      filter: ["all", isKind("node"), ["==", ["get", "nodeKind"], "outlet"]],
+      paint: { "circle-radius": 7, "circle-color": MAP_COLOURS.outlet, "circle-stroke-color": "#ffffff", "circle-stroke-width": 2 },
+    });
+    map.addLayer({
       id: "dischargers",
       type: "circle",
       source: "results",
       filter: isKind("discharger"),
       paint: { "circle-radius": 4.5, "circle-color": "#ffffff", "circle-stroke-color": "#1d2a33", "circle-stroke-width": 1.5 },
     });
+    // rings only where they mean something: a reach's sag below the criterion, and the network's lowest DO
     map.addLayer({
       id: "criticals",
       type: "circle",
       source: "results",
-      filter: isKind("critical"),
+      filter: ringWhere(lowestReachRef.current),
       paint: {
-        "circle-radius": ["case", ["==", ["get", "below"], true], 8, 6],
+        "circle-radius": ["case", ["==", ["get", "below"], true], 9, 7],
         "circle-color": "rgba(0,0,0,0)",
         "circle-stroke-color": BAND_COLOUR,
         "circle-stroke-width": 3,
       },
     });
+    addLabelLayers(map, "network", { reaches: isKind("reach"), outfalls: isKind("outfall") });
     return wireLayerEvents(
       map,
       ["do-pieces", "criticals", "dischargers"],
@@ -123,13 +146,15 @@ export function DoMap({
     const map = loaded;
     if (!map) return;
     (map.getSource("results") as maplibregl.GeoJSONSource).setData(data);
+    (map.getSource("network") as maplibregl.GeoJSONSource).setData(network);
+    map.setFilter("criticals", ringWhere(run.minimum.reach));
     fitToFeatures(map, data);
-  }, [data, loaded]);
+  }, [data, network, run, loaded]);
 
   useEffect(() => {
     const map = loaded;
     if (!map) return;
-    map.setFilter("selected-reach", pieceWhere("reach", selectedReach ?? NONE));
+    map.setFilter("selected-reach", reachWhere(selectedReach ?? NONE));
   }, [selectedReach, loaded]);
 
   return <MapFrame ref={container} height={height} label="Dissolved-oxygen map" testId="do-map" ready={loaded !== null} />;
