@@ -7,7 +7,8 @@
  *      (parse + reprojection + topology + snapping); target ≤ 3 s.
  *   5. Self-crossing check of 2k/16k/100k-vertex lines against turf kinks().
  *   6. Lengths on the WGS84 ellipsoid against turf's sphere and GeographicLib, per million segments.
- *   7. Committing a 2k-reach network with 200 dischargers into PostgreSQL (a throwaway database
+ *   7. Design flows (1Q10, 7Q10, 30Q5, 7Q2) from a 50-year daily record; target ≤ 200 ms.
+ *   8. Committing a 2k-reach network with 200 dischargers into PostgreSQL (a throwaway database
  *      on the test cluster, started when needed); target ≤ 2 s. `--no-db` skips it.
  * Targets (issue 3): 10k-reach run ≤ 20 ms; ≥ 100× faster than the ODE integrator;
  * 500-discharger allocation ≤ 2 s and no slower than HiGHS on the full LP.
@@ -20,6 +21,7 @@ import { geoImportBench } from "./geo-import";
 import { selfCrossingsBench } from "./self-crossings-bench";
 import { geodesicBench } from "./geodesic-bench";
 import { networkCommitBench } from "./network-commit-bench";
+import { designFlowBench } from "./design-flow-bench";
 
 const quick = process.argv.includes("--quick");
 
@@ -33,6 +35,7 @@ async function main() {
   await geoImportBench(10_000, 1000);
   selfCrossingsBench();
   geodesicBench();
+  designFlowBench(50);
   if (!process.argv.includes("--no-db")) await networkCommitBench(2000, 200);
 }
 
