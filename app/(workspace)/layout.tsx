@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { redirect } from "next/navigation";
 import type { ReactNode } from "react";
-import { NameMark } from "@/components/brand/name-mark";
+import { SiteHeader } from "@/components/layout/site-header";
 import { RoleBadge } from "@/components/ui/role-badge";
 import { currentActor } from "@/lib/auth/session";
 
@@ -10,28 +10,29 @@ export const dynamic = "force-dynamic";
 export default async function WorkspaceLayout({ children }: { children: ReactNode }) {
   const actor = await currentActor();
   if (!actor) redirect("/signin");
+  const links = [
+    { href: "/basins", label: "Basins" },
+    { href: "/reviews", label: "Plans under review" },
+    ...(actor.isAdmin ? [{ href: "/admin/users", label: "Users" }] : []),
+  ];
   return (
     <div className="min-h-screen">
-      <header className="border-b border-rule bg-paper-raised">
-        <div className="mx-auto flex max-w-6xl items-center gap-6 px-6 py-3">
-          <Link href="/basins" className="no-underline hover:no-underline" aria-label="Your basins">
-            <NameMark />
-          </Link>
-          <nav className="flex gap-4 text-sm">
-            <Link href="/basins">Basins</Link>
-            <Link href="/reviews">Plans under review</Link>
-            {actor.isAdmin && <Link href="/admin/users">Users</Link>}
-          </nav>
-          <div className="ml-auto flex items-center gap-3 text-sm">
-            <span className="text-ink-soft" data-testid="signed-in-as">
+      <SiteHeader
+        homeHref="/basins"
+        homeLabel="Your basins"
+        navLabel="Workspace"
+        links={links}
+        account={
+          <>
+            <span className="min-w-0 truncate text-ink-soft" data-testid="signed-in-as">
               {actor.name}
             </span>
             {actor.isAdmin && <RoleBadge role="admin" />}
             <Link href="/signout">Sign out</Link>
-          </div>
-        </div>
-      </header>
-      <main className="mx-auto max-w-6xl px-6 py-8">{children}</main>
+          </>
+        }
+      />
+      <main className="mx-auto max-w-6xl px-4 py-6 sm:px-6 sm:py-8">{children}</main>
     </div>
   );
 }

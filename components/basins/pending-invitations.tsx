@@ -17,6 +17,7 @@ export function PendingInvitations({ basinId }: { basinId: string }) {
   return (
     <div className="space-y-2">
       {failure && <Notice tone="error">{failure}</Notice>}
+      <div className="overflow-x-auto">
       <table className="data-table" data-testid="invitations-table">
         <thead>
           <tr>
@@ -55,6 +56,7 @@ export function PendingInvitations({ basinId }: { basinId: string }) {
           ))}
         </tbody>
       </table>
+      </div>
     </div>
   );
 }

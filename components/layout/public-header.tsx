@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { NameMark } from "@/components/brand/name-mark";
+import { SiteHeader } from "@/components/layout/site-header";
 import type { Actor } from "@/lib/auth/guard";
 
 /**
@@ -9,36 +9,35 @@ import type { Actor } from "@/lib/auth/guard";
  */
 export function PublicHeader({ actor }: { actor: Actor | null }) {
   return (
-    <header className="border-b border-rule bg-paper-raised" data-testid="public-header">
-      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-6 py-3">
-        <Link href="/" className="no-underline hover:no-underline" aria-label="Sagline home">
-          <NameMark />
-        </Link>
-        <nav aria-label="Plans" className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
-          <Link href="/">Home</Link>
-          <Link href="/published">Published plans</Link>
-          <Link href="/reviews">Plans under review</Link>
-        </nav>
-        <div className="ml-auto flex items-center gap-3 text-sm">
-          {actor ? (
-            <>
-              <span className="text-ink-soft" data-testid="signed-in-as">
-                {actor.name}
-              </span>
-              <Link href="/basins">Your basins</Link>
-            </>
-          ) : (
-            <>
-              <Link href="/signin" className="font-medium">
-                Sign in
-              </Link>
-              <Link href="/register" className="text-ink-soft">
-                Create an account
-              </Link>
-            </>
-          )}
-        </div>
-      </div>
-    </header>
+    <SiteHeader
+      testId="public-header"
+      homeHref="/"
+      homeLabel="Sagline home"
+      navLabel="Plans"
+      links={[
+        { href: "/", label: "Home" },
+        { href: "/published", label: "Published plans" },
+        { href: "/reviews", label: "Plans under review" },
+      ]}
+      account={
+        actor ? (
+          <>
+            <span className="min-w-0 truncate text-ink-soft" data-testid="signed-in-as">
+              {actor.name}
+            </span>
+            <Link href="/basins">Your basins</Link>
+          </>
+        ) : (
+          <>
+            <Link href="/signin" className="font-medium">
+              Sign in
+            </Link>
+            <Link href="/register" className="text-ink-soft">
+              Create an account
+            </Link>
+          </>
+        )
+      }
+    />
   );
 }

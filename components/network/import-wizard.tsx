@@ -265,6 +265,7 @@ export function ImportWizard({ basinId }: { basinId: string }) {
             </div>
           )}
           {result && result.report.network.dischargers.length > 0 && (
+            <div className="overflow-x-auto">
             <table className="data-table" data-testid="snapped-dischargers">
               <thead>
                 <tr>
@@ -311,6 +312,7 @@ export function ImportWizard({ basinId }: { basinId: string }) {
                 ))}
               </tbody>
             </table>
+            </div>
           )}
           {Object.keys(reassign).length > 0 && <p className="text-sm text-ochre-700">Reassignments take effect when you check again.</p>}
         </section>

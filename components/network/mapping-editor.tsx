@@ -28,6 +28,7 @@ export function MappingEditor({
     onChange({ ...bindings, [key]: { ...prev, ...patch } });
   };
   return (
+    <div className="overflow-x-auto">
     <table className="data-table" aria-label={title}>
       <thead>
         <tr>
@@ -104,5 +105,6 @@ export function MappingEditor({
         })}
       </tbody>
     </table>
+    </div>
   );
 }

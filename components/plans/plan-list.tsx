@@ -20,6 +20,7 @@ export function PlanList({ basinId }: { basinId: string }) {
   }
   return (
     <section className="card">
+      <div className="overflow-x-auto">
       <table className="data-table" data-testid="plan-table">
         <thead>
           <tr>
@@ -51,6 +52,7 @@ export function PlanList({ basinId }: { basinId: string }) {
           ))}
         </tbody>
       </table>
+      </div>
     </section>
   );
 }

@@ -98,6 +98,7 @@ export function MembersPanel({
         {facilities.error && <Notice tone="error">{facilities.error.message}</Notice>}
         {facilities.data && facilities.data.length === 0 && <p className="text-sm text-ink-soft">No facilities yet.</p>}
         {facilities.data && facilities.data.length > 0 && (
+          <div className="overflow-x-auto">
           <table className="data-table" data-testid="facilities-table">
             <thead>
               <tr>
@@ -171,6 +172,7 @@ export function MembersPanel({
               })}
             </tbody>
           </table>
+          </div>
         )}
         {canManageFacilities && (
           <div className="mt-6 border-t border-rule pt-4">

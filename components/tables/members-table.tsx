@@ -85,6 +85,7 @@ export function MembersTable({
     getSortedRowModel: getSortedRowModel(),
   });
   return (
+    <div className="overflow-x-auto">
     <table className="data-table" data-testid="members-table">
       <thead>
         {table.getHeaderGroups().map((hg) => (
@@ -114,5 +115,6 @@ export function MembersTable({
         ))}
       </tbody>
     </table>
+    </div>
   );
 }

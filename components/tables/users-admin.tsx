@@ -43,6 +43,7 @@ export function UsersAdmin() {
         <h2 className="mb-3">All accounts</h2>
         {users.error && <Notice tone="error">{users.error.message}</Notice>}
         {users.data && (
+          <div className="overflow-x-auto">
           <table className="data-table" data-testid="users-table">
             <thead>
               <tr>
@@ -63,6 +64,7 @@ export function UsersAdmin() {
               ))}
             </tbody>
           </table>
+          </div>
         )}
       </section>
       <section className="card">

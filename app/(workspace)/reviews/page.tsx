@@ -24,6 +24,7 @@ export default async function ReviewsPage() {
       {reviews.length === 0 ? (
         <p className="text-sm text-ink-soft">No plan is under review at the moment.</p>
       ) : (
+        <div className="overflow-x-auto">
         <table className="data-table" data-testid="reviews-table">
           <thead>
             <tr>
@@ -52,6 +53,7 @@ export default async function ReviewsPage() {
             ))}
           </tbody>
         </table>
+        </div>
       )}
     </div>
   );
