@@ -1,11 +1,19 @@
-import Link from "next/link";
+import type { Metadata } from "next";
+import { NotFoundNotice } from "@/components/layout/not-found-notice";
+import { PublicHeader } from "@/components/layout/public-header";
+import { currentActor } from "@/lib/auth/session";
 
-export default function NotFound() {
+export const metadata: Metadata = { title: "Not found" };
+
+/** An address outside every section: under the public header, with the ways back. */
+export default async function NotFound() {
+  const actor = await currentActor();
   return (
-    <main className="mx-auto max-w-xl px-6 py-24 text-center">
-      <h1 className="mb-2">Not found</h1>
-      <p className="mb-6 text-ink-soft">There is nothing at this address, or it has been removed.</p>
-      <Link href="/basins">Go to your basins</Link>
-    </main>
+    <div className="min-h-screen">
+      <PublicHeader actor={actor} />
+      <main className="mx-auto max-w-6xl px-4 sm:px-6">
+        <NotFoundNotice signedIn={actor !== null} />
+      </main>
+    </div>
   );
 }
