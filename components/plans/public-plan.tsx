@@ -60,7 +60,7 @@ export function PublicPlan({
       <PlanningCaution />
       <section className="card space-y-3">
         <h2>Waste-load allocations</h2>
-        <AllocationTable allocation={allocation} model={model} unitSystem={unitSystem} fileName={`${fileStem}-allocations.csv`} names={names} />
+        <AllocationTable allocation={allocation} model={model} unitSystem={unitSystem} names={names} csvHref={`/api/basins/${basinId}/plans/${planId}/csv`} />
       </section>
       {allocation.tmdl && (
         <section className="card">
@@ -90,7 +90,7 @@ export function PublicPlan({
           <DoLegend criterionMgL={run.criterion_do_mg_l} />
         </section>
       )}
-      <ProfileSection run={run} model={model} unitSystem={unitSystem} from={from} onFrom={setFrom} title={conditionName ? `Dissolved oxygen with the allocated loads — ${conditionName}` : "Dissolved oxygen with the allocated loads"}>
+      <ProfileSection run={run} model={model} unitSystem={unitSystem} from={from} onFrom={setFrom} csv={{ fileStem, about: [], condition: conditionName }} title={conditionName ? `Dissolved oxygen with the allocated loads — ${conditionName}` : "Dissolved oxygen with the allocated loads"}>
         {conditionName && <p className="text-sm text-ink-soft" data-testid="shown-condition">Map and profile under {conditionName}, the governing condition.</p>}
         {network.features.length > 0 && <p className="text-sm text-ink-soft">Click a reach on the map, or choose one, to follow its water to the outlet.</p>}
       </ProfileSection>

@@ -1,6 +1,6 @@
 "use client";
 import { useMemo } from "react";
-import { CsvButton, downloadCsv, SortableTable } from "@/components/tables/sortable-table";
+import { CsvButton, CsvLink, downloadCsv, SortableTable } from "@/components/tables/sortable-table";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";
@@ -11,7 +11,9 @@ import { column } from "./columns";
 /**
  * Each facility's allocation: CBODu and BOD5 loads, effluent BOD5 at design flow,
  * today's load and the reduction from it; sortable, with a CSV download that carries
- * the planning caution. `about` lines (basin, scenario, run) go into the CSV's preface.
+ * the planning caution. `about` lines (basin, scenario, run) go into the CSV's notes.
+ * A plan's table gives `csvHref` instead: its button fetches the plan's own CSV download,
+ * so the page offers one allocation file under one name.
  */
 export function AllocationTable({
   allocation,
@@ -20,6 +22,7 @@ export function AllocationTable({
   fileName = "allocation.csv",
   about = [],
   names,
+  csvHref,
 }: {
   allocation: AllocationResult;
   model: ModelFile;
@@ -28,6 +31,8 @@ export function AllocationTable({
   about?: string[];
   /** Facility names by permit id: shown beside each permit id and added to the CSV. */
   names?: Record<string, string>;
+  /** The server's CSV of this table (a plan's download route); replaces the file built in the browser. */
+  csvHref?: string;
 }) {
   const rows = useMemo(() => allocationRows(allocation, model), [allocation, model]);
   const load = unitLabel("load", unitSystem);
@@ -62,13 +67,13 @@ export function AllocationTable({
   if (!allocation.feasible) return <p className="text-sm text-ink-soft">No allocation meets the criterion; see the diagnosis.</p>;
   const csv = () => {
     const t = allocationCsv(allocation, model, unitSystem, about, names);
-    downloadCsv(fileName, t.rows, t.columns, t.preface);
+    downloadCsv(fileName, t.rows, t.columns, t.notes);
   };
   return (
     <div className="space-y-2">
       <div className="flex items-center justify-between gap-4">
         <p className="text-xs text-ink-faint">Effluent BOD5 is the allocated BOD5 load at the facility&apos;s design flow.</p>
-        <CsvButton onClick={csv} />
+        {csvHref ? <CsvLink href={csvHref} label="Download allocations (CSV)" /> : <CsvButton onClick={csv} />}
       </div>
       <SortableTable rows={rows} columns={columns} rowId={(r) => r.id} testId="allocation-table" initialSort={[{ id: "id", desc: false }]} />
     </div>

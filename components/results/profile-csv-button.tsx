@@ -10,7 +10,7 @@ export function ProfileCsvButton({ series, fileName, about = [], condition }: { 
       label="Download profile CSV"
       onClick={() => {
         const t = profileCsv(series, about, condition);
-        downloadCsv(fileName ?? `do-profile-${series.path[0]}.csv`, t.rows, t.columns, t.preface);
+        downloadCsv(fileName ?? `do-profile-${series.path[0]}.csv`, t.rows, t.columns, t.notes);
       }}
     />
   );

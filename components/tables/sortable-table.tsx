@@ -10,15 +10,16 @@ import {
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { csvText } from "@/lib/reports/csv-text";
+import type { CsvColumn } from "@/lib/results/csv-rows";
 
-export interface CsvColumn<T> {
-  header: string;
-  value: (row: T) => string | number | null | undefined;
-}
+export type { CsvColumn } from "@/lib/results/csv-rows";
 
-/** Download rows as a CSV file built in the browser, by the same writer as the server's downloads. */
-export function downloadCsv<T>(fileName: string, rows: T[], columns: CsvColumn<T>[], preface: string[] = []): void {
-  const text = csvText({ preface, columns, rows });
+/**
+ * Download rows as a CSV file built in the browser, by the same writer as the server's
+ * downloads: one header row, `notes` (the caution first) in the last column "Notes".
+ */
+export function downloadCsv<T>(fileName: string, rows: T[], columns: CsvColumn<T>[], notes: string[] = []): void {
+  const text = csvText({ notes, columns, rows });
   const url = URL.createObjectURL(new Blob([text], { type: "text/csv;charset=utf-8" }));
   const a = document.createElement("a");
   a.href = url;
@@ -110,5 +111,18 @@ export function CsvButton({ onClick, label = "Download CSV" }: { onClick: () => 
     <Button variant="secondary" className="px-3 py-1.5" onClick={onClick}>
       {label}
     </Button>
+  );
+}
+
+/** The same look as CsvButton for a file the server makes (a plan's downloads), so one content has one file and one name. */
+export function CsvLink({ href, label = "Download CSV" }: { href: string; label?: string }) {
+  return (
+    <a
+      href={href}
+      download
+      className="inline-flex items-center justify-center rounded-md border border-rule-strong bg-paper-raised px-3 py-1.5 text-sm font-medium text-ink no-underline hover:bg-paper-sunk"
+    >
+      {label}
+    </a>
   );
 }

@@ -8,6 +8,9 @@ import type { CsvTable } from "@/lib/results/csv-rows";
  */
 export const FORMULA_LEADING = /^(?![-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$)[=+\-@\t\r]/;
 
+/** The header of the last column, which carries the planning caution and what the file holds (docs/exports.md). */
+export const NOTES_HEADER = "Notes";
+
 /**
  * Spreadsheets set to a locale whose list separator is ";" split an unquoted
  * cell there, so a text cell holding one is quoted as a comma would make it.
@@ -15,21 +18,32 @@ export const FORMULA_LEADING = /^(?![-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$)[=+\-
 const quoteSemicolons = (value: unknown) => typeof value === "string" && value.includes(";");
 
 /**
- * A preface line is one unquoted cell read as comments; any piece after a "," or
- * ";" that a spreadsheet would run gets the same leading quote as a cell.
+ * The notes column: one note per row from the first data row down, so the caution sits
+ * beside the first rows a reader sees. When the notes outnumber the rows, the last row
+ * holds the rest, joined; a table without rows gets one row of empty cells for them.
  */
-const prefaceLine = (line: string) => `# ${line.replace(/[\r\n]+/g, " ").replace(/([,;]\s*)(?=[=+\-@\t])/g, "$1'")}`;
+function notesColumn(notes: readonly string[], rowCount: number): string[] {
+  const clean = notes.map((n) => n.replace(/[\r\n]+/g, " ").trim()).filter((n) => n !== "");
+  if (clean.length === 0) return [];
+  const rows = Math.max(rowCount, 1);
+  if (clean.length <= rows) return [...clean, ...Array<string>(rows - clean.length).fill("")];
+  return [...clean.slice(0, rows - 1), clean.slice(rows - 1).join(" ")];
+}
 
 /**
- * The one CSV writer, for the server's downloads and the browser's alike: each
- * preface line as `# line`, then the header and rows (papaparse quoting; a
- * formula-leading text cell gets a leading ' so it is shown, never run), CRLF
- * line ends including the last.
+ * The one CSV writer, for the server's downloads and the browser's alike. One header row
+ * (the table's columns, then "Notes"), then the rows; the planning caution and what the
+ * file holds travel in the Notes column (notesColumn), so a spreadsheet and papaparse
+ * (`header: true`) read the first line as the header and every other line as data.
+ * papaparse quoting; a formula-leading text cell gets a leading ' so it is shown, never
+ * run; CRLF line ends including the last.
  */
 export function csvText<T>(table: CsvTable<T>): string {
-  const body = Papa.unparse(
-    { fields: table.columns.map((c) => c.header), data: table.rows.map((r) => table.columns.map((c) => c.value(r) ?? "")) },
-    { escapeFormulae: FORMULA_LEADING, quotes: quoteSemicolons, newline: "\r\n" },
-  );
-  return [...table.preface.map(prefaceLine), body].join("\r\n") + "\r\n";
+  const notes = notesColumn(table.notes, table.rows.length);
+  const cells = (r: T | undefined) => table.columns.map((c) => (r === undefined ? "" : (c.value(r) ?? "")));
+  const data = notes.map((note, i) => [...cells(table.rows[i]), note]);
+  for (let i = notes.length; i < table.rows.length; i++) data.push([...cells(table.rows[i]), ""]);
+  const fields = [...table.columns.map((c) => c.header), ...(notes.length > 0 ? [NOTES_HEADER] : [])];
+  const body = Papa.unparse({ fields, data: notes.length > 0 ? data : table.rows.map((r) => cells(r)) }, { escapeFormulae: FORMULA_LEADING, quotes: quoteSemicolons, newline: "\r\n" });
+  return body + "\r\n";
 }

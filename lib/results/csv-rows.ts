@@ -1,9 +1,8 @@
 import type { UnitSystem } from "@/db/schema";
-import { kgToLb } from "@/lib/model/units";
+import { exportIn, exportValue, unitLabel, type Measure } from "@/lib/format/quantities";
 import type { AllocationEntry, AllocationResult } from "@/lib/model/allocation/types";
 import type { ModelFile } from "@/lib/model/types";
 import { nameOf, OBJECTIVE_NAMES } from "@/lib/format/labels";
-import { formatDo } from "./do-scale";
 import { exportPreface } from "./caution";
 import type { ProfileSeries, SeriesPoint } from "./profile-series";
 
@@ -13,16 +12,17 @@ export interface CsvColumn<T> {
   value: (row: T) => string | number | null | undefined;
 }
 
-/** Rows, columns and leading `#` lines of one CSV file. */
+/** Rows, columns and notes of one CSV file (the notes — caution first — fill its last column: lib/reports/csv-text). */
 export interface CsvTable<T> {
-  preface: string[];
+  notes: string[];
   columns: CsvColumn<T>[];
   rows: T[];
 }
 
-const round = (x: number | null | undefined, digits: number) => (x === null || x === undefined || !Number.isFinite(x) ? "" : Number(x.toFixed(digits)));
-const loadUnit = (s: UnitSystem) => (s === "US" ? "lb/d" : "kg/d");
-const load = (kg: number, s: UnitSystem) => round(s === "US" ? kgToLb(kg) : kg, 2);
+/** An exported number by its quantity's rule (EXPORT_PRECISION), an empty cell when missing. */
+const cell = (measure: Measure, x: number | null | undefined) => exportValue(measure, x) ?? "";
+const loadUnit = (s: UnitSystem) => unitLabel("load", s);
+const load = (kg: number, s: UnitSystem) => exportIn("load", kg, s) ?? "";
 
 /** One allocation row: the LP's entry with the facility's design flow (m³/s). */
 export interface AllocationRow extends AllocationEntry {
@@ -37,54 +37,58 @@ export function allocationRows(allocation: AllocationResult, model: ModelFile): 
 
 /**
  * The allocation table as CSV (loads in kg/d or lb/d as the basin shows them).
- * The preface holds the caution, then `about` lines (basin, scenario, run).
+ * The notes hold the caution, then `about` lines (basin, plan or scenario, conditions).
  */
 export function allocationCsv(
   allocation: AllocationResult,
   model: ModelFile,
   system: UnitSystem,
   about: string[] = [],
-  /** Facility names by permit id, when known: adds a "facility name" column. */
-  names?: Record<string, string>,
+  /** Facility names by permit id, when known: fills the "Facility name" column. */
+  names: Record<string, string> = {},
 ): CsvTable<AllocationRow> {
   const u = loadUnit(system);
   return {
-    preface: exportPreface(...about, `Objective: ${nameOf(OBJECTIVE_NAMES, allocation.objective)}; feasible: ${allocation.feasible ? "yes" : "no"}`),
+    notes: exportPreface(...about, `Objective: ${nameOf(OBJECTIVE_NAMES, allocation.objective)}; an allocation meeting the criterion ${allocation.feasible ? "was found" : "was not found"}`),
     rows: allocationRows(allocation, model),
-    columns: [
-      { header: "facility", value: (r) => r.id },
-      ...(names ? [{ header: "facility name", value: (r: AllocationRow) => names[r.id] ?? "" }] : []),
-      { header: `allocated CBODu (${u})`, value: (r) => load(r.cbodu_kg_day, system) },
-      { header: `allocated BOD5 (${u})`, value: (r) => load(r.bod5_kg_day, system) },
-      { header: "effluent BOD5 at design flow (mg/L)", value: (r) => round(r.bod5_mg_l, 2) },
-      { header: `today's CBODu (${u})`, value: (r) => load(r.today_cbodu_kg_day, system) },
-      { header: "reduction from today (%)", value: (r) => round(r.reduction_pct, 1) },
-      { header: "CBODu/BOD5 ratio", value: (r) => round(r.cbodu_bod5_ratio, 4) },
-      { header: `floor (${u})`, value: (r) => load(r.min_kg_day, system) },
-      { header: `ceiling (${u})`, value: (r) => load(r.max_kg_day, system) },
-    ],
+    columns: ALLOCATION_COLUMNS(u, system, names),
   };
 }
 
+/** The allocation CSV's columns: the same in the browser's download and the server's. */
+const ALLOCATION_COLUMNS = (u: string, system: UnitSystem, names: Record<string, string>): CsvColumn<AllocationRow>[] => [
+  { header: "Permit id", value: (r) => r.id },
+  { header: "Facility name", value: (r) => names[r.id] ?? "" },
+  { header: `Design flow (${unitLabel("flow", system)})`, value: (r) => exportIn("flow", r.design_flow_m3_s, system) ?? "" },
+  { header: `Allocated CBODu (${u})`, value: (r) => load(r.cbodu_kg_day, system) },
+  { header: `Allocated BOD5 (${u})`, value: (r) => load(r.bod5_kg_day, system) },
+  { header: "Effluent BOD5 at design flow (mg/L)", value: (r) => cell("concentration", r.bod5_mg_l) },
+  { header: `Today's CBODu (${u})`, value: (r) => load(r.today_cbodu_kg_day, system) },
+  { header: "Reduction from today (%)", value: (r) => cell("percent", r.reduction_pct) },
+  { header: "CBODu/BOD5 ratio", value: (r) => cell("ratio", r.cbodu_bod5_ratio) },
+  { header: `Floor (${u})`, value: (r) => load(r.min_kg_day, system) },
+  { header: `Ceiling (${u})`, value: (r) => load(r.max_kg_day, system) },
+];
+
 /**
  * The DO profile along a path as CSV; anoxic points read "anoxic" in the DO column.
- * With a condition name, a "condition" column and a preface line say which design condition it is.
+ * With a condition name, a "Condition" column and a note say which design condition it is.
  */
 export function profileCsv(series: ProfileSeries, about: string[] = [], condition?: string): CsvTable<SeriesPoint> {
   const u = series.unit;
   return {
-    preface: exportPreface(...about, ...(condition === undefined ? [] : [`Condition: ${condition}`]), `Path: ${series.path.join(" → ")}; criterion ${series.criterion_mg_l} mg/L`),
+    notes: exportPreface(...about, ...(condition === undefined ? [] : [`Condition: ${condition}`]), `Path: ${series.path.join(" → ")}; criterion ${series.criterion_mg_l} mg/L`),
     rows: series.points,
     columns: [
-      ...(condition === undefined ? [] : [{ header: "condition", value: () => condition }]),
-      { header: "reach", value: (p) => p.reach },
-      { header: `distance along path (${u})`, value: (p) => round(p.distance, 3) },
-      { header: `to outlet (${u})`, value: (p) => round(p.to_outlet, 3) },
-      { header: `from reach head (${u})`, value: (p) => round(p.distance - (series.reaches.find((r) => r.id === p.reach)?.from ?? 0), 3) },
-      { header: "travel time from reach head (d)", value: (p) => round(p.t_day, 4) },
-      { header: "DO (mg/L)", value: (p) => formatDo(p.do_mg_l, 3) },
-      { header: "DO saturation (mg/L)", value: (p) => round(p.do_sat_mg_l, 3) },
-      { header: "criterion (mg/L)", value: (p) => p.criterion_mg_l },
+      ...(condition === undefined ? [] : [{ header: "Condition", value: () => condition }]),
+      { header: "Reach", value: (p) => p.reach },
+      { header: `Distance along path (${u})`, value: (p) => cell("length", p.distance) },
+      { header: `To outlet (${u})`, value: (p) => cell("length", p.to_outlet) },
+      { header: `From reach head (${u})`, value: (p) => cell("length", p.distance - (series.reaches.find((r) => r.id === p.reach)?.from ?? 0)) },
+      { header: "Travel time from reach head (d)", value: (p) => cell("time", p.t_day) },
+      { header: "DO (mg/L)", value: (p) => (p.do_mg_l < 0 ? "anoxic" : cell("do", p.do_mg_l)) },
+      { header: "DO saturation (mg/L)", value: (p) => cell("do", p.do_sat_mg_l) },
+      { header: "Criterion (mg/L)", value: (p) => cell("do", p.criterion_mg_l) },
     ],
   };
 }

@@ -1,4 +1,5 @@
-import type { CsvColumn } from "@/components/tables/sortable-table";
+import type { CsvColumn } from "./csv-rows";
+import { nameOf, ROLE_NAMES, THREAD_STATUS_NAMES } from "@/lib/format/labels";
 import { formatDay } from "@/lib/format/zoned-time";
 import { exportPreface } from "./caution";
 
@@ -83,11 +84,11 @@ export const RESPONSIVENESS_COLUMNS: CsvColumn<ResponsivenessRow>[] = [
   { header: "Permit id", value: (r) => r.permitId },
   { header: "Commented at (UTC)", value: (r) => r.at },
   { header: "Author", value: (r) => r.author },
-  { header: "Role", value: (r) => r.role },
+  { header: "Role", value: (r) => nameOf(ROLE_NAMES, r.role) },
   { header: "Comment", value: (r) => r.comment },
   { header: "Response", value: (r) => r.response },
   { header: "Responded by", value: (r) => r.responder },
-  { header: "Thread", value: (r) => r.status },
+  { header: "Thread", value: (r) => nameOf(THREAD_STATUS_NAMES, r.status) },
 ];
 
 export const responsivenessPreface = (planTitle: string, version: number) => exportPreface(`Responsiveness summary: ${planTitle}, version ${version}`);

@@ -1,4 +1,5 @@
 import type { FeatureCollection } from "geojson";
+import { nameOf, PLAN_STATUS_NAMES, titleWithBasin } from "@/lib/format/labels";
 import { formatWhen } from "@/lib/format/zoned-time";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
@@ -49,10 +50,10 @@ async function planNetwork(db: Db, planId: string): Promise<FeatureCollection> {
 }
 
 const about = (basin: { name: string; timeZone: string | null }, plan: PlanDto) => [
-  `${basin.name}: ${plan.title}, version ${plan.version}`,
+  `${titleWithBasin(basin.name, plan.title)}, version ${plan.version}`,
   plan.status === "published" && plan.publishedAt
     ? `Published ${formatWhen(new Date(plan.publishedAt), basin.timeZone ?? plan.review?.timeZone ?? "UTC")}`
-    : `DRAFT — not published (status: ${plan.status})`,
+    : `DRAFT — not published (${nameOf(PLAN_STATUS_NAMES, plan.status).toLowerCase()})`,
 ];
 
 /** The plan report as PDF (see lib/reports/plan-pdf.tsx). */
@@ -89,7 +90,7 @@ async function publishedPdf(db: Db, planId: string, render: () => Promise<Uint8A
   return pending;
 }
 
-/** The allocation table as CSV, loads in the basin's unit, the caution in the leading `#` lines. */
+/** The allocation table as CSV, loads in the basin's unit, the caution and what the file is in its Notes column (docs/exports.md). */
 export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: string, planId: string): Promise<PlanDownload> {
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const s = readSnapshot(plan.snapshot);

@@ -9,7 +9,9 @@ import * as geojsonRoute from "@/app/api/basins/[basinId]/plans/[planId]/geojson
 import * as reportRoute from "@/app/api/basins/[basinId]/plans/[planId]/report/route";
 import { findBasinById, updateBasin } from "@/db/queries/basins";
 import { AppError } from "@/lib/errors";
+import Papa from "papaparse";
 import { formatIn } from "@/lib/format/quantities";
+import { NOTES_HEADER } from "@/lib/reports/csv-text";
 import { formatDay } from "@/lib/format/zoned-time";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { planReachesGeoJson, planReportPdf } from "@/lib/services/plan-reports";
@@ -159,20 +161,46 @@ describe("the report of a published plan (US units) with a comment and its respo
     expect(err(unknown.json).details![0].path).toBe("condition");
   });
 
-  it("CSV: the caution first, then one row per facility in lb/d", async () => {
+  it("CSV: one header row a spreadsheet and papaparse read alike, a row per facility in lb/d, the caution in the Notes column", async () => {
     const res = await callRoute(csvRoute.GET, "GET", { params: { basinId: w.basinId, planId } });
     expect(res.status).toBe(200);
-    const lines = (res.json as string).split("\r\n");
-    expect(lines.slice(0, 2)).toEqual(PLANNING_CAUTION.map((l) => `# ${l}`));
-    const header = lines.find((l) => !l.startsWith("#"))!;
-    expect(header).toContain("allocated CBODu (lb/d)");
+    const text = res.json as string;
+    expect(res.headers.get("content-disposition")).toMatch(/-plan-v1-allocations\.csv"/);
+    // no comment lines: the first line is the header a spreadsheet shows as its first row
+    for (const line of text.split("\r\n")) expect(line.startsWith("#")).toBe(false);
+    const p = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: true });
+    expect(p.errors).toEqual([]);
+    expect(p.meta.fields).toEqual([
+      "Permit id",
+      "Facility name",
+      "Design flow (cfs)",
+      "Allocated CBODu (lb/d)",
+      "Allocated BOD5 (lb/d)",
+      "Effluent BOD5 at design flow (mg/L)",
+      "Today's CBODu (lb/d)",
+      "Reduction from today (%)",
+      "CBODu/BOD5 ratio",
+      "Floor (lb/d)",
+      "Ceiling (lb/d)",
+      NOTES_HEADER,
+    ]);
     const plan = await getPlan(db, null, w.basinId, planId);
-    const rows = lines.filter((l) => l && !l.startsWith("#") && l !== header);
-    expect(rows).toHaveLength(plan.allocations.length);
-    // each row names its facility beside the permit id
-    expect(header.split(",").slice(0, 2)).toEqual(["facility", "facility name"]);
-    for (const a of plan.allocations) expect(rows.some((r) => r.startsWith(`${a.permitId},${a.facilityName},`) || r.startsWith(`${a.permitId},"${a.facilityName}",`))).toBe(true);
+    expect(p.data).toHaveLength(plan.allocations.length);
+    for (const a of plan.allocations) {
+      const row = p.data.find((r) => r["Permit id"] === a.permitId)!;
+      expect(row["Facility name"]).toBe(a.facilityName);
+      // loads in lb/d to 0.01 (1 lb = 0.45359237 kg)
+      expect(Number(row["Allocated CBODu (lb/d)"])).toBe(Number((a.cboduKgDay / 0.45359237).toFixed(2)));
+    }
+    const notes = p.data.map((r) => r[NOTES_HEADER]).filter(Boolean);
+    expect(notes.slice(0, 2)).toEqual([...PLANNING_CAUTION]);
+    const all = notes.join(" ");
+    expect(all).toMatch(/Published /);
+    expect(all).toMatch(/Design condition/);
+    // the basin is named once, also when the plan's title starts with it
+    expect(all).not.toMatch(/(.+): \1:/);
   });
+
 });
 
 describe("the report of a draft", () => {

@@ -26,10 +26,9 @@ describe("CSV formula injection", () => {
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toMatch(/^text\/csv/);
     const csv = String(res.json);
-    const lines = csv.split("\r\n").filter((l) => l && !l.startsWith("#"));
-    const rows = Papa.parse<string[]>(lines.join("\r\n")).data;
+    const rows = Papa.parse<string[]>(csv, { skipEmptyLines: true }).data;
     const header = rows[0];
-    const nameColumn = header.indexOf("facility name");
+    const nameColumn = header.indexOf("Facility name");
     expect(nameColumn).toBeGreaterThanOrEqual(0);
     expect(rows.length).toBeGreaterThan(1);
     for (const row of rows.slice(1)) {

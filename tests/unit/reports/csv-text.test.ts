@@ -1,17 +1,18 @@
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
-import { csvText } from "@/lib/reports/csv-text";
+import { csvText, NOTES_HEADER } from "@/lib/reports/csv-text";
 
 // Formula-leading cells (=, +, -, @, tab, CR) are the CSV-injection vectors a
 // spreadsheet runs; the expected output is read back with papaparse's own parser.
-const table = (cells: (string | number)[]) => ({
-  preface: ["Plan =HYPERLINK(x)"],
+const table = (cells: (string | number)[], notes = ["Plan =HYPERLINK(x)"]) => ({
+  notes,
   columns: [{ header: "value", value: (r: { v: string | number }) => r.v }],
   rows: cells.map((v) => ({ v })),
 });
 
-const readBack = (text: string) =>
-  Papa.parse<string[]>(text.split("\r\n").filter((l) => !l.startsWith("#")).join("\r\n"), { skipEmptyLines: true }).data.slice(1).map((r) => r[0]);
+/** The file as papaparse reads it with a header row: the rows as objects. */
+const parsed = (text: string) => Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: true });
+const readBack = (text: string) => parsed(text).data.map((r) => r.value);
 
 describe("csvText", () => {
   it("neutralises formula-leading text cells with a leading quote", () => {
@@ -38,18 +39,30 @@ describe("csvText", () => {
     expect(readBack(text)).toEqual(["a;=HYPERLINK(x)"]);
   });
 
-  it("neutralises a formula that a comma or semicolon in a preface line would start as its own cell", () => {
-    const text = csvText({ ...table(["a"]), preface: ["Basin Tamsel,=HYPERLINK(x); @SUM(A1)", "loads, today"] });
-    const [first, second] = text.split("\r\n");
-    expect(first).toBe("# Basin Tamsel,'=HYPERLINK(x); '@SUM(A1)");
-    expect(second).toBe("# loads, today");
-    for (const cell of first.split(/[,;]/)) expect(cell.trimStart()).not.toMatch(/^[=+\-@]/);
+  it("one header row first, the notes in the last column one per row, neutralised like any cell", () => {
+    const text = csvText(table(["a", "b", "c"], ["Planning-level estimates only.", "=HYPERLINK(x); @SUM(A1)"]));
+    const lines = text.split("\r\n");
+    expect(lines[0]).toBe(`value,${NOTES_HEADER}`);
+    const p = parsed(text);
+    expect(p.errors).toEqual([]);
+    expect(p.meta.fields).toEqual(["value", NOTES_HEADER]);
+    expect(p.data.map((r) => r[NOTES_HEADER])).toEqual(["Planning-level estimates only.", "'=HYPERLINK(x); @SUM(A1)", ""]);
+    expect(p.data.map((r) => r.value)).toEqual(["a", "b", "c"]);
   });
 
-  it("writes CRLF line ends, the last line too, and keeps preface lines as comments", () => {
+  it("more notes than rows: the last row holds the rest; no rows: one row of empty cells holds them", () => {
+    const two = parsed(csvText(table(["a"], ["one", "two", "three"]))).data;
+    expect(two).toEqual([{ value: "a", [NOTES_HEADER]: "one two three" }]);
+    const none = parsed(csvText(table([], ["one", "two"]))).data;
+    expect(none).toEqual([{ value: "", [NOTES_HEADER]: "one two" }]);
+    // no notes: no Notes column
+    expect(csvText(table(["a"], [])).split("\r\n")[0]).toBe("value");
+  });
+
+  it("writes CRLF line ends, the last line too, and no line starts with #", () => {
     const text = csvText(table(["a"]));
     expect(text.endsWith("\r\n")).toBe(true);
-    expect(text.split("\r\n")[0]).toBe("# Plan =HYPERLINK(x)");
     expect(text.replace(/\r\n/g, "")).not.toMatch(/\n/);
+    for (const line of text.split("\r\n")) expect(line.startsWith("#")).toBe(false);
   });
 });

@@ -20,7 +20,7 @@ describe("responsiveness summary", () => {
     expect(rows[2]).toMatchObject({ permitId: "DP-1002", response: "" });
   });
 
-  it("starts with the planning caution", () => {
+  it("carries the planning caution first in its notes", () => {
     const preface = responsivenessPreface("Tamsel River plan", 2);
     expect(preface.slice(0, PLANNING_CAUTION.length)).toEqual([...PLANNING_CAUTION]);
     expect(preface.at(-1)).toMatch(/version 2/);
