@@ -37,8 +37,8 @@ export function DischargerInputs<T extends FieldValues>({
         network (shown under it). Today&apos;s load is the allocation&apos;s ceiling.
       </p>
       {outfalls.map((o) => (
-        <div key={o.permitId} className="grid gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_repeat(6,1fr)]" data-testid={`discharger-${o.permitId}`}>
-          <div>
+        <div key={o.permitId} className="grid grid-cols-2 gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_repeat(6,1fr)]" data-testid={`discharger-${o.permitId}`}>
+          <div className="col-span-2 md:col-span-1">
             <p className="font-medium">{o.facilityName}</p>
             <p className="font-mono text-xs text-ink-faint">
               {o.permitId} · reach {o.reachId}

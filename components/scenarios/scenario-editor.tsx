@@ -215,7 +215,7 @@ export function ScenarioEditor({
           </p>
           {errors.inputs?.conditions?.message && <p className="field-error">{errors.inputs.conditions.message}</p>}
           {conditions.fields.map((c, i) => (
-            <div key={c.id} className="grid items-start gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_1fr_1fr_1fr_auto]">
+            <div key={c.id} className="grid items-end gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_1fr_1fr_1fr_auto]">
               <Field label="Name" error={errors.inputs?.conditions?.[i]?.name?.message} {...register(`inputs.conditions.${i}.name`)} />
               {watchedConditions?.[i]?.outletFlowM3s != null ? (
                 <div>
@@ -234,7 +234,7 @@ export function ScenarioEditor({
                 kind="flow"
                 system={unitSystem}
                 nullable
-                hint={outletFlow !== undefined ? `network: ${formatIn("flow", outletFlow, unitSystem)} ${unitLabel("flow", unitSystem)}` : "the network gives none at the outlet"}
+                placeholder={outletFlow !== undefined ? `network: ${formatIn("flow", outletFlow, unitSystem)}` : "none in the network"}
               />
               <UnitField
                 control={control}
@@ -244,7 +244,7 @@ export function ScenarioEditor({
                 system={unitSystem}
                 nullable
               />
-              <Button variant="quiet" className="md:mt-6" disabled={conditions.fields.length === 1} onClick={() => conditions.remove(i)}>
+              <Button variant="quiet" disabled={conditions.fields.length === 1} onClick={() => conditions.remove(i)}>
                 Remove
               </Button>
             </div>
