@@ -1,6 +1,6 @@
 import { cbodToBod5Ratio, loadKgPerDay, type ConditionInput, type DischargerInput, type HeadwaterInput, type ModelFile, type ReachInput } from "@/lib/model";
 import type { ConditionInputs, ScenarioInputs } from "@/lib/validation/scenario";
-import { defaultHeadwaterDoMgL, networkOutletFlowM3s } from "./design-defaults";
+import { DEFAULT_HEADWATER_DO_TEXT, defaultHeadwaterDoMgL, networkOutletFlowM3s } from "./design-defaults";
 
 /** A saved network as the builder needs it (SI attributes as imported). */
 export interface NetworkForModel {
@@ -197,9 +197,18 @@ export function buildModelFile(network: NetworkForModel, inputs: ScenarioInputs,
   const warnings: string[] = [];
   const [main, ...others] = inputs.conditions;
   const mainIncrements = flowIncrements(network, main, "inputs.conditions.0", warnings);
+  const mainHeadwaters = headwaters(network, inputs, main, mainIncrements);
+  const saturated = mainHeadwaters.filter((h) => (inputs.inflowOverrides[h.reach]?.doMgL ?? inputs.headwater.doMgL) == null);
+  if (saturated.length > 0) {
+    const dos = saturated.map((h) => h.do_mg_l);
+    const [lo, hi] = [Math.min(...dos).toFixed(2), Math.max(...dos).toFixed(2)];
+    warnings.push(
+      `No DO given for headwater and tributary water: ${DEFAULT_HEADWATER_DO_TEXT} is used at ${saturated.length} inflow(s), ${lo === hi ? `${lo} mg/L` : `${lo}–${hi} mg/L`} under "${main.name}"`,
+    );
+  }
   const file: ModelFile = {
     reaches: network.reaches.map((r) => reachInput(r, inputs, main)),
-    headwaters: headwaters(network, inputs, main, mainIncrements),
+    headwaters: mainHeadwaters,
     dischargers: network.outfalls.map((o) => dischargerInput(o, inputs, warnings)),
     criterion_do_mg_l: inputs.criterionDoMgL ?? basinCriterionMgL,
     step_km: inputs.stepKm,

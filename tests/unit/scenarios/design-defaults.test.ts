@@ -29,7 +29,9 @@ describe("default headwater DO: a share of saturation", () => {
 
   it("enters each headwater at its own temperature when the scenario gives no DO, never above saturation", async () => {
     const net = await demoNetwork();
-    const { file } = buildModelFile(net, inputs({ conditions: [{ name: "hot", temperatureC: 30 }] }), 5, false);
+    const { file, warnings } = buildModelFile(net, inputs({ conditions: [{ name: "hot", temperatureC: 30 }] }), 5, false);
+    // the run page lists what was assumed
+    expect(warnings.some((w) => w.startsWith("No DO given for headwater and tributary water: 90 % of saturation"))).toBe(true);
     for (const h of file.headwaters) {
       const reach = net.reaches.find((r) => r.id === h.reach)!;
       const z = typeof reach.attributes.elevationM === "number" ? reach.attributes.elevationM : 0;
@@ -46,8 +48,9 @@ describe("default headwater DO: a share of saturation", () => {
     const parsed = scenarioInputsSchema.parse(stored);
     expect(parsed.headwater.doMgL).toBe(7.5);
     expect(parsed.conditions[0].outletFlowM3s).toBeNull();
-    const { file } = buildModelFile(net, parsed, 5, true);
+    const { file, warnings } = buildModelFile(net, parsed, 5, true);
     expect(new Set(file.headwaters.map((h) => h.do_mg_l))).toEqual(new Set([7.5]));
+    expect(warnings.some((w) => w.startsWith("No DO given"))).toBe(false);
     // further conditions carry only flow and temperature, as they did: the file (and so the inputs hash) is unchanged
     for (const h of file.allocation!.conditions![0].headwaters!) expect(Object.keys(h).sort()).toEqual(["flow_m3_s", "reach", "temperature_c"]);
   });
