@@ -1,10 +1,16 @@
-/** Plain download links for a plan: the PDF report, the allocation table (CSV) and reaches with results (GeoJSON). */
+/**
+ * Plain download links for a plan: the PDF report, the allocation table (CSV) and three
+ * GeoJSON layers — reaches with results, the DO pieces the map is coloured by, and the
+ * dischargers with their allocations (docs/exports.md). Each content has one file name.
+ */
 export function PlanDownloads({ basinId, planId, published }: { basinId: string; planId: string; published: boolean }) {
   const base = `/api/basins/${basinId}/plans/${planId}`;
   const links = [
     { href: `${base}/report`, label: "Report (PDF)" },
     { href: `${base}/csv`, label: "Allocations (CSV)" },
     { href: `${base}/geojson`, label: "Reaches with results (GeoJSON)" },
+    { href: `${base}/geojson?layer=dischargers`, label: "Dischargers with allocations (GeoJSON)" },
+    { href: `${base}/geojson?layer=pieces`, label: "DO along each reach, in pieces (GeoJSON)" },
   ];
   return (
     <section className="card space-y-2" aria-labelledby="plan-downloads" data-testid="plan-downloads">

@@ -75,7 +75,7 @@ export function exportIn(kind: Kind, si: number | null | undefined, system: Unit
 // One rounding rule per quantity, for screens (and the PDF) and for exports.
 
 /** Quantities shown without a unit choice, beside the converted kinds above. */
-export type Measure = Kind | "do" | "concentration" | "rate" | "percent" | "dual" | "time" | "ratio";
+export type Measure = Kind | "do" | "concentration" | "rate" | "percent" | "dual" | "time" | "ratio" | "coordinate";
 
 /** Either a number of decimals or a number of significant figures. */
 export type Precision = { decimals: number } | { significant: number };
@@ -97,6 +97,7 @@ const SCREEN_PRECISION: Record<Exclude<Measure, Kind>, Precision> = {
   dual: sig(3),
   time: dec(2),
   ratio: dec(2),
+  coordinate: dec(5),
 };
 
 /**
@@ -104,7 +105,8 @@ const SCREEN_PRECISION: Record<Exclude<Measure, Kind>, Precision> = {
  * noise of a computation: DO 0.001 mg/L, concentration 0.01 mg/L, rate 4 significant
  * figures, percent 0.01, dual 4 significant figures, time 0.0001 d, ratio 0.0001;
  * km or mi 0.001, m or ft 0.1, flow 4 significant figures, depth 0.001, velocity 0.001,
- * temperature 0.01, load 0.01 (kg/d or lb/d). docs/exports.md lists the same table.
+ * temperature 0.01, load 0.01 (kg/d or lb/d); longitude and latitude 7 decimals (about 1 cm).
+ * docs/exports.md lists the same table.
  */
 export const EXPORT_PRECISION: Record<Measure, Precision> = {
   do: dec(3),
@@ -114,6 +116,7 @@ export const EXPORT_PRECISION: Record<Measure, Precision> = {
   dual: sig(4),
   time: dec(4),
   ratio: dec(4),
+  coordinate: dec(7),
   length: dec(3),
   distance: dec(1),
   flow: sig(4),

@@ -1,5 +1,6 @@
 import type { FeatureCollection } from "geojson";
 import { nameOf, PLAN_STATUS_NAMES, titleWithBasin } from "@/lib/format/labels";
+import { exportValue } from "@/lib/format/quantities";
 import { formatWhen } from "@/lib/format/zoned-time";
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
@@ -11,7 +12,7 @@ import { renderPlanPdf } from "@/lib/reports/plan-pdf";
 import { planReport, readSnapshot } from "@/lib/reports/plan-report-data";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { allocationCsv } from "@/lib/results/csv-rows";
-import { reachResultsExport } from "@/lib/results/results-geojson";
+import { exportLayer, type ExportLayer } from "@/lib/results/results-geojson";
 import { conditionRows, conditionsLine, runConditions } from "@/lib/results/run-conditions";
 import { AppError } from "@/lib/errors";
 import { reachFeature } from "./networks";
@@ -103,14 +104,22 @@ export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: s
 }
 
 /**
- * Reaches with their results under the allocated loads (reachResultsExport: one feature
- * per reach with its lowest DO, plus the DO-coloured pieces, critical points and
- * dischargers), the caution and what the file is as foreign members. The DO is the
- * governing condition's unless `conditionName` names another of the plan's conditions
- * (a 422 naming `condition` when it names none); the file says which it holds and lists
- * every condition's lowest DO.
+ * One layer of the plan's results as GeoJSON (docs/exports.md): `reaches` (default) — one
+ * line per reach with its lowest DO and where; `pieces` — the reach lines cut at the
+ * profile points with DO at each end; `dischargers` — one point per outfall with facility
+ * name, permit id and allocation. Each file holds one kind of feature, the caution, the
+ * layer's name and units as foreign members, and a `plan` member (title, version, state,
+ * the condition shown and every condition's lowest DO). The DO is the governing
+ * condition's unless `conditionName` names another (a 422 naming `condition` when it names none).
  */
-export async function planReachesGeoJson(db: Db, actor: Actor | null, basinId: string, planId: string, conditionName?: string): Promise<PlanDownload> {
+export async function planReachesGeoJson(
+  db: Db,
+  actor: Actor | null,
+  basinId: string,
+  planId: string,
+  conditionName?: string,
+  layer: ExportLayer = "reaches",
+): Promise<PlanDownload> {
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const s = readSnapshot(plan.snapshot);
   const network = await planNetwork(db, plan.id);
@@ -122,10 +131,17 @@ export async function planReachesGeoJson(db: Db, actor: Actor | null, basinId: s
   }
   const shown = s.run.result.conditions[index];
   const model = s.run.modelFiles[Math.min(index, s.run.modelFiles.length - 1)].file;
-  const collection = reachResultsExport({ run: shown.run, model, network, condition: shown.name, caution: [...PLANNING_CAUTION] });
+  const reachNames = Object.fromEntries(network.features.map((f) => [String(f.properties?.id), (f.properties?.name as string | null) ?? null]));
+  const collection = exportLayer(
+    layer,
+    { run: shown.run, model, network, condition: shown.name, system: basin.unitSystem, reachNames, caution: [...PLANNING_CAUTION, ...about(basin, plan)] },
+    plan.allocations,
+  );
   const json = {
     type: collection.type,
+    layer: collection.layer,
     caution: collection.caution,
+    units: collection.units,
     plan: {
       title: plan.title,
       basin: basin.name,
@@ -137,16 +153,17 @@ export async function planReachesGeoJson(db: Db, actor: Actor | null, basinId: s
       conditions: conditionRows({ conditions: s.run.result.conditions, allocation: read.allocation }).map((r) => ({
         name: r.name,
         governing: r.governing,
-        min_do_mg_l: r.minimum.do_mg_l,
+        min_do_mg_l: exportValue("do", r.minimum.do_mg_l),
         min_do_reach: r.minimum.reach,
-        min_do_km: r.minimum.km,
+        min_do_km: exportValue("length", r.minimum.km),
         meets_criterion: r.meets,
       })),
     },
     features: collection.features,
   };
   await recordExport(db, actor, basin.id, plan, "geojson");
-  return { body: JSON.stringify(json), contentType: "application/geo+json", fileName: `${stem}-reaches${index === read.governing ? "" : `-${shown.name.replace(/[^\w-]+/g, "-").toLowerCase()}`}.geojson` };
+  const conditionPart = index === read.governing ? "" : `-${shown.name.replace(/[^\w-]+/g, "-").toLowerCase()}`;
+  return { body: JSON.stringify(json), contentType: "application/geo+json", fileName: `${stem}-${layer}${conditionPart}.geojson` };
 }
 
 /** The public page's plan (null unless published) with the reach lines its DO map is drawn on. */

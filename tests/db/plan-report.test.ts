@@ -2,7 +2,6 @@ import { execFileSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import type { FeatureCollection } from "geojson";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as csvRoute from "@/app/api/basins/[basinId]/plans/[planId]/csv/route";
 import * as geojsonRoute from "@/app/api/basins/[basinId]/plans/[planId]/geojson/route";
@@ -12,6 +11,7 @@ import { AppError } from "@/lib/errors";
 import Papa from "papaparse";
 import { formatIn } from "@/lib/format/quantities";
 import { NOTES_HEADER } from "@/lib/reports/csv-text";
+import { dischargersFile, piecesFile, reachesFile } from "../unit/results/export-layouts";
 import { formatDay } from "@/lib/format/zoned-time";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { planReachesGeoJson, planReportPdf } from "@/lib/services/plan-reports";
@@ -118,25 +118,42 @@ describe("the report of a published plan (US units) with a comment and its respo
     expect(await exportEvents(planId)).toEqual([]);
   });
 
-  it("GeoJSON: a FeatureCollection with the caution and one feature per reach carrying its DO result", async () => {
+  it("GeoJSON: each layer is one kind of feature in its documented layout; reaches carry their DO, dischargers their facility and allocation", async () => {
     const res = await callRoute(geojsonRoute.GET, "GET", { params: { basinId: w.basinId, planId } });
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toBe("application/geo+json");
-    const json = res.json as FeatureCollection & { caution: string[]; plan: { status: string } };
-    expect(json.plan.status).toBe("published");
-    expect(json.type).toBe("FeatureCollection");
-    expect(json.caution).toEqual([...PLANNING_CAUTION]);
+    expect(res.headers.get("content-disposition")).toMatch(/-plan-v1-reaches\.geojson"/);
+    const json = reachesFile.parse(res.json);
+    expect((json.plan as { status: string }).status).toBe("published");
+    expect(json.caution.slice(0, 2)).toEqual([...PLANNING_CAUTION]);
     const plan = await getPlan(db, null, w.basinId, planId);
     const runReaches = (plan.snapshot as { run: { result: { conditions: { run: { reaches: { id: string; critical: { do_mg_l: number } }[] } }[] } } }).run.result.conditions[0].run.reaches;
-    const reaches = json.features.filter((f) => f.properties?.kind === "reach");
-    expect(reaches.map((f) => f.properties!.id).sort()).toEqual(runReaches.map((r) => r.id).sort());
-    for (const f of reaches) {
-      expect(f.geometry.type).toBe("LineString");
-      const r = runReaches.find((x) => x.id === f.properties!.id)!;
-      expect(f.properties!.min_do_mg_l).toBe(r.critical.do_mg_l);
-      expect(typeof f.properties!.below_criterion).toBe("boolean");
+    expect(json.features.map((f) => f.properties.id).sort()).toEqual(runReaches.map((r) => r.id).sort());
+    for (const f of json.features) {
+      const r = runReaches.find((x) => x.id === f.properties.id)!;
+      expect(f.properties.min_do_mg_l).toBe(Number(r.critical.do_mg_l.toFixed(3)));
+      // a US basin: lengths in miles
+      expect(f.properties).toHaveProperty("length_mi");
     }
-    expect(json.features.some((f) => f.properties?.kind === "reach-piece")).toBe(true);
+
+    const d = await callRoute(geojsonRoute.GET, "GET", { params: { basinId: w.basinId, planId }, query: { layer: "dischargers" } });
+    expect(d.status).toBe(200);
+    expect(d.headers.get("content-disposition")).toMatch(/-plan-v1-dischargers\.geojson"/);
+    const dischargers = dischargersFile.parse(d.json);
+    expect(dischargers.features.map((f) => f.properties.permit_id).sort()).toEqual(plan.allocations.map((a) => a.permitId).sort());
+    for (const a of plan.allocations) {
+      const f = dischargers.features.find((x) => x.properties.permit_id === a.permitId)!;
+      expect(f.properties.facility_name).toBe(a.facilityName);
+      // lb/d to 0.01 (1 lb = 0.45359237 kg)
+      expect(f.properties.allocated_cbodu_lb_d).toBe(Number((a.cboduKgDay / 0.45359237).toFixed(2)));
+    }
+
+    const p = await callRoute(geojsonRoute.GET, "GET", { params: { basinId: w.basinId, planId }, query: { layer: "pieces" } });
+    const pieces = piecesFile.parse(p.json);
+    expect(pieces.features.length).toBeGreaterThan(json.features.length);
+    const bad = await callRoute(geojsonRoute.GET, "GET", { params: { basinId: w.basinId, planId }, query: { layer: "everything" } });
+    expect(bad.status).toBe(422);
+    expect(err(bad.json).details![0].path).toBe("layer");
   });
 
   it("GeoJSON names the condition it holds (the governing one by default) and lists every condition; an unknown one is refused naming the field", async () => {
@@ -145,7 +162,7 @@ describe("the report of a published plan (US units) with a comment and its respo
     const byDefault = JSON.parse((await planReachesGeoJson(db, null, w.basinId, planId)).body as string);
     expect(names).toContain(byDefault.plan.condition);
     expect(byDefault.plan.conditions.map((c: { name: string }) => c.name)).toEqual(names);
-    for (const f of byDefault.features.filter((x: { properties: { kind: string } }) => x.properties.kind === "reach")) expect(f.properties.condition).toBe(byDefault.plan.condition);
+    for (const f of byDefault.features) expect(f.properties.condition).toBe(byDefault.plan.condition);
     const named = JSON.parse((await planReachesGeoJson(db, null, w.basinId, planId, names[0])).body as string);
     expect(named.plan.condition).toBe(names[0]);
     const e = await planReachesGeoJson(db, null, w.basinId, planId, "No such condition").catch((x: unknown) => x);

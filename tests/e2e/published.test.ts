@@ -1,3 +1,4 @@
+import Papa from "papaparse";
 import { readFileSync } from "node:fs";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
@@ -57,10 +58,16 @@ describe("a published plan", () => {
     expect(await page.getByTestId("planning-caution").textContent()).toMatch(/qualified \(licensed\) engineer/);
     await page.getByTestId("profile-chart").locator("svg path").first().waitFor();
     await page.getByRole("heading", { name: "TMDL" }).waitFor();
+    // the allocation table's button is the plan's own CSV download: one file, one name
     const download = page.waitForEvent("download");
-    await page.getByRole("button", { name: "Download CSV" }).first().click();
-    const csv = readFileSync(await (await download).path(), "utf8");
-    expect(csv.split(/\r?\n/)[0]).toMatch(/^# Planning-level estimates/);
+    await page.getByRole("link", { name: "Download allocations (CSV)" }).click();
+    const fromTable = await download;
+    const csv = readFileSync(await fromTable.path(), "utf8");
+    const parsed = Papa.parse<Record<string, string>>(csv, { header: true, skipEmptyLines: true });
+    expect(parsed.errors).toEqual([]);
+    expect(parsed.meta.fields?.slice(0, 2)).toEqual(["Permit id", "Facility name"]);
+    expect(parsed.meta.fields?.at(-1)).toBe("Notes");
+    expect(parsed.data[0].Notes).toMatch(/^Planning-level estimates/);
     // the map of DO along the plan's reaches is drawn
     const map = '[aria-label="Map of dissolved oxygen"] [data-ready="true"]';
     await page.locator(map).waitFor({ timeout: 30_000 });
@@ -71,11 +78,19 @@ describe("a published plan", () => {
       await page.getByRole("link", { name }).click();
       return readFileSync(await (await d).path(), "utf8");
     };
-    expect((await fileFrom("Allocations (CSV)")).split(/\r?\n/)[0]).toMatch(/^# Planning-level estimates/);
-    const geo = JSON.parse(await fileFrom("Reaches with results (GeoJSON)")) as { type: string; caution: string[]; features: unknown[] };
+    const d = page.waitForEvent("download");
+    await page.getByRole("link", { name: "Allocations (CSV)", exact: true }).click();
+    const fromLinks = await d;
+    expect(fromLinks.suggestedFilename()).toBe(fromTable.suggestedFilename());
+    expect(readFileSync(await fromLinks.path(), "utf8")).toBe(csv);
+    const geo = JSON.parse(await fileFrom("Reaches with results (GeoJSON)")) as { type: string; layer: string; caution: string[]; features: { properties: { kind: string } }[] };
     expect(geo.type).toBe("FeatureCollection");
+    expect(geo.layer).toBe("reaches");
     expect(geo.caution.join(" ")).toMatch(/qualified \(licensed\) engineer/);
     expect(geo.features.length).toBeGreaterThan(10);
+    expect(geo.features.every((f) => f.properties.kind === "reach")).toBe(true);
+    const dischargers = JSON.parse(await fileFrom("Dischargers with allocations (GeoJSON)")) as { features: { properties: { kind: string; facility_name: string } }[] };
+    expect(dischargers.features.every((f) => f.properties.kind === "discharger" && f.properties.facility_name)).toBe(true);
     await page.screenshot({ path: "test-results/screens/published-plan-signed-out.png", fullPage: true });
     await page.close();
   });

@@ -4,7 +4,8 @@ import { runModel } from "@/lib/model";
 import { exportPreface, PLANNING_CAUTION } from "@/lib/results/caution";
 import { doBand } from "@/lib/results/do-scale";
 import { MeasuredLine } from "@/lib/results/line-cut";
-import { reachResultsExport, resultsGeoJson, type PieceProperties } from "@/lib/results/results-geojson";
+import { dischargersLayer, EXPORT_LAYERS, exportLayer, piecesLayer, reachesLayer, resultsGeoJson, type PieceProperties } from "@/lib/results/results-geojson";
+import { dischargersFile, piecesFile, reachesFile } from "./export-layouts";
 import { demoNetwork, example } from "./fixtures";
 
 /** Planar distance (degrees) from a point to a polyline; enough to tell "on the line" at 1e-9°. */
@@ -83,26 +84,61 @@ describe("results GeoJSON of the demo basin", () => {
     expect(part.features.some((f) => f.properties?.reach === "TR-02")).toBe(true);
   });
 
-  it("exports whole reaches with their minimum DO and the caution", () => {
-    const out = reachResultsExport({ run, model, network, caution: exportPreface("Tamsel demo") });
+  it("the reaches layer: one LineString per reach with its lowest DO, rounded, and the caution", () => {
+    const out = reachesLayer({ run, model, network, caution: exportPreface("Tamsel demo"), system: "SI" });
+    expect(reachesFile.parse(out)).toBeTruthy();
     expect(out.caution.slice(0, PLANNING_CAUTION.length)).toEqual([...PLANNING_CAUTION]);
-    const reaches = out.features.filter((f) => f.properties?.kind === "reach");
-    expect(reaches).toHaveLength(run.reaches.length);
-    for (const f of reaches) {
+    expect(out.features).toHaveLength(run.reaches.length);
+    for (const f of out.features) {
       const r = run.reaches.find((x) => x.id === f.properties?.id)!;
-      expect(f.properties?.min_do_mg_l).toBe(r.critical.do_mg_l);
+      expect(f.properties?.min_do_mg_l).toBe(Number(r.critical.do_mg_l.toFixed(3)));
       expect(f.properties?.anoxic).toBe(r.anoxic);
+      // the lowest point sits on the reach line
+      expect(offLine([f.properties?.min_do_lon, f.properties?.min_do_lat], lineOf(r.id))).toBeLessThan(1e-6);
     }
-    expect(out.features.length).toBe(reaches.length + fc.features.length);
     expect("condition" in out).toBe(false);
   });
 
   it("names the design condition it holds on the collection and on every reach", () => {
-    const out = reachResultsExport({ run, model, network, caution: [], condition: "Hot, dry 7Q10" });
+    const out = reachesLayer({ run, model, network, caution: [], condition: "Hot, dry 7Q10", system: "SI" });
     expect(out.condition).toBe("Hot, dry 7Q10");
-    const reaches = out.features.filter((f) => f.properties?.kind === "reach");
-    expect(reaches.length).toBeGreaterThan(0);
-    for (const f of reaches) expect(f.properties?.condition).toBe("Hot, dry 7Q10");
+    expect(out.features.length).toBeGreaterThan(0);
+    for (const f of out.features) expect(f.properties?.condition).toBe("Hot, dry 7Q10");
+  });
+
+  it("the pieces layer holds only pieces, the dischargers layer only dischargers with name, permit id and allocation", () => {
+    const pieces = piecesLayer({ run, model, network, caution: [], system: "SI" });
+    expect(piecesFile.parse(pieces)).toBeTruthy();
+    expect(pieces.features).toHaveLength(of("reach-piece").length);
+    const allocations = model.dischargers.map((d, i) => ({
+      permitId: d.id,
+      facilityName: `Facility ${i}`,
+      cboduKgDay: 100.123456,
+      bod5KgDay: 68.5,
+      bod5MgL: 29.96,
+      todayCboduKgDay: 120,
+      reductionPct: -0.0001,
+    }));
+    const us = dischargersLayer({ run, model, network, caution: [], system: "US" }, allocations);
+    expect(dischargersFile.parse(us)).toBeTruthy();
+    expect(us.units).toMatchObject({ lb_d: "lb/d", mi: "mi", cfs: "cfs" });
+    expect(us.features.map((f) => f.properties?.permit_id).sort()).toEqual(model.dischargers.map((d) => d.id).sort());
+    for (const f of us.features) {
+      expect(f.properties?.facility_name).toMatch(/^Facility /);
+      // 100.123456 kg/d / 0.45359237 = 220.7341… lb/d, to 0.01
+      expect(f.properties?.allocated_cbodu_lb_d).toBe(220.73);
+      expect(Object.is(f.properties?.reduction_pct, -0)).toBe(false);
+      expect(f.properties?.reduction_pct).toBe(0);
+      expect(offLine(f.geometry.coordinates as Position, lineOf(String(f.properties?.reach)))).toBeLessThan(1e-6);
+    }
+  });
+
+  it("no property of any layer carries float noise: every number has at most its stated decimals", () => {
+    for (const layer of EXPORT_LAYERS) {
+      const out = exportLayer(layer, { run, model, network, caution: [], system: "SI" });
+      for (const f of out.features)
+        for (const [k, v] of Object.entries(f.properties ?? {})) if (typeof v === "number") expect(String(v), `${layer} ${k}`).toMatch(/^-?\d+(\.\d{1,7})?$/);
+    }
   });
 });
 
