@@ -129,7 +129,7 @@ describe("results GeoJSON of the demo basin", () => {
       expect(f.properties?.allocated_cbodu_lb_d).toBe(220.73);
       expect(Object.is(f.properties?.reduction_pct, -0)).toBe(false);
       expect(f.properties?.reduction_pct).toBe(0);
-      expect(offLine(f.geometry.coordinates as Position, lineOf(String(f.properties?.reach)))).toBeLessThan(1e-6);
+      expect(offLine((f.geometry as Point).coordinates, lineOf(String(f.properties?.reach)))).toBeLessThan(1e-6);
     }
   });
 
