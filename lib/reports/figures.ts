@@ -1,7 +1,10 @@
-import type { FeatureCollection, LineString, Position } from "geojson";
+import type { FeatureCollection, LineString, Point, Position } from "geojson";
+import { geodesicMetres } from "@/geo/geodesic";
+import { textWidthPx, type Box } from "@/lib/results/chart-labels";
 import { DO_BAND_COLOURS, doLegend, type DoBand } from "@/lib/results/do-scale";
 import type { ProfileSeries } from "@/lib/results/profile-series";
 import type { PieceProperties } from "@/lib/results/results-geojson";
+import { scaleBar, type ScaleBar } from "./scale-bar";
 
 /** Drawing box of a figure, in PDF points. */
 export interface FigureBox {
@@ -85,18 +88,56 @@ export function profileFigure(series: ProfileSeries, box: FigureBox): ProfileFig
   };
 }
 
-/** Reach pieces of a results map projected into a box, coloured by their DO band. */
+/** Reach pieces of a results map projected into a box, coloured by their DO band, with the outfalls, a scale bar and north. */
 export interface MapFigure {
   width: number;
   height: number;
   lines: Array<{ points: string; colour: string; band: DoBand }>;
+  /** Dischargers at their outfalls; `label` is where the permit id goes (null: left out, no room clear of the others). */
+  outfalls: Array<{ id: string; x: number; y: number; label: { x: number; y: number; anchor: "start" | "end" | "middle" } | null }>;
+  /** Bottom-left corner of the scale bars: kilometres above, miles below. */
+  scale: { x: number; y: number; metric: ScaleBar; imperial: ScaleBar };
+  /** Tip of the north arrow (the drawing is north up). */
+  north: { x: number; y: number };
   legend: Array<{ colour: string; label: string }>;
 }
 
+const OUTFALL_FONT_PT = 6;
+
 /**
- * The reach pieces of `resultsGeoJson` drawn in a box: longitude scaled by the cosine
- * of the mean latitude (a plain equirectangular view, adequate at basin scale), north up,
- * the drawing centred and uniformly scaled to fit. Null when there is no piece to draw.
+ * Where each outfall's permit id goes: right of the dot, else left, above or below,
+ * the first spot inside the box that overlaps no label placed before it; none when
+ * every spot is taken (the dot is still drawn). Boxes in points.
+ */
+function placeOutfallLabels(points: Array<{ id: string; x: number; y: number }>, box: { width: number; height: number }, reserved: Box[]): MapFigure["outfalls"] {
+  const taken: Box[] = [...reserved];
+  const h = OUTFALL_FONT_PT + 1;
+  return points.map((p) => {
+    const w = textWidthPx(p.id, OUTFALL_FONT_PT);
+    const spots = [
+      { left: p.x + 4, top: p.y - h / 2, anchor: "start" as const, tx: p.x + 4, ty: p.y + h / 2 - 1.5 },
+      { left: p.x - 4 - w, top: p.y - h / 2, anchor: "end" as const, tx: p.x - 4, ty: p.y + h / 2 - 1.5 },
+      { left: p.x - w / 2, top: p.y - 4 - h, anchor: "middle" as const, tx: p.x, ty: p.y - 5.5 },
+      { left: p.x - w / 2, top: p.y + 4, anchor: "middle" as const, tx: p.x, ty: p.y + 4 + h - 1.5 },
+    ].map((s) => ({ ...s, width: w, height: h }));
+    const fits = spots.find(
+      (s) => s.left >= 1 && s.top >= 1 && s.left + s.width <= box.width - 1 && s.top + s.height <= box.height - 1 && !taken.some((t) => overlaps(s, t)),
+    );
+    if (!fits) return { ...p, label: null };
+    taken.push(fits);
+    return { ...p, label: { x: fits.tx, y: fits.ty, anchor: fits.anchor } };
+  });
+}
+
+const overlaps = (a: Box, b: Box) => a.left < b.left + b.width && b.left < a.left + a.width && a.top < b.top + b.height && b.top < a.top + a.height;
+
+/**
+ * The reach pieces and dischargers of `resultsGeoJson` drawn in a box: longitude scaled
+ * by the cosine of the mean latitude (a plain equirectangular view, adequate at basin
+ * scale), north up, the drawing centred and uniformly scaled to fit; outfalls with their
+ * permit ids (thinned where they would overlap), scale bars in km and mi (their length
+ * from the WGS84 geodesic along the drawing's central meridian) and a north arrow.
+ * Null when there is no piece to draw.
  */
 export function mapFigure(results: FeatureCollection, criterionMgL: number, box: { width: number; height: number }): MapFigure | null {
   const pieces = results.features.filter((f) => f.properties?.kind === "reach-piece" && f.geometry?.type === "LineString");
@@ -111,6 +152,25 @@ export function mapFigure(results: FeatureCollection, criterionMgL: number, box:
   const ox = (box.width - (x1 - x0) * scale) / 2;
   const oy = (box.height - (y1 - y0) * scale) / 2;
   const project = (p: Position): [number, number] => [ox + (p[0] * k - x0) * scale, box.height - (oy + (p[1] - y0) * scale)];
+  // points per degree of latitude is `scale`; metres per degree from the geodesic along the middle meridian
+  const midLon = (x0 + x1) / 2 / k;
+  const span = Math.max(y1 - y0, 0.01);
+  const midLat = (y0 + y1) / 2;
+  const metresPerPoint = geodesicMetres([midLon, midLat - span / 2], [midLon, midLat + span / 2]) / (span * scale);
+  const barRoom = box.width * 0.3;
+  const scaleBox = { x: 6, y: box.height - 6, metric: scaleBar(metresPerPoint, barRoom), imperial: scaleBar(metresPerPoint, barRoom, "imperial") };
+  const north = { x: box.width - 12, y: 6 };
+  const reserved: Box[] = [
+    { left: 0, top: box.height - 28, width: barRoom + 30, height: 28 },
+    { left: box.width - 22, top: 0, width: 22, height: 30 },
+  ];
+  const dischargers = results.features
+    .filter((f) => f.properties?.kind === "discharger" && f.geometry?.type === "Point")
+    .map((f) => {
+      const [x, y] = project((f.geometry as Point).coordinates);
+      return { id: String(f.properties!.id), x: round1(x), y: round1(y) };
+    })
+    .sort((a, b) => a.x - b.x || a.y - b.y);
   return {
     width: box.width,
     height: box.height,
@@ -118,6 +178,11 @@ export function mapFigure(results: FeatureCollection, criterionMgL: number, box:
       const band = (f.properties as PieceProperties).band;
       return { points: pts((f.geometry as LineString).coordinates.map(project)), colour: DO_BAND_COLOURS[band], band };
     }),
+    outfalls: placeOutfallLabels(dischargers, box, reserved),
+    scale: scaleBox,
+    north,
     legend: doLegend(criterionMgL).map((s) => ({ colour: s.colour, label: s.label })),
   };
 }
+
+const round1 = (v: number) => Math.round(v * 10) / 10;

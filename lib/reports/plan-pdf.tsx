@@ -46,14 +46,44 @@ const s = StyleSheet.create({
   swatch: { width: 14, height: 4, marginRight: 5 },
 });
 
-function Section({ title, children, breakBefore = false }: { title: string; children: ReactNode; breakBefore?: boolean }) {
+/**
+ * A titled section. `first` is laid out with the title in one unbreakable block, so a title
+ * is never left alone at the foot of a page when its first block is itself unbreakable
+ * (minPresenceAhead alone does not move the title with a block taller than the space left).
+ */
+function Section({ title, children, first, breakBefore = false }: { title: string; children: ReactNode; first?: ReactNode; breakBefore?: boolean }) {
+  const heading = (
+    <Text style={s.h2} minPresenceAhead={120}>
+      {title}
+    </Text>
+  );
   return (
     <View break={breakBefore}>
-      <Text style={s.h2} minPresenceAhead={120}>
-        {title}
-      </Text>
+      {first ? (
+        <View wrap={false}>
+          {heading}
+          {first}
+        </View>
+      ) : (
+        heading
+      )}
       {children}
     </View>
+  );
+}
+
+/** One group of the methods: its heading and label–value rows. */
+function MethodGroup({ group }: { group: { heading: string; items: { label: string; value: string }[] } }) {
+  return (
+    <>
+      <Text style={s.h3}>{group.heading}</Text>
+      {group.items.map((i) => (
+        <View key={i.label} style={s.kv}>
+          <Text style={s.kvLabel}>{i.label}</Text>
+          <Text style={s.kvValue}>{i.value}</Text>
+        </View>
+      ))}
+    </>
   );
 }
 
@@ -128,6 +158,17 @@ function ProfileChart({ f }: { f: NonNullable<PlanReport["profile"]> }) {
 }
 
 function MapFigure({ f }: { f: NonNullable<PlanReport["map"]> }) {
+  const { x, y, metric, imperial } = f.scale;
+  const bar = (len: number, at: number, label: string) => (
+    <G>
+      <Rect x={x} y={at - 2.5} width={len} height={2.5} fill={INK} />
+      <Line x1={x} y1={at - 5} x2={x} y2={at} stroke={INK} strokeWidth={0.6} />
+      <Line x1={x + len} y1={at - 5} x2={x + len} y2={at} stroke={INK} strokeWidth={0.6} />
+      <Text x={x + len + 3} y={at} style={svgText(6, INK)}>
+        {label}
+      </Text>
+    </G>
+  );
   return (
     <View style={{ flexDirection: "row", gap: 14, alignItems: "flex-start" }} wrap={false}>
       <Svg width={f.width} height={f.height}>
@@ -135,6 +176,24 @@ function MapFigure({ f }: { f: NonNullable<PlanReport["map"]> }) {
         {f.lines.map((l, i) => (
           <Polyline key={i} points={l.points} fill="none" stroke={l.colour} strokeWidth={2.4} strokeLinecap="round" strokeLinejoin="round" />
         ))}
+        {f.outfalls.map((o) => (
+          <G key={o.id}>
+            <Circle cx={o.x} cy={o.y} r={2.6} fill="#ffffff" stroke={INK} strokeWidth={0.9} />
+            {o.label && (
+              <Text x={o.label.x} y={o.label.y} textAnchor={o.label.anchor} style={svgText(6, INK)}>
+                {o.id}
+              </Text>
+            )}
+          </G>
+        ))}
+        {bar(metric.points, y - 9, metric.label)}
+        {bar(imperial.points, y, imperial.label)}
+        <G>
+          <Polyline points={`${f.north.x - 4},${f.north.y + 13} ${f.north.x},${f.north.y + 3} ${f.north.x + 4},${f.north.y + 13} ${f.north.x},${f.north.y + 10}`} fill={INK} stroke={INK} strokeWidth={0.6} />
+          <Text x={f.north.x} y={f.north.y + 21} textAnchor="middle" style={svgText(6.5, INK)}>
+            N
+          </Text>
+        </G>
       </Svg>
       <View style={{ flex: 1, paddingTop: 4 }}>
         <Text style={s.h3}>Dissolved oxygen</Text>
@@ -144,6 +203,12 @@ function MapFigure({ f }: { f: NonNullable<PlanReport["map"]> }) {
             <Text style={{ fontSize: 8 }}>{l.label}</Text>
           </View>
         ))}
+        <View style={s.legendRow}>
+          <Svg width={14} height={8} style={{ marginRight: 5 }}>
+            <Circle cx={7} cy={4} r={2.6} fill="#ffffff" stroke={INK} strokeWidth={0.9} />
+          </Svg>
+          <Text style={{ fontSize: 8 }}>discharger outfall, with its permit id</Text>
+        </View>
         <Text style={s.caption}>{f.caption}</Text>
       </View>
     </View>
@@ -264,16 +329,10 @@ export function PlanPdf({ report: r }: { report: PlanReport }) {
           </Section>
         )}
 
-        <Section title="Methods and parameters">
-          {r.methods.map((m) => (
+        <Section title="Methods and parameters" first={r.methods[0] && <MethodGroup group={r.methods[0]} />}>
+          {r.methods.slice(1).map((m) => (
             <View key={m.heading} wrap={false}>
-              <Text style={s.h3}>{m.heading}</Text>
-              {m.items.map((i) => (
-                <View key={i.label} style={s.kv}>
-                  <Text style={s.kvLabel}>{i.label}</Text>
-                  <Text style={s.kvValue}>{i.value}</Text>
-                </View>
-              ))}
+              <MethodGroup group={m} />
             </View>
           ))}
           {r.warnings.length > 0 && (
