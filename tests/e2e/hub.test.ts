@@ -2,6 +2,7 @@ import { mkdirSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { DEMO_USERS } from "@/db/seed/demo-data";
+import { DEMO_STRESS_SCENARIO } from "@/lib/services/demo";
 import { launchBrowser, signInAs } from "./support/browser";
 
 const baseUrl = inject("baseUrl");
@@ -12,6 +13,8 @@ let basinId: string;
 let scenarioId: string;
 let runId: string;
 let reachNames: string[] = [];
+let planId: string;
+const PLAN_TITLE = "Hub test plan (draft)";
 
 const user = (key: string) => DEMO_USERS.find((u) => u.key === key)!;
 const SCENARIO_NAME = "Slow reaeration, sag past the outlet";
@@ -57,6 +60,15 @@ beforeAll(async () => {
   expect(created.status()).toBe(201);
   scenarioId = ((await created.json()) as { id: string }).id;
   runId = await runToEnd(planner, scenarioId, "model");
+  // a draft plan from the demo's stressed loads on the same network version (planners and leads only)
+  const basis = await planner.request.post(`${baseUrl}/api/basins/${basinId}/scenarios`, {
+    data: { name: "Hub plan basis", networkId, inputs: DEMO_STRESS_SCENARIO.inputs },
+  });
+  expect(basis.status()).toBe(201);
+  const allocation = await runToEnd(planner, ((await basis.json()) as { id: string }).id, "allocation");
+  const plan = await planner.request.post(`${baseUrl}/api/basins/${basinId}/plans`, { data: { runId: allocation, title: PLAN_TITLE, revises: null } });
+  expect(plan.status()).toBe(201);
+  planId = ((await plan.json()) as { id: string }).id;
 }, 200_000);
 afterAll(async () => {
   await browser?.close();
@@ -76,7 +88,12 @@ describe("the basin overview as the hub", () => {
     const lowest = run.result.conditions[0].run.minimum.do_mg_l;
     expect(await row.textContent()).toContain(lowest < 0 ? "Lowest DO anoxic" : `Lowest DO ${lowest.toFixed(2)} mg/L`);
     expect(await row.textContent()).toContain("v1");
-    await planner.getByTestId("hub-plans").waitFor();
+    const plans = planner.getByTestId("hub-plans");
+    const planRow = plans.getByRole("listitem").filter({ hasText: PLAN_TITLE });
+    expect(await planRow.textContent()).toMatch(/draft \(planners and leads only\) · proposed \d{1,2} \w{3} \d{4} by Tobias Wren/);
+    expect(await planRow.getByRole("link").getAttribute("href")).toBe(`/basins/${basinId}/plans/${planId}`);
+    const basisRow = planner.getByTestId("hub-scenarios").getByRole("row").filter({ hasText: "Hub plan basis" });
+    expect(await basisRow.textContent()).toContain("feasible");
     expect(await planner.getByTestId("hub-activity").count()).toBe(0);
     await planner.screenshot({ path: `${SHOTS}/hub-planner-1440.png`, fullPage: true });
   });
@@ -98,6 +115,7 @@ describe("the basin overview as the hub", () => {
       await page.getByTestId("hub-plans").waitFor();
       for (const part of ["hub-network", "hub-scenarios", "hub-activity"]) expect(await page.getByTestId(part).count()).toBe(0);
       expect(await page.getByText(SCENARIO_NAME).count()).toBe(0);
+      expect(await page.getByText(PLAN_TITLE).count()).toBe(0);
       await page.screenshot({ path: `${SHOTS}/hub-${key}-${width}.png`, fullPage: true });
       await page.context().close();
     }
