@@ -102,6 +102,19 @@ describe("the report of a published plan (US units) with a comment and its respo
     expect(text.split(PLANNING_CAUTION[1]).length - 1).toBe(pages + 1);
   });
 
+  it("never leaves the Methods and parameters heading at the foot of a page: its first group is on the same page", async () => {
+    const pdf = await planReportPdf(db, null, w.basinId, planId);
+    const file = join(dir, "methods.pdf");
+    writeFileSync(file, pdf.body as Uint8Array);
+    // pdftotext separates pages with a form feed
+    const pages = execFileSync("pdftotext", ["-enc", "UTF-8", file, "-"], { encoding: "utf8" }).split("\f");
+    const page = pages.find((p) => p.includes("Methods and parameters"))!;
+    expect(page).toBeDefined();
+    const after = page.slice(page.indexOf("Methods and parameters"));
+    expect(after).toContain("Model and scenario");
+    expect(after).toContain("Model version");
+  });
+
   it("is rendered once for a published plan and served from storage after that, also to requests arriving together", async () => {
     await db.deleteFrom("plan_report_files").where("plan_id", "=", planId).execute();
     const together = await Promise.all([1, 2, 3, 4].map(() => planReportPdf(db, null, w.basinId, planId)));
