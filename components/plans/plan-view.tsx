@@ -9,7 +9,8 @@ import { BasinZoneProvider, When } from "@/components/layout/basin-zone";
 import { Notice } from "@/components/ui/notice";
 import { formatTime } from "@/lib/format/zoned-time";
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { nameOf, ROLE_NAMES, THREAD_STATUS_NAMES } from "@/lib/format/labels";
+import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { ModelFile, RunResult } from "@/lib/model";
 import { governingCondition, headwaterReaches, type StoredRunResult } from "@/lib/results";
 import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
@@ -111,9 +112,9 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
                 <td className="whitespace-nowrap font-mono text-xs">{a.permitId}</td>
                 <td className="num">{formatIn("load", a.cboduKgDay, unitSystem)}</td>
                 <td className="num">{formatIn("load", a.bod5KgDay, unitSystem)}</td>
-                <td className="num">{a.bod5MgL.toFixed(1)}</td>
+                <td className="num">{formatNumber("concentration", a.bod5MgL)}</td>
                 <td className="num">{formatIn("load", a.todayCboduKgDay, unitSystem)}</td>
-                <td className="num">{a.reductionPct === null ? "—" : Math.abs(a.reductionPct) < 0.05 ? "0.0" : a.reductionPct.toFixed(1)}</td>
+                <td className="num">{formatPercent(a.reductionPct)}</td>
               </tr>
             ))}
           </tbody>
@@ -215,7 +216,7 @@ export function Thread({
         {awaitsResponse(thread) ? (
           <span className="text-xs font-semibold text-ochre-700">{thread.response ? "addressed; new comments since" : "awaiting a response"}</span>
         ) : (
-          <span className={`text-xs font-semibold ${thread.status === "addressed" ? "text-reed-700" : "text-ink-faint"}`}>{thread.comments.length === 0 ? "no comments" : thread.status}</span>
+          <span className={`text-xs font-semibold ${thread.status === "addressed" ? "text-reed-700" : "text-ink-faint"}`}>{thread.comments.length === 0 ? "no comments" : nameOf(THREAD_STATUS_NAMES, thread.status)}</span>
         )}
       </div>
       {thread.comments.length === 0 && <p className="text-sm text-ink-faint">No comments.</p>}
@@ -223,7 +224,7 @@ export function Thread({
         {thread.comments.map((c) => (
           <li key={c.id} className="rounded-md bg-paper px-3 py-2">
             <p className="text-xs text-ink-faint">
-              {c.author} · {c.role} · <When at={c.at} />
+              {c.author} · {nameOf(ROLE_NAMES, c.role)} · <When at={c.at} />
             </p>
             <p className="whitespace-pre-wrap text-sm">{c.body}</p>
           </li>

@@ -1,5 +1,6 @@
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { nameOf, ROLE_NAMES, THREAD_STATUS_NAMES } from "@/lib/format/labels";
+import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import { formatWhen } from "@/lib/format/zoned-time";
 import type { RunResult } from "@/lib/model";
 import { formatDo } from "@/lib/results/do-scale";
@@ -67,7 +68,7 @@ export function CriticalConditions({ inputs, result, unitSystem }: { inputs: Con
                 <td>
                   reach {row.minimum.reach}, {formatIn("length", row.minimum.km, unitSystem)} {unitLabel("length", unitSystem)} from its head
                 </td>
-                <td>{row.meets ? `met (${row.criterion_do_mg_l.toFixed(1)} mg/L)` : `not met (${row.criterion_do_mg_l.toFixed(1)} mg/L)`}</td>
+                <td>{row.meets ? `met (${formatNumber("do", row.criterion_do_mg_l)} mg/L)` : `not met (${formatNumber("do", row.criterion_do_mg_l)} mg/L)`}</td>
               </tr>
             );
           })}
@@ -132,13 +133,13 @@ export function ResponsivenessRecord({
           <article key={topic} aria-label={`Comments on ${topic}`} className="rounded-md border border-rule p-3">
             <h3 className="mb-2 font-semibold">
               {topic} {of[0].permitId && <span className="font-mono text-sm text-ink-soft">{of[0].permitId}</span>}
-              <span className="ml-2 text-xs font-normal text-ink-faint">thread {of[0].status}</span>
+              <span className="ml-2 text-xs font-normal text-ink-faint">{nameOf(THREAD_STATUS_NAMES, of[0].status)}</span>
             </h3>
             <ul className="space-y-2">
               {of.map((r, i) => (
                 <li key={`${r.at}-${i}`} className="text-sm">
                   <p className="text-xs text-ink-faint">
-                    {r.author} · {r.role} · {formatWhen(new Date(r.at), timeZone)}
+                    {r.author} · {nameOf(ROLE_NAMES, r.role)} · {formatWhen(new Date(r.at), timeZone)}
                   </p>
                   <p className="whitespace-pre-wrap">{r.comment}</p>
                 </li>

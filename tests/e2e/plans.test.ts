@@ -173,7 +173,7 @@ describe("from a proposed plan to a published one", () => {
     const thread = planner.getByRole("article", { name: /Quillford Water Reclamation Plant/ });
     await thread.getByLabel(/Response/).fill("A compliance schedule to 2028 is proposed.");
     await thread.getByRole("button", { name: "Respond" }).click();
-    await thread.getByText("addressed", { exact: true }).waitFor();
+    await thread.getByText("Answered", { exact: true }).waitFor();
     const download = planner.waitForEvent("download");
     await planner.getByRole("button", { name: "Download the responsiveness summary (CSV)" }).click();
     const csv = readFileSync(await (await download).path(), "utf8");

@@ -125,7 +125,7 @@ describe("a published plan", () => {
       const text = (await thread.textContent()) ?? "";
       expect(text).toContain(COMMENT);
       expect(text).toContain(RESPONSE);
-      expect(text).toMatch(new RegExp(`${w.users.stakeholder.name} · stakeholder · .+\\(America/Chicago\\)`));
+      expect(text).toMatch(new RegExp(`${w.users.stakeholder.name} · Stakeholder · .+\\(America/Chicago\\)`));
       expect(text).toMatch(new RegExp(`Response by ${w.users.planner.name}`));
       // the comment published without a response, and the lead's acknowledgement of it
       const record = (await page.getByTestId("responsiveness").textContent()) ?? "";
