@@ -27,22 +27,25 @@ const outcomeColumns = sql<Pick<RunOutcomeRow, "conditions" | "allocation">>`
 
 /** The newest finished run of each scenario of a basin (one row per scenario that has one). */
 export async function latestDoneRunPerScenario(db: Db, basinId: string): Promise<RunOutcomeRow[]> {
+  // pick the runs first, so only their results are read
   const { rows } = await sql<RunOutcomeRow>`
-    select distinct on (r.scenario_id) r.id, r.scenario_id, r.kind, r.finished_at, ${outcomeColumns}
-    from runs r
-    where r.basin_id = ${basinId} and r.status = 'done'
-    order by r.scenario_id, r.finished_at desc nulls last, r.created_at desc`.execute(db);
+    with latest as (
+      select distinct on (scenario_id) id from runs
+      where basin_id = ${basinId} and status = 'done'
+      order by scenario_id, finished_at desc nulls last, created_at desc)
+    select r.id, r.scenario_id, r.kind, r.finished_at, ${outcomeColumns}
+    from runs r join latest l on l.id = r.id`.execute(db);
   return rows;
 }
 
 /** Outcomes of a basin's finished runs, newest first (as many as the runs list shows). */
 export async function doneRunOutcomes(db: Db, basinId: string, limit = 200): Promise<RunOutcomeRow[]> {
   const { rows } = await sql<RunOutcomeRow>`
+    with shown as (
+      select id, created_at from runs where basin_id = ${basinId} and status = 'done' order by created_at desc limit ${limit})
     select r.id, r.scenario_id, r.kind, r.finished_at, ${outcomeColumns}
-    from runs r
-    where r.basin_id = ${basinId} and r.status = 'done'
-    order by r.created_at desc
-    limit ${limit}`.execute(db);
+    from runs r join shown s on s.id = r.id
+    order by s.created_at desc`.execute(db);
   return rows;
 }
 
