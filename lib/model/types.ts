@@ -28,6 +28,8 @@ export interface ReachInput {
   ka_method?: KaMethod;
   /** Apply the floor k_a ≥ 0.6/H (Chin 2006) to the 20 °C value, before temperature correction. Default false. */
   ka_floor?: boolean;
+  /** Multiplies the reach's k_a at 20 °C as its method (and floor) gives it — a calibrated correction. Default 1. */
+  ka_multiplier?: number;
   slope_m_m?: number;
   /** Settling rate, default 0. */
   ks20_per_day?: number;

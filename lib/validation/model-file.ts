@@ -37,6 +37,7 @@ export const reachSchema = z
     ka20_per_day: positive("ka20_per_day").optional(),
     ka_method: kaMethodSchema.optional(),
     ka_floor: z.boolean().optional(),
+    ka_multiplier: positive("ka_multiplier").optional(),
     slope_m_m: positive("slope_m_m").optional(),
     ks20_per_day: nonNegative("ks20_per_day").optional(),
     kn20_per_day: nonNegative("kn20_per_day").optional(),

@@ -8,7 +8,9 @@
  *   5. Self-crossing check of 2k/16k/100k-vertex lines against turf kinks().
  *   6. Lengths on the WGS84 ellipsoid against turf's sphere and GeographicLib, per million segments.
  *   7. Design flows (1Q10, 7Q10, 30Q5, 7Q2) from a 50-year daily record; target ≤ 200 ms.
- *   8. Committing a 2k-reach network with 200 dischargers into PostgreSQL (a throwaway database
+ *   8. Calibration of the demo basin to its invented survey (≤ 5 s) and of a 1,000-reach network
+ *      with 50 stations (≤ 60 s).
+ *   9. Committing a 2k-reach network with 200 dischargers into PostgreSQL (a throwaway database
  *      on the test cluster, started when needed); target ≤ 2 s. `--no-db` skips it.
  * Targets (issue 3): 10k-reach run ≤ 20 ms; ≥ 100× faster than the ODE integrator;
  * 500-discharger allocation ≤ 2 s and no slower than HiGHS on the full LP.
@@ -22,6 +24,7 @@ import { selfCrossingsBench } from "./self-crossings-bench";
 import { geodesicBench } from "./geodesic-bench";
 import { networkCommitBench } from "./network-commit-bench";
 import { designFlowBench } from "./design-flow-bench";
+import { calibrationBench } from "./calibration-bench";
 
 const quick = process.argv.includes("--quick");
 
@@ -36,6 +39,7 @@ async function main() {
   selfCrossingsBench();
   geodesicBench();
   designFlowBench(50);
+  calibrationBench();
   if (!process.argv.includes("--no-db")) await networkCommitBench(2000, 200);
 }
 

@@ -189,9 +189,10 @@ export function compilePlan(file: ModelFile): Plan {
         csT = T;
       }
       const { u, h } = reachHydraulics(r, q, path);
-      const ka = withPrefix(path, () =>
+      const formulaKa = withPrefix(path, () =>
         reaeration({ method, velocity_m_s: u, depth_m: h, ka20_per_day: r.ka20_per_day, slope_m_m: r.slope_m_m, flow_m3_s: q, floor: r.ka_floor ?? false }),
       );
+      const ka = r.ka_multiplier === undefined ? formulaKa : { ...formulaKa, ka20_per_day: formulaKa.ka20_per_day * r.ka_multiplier };
       const kd = kd20 * Math.pow(deoxygenationTheta(T, rule, theta.kd), T - 20);
       const ks = rateAtTemperature(ks20, theta.ks, T);
       const tDay = ((kmEnd - kmStart) * 1000) / (u * 86_400);

@@ -1,0 +1,32 @@
+import { z } from "zod";
+import { FIT_PARAMETERS } from "@/lib/calibration/calibrate";
+
+const finite = (what: string) => z.number({ message: `${what} must be a number` }).refine(Number.isFinite, `${what} must be a finite number`);
+
+/** One observation of a synoptic survey, placed by reach and km from the reach's head. */
+export const observationSchema = z.strictObject({
+  station: z.string().trim().min(1).max(80).optional(),
+  reach: z.string({ message: "reach must name a reach" }).min(1, "reach must name a reach"),
+  km: finite("km").refine((k) => k >= 0, "km cannot be negative"),
+  do_mg_l: finite("do_mg_l").refine((d) => d >= 0 && d <= 25, "do_mg_l must lie within 0–25 mg/L"),
+  weight: finite("weight").refine((w) => w > 0, "weight must be above 0").optional(),
+});
+
+/** One coefficient to fit over a group of reaches, with its bounds and starting value. */
+export const fitEntrySchema = z.strictObject({
+  parameter: z.enum(FIT_PARAMETERS, { message: `parameter must be one of ${FIT_PARAMETERS.join(", ")}` }),
+  reaches: z.array(z.string().min(1)).min(1, "reaches must name at least one reach"),
+  min: finite("min"),
+  max: finite("max"),
+  start: finite("start"),
+});
+
+/**
+ * The calibration block of a calibration file (docs/calibrate-cli.md): a model file with
+ * `"calibration": { "observations": [...], "fit": [...] }` beside its own fields.
+ */
+export const calibrationSchema = z.strictObject({
+  observations: z.array(observationSchema).min(1, "observations must hold at least one observation").max(10_000),
+  fit: z.array(fitEntrySchema).min(1, "fit must name at least one coefficient").max(50),
+});
+export type CalibrationInput = z.infer<typeof calibrationSchema>;
