@@ -5,7 +5,7 @@ import { PlanningCaution } from "@/components/results/planning-caution";
 import { ProfileChart } from "@/components/results/profile-chart";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
-import { formatIn, unitLabel } from "@/lib/format/quantities";
+import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationEntry, AllocationResult, ModelFile, RunResult } from "@/lib/model";
 import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
 import { isBelowCriterion } from "@/lib/results/do-scale";
@@ -149,7 +149,7 @@ function AllocationTerms({ entry, model, permitId, unitSystem }: { entry: Alloca
   const load = unitLabel("load", unitSystem);
   const flow = unitLabel("flow", unitSystem);
   const discharger = model.dischargers.find((d) => d.id === permitId);
-  const reduction = entry.reduction_pct === null ? "—" : `${Math.abs(entry.reduction_pct) < 0.05 ? "0.0" : entry.reduction_pct.toFixed(1)} %`;
+  const reduction = entry.reduction_pct === null ? "—" : `${formatPercent(entry.reduction_pct)} %`;
   const rows: [string, string, string][] = [
     ["Ultimate CBOD (CBODu)", `${formatIn("load", entry.today_cbodu_kg_day, unitSystem)} ${load}`, `${formatIn("load", entry.cbodu_kg_day, unitSystem)} ${load}`],
     ["BOD5", `${formatIn("load", entry.today_cbodu_kg_day / entry.cbodu_bod5_ratio, unitSystem)} ${load}`, `${formatIn("load", entry.bod5_kg_day, unitSystem)} ${load}`],
@@ -191,12 +191,12 @@ function AllocationTerms({ entry, model, permitId, unitSystem }: { entry: Alloca
           </>
         )}
         <dt className="text-ink-soft">Effluent BOD5</dt>
-        <dd>{entry.bod5_mg_l.toFixed(1)} mg/L</dd>
+        <dd>{formatNumber("concentration", entry.bod5_mg_l)} mg/L</dd>
         <dt className="text-ink-soft">Effluent CBODu</dt>
-        <dd>{entry.cbodu_mg_l.toFixed(1)} mg/L</dd>
+        <dd>{formatNumber("concentration", entry.cbodu_mg_l)} mg/L</dd>
         <dt className="text-ink-soft">CBODu/BOD5 ratio</dt>
         <dd>
-          {entry.cbodu_bod5_ratio.toFixed(2)} (bottle rate {entry.bottle_k_per_day.toFixed(2)}/d)
+          {formatNumber("ratio", entry.cbodu_bod5_ratio)} (bottle rate {formatNumber("rate", entry.bottle_k_per_day)}/d)
         </dd>
         <dt className="text-ink-soft">Allowed range</dt>
         <dd>
@@ -272,8 +272,8 @@ function BelowOutfall({
       </p>
       {lowest && (
         <p className="text-sm" data-testid="lowest-below-outfall">
-          Lowest DO downstream: <strong>{lowest.do_mg_l < 0 ? "anoxic" : `${lowest.do_mg_l.toFixed(2)} mg/L`}</strong>,{" "}
-          {lowest.distance.toFixed(1)} {series.unit} below the outfall in reach {lowest.reach} (criterion {criterion.toFixed(1)} mg/L
+          Lowest DO downstream: <strong>{lowest.do_mg_l < 0 ? "anoxic" : `${formatNumber("do", lowest.do_mg_l)} mg/L`}</strong>,{" "}
+          {formatNumber("length", lowest.distance)} {series.unit} below the outfall in reach {lowest.reach} (criterion {formatNumber("do", criterion)} mg/L
           {isBelowCriterion(lowest.do_mg_l, criterion) ? ", not met" : ", met"}).
         </p>
       )}
