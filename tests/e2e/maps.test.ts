@@ -103,6 +103,29 @@ describe("maps have labels and a key", () => {
         const key = await page.getByTestId("do-legend").innerText();
         for (const item of ["basin outlet", "selected reach", "lowest DO in the network", "discharger outfall"]) expect(key).toContain(item);
       }
+      // the DO profile: its labels clear of each other and of the critical marks, its key under the plot
+      const chart = page.getByTestId("profile-chart");
+      await chart.locator("svg path").first().waitFor();
+      await page.waitForTimeout(300);
+      const boxes = await chart.evaluate((el) => {
+        const r = (n: Element) => n.getBoundingClientRect();
+        const svg = r(el.querySelector("svg.recharts-surface")!);
+        return {
+          labels: [...el.querySelectorAll("text[data-label]")].map((n) => ({ kind: n.getAttribute("data-label"), text: n.textContent, ...r(n).toJSON() })),
+          marks: [...el.querySelectorAll(".recharts-scatter-symbol path, .recharts-scatter path")].map((n) => r(n).toJSON()),
+          svgBottom: svg.bottom,
+          keyTop: r(el.querySelector('[data-testid="profile-key"]')!).top,
+        };
+      });
+      type B = { left: number; right: number; top: number; bottom: number };
+      const meet = (a: B, b: B) => a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
+      expect(boxes.labels.filter((l) => l.kind === "discharger").length).toBeGreaterThan(0);
+      expect(boxes.labels.filter((l) => l.kind === "criterion")).toHaveLength(1);
+      for (const [i, a] of boxes.labels.entries()) for (const b of boxes.labels.slice(i + 1)) expect(meet(a, b), `${a.text} on ${b.text} at ${name}`).toBe(false);
+      const criterionLabel = boxes.labels.find((l) => l.kind === "criterion")!;
+      for (const m of boxes.marks) expect(meet(criterionLabel, m), `criterion label on a mark at ${name}`).toBe(false);
+      expect(boxes.keyTop).toBeGreaterThanOrEqual(boxes.svgBottom - 1);
+      await chart.screenshot({ path: `${SHOTS}/maps-profile-${name}.png` });
       await page.screenshot({ path: `${SHOTS}/maps-run-${name}.png`, fullPage: true });
       await page.close();
     }
