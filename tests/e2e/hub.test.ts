@@ -175,6 +175,11 @@ describe("runs list and run page", () => {
       await page.goto(`${baseUrl}/basins/${basinId}/scenarios/${scenarioId}`);
       await page.getByLabel(/or design flow at the outlet/).first().waitFor();
       expect(await page.getByText(/90 % of saturation at the water's temperature/).count()).toBeGreaterThan(0);
+      // pinned to version 1: the notice shows exactly when another browser test has saved a later version by now
+      const versions = (await (await page.request.get(`${baseUrl}/api/basins/${basinId}/networks`)).json()) as { version: number }[];
+      const newest = Math.max(...versions.map((v) => v.version));
+      if (newest > 1) expect(await page.getByTestId("newer-network").textContent()).toContain(`version ${newest} is newer`);
+      else expect(await page.getByTestId("newer-network").count()).toBe(0);
       await page.screenshot({ path: `${SHOTS}/scenario-${width}.png`, fullPage: true });
       if (page !== planner) await page.context().close();
     }
