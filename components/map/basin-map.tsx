@@ -1,8 +1,9 @@
 "use client";
 import type { Feature, FeatureCollection, Geometry } from "geojson";
-import { useEffect, useRef } from "react";
+import { useEffect, useMemo, useRef } from "react";
 import { escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "./map-setup";
 import { MapFrame, useBaseMap } from "./use-base-map";
+import { withOutletNode } from "@/lib/map/outlet-point";
 import { addLabelLayers } from "./label-layers";
 import { BasinLegend } from "./map-legend";
 import { arrowImage, MAP_COLOURS, SELECTION_HALO_PX } from "./map-style";
@@ -50,6 +51,14 @@ export function BasinMap({
   useEffect(() => {
     onSelectRef.current = onSelect;
   }, [onSelect]);
+
+  // a network given without its nodes still shows where it drains
+  const full = useMemo(() => withOutletNode(data), [data]);
+  const shown = useMemo(() => {
+    const kinds = new Set<string>();
+    for (const f of full.features) kinds.add(f.properties?.kind === "node" ? String(f.properties.nodeKind) : String(f.properties?.kind));
+    return kinds;
+  }, [full]);
 
   const { container, map: loaded } = useBaseMap((map) => {
     map.addImage("flow-arrow", arrowImage());
@@ -132,12 +141,12 @@ export function BasinMap({
     if (!map) return;
     // feature-state needs an id MapLibre can use: promote the feature id into a property
     const withIds: FeatureCollection = {
-      ...data,
-      features: data.features.map((f) => ({ ...f, properties: { ...f.properties, fid: String(f.id ?? "") } })),
+      ...full,
+      features: full.features.map((f) => ({ ...f, properties: { ...f.properties, fid: String(f.id ?? "") } })),
     };
     (map.getSource("basin") as maplibregl.GeoJSONSource).setData(withIds);
     fitToFeatures(map, data);
-  }, [data, loaded]);
+  }, [data, full, loaded]);
 
   useEffect(() => {
     const map = loaded;
@@ -155,7 +164,7 @@ export function BasinMap({
 
   return (
     <MapFrame ref={container} height={height} label="Basin map" testId="basin-map" ready={loaded !== null}>
-      <BasinLegend problems={(highlight?.length ?? 0) > 0} />
+      <BasinLegend shown={shown} problems={(highlight?.length ?? 0) > 0} />
     </MapFrame>
   );
 }

@@ -33,17 +33,22 @@ export function DotSwatch({ fill, ring = "#ffffff", r = 5, ringWidth = 1.5 }: { 
   );
 }
 
-/** Key to the basin map (network, import preview and review pages). */
-export function BasinLegend({ problems = false }: { problems?: boolean }) {
+/**
+ * Key to the basin map (network, import preview and review pages): an entry for each kind
+ * of mark the map has (`shown`: feature kinds, node kinds for nodes).
+ */
+export function BasinLegend({ shown, problems = false }: { shown: ReadonlySet<string>; problems?: boolean }) {
   return (
     <figure className="text-xs text-ink-soft" data-testid="map-legend">
       <figcaption className="sr-only">Map key</figcaption>
       <ul className="flex flex-wrap gap-x-5 gap-y-1">
         <LegendItem swatch={<LineSwatch colour={MAP_COLOURS.reach} />}>reach (chevrons point downstream), labelled with its id</LegendItem>
-        <LegendItem swatch={<DotSwatch fill={MAP_COLOURS.outfall} ring="#ffffff" r={5} ringWidth={2} />}>outfall, labelled with the facility</LegendItem>
-        <LegendItem swatch={<DotSwatch fill={MAP_COLOURS.outlet} r={6} />}>basin outlet</LegendItem>
-        <LegendItem swatch={<DotSwatch fill={MAP_COLOURS.headwater} r={3.5} />}>headwater</LegendItem>
-        <LegendItem swatch={<DotSwatch fill={MAP_COLOURS.node} r={3.5} />}>junction</LegendItem>
+        {shown.has("outfall") && (
+          <LegendItem swatch={<DotSwatch fill={MAP_COLOURS.outfall} ring="#ffffff" r={5} ringWidth={2} />}>outfall, labelled with the facility</LegendItem>
+        )}
+        {shown.has("outlet") && <LegendItem swatch={<DotSwatch fill={MAP_COLOURS.outlet} r={6} />}>basin outlet</LegendItem>}
+        {shown.has("headwater") && <LegendItem swatch={<DotSwatch fill={MAP_COLOURS.headwater} r={3.5} />}>headwater</LegendItem>}
+        {(shown.has("junction") || shown.has("confluence")) && <LegendItem swatch={<DotSwatch fill={MAP_COLOURS.node} r={3.5} />}>confluence or junction</LegendItem>}
         <LegendItem swatch={<LineSwatch colour={MAP_COLOURS.reach} halo />}>selected</LegendItem>
         {problems && <LegendItem swatch={<LineSwatch colour={MAP_COLOURS.problem} width={8} />}>problem to look at</LegendItem>}
       </ul>

@@ -34,10 +34,15 @@ export function featureBounds(fc: FeatureCollection): maplibregl.LngLatBounds | 
   return any ? b : null;
 }
 
-/** Fits the view to a collection (no animation). */
+/**
+ * Fits the view to a collection (no animation), leaving room at the sides for the
+ * labels of points near the edge (on a phone a facility's name is a fifth of the width).
+ */
 export function fitToFeatures(map: maplibregl.Map, fc: FeatureCollection): void {
   const b = featureBounds(fc);
-  if (b) map.fitBounds(b, { padding: 40, duration: 0 });
+  const width = map.getContainer().clientWidth;
+  const side = width < 640 ? Math.round(width * 0.2) : 60;
+  if (b) map.fitBounds(b, { padding: { top: 40, bottom: 40, left: side, right: side }, duration: 0 });
 }
 
 /** Text safe to put into popup HTML. */

@@ -3,6 +3,7 @@ import type { FeatureCollection } from "geojson";
 import { useEffect, useMemo, useRef } from "react";
 import { escapeHtml as esc, fitToFeatures, maplibregl, wireLayerEvents } from "@/components/map/map-setup";
 import { addLabelLayers } from "@/components/map/label-layers";
+import { withOutletNode } from "@/lib/map/outlet-point";
 import { MAP_COLOURS, SELECTION_HALO_PX } from "@/components/map/map-style";
 import { MapFrame, useBaseMap } from "@/components/map/use-base-map";
 import type { UnitSystem } from "@/db/schema";
@@ -146,7 +147,7 @@ export function DoMap({
     const map = loaded;
     if (!map) return;
     (map.getSource("results") as maplibregl.GeoJSONSource).setData(data);
-    (map.getSource("network") as maplibregl.GeoJSONSource).setData(network);
+    (map.getSource("network") as maplibregl.GeoJSONSource).setData(withOutletNode(network));
     map.setFilter("criticals", ringWhere(run.minimum.reach));
     fitToFeatures(map, data);
   }, [data, network, run, loaded]);
