@@ -2,6 +2,7 @@ import type { UnitSystem } from "@/db/schema";
 import { nameOf, OBJECTIVE_NAMES, REAERATION_NAMES } from "@/lib/format/labels";
 import { formatIn, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { ModelFile } from "@/lib/model/types";
+import { DEFAULT_HEADWATER_DO_TEXT } from "@/lib/scenarios/design-defaults";
 import type { ScenarioInputs } from "@/lib/validation/scenario";
 
 /** What a compared run was computed from: the scenario as run (when known) and its model files. */
@@ -67,7 +68,7 @@ function facts(run: RunInputsForDiff, system: UnitSystem): Facts {
   }
   put("conditions", "Design conditions", i.conditions.map((c) => c.name).join(", "));
   for (const c of i.conditions) {
-    put(`c:${c.name}:scale`, `“${c.name}”: flow scale`, `× ${n(c.flowScale)}`);
+    put(`c:${c.name}:scale`, `“${c.name}”: flow scale`, c.outletFlowM3s != null ? `design flow at the outlet ${flow(c.outletFlowM3s)}` : `× ${n(c.flowScale)}`);
     put(`c:${c.name}:temp`, `“${c.name}”: temperature`, temp(c.temperatureC, "each reach's own"));
     for (const [reach, q] of Object.entries(c.reachFlowsM3s ?? {})) put(`c:${c.name}:q:${reach}`, `“${c.name}”: design flow of ${reach}`, flow(q));
   }
@@ -84,7 +85,11 @@ function facts(run: RunInputsForDiff, system: UnitSystem): Facts {
     }
   }
   const h = i.headwater;
-  for (const [f, label] of Object.entries(WATER_FIELDS)) put(`h:${f}`, `Headwater ${label}`, n(h[f as keyof typeof h] as number, 2));
+  for (const [f, label] of Object.entries(WATER_FIELDS)) {
+    const v = h[f as keyof typeof h] as number | null | undefined;
+    // a headwater DO left blank is a share of saturation (lib/scenarios/design-defaults)
+    put(`h:${f}`, `Headwater ${label}`, f === "doMgL" && v === null ? DEFAULT_HEADWATER_DO_TEXT : n(v, 2));
+  }
   put("h:temp", "Headwater temperature", temp(h.temperatureC, "—"));
   for (const [reach, o] of Object.entries(i.inflowOverrides ?? {})) {
     for (const [f, v] of Object.entries(o)) put(`i:${reach}:${f}`, `Inflow at ${reach}: ${WATER_FIELDS[f] ?? f}`, v === null || v === undefined ? "scenario default" : n(v, 2));

@@ -45,6 +45,16 @@ describe("inputs that differ between compared runs", () => {
     expect(byLabel["Technology floor"]).toBeUndefined();
   });
 
+  it("names a headwater DO left to the saturation default, and a condition's flow entered at the outlet", () => {
+    const d = inputDifferences([
+      run("model", { headwater: { doMgL: 7.5 } }),
+      run("model", { conditions: [{ name: "Design low flow", outletFlowM3s: 1.25 }] }),
+    ]);
+    const byLabel = Object.fromEntries(d.map((x) => [x.label, x.values]));
+    expect(byLabel["Headwater DO (mg/L)"]).toEqual(["7.5", "90 % of saturation at the water's temperature (common practice)"]);
+    expect(byLabel["“Design low flow”: flow scale"]).toEqual(["× 1", "design flow at the outlet 1.250 m³/s"]);
+  });
+
   it("shows values in the basin's units (28 °C = 82.4 °F)", () => {
     const d = inputDifferences([run("model", {}), run("model", { conditions: [{ name: "Design low flow", temperatureC: 28 }] })], "US");
     expect(d.find((x) => x.label === "“Design low flow”: temperature")!.values).toEqual(["each reach's own", "82.4 °F"]);
