@@ -97,7 +97,7 @@ export function MappingEditor({
                   </select>
                 )}
               </td>
-              <td className="text-xs text-ink-faint">
+              <td className="min-w-[14rem] text-xs text-ink-faint">
                 {info ? `${info.samples.slice(0, 4).join(" · ")}${info.kind === "empty" ? "(empty)" : ""}` : ""}
               </td>
             </tr>
