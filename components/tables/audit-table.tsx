@@ -38,11 +38,14 @@ export function auditTargetHref(basinId: string, e: Pick<AuditEventDto, "action"
 /** Plain names for a detail key: the table's, else the camelCase key in words ("closedAt" → "closed at"). */
 const detailName = (k: string) => AUDIT_DETAIL_NAMES[k] ?? k.replace(/([a-z])([A-Z])/g, "$1 $2").replace(/_/g, " ").toLowerCase();
 
+/** An ISO timestamp as "2027-01-03 07:32 UTC"; any other text as it is. */
+const isoMinute = (v: string) => v.replace(/^(\d{4}-\d{2}-\d{2})T(\d{2}:\d{2})(:\d{2}(\.\d+)?)?Z$/, "$1 $2 UTC");
+
 /** "name: value" pairs of an event's details, on one line. */
 function detailText(details: Record<string, unknown>): string {
   return Object.entries(details)
     .filter(([, v]) => v !== null && v !== undefined && v !== "")
-    .map(([k, v]) => `${detailName(k)}: ${typeof v === "object" ? JSON.stringify(v) : String(v)}`)
+    .map(([k, v]) => `${detailName(k)}: ${typeof v === "object" ? JSON.stringify(v) : isoMinute(String(v))}`)
     .join("; ");
 }
 

@@ -1,3 +1,4 @@
+import { ROLE_NAMES } from "@/lib/format/labels";
 import type { BasinRole } from "@/db/schema";
 
 const STYLE: Record<BasinRole, string> = {
@@ -7,7 +8,8 @@ const STYLE: Record<BasinRole, string> = {
   stakeholder: "bg-paper-sunk text-ink-soft",
 };
 
+// the role's display name (lib/format/labels ROLE_NAMES), never its code
 export function RoleBadge({ role }: { role: BasinRole | "admin" }) {
   const cls = role === "admin" ? "bg-ink text-paper" : STYLE[role];
-  return <span className={`inline-block rounded-full px-2.5 py-0.5 text-xs font-semibold ${cls}`}>{role}</span>;
+  return <span className={`inline-block rounded-full px-2.5 py-0.5 text-xs font-semibold ${cls}`}>{ROLE_NAMES[role]}</span>;
 }

@@ -165,7 +165,7 @@ export const ACTION_PHRASES: Record<string, string> = {
   "facilities.manage": "add or change facilities",
   "audit.read": "read the audit trail",
   "network.import": "import or edit the network",
-  "scenario.read": "see scenarios and runs",
+  "scenario.read": "see the network, scenarios and runs",
   "scenario.edit": "create or change scenarios",
   "scenario.run": "run scenarios",
   "plan.propose": "propose plans",
@@ -194,7 +194,7 @@ export function rolesPhrase(roles: readonly BasinRole[]): string {
 /**
  * The refusal a member reads: who may do it, and the reader's own role.
  * Example: refusal("scenario.read", ["lead", "planner"], "discharger") →
- * "Only the basin's planners and lead can see scenarios and runs; you are a discharger here."
+ * "Only the basin's planners and lead can see the network, scenarios and runs; you are a discharger here."
  */
 export function refusal(action: string, allowed: readonly BasinRole[], role: BasinRole | null): string {
   const what = ACTION_PHRASES[action] ?? "do this";

@@ -55,7 +55,7 @@ describe("refusals in a sentence", () => {
 
   it("says who may do it and what the reader is", () => {
     expect(refusal("scenario.read", rolesAllowing("scenario.read"), "discharger")).toBe(
-      "Only the basin's planners and lead can see scenarios and runs; you are a discharger here.",
+      "Only the basin's planners and lead can see the network, scenarios and runs; you are a discharger here.",
     );
     expect(refusal("plan.publish", rolesAllowing("plan.publish"), "planner")).toBe("Only the basin's lead can publish plans; you are a planner here.");
     expect(refusal("facilities.read", rolesAllowing("facilities.read"), "stakeholder")).toBe(
