@@ -47,7 +47,7 @@ export default async function BasinsPage() {
           <p className="text-sm text-ink-soft">Each basin has its own members, network, scenarios and plans.</p>
         </div>
         {mayCreate && (
-          <Link href="/basins/new" className="rounded-md bg-tarn-600 px-4 py-2 text-sm font-medium text-white no-underline hover:bg-tarn-700 hover:no-underline">
+          <Link href="/basins/new" className="shrink-0 whitespace-nowrap rounded-md bg-tarn-600 px-4 py-2 text-sm font-medium text-white no-underline hover:bg-tarn-700 hover:no-underline">
             New basin
           </Link>
         )}
