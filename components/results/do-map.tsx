@@ -19,6 +19,20 @@ const NONE = "\u0000";
 const isKind = (k: string): maplibregl.ExpressionSpecification => ["==", ["get", "kind"], k];
 const pieceWhere = (key: string, value: string | boolean) => ["all", isKind("reach-piece"), ["==", ["get", key], value]] as maplibregl.FilterSpecification;
 const reachWhere = (id: string): maplibregl.FilterSpecification => ["all", isKind("reach"), ["==", ["to-string", ["get", "id"]], id]];
+/**
+ * The network as the map labels it: its outlet (added when the features have no nodes) and
+ * its outfalls named by facility; a network given without outfalls (reach lines only) gets
+ * the run's dischargers as outfalls labelled with their permit ids.
+ */
+function labelledNetwork(network: FeatureCollection, results: FeatureCollection): FeatureCollection {
+  const full = withOutletNode(network);
+  if (full.features.some((f) => f.properties?.kind === "outfall")) return full;
+  const outfalls = results.features
+    .filter((f) => f.properties?.kind === "discharger")
+    .map((f) => ({ ...f, id: `outfall:${f.properties!.id}`, properties: { kind: "outfall", id: f.properties!.id, name: null } }));
+  return { ...full, features: [...full.features, ...outfalls] };
+}
+
 /** Critical points worth a ring: below the criterion, or the lowest DO of the whole network. */
 const ringWhere = (lowestReach: string): maplibregl.FilterSpecification => [
   "all",
@@ -147,7 +161,7 @@ export function DoMap({
     const map = loaded;
     if (!map) return;
     (map.getSource("results") as maplibregl.GeoJSONSource).setData(data);
-    (map.getSource("network") as maplibregl.GeoJSONSource).setData(withOutletNode(network));
+    (map.getSource("network") as maplibregl.GeoJSONSource).setData(labelledNetwork(network, data));
     map.setFilter("criticals", ringWhere(run.minimum.reach));
     fitToFeatures(map, data);
   }, [data, network, run, loaded]);
