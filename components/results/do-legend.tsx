@@ -26,7 +26,7 @@ export function DoLegend({ criterionMgL, scale }: { criterionMgL: number; scale?
         <LegendItem swatch={<DotSwatch fill="none" ring="#43535e" r={6} ringWidth={3} />}>
           critical point: a reach&apos;s sag below the criterion (larger ring), or the lowest DO in the network
         </LegendItem>
-        <LegendItem swatch={<DotSwatch fill="#ffffff" ring="#1d2a33" r={4} />}>discharger outfall, labelled with the facility</LegendItem>
+        <LegendItem swatch={<DotSwatch fill="#ffffff" ring="#1d2a33" r={4} />}>discharger outfall, labelled with the facility or its permit id</LegendItem>
         <LegendItem swatch={<DotSwatch fill={MAP_COLOURS.outlet} r={6} ringWidth={2} />}>basin outlet</LegendItem>
         <LegendItem swatch={<LineSwatch colour={DO_BAND_COLOURS.ample} halo width={5} />}>selected reach (the profile follows it)</LegendItem>
       </ul>
