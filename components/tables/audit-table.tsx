@@ -80,19 +80,23 @@ export function AuditTable({ basinId, basinName, events }: { basinId: string; ba
             <th>Who</th>
             <th>What</th>
             <th>On</th>
-            <th>Details</th>
+            <th className="hidden sm:table-cell">Details</th>
           </tr>
         </thead>
         <tbody>
           {events.map((e) => (
             <tr key={e.id}>
-              <td className="whitespace-nowrap text-xs">
+              <td className="text-xs sm:whitespace-nowrap">
                 <When at={e.at} />
               </td>
               <td>{e.actor ?? <span className="text-ink-faint">Sagline (on schedule)</span>}</td>
-              <td>{actionText(e)}</td>
+              <td>
+                {actionText(e)}
+                {/* on a phone the details sit under what happened instead of in a column of their own */}
+                <span className="mt-1 block break-words text-xs text-ink-soft sm:hidden">{detailText(e.details)}</span>
+              </td>
               <td>{target(e)}</td>
-              <td className="max-w-md break-words text-xs text-ink-soft">{detailText(e.details)}</td>
+              <td className="hidden max-w-md break-words text-xs text-ink-soft sm:table-cell">{detailText(e.details)}</td>
             </tr>
           ))}
         </tbody>
