@@ -27,8 +27,15 @@ export default async function WorkspaceLayout({ children }: { children: ReactNod
             <span className="min-w-0 truncate text-ink-soft" data-testid="signed-in-as">
               {actor.name}
             </span>
-            {actor.isAdmin && <RoleBadge role="admin" />}
-            <Link href="/signout">Sign out</Link>
+            {/* the badge is for the wide header; on a phone the Users link says as much */}
+            {actor.isAdmin && (
+              <span className="hidden shrink-0 sm:inline">
+                <RoleBadge role="admin" />
+              </span>
+            )}
+            <Link href="/signout" className="shrink-0 whitespace-nowrap">
+              Sign out
+            </Link>
           </>
         }
       />

@@ -25,14 +25,16 @@ export function PublicHeader({ actor }: { actor: Actor | null }) {
             <span className="min-w-0 truncate text-ink-soft" data-testid="signed-in-as">
               {actor.name}
             </span>
-            <Link href="/basins">Your basins</Link>
+            <Link href="/basins" className="shrink-0 whitespace-nowrap">
+              Your basins
+            </Link>
           </>
         ) : (
           <>
-            <Link href="/signin" className="font-medium">
+            <Link href="/signin" className="shrink-0 whitespace-nowrap font-medium">
               Sign in
             </Link>
-            <Link href="/register" className="text-ink-soft">
+            <Link href="/register" className="shrink-0 whitespace-nowrap text-ink-soft">
               Create an account
             </Link>
           </>
