@@ -79,7 +79,7 @@ export function AuditTable({ basinId, basinName, events }: { basinId: string; ba
             <th>When</th>
             <th>Who</th>
             <th>What</th>
-            <th>On</th>
+            <th className="hidden sm:table-cell">On</th>
             <th className="hidden sm:table-cell">Details</th>
           </tr>
         </thead>
@@ -92,10 +92,13 @@ export function AuditTable({ basinId, basinName, events }: { basinId: string; ba
               <td>{e.actor ?? <span className="text-ink-faint">Sagline (on schedule)</span>}</td>
               <td>
                 {actionText(e)}
-                {/* on a phone the details sit under what happened instead of in a column of their own */}
-                <span className="mt-1 block break-words text-xs text-ink-soft sm:hidden">{detailText(e.details)}</span>
+                {/* on a phone what it changed and the details sit under what happened instead of in columns of their own */}
+                <span className="mt-1 block break-words text-xs text-ink-soft sm:hidden">
+                  {target(e)}
+                  {Object.keys(e.details).length > 0 ? ` · ${detailText(e.details)}` : ""}
+                </span>
               </td>
-              <td>{target(e)}</td>
+              <td className="hidden sm:table-cell">{target(e)}</td>
               <td className="hidden max-w-md break-words text-xs text-ink-soft sm:table-cell">{detailText(e.details)}</td>
             </tr>
           ))}

@@ -1,4 +1,5 @@
-import { mkdirSync } from "node:fs";
+import { mkdirSync, readFileSync } from "node:fs";
+import Papa from "papaparse";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDb, type Db } from "@/db/client";
@@ -61,7 +62,7 @@ describe("plain words and numbers", () => {
       expect(text).toContain("Proposed a plan");
       expect(text).not.toMatch(CODES);
       await table.screenshot({ path: `${SHOTS}/audit-trail-${size.width}.png` });
-      const link = table.getByRole("link", { name: "thread" }).first();
+      const link = table.getByRole("link", { name: "thread" }).locator("visible=true").first();
       expect(await link.getAttribute("href")).toBe(`/basins/${w.basinId}/plans/${plan.planId}#thread-${plan.planThreadId}`);
       if (size.width === 1440) {
         await link.click();
@@ -94,6 +95,42 @@ describe("plain words and numbers", () => {
         await binding.screenshot({ path: `${SHOTS}/run-binding-table-${size.width}.png` });
       }
       expect(await page.locator("main").textContent()).not.toMatch(/CONDITION: base|\bbase\b.*\(governing\)/);
+      await page.close();
+    }
+  });
+
+  it("the plan's downloads: the allocation CSV opens in papaparse with one header row and the caution in Notes; each GeoJSON layer is one kind of feature", async () => {
+    for (const size of SIZES) {
+      const page = await pageAs(w.users.planner.email, size);
+      await page.goto(`${baseUrl}/basins/${w.basinId}/plans/${plan.planId}`);
+      const card = page.getByTestId("plan-downloads");
+      await card.waitFor();
+      await card.screenshot({ path: `${SHOTS}/plan-downloads-${size.width}.png` });
+      if (size.width === 1440) {
+        const file = async (name: string) => {
+          const d = page.waitForEvent("download");
+          await card.getByRole("link", { name, exact: true }).click();
+          const got = await d;
+          return { name: got.suggestedFilename(), text: readFileSync(await got.path(), "utf8") };
+        };
+        const csv = await file("Allocations (CSV)");
+        expect(csv.name).toMatch(/-plan-v1-draft-allocations\.csv$|-plan-v1-allocations\.csv$/);
+        const parsed = Papa.parse<Record<string, string>>(csv.text, { header: true, skipEmptyLines: true });
+        expect(parsed.errors).toEqual([]);
+        expect(parsed.meta.fields?.[0]).toBe("Permit id");
+        expect(parsed.meta.fields?.at(-1)).toBe("Notes");
+        expect(parsed.data[0].Notes).toMatch(/^Planning-level estimates only/);
+        expect(parsed.data.map((r) => r.Notes).join(" ")).toMatch(/DRAFT — not published \(in review\)/);
+        for (const [name, kind] of [
+          ["Reaches with results (GeoJSON)", "reach"],
+          ["Dischargers with allocations (GeoJSON)", "discharger"],
+          ["DO along each reach, in pieces (GeoJSON)", "piece"],
+        ] as const) {
+          const g = JSON.parse((await file(name)).text) as { features: { properties: { kind: string } }[] };
+          expect(g.features.length).toBeGreaterThan(0);
+          expect(new Set(g.features.map((f) => f.properties.kind))).toEqual(new Set([kind]));
+        }
+      }
       await page.close();
     }
   });
