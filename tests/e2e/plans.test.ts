@@ -1,5 +1,6 @@
 import { execFileSync } from "node:child_process";
 import { mkdirSync, readFileSync } from "node:fs";
+import Papa from "papaparse";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { createDb, type Db } from "@/db/client";
@@ -177,7 +178,11 @@ describe("from a proposed plan to a published one", () => {
     const download = planner.waitForEvent("download");
     await planner.getByRole("button", { name: "Download the responsiveness summary (CSV)" }).click();
     const csv = readFileSync(await (await download).path(), "utf8");
-    expect(csv.split(/\r?\n/)[0]).toMatch(/^# Planning-level estimates/);
+    // one header row, the caution first in the Notes column (docs/exports.md)
+    const parsed = Papa.parse<Record<string, string>>(csv, { header: true, skipEmptyLines: true });
+    expect(parsed.errors).toEqual([]);
+    expect(parsed.meta.fields).toEqual(["Topic", "Permit id", "Commented at (UTC)", "Author", "Role", "Comment", "Response", "Responded by", "Thread", "Notes"]);
+    expect(parsed.data[0].Notes).toMatch(/^Planning-level estimates/);
     expect(csv).toMatch(/We need until 2028 to upgrade/);
     expect(csv).toMatch(/A compliance schedule to 2028 is proposed/);
     await waitForMail(mailDir, user("discharger").email, (m) => m.subject.startsWith("New reply:") && m.text.includes("A compliance schedule to 2028"));
