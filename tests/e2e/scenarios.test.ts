@@ -1,3 +1,4 @@
+import Papa from "papaparse";
 import { mkdirSync, readFileSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
@@ -76,7 +77,11 @@ describe("scenarios, runs and results in the browser", () => {
     const download = page.waitForEvent("download");
     await table.getByRole("button", { name: "Download CSV" }).click();
     const csv = readFileSync(await (await download).path(), "utf8");
-    expect(csv.split(/\r?\n/)[0]).toMatch(/^#.*planning/i);
+    // one header row; the caution first in the last column, Notes (docs/exports.md)
+    const parsed = Papa.parse<Record<string, string>>(csv, { header: true, skipEmptyLines: true });
+    expect(parsed.errors).toEqual([]);
+    expect(parsed.meta.fields?.[0]).toBe("Permit id");
+    expect(parsed.data[0].Notes).toMatch(/^Planning-level estimates/);
     expect(csv).toMatch(/DP-1001/);
     await page.screenshot({ path: `${SHOTS}/run-allocation-results.png`, fullPage: true });
   });
