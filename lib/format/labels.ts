@@ -217,6 +217,7 @@ export const conditionName = (name: string): string => (name === UNNAMED_CONDITI
 export const SCENARIO_FIELD_LABELS = {
   flowScale: "Flow scale",
   designFlow: "Design flow",
+  outletFlow: "Design flow at the outlet",
   designTemperature: "Design temperature",
   kd: "Deoxygenation k_d",
   ka: "Reaeration k_a",

@@ -24,7 +24,12 @@ export const conditionSchema = z.object({
    * When given it sets the scale instead of flowScale: every reach's network design flow
    * times outletFlowM3s / the network's own outlet flow. null = use flowScale.
    */
-  outletFlowM3s: z.number().positive("design flow at the outlet must be above zero").max(100_000).nullable().default(null),
+  outletFlowM3s: z
+    .number({ message: `${L.outletFlow} must be a number` })
+    .positive(`${L.outletFlow} must be above zero`)
+    .max(100_000, `${L.outletFlow} must be at most 100 000 m³/s`)
+    .nullable()
+    .default(null),
   /** Design flow entered per reach (m³/s), overriding the network's value. */
   reachFlowsM3s: z
     .record(z.string(), z.number({ message: `${L.designFlow} must be a number` }).positive(`${L.designFlow} must be above zero`).max(100_000, `${L.designFlow} must be at most 100 000 m³/s`).nullable())
