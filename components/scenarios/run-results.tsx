@@ -1,4 +1,5 @@
 "use client";
+import { nameOf, RUN_KIND_NAMES, RUN_STATUS_NAMES, THETA_RULE_NAMES } from "@/lib/format/labels";
 import { useBasinZone } from "@/components/layout/basin-zone";
 import { formatWhen } from "@/lib/format/zoned-time";
 import type { FeatureCollection } from "geojson";
@@ -67,13 +68,17 @@ export function RunResults({
   const from = startReach ?? heads[0];
   const about = [
     `${basinName} — scenario "${run.scenarioName}" v${run.scenarioVersion}`,
-    `run ${run.id} (${run.kind})${run.finishedAt ? `, finished ${formatWhen(new Date(run.finishedAt), zone)}` : ""}`,
+    `run ${run.id} (${nameOf(RUN_KIND_NAMES, run.kind).toLowerCase()})${run.finishedAt ? `, finished ${formatWhen(new Date(run.finishedAt), zone)}` : ""}`,
     ...(result?.conditions.length ? [conditionsLine(result)] : []),
   ];
   const stem = `${run.scenarioName.replace(/[^\w-]+/g, "-").toLowerCase()}-${run.kind}`;
 
   if (run.status === "queued" || run.status === "running") {
-    return <Notice tone="info">This run is {run.status} ({Math.round(run.progress * 100)}%). The page updates by itself.</Notice>;
+    return (
+      <Notice tone="info">
+        {nameOf(RUN_STATUS_NAMES, run.status)} ({Math.round(run.progress * 100)} %). The page updates by itself.
+      </Notice>
+    );
   }
   if (run.status === "failed" || !result || !condition || !read) {
     return (
@@ -215,6 +220,7 @@ export function RunResults({
               model={run.modelFiles[Math.min(i, run.modelFiles.length - 1)].file}
               network={network}
               condition={c.name}
+              unitSystem={unitSystem}
               label={several ? `Reaches GeoJSON, ${quoted(c.name)}` : "Reaches GeoJSON"}
               fileName={several ? `${fileStem(c.name)}-reaches.geojson` : `${stem}-reaches.geojson`}
               about={about}
@@ -225,7 +231,7 @@ export function RunResults({
           Every export names the condition it holds; the profile CSV follows the condition shown on the map.
         </p>
         <p className="text-sm text-ink-soft">
-          Model {run.modelVersion}; deoxygenation θ rule: {String(run.methods.deoxygenation_theta_rule ?? "constant")}; saturation:{" "}
+          Model {run.modelVersion}; deoxygenation temperature correction: {nameOf(THETA_RULE_NAMES, run.methods.deoxygenation_theta_rule ?? "constant")}; saturation:{" "}
           {String(run.methods.saturation ?? "")}. The model file reproduces this run with <code>npm run model</code> or{" "}
           <code>npm run allocate</code>. Inputs hash <span className="font-mono text-xs">{run.inputsHash.slice(0, 16)}…</span>
         </p>

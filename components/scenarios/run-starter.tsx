@@ -1,4 +1,5 @@
 "use client";
+import { nameOf, RUN_KIND_NAMES, RUN_STATUS_NAMES } from "@/lib/format/labels";
 import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
@@ -58,7 +59,7 @@ function RunProgress({ basinId, runId }: { basinId: string; runId: string }) {
         />
       </div>
       <p className="text-sm">
-        {data.kind === "allocation" ? "Allocation" : "Model"} run: <strong>{data.status}</strong>
+        {nameOf(RUN_KIND_NAMES, data.kind)}: <strong>{nameOf(RUN_STATUS_NAMES, data.status).toLowerCase()}</strong>
         {data.status === "done" && (
           <>
             {" "}

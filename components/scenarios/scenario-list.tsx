@@ -6,7 +6,7 @@ import { useBasinZone } from "@/components/layout/basin-zone";
 import { Button } from "@/components/ui/button";
 import { formatTime } from "@/lib/format/zoned-time";
 import { Notice } from "@/components/ui/notice";
-import { nameOf, OBJECTIVE_NAMES } from "@/lib/format/labels";
+import { nameOf, OBJECTIVE_NAMES, RUN_KIND_NAMES, RUN_STATUS_NAMES } from "@/lib/format/labels";
 import {
   useCreateScenarioMutation,
   useDeleteScenarioMutation,
@@ -160,7 +160,7 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
                   <td>
                     <input
                       type="checkbox"
-                      aria-label={`Compare run of ${r.scenarioName} (${r.kind}) from ${when(r.createdAt)}`}
+                      aria-label={`Compare run of ${r.scenarioName} (${nameOf(RUN_KIND_NAMES, r.kind).toLowerCase()}) from ${when(r.createdAt)}`}
                       disabled={r.status !== "done"}
                       checked={picked.includes(r.id)}
                       onChange={(e) => setPicked((p) => (e.target.checked ? [...p, r.id] : p.filter((x) => x !== r.id)))}
@@ -169,11 +169,11 @@ export function ScenarioList({ basinId, canEdit }: { basinId: string; canEdit: b
                   <td>
                     {r.scenarioName} <span className="text-xs text-ink-faint">v{r.scenarioVersion}</span>
                   </td>
-                  <td>{r.kind}</td>
+                  <td>{nameOf(RUN_KIND_NAMES, r.kind)}</td>
                   <td>
                     <span className={r.status === "failed" ? "text-clay-700" : r.status === "done" ? "text-reed-700" : "text-ochre-700"}>
-                      {r.status}
-                      {r.status === "running" ? ` ${Math.round(r.progress * 100)}%` : ""}
+                      {nameOf(RUN_STATUS_NAMES, r.status)}
+                      {r.status === "running" ? ` ${Math.round(r.progress * 100)} %` : ""}
                     </span>
                     {r.error && <span className="block text-xs text-clay-700">{r.error}</span>}
                   </td>

@@ -8,6 +8,7 @@ import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { formatDo } from "@/lib/results/do-scale";
 import { conditionRows, quoted, runConditions } from "@/lib/results/run-conditions";
 import { headwaterReaches, pathToOutlet } from "@/lib/results/path";
+import { DEFAULT_HEADWATER_DO_TEXT } from "@/lib/scenarios/design-defaults";
 import { profileSeries } from "@/lib/results/profile-series";
 import { resultsGeoJson } from "@/lib/results/results-geojson";
 import { acknowledgementNote, acknowledgementSummary, type PublicationAcknowledgementLike, type ThreadForSummary } from "@/lib/results/responsiveness";
@@ -235,7 +236,7 @@ function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, 
       heading: "Headwater and tributary water",
       items: [
         { label: "CBODu / NBODu", value: `${num(i.headwater.cbodUMgL, 2)} / ${num(i.headwater.nbodUMgL, 2)} mg/L` },
-        { label: "DO", value: `${num(i.headwater.doMgL, 2)} mg/L` },
+        { label: "DO", value: i.headwater.doMgL === null || i.headwater.doMgL === undefined ? DEFAULT_HEADWATER_DO_TEXT : `${num(i.headwater.doMgL, 2)} mg/L` },
         { label: "Temperature", value: t(i.headwater.temperatureC) },
         { label: "Inflows with their own quality", value: String(Object.keys(i.inflowOverrides ?? {}).length) },
       ],

@@ -72,7 +72,7 @@ describe("security headers in the production server", () => {
     expect(await inkPixels(page, map)).toBeGreaterThan(2000);
     // a CSV built in the browser is a blob: download
     const download = page.waitForEvent("download");
-    await page.getByRole("button", { name: "Download CSV" }).first().click();
+    await page.getByRole("button", { name: "Download profile CSV" }).first().click();
     await download;
     expect(problems).toEqual([]);
     await page.close();
