@@ -1,4 +1,5 @@
 "use client";
+import { SCENARIO_FIELD_LABELS as LABELS } from "@/lib/format/labels";
 import type { Control, FieldValues, Path } from "react-hook-form";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
@@ -45,13 +46,13 @@ export function DischargerInputs<T extends FieldValues>({
             </p>
           </div>
           <div className="flex flex-col">
-            <UnitField control={control} name={field(o.permitId, "designFlowM3s")} label="Design flow" kind="flow" system={system} nullable alignBottom />
+            <UnitField control={control} name={field(o.permitId, "designFlowM3s")} label={LABELS.designFlow} kind="flow" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">
               network: {formatIn("flow", n(o.attributes.designFlowM3s), system)} {unitLabel("flow", system)}
             </p>
           </div>
           <div className="flex flex-col">
-            <UnitField control={control} name={field(o.permitId, "bod5MgL")} label="Effluent BOD5" plainUnit="mg/L" system={system} nullable alignBottom />
+            <UnitField control={control} name={field(o.permitId, "bod5MgL")} label={LABELS.effluentBod5} plainUnit="mg/L" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.effluentBod5MgL)?.toFixed(1) ?? "—"} mg/L</p>
           </div>
           <div className="flex flex-col">
@@ -59,15 +60,15 @@ export function DischargerInputs<T extends FieldValues>({
             <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.effluentCbodUMgL)?.toFixed(1) ?? "—"} mg/L</p>
           </div>
           <div className="flex flex-col">
-            <UnitField control={control} name={field(o.permitId, "bottleKPerDay")} label="Bottle rate k1" plainUnit="1/d" system={system} nullable alignBottom />
+            <UnitField control={control} name={field(o.permitId, "bottleKPerDay")} label={LABELS.bottleRate} plainUnit="1/d" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.bottleRatePerDay)?.toFixed(2) ?? "0.23 (default)"} 1/d</p>
           </div>
           <div className="flex flex-col">
-            <UnitField control={control} name={field(o.permitId, "doMgL")} label="Effluent DO" plainUnit="mg/L" system={system} nullable alignBottom />
+            <UnitField control={control} name={field(o.permitId, "doMgL")} label={LABELS.effluentDo} plainUnit="mg/L" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">network: {n(o.attributes.dissolvedOxygenMgL)?.toFixed(1) ?? "—"} mg/L</p>
           </div>
           <div className="flex flex-col">
-            <UnitField control={control} name={field(o.permitId, "temperatureC")} label="Effluent temperature" kind="temperature" system={system} nullable alignBottom />
+            <UnitField control={control} name={field(o.permitId, "temperatureC")} label={LABELS.effluentTemperature} kind="temperature" system={system} nullable alignBottom />
             <p className="mt-1 text-xs text-ink-faint">
               network: {formatIn("temperature", n(o.attributes.temperatureC), system)} {unitLabel("temperature", system)}
             </p>

@@ -1,4 +1,5 @@
 "use client";
+import { SCENARIO_FIELD_LABELS as LABELS } from "@/lib/format/labels";
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useState } from "react";
@@ -171,7 +172,7 @@ export function ScenarioEditor({
       )}
       <fieldset disabled={!canEdit} className="space-y-6">
         <section className="card grid gap-4 md:grid-cols-2">
-          <Field label="Scenario name" error={errors.name?.message} {...register("name")} />
+          <Field label={LABELS.scenarioName} error={errors.name?.message} {...register("name")} />
           <Field label="Description" error={errors.description?.message} {...register("description")} />
           <div>
             <span className="field-label">DO criterion</span>
@@ -183,9 +184,9 @@ export function ScenarioEditor({
               />
               Use the basin&apos;s criterion ({basinCriterion.toFixed(1)} mg/L)
             </label>
-            {criterionOverride !== null && num("Criterion for this scenario", "inputs.criterionDoMgL", "mg/L")}
+            {criterionOverride !== null && num(LABELS.criterion, "inputs.criterionDoMgL", "mg/L")}
           </div>
-          <UnitField control={control} name="inputs.stepKm" label="Profile spacing" kind="length" system={unitSystem} />
+          <UnitField control={control} name="inputs.stepKm" label={LABELS.stepKm} kind="length" system={unitSystem} />
         </section>
 
         <section className="card space-y-3">
@@ -225,7 +226,7 @@ export function ScenarioEditor({
                   </p>
                 </div>
               ) : (
-                num("Flow scale", `inputs.conditions.${i}.flowScale`, "× design flow")
+                num(LABELS.flowScale, `inputs.conditions.${i}.flowScale`, "× design flow")
               )}
               <UnitField
                 control={control}
@@ -239,7 +240,7 @@ export function ScenarioEditor({
               <UnitField
                 control={control}
                 name={`inputs.conditions.${i}.temperatureC`}
-                label="Design temperature"
+                label={LABELS.designTemperature}
                 kind="temperature"
                 system={unitSystem}
                 nullable
@@ -278,9 +279,9 @@ export function ScenarioEditor({
               <option value="piecewise">1.135 below 20 °C, 1.056 to 30 °C, 1.047 above</option>
             </select>
           </div>
-          {num("Settling k_s", "inputs.kinetics.ks20PerDay", "1/d")}
-          {num("Sediment oxygen demand", "inputs.kinetics.sod20GPerM2Day", "g O₂/m²/d")}
-          {num("Nitrification k_n", "inputs.kinetics.kn20PerDay", "1/d")}
+          {num(LABELS.ks, "inputs.kinetics.ks20PerDay", "1/d")}
+          {num(LABELS.sod, "inputs.kinetics.sod20GPerM2Day", "g O₂/m²/d")}
+          {num(LABELS.kn, "inputs.kinetics.kn20PerDay", "1/d")}
         </section>
 
         <section className="card grid gap-4 md:grid-cols-4">
@@ -329,15 +330,15 @@ export function ScenarioEditor({
           <UnitField
             control={control}
             name="inputs.allocation.floorBod5MgL"
-            label="Technology floor, effluent BOD5"
+            label={LABELS.floorBod5}
             plainUnit="mg/L"
             system={unitSystem}
             nullable
             hint="e.g. 30 mg/L for secondary treatment; blank for none. Today's load is the ceiling."
           />
-          {num("Margin of safety as DO", "inputs.allocation.mosDoMgL", "mg/L")}
-          {num("Margin of safety as a share of capacity", "inputs.allocation.mosFraction", "0–0.9")}
-          {num("Reserve capacity as a share", "inputs.allocation.reserveFraction", "0–0.9")}
+          {num(LABELS.mosDo, "inputs.allocation.mosDoMgL", "mg/L")}
+          {num(LABELS.mosFraction, "inputs.allocation.mosFraction", "0–0.9")}
+          {num(LABELS.reserveFraction, "inputs.allocation.reserveFraction", "0–0.9")}
         </section>
       </fieldset>
 
