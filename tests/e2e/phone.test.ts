@@ -118,8 +118,8 @@ beforeAll(async () => {
   db = createDb(inject("e2eDatabaseUrl"), 2);
   w = await buildWorld(db);
   await readerBasin(db, w);
-  published = await planAt("published", "Tamsel River DO plan for the summer low-flow season");
-  inReview = await planAt("open", "Tamsel River DO plan, revised");
+  published = await planAt("published", "Phone check: DO plan for the summer low-flow season");
+  inReview = await planAt("open", "Phone check: DO plan, revised");
   scenarioId = inReview.scenarioId;
   browser = await launchBrowser();
 });
@@ -328,10 +328,9 @@ describe("pages that are not there, and pages on their way", () => {
         await frozen.goto(`${baseUrl}${basin()}/runs/${inReview.runId}`);
         const skeleton = frozen.getByTestId("loading-skeleton").filter({ visible: true });
         expect(await skeleton.count()).toBe(1);
-        // under the workspace header; the run's own skeleton (its card headings) streams in behind
-        // the basin's frame, swapped in as each part arrives
-        expect(await frozen.getByTestId("signed-in-as").isVisible()).toBe(true);
-        expect(await frozen.getByTestId("loading-skeleton").locator("h2", { hasText: "Reaches" }).count()).toBe(1);
+        // inside the basin's own frame (its name and tabs), with the run page's card headings
+        expect(await frozen.getByRole("navigation", { name: "Basin sections" }).isVisible()).toBe(true);
+        expect(await skeleton.locator("h2", { hasText: "Reaches" }).count()).toBe(1);
         await frozen.screenshot({ path: `${SHOTS}/${viewport === PHONE ? "phone" : "wide"}-loading-run-planner.png`, fullPage: true });
         await still.close();
       }
