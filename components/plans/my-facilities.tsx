@@ -1,4 +1,5 @@
 "use client";
+import type { PlanSnapshot } from "@/lib/plans/snapshot";
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import { PlanningCaution } from "@/components/results/planning-caution";
@@ -6,7 +7,7 @@ import { ProfileChart } from "@/components/results/profile-chart";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/db/schema";
 import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
-import type { AllocationEntry, AllocationResult, ModelFile, RunResult } from "@/lib/model";
+import type { AllocationEntry, ModelFile } from "@/lib/model";
 import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
 import { isBelowCriterion } from "@/lib/results/do-scale";
 import { downstreamOf, profileSeries } from "@/lib/results/profile-series";
@@ -15,13 +16,6 @@ import { PLAN_STAGE_TEXT, type PlanStage } from "@/lib/plans/review-rules";
 import { runConditions } from "@/lib/results/run-conditions";
 import { usePlanActs } from "./plan-acts";
 import { Thread } from "./plan-view";
-
-interface Snapshot {
-  run: {
-    result: { allocation: AllocationResult; conditions: { name: string; run: RunResult }[] };
-    modelFiles: { name?: string; file: ModelFile }[];
-  };
-}
 
 export interface MyFacility {
   id: string;
@@ -61,7 +55,7 @@ export function MyFacilities({
   const { data } = usePlanQuery(basinId, initial.id, initial);
   const plan = data ?? initial;
   const { act, failure } = usePlanActs(basinId, plan.id);
-  const snapshot = plan.snapshot as unknown as Snapshot;
+  const snapshot = plan.snapshot;
   const model = snapshot.run.modelFiles[0].file;
   const open = plan.review?.open === true;
   const shown = plans.find((p) => p.id === plan.id);
@@ -219,8 +213,8 @@ function BelowOutfall({
   permitId,
   unitSystem,
 }: {
-  result: Snapshot["run"]["result"];
-  modelFiles: Snapshot["run"]["modelFiles"];
+  result: PlanSnapshot["run"]["result"];
+  modelFiles: PlanSnapshot["run"]["modelFiles"];
   permitId: string;
   unitSystem: UnitSystem;
 }) {

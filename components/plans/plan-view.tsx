@@ -11,7 +11,6 @@ import { formatTime } from "@/lib/format/zoned-time";
 import type { UnitSystem } from "@/db/schema";
 import { nameOf, ROLE_NAMES, THREAD_STATUS_NAMES } from "@/lib/format/labels";
 import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
-import type { ModelFile, RunResult } from "@/lib/model";
 import { governingCondition, headwaterReaches, type StoredRunResult } from "@/lib/results";
 import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
 import { FieldMessage, failureFor, usePlanActs, type Act, type ActFailure } from "./plan-acts";
@@ -165,13 +164,9 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
   );
 }
 
-interface PlanSnapshot {
-  run: { result: { conditions: { run: RunResult }[] }; modelFiles: { file: ModelFile }[] };
-}
-
 /** DO along the river with every discharger at its proposed allocation: why the allocations are what they are. */
 function PlanProfile({ plan, unitSystem }: { plan: PlanDto; unitSystem: UnitSystem }) {
-  const snapshot = plan.snapshot as unknown as PlanSnapshot;
+  const snapshot = plan.snapshot;
   const model = snapshot.run.modelFiles[0].file;
   const heads = useMemo(() => headwaterReaches(model), [model]);
   const [from, setFrom] = useState(heads[0]);

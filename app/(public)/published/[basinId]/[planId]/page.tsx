@@ -7,7 +7,6 @@ import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db/client";
 import { currentActor } from "@/lib/auth/session";
 import { formatWhen } from "@/lib/format/zoned-time";
-import type { AllocationResult, ModelFile, RunResult } from "@/lib/model";
 import { planReport, readSnapshot } from "@/lib/reports/plan-report-data";
 import { governingCondition } from "@/lib/results/governing";
 import { acknowledgementSummary, responsivenessRows } from "@/lib/results/responsiveness";
@@ -16,17 +15,14 @@ import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
 export const metadata: Metadata = { title: "Published plan" };
 export const dynamic = "force-dynamic";
 
-interface Snapshot {
-  run: { result: { allocation: AllocationResult; conditions: { run: RunResult }[] }; modelFiles: { file: ModelFile }[] };
-}
-
 /** A published plan, readable without signing in. */
 export default async function PublishedPlanPage({ params }: { params: Promise<{ basinId: string; planId: string }> }) {
   const { basinId, planId } = await params;
   const found = await getPublishedPlanWithMap(getDb(), await currentActor(), basinId, planId);
   if (!found) notFound();
   const { plan, basin, network } = found;
-  const snapshot = plan.snapshot as unknown as Snapshot;
+  // checked against its schema when the plan was read (lib/plans/snapshot.ts)
+  const snapshot = plan.snapshot;
   const record = readSnapshot(plan.snapshot);
   // the PDF's methods, word for word; the critical conditions get their own table below
   const methods = planReport(plan, { name: basin.name, unitSystem: basin.unitSystem }, null).methods.filter((g) => g.heading !== "Critical conditions");
