@@ -59,7 +59,8 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
   const [typedEnd, setNewEnd] = useState("");
   const newEnd = typedEnd || (plan.review ? isoToZoned(new Date(Date.parse(plan.review.endsAt) + 14 * DAY).toISOString(), periodZone) : "");
   const [reason, setReason] = useState("");
-  if (!can.manageReview && !can.publish) return null;
+  // nothing is left to do on a published or withdrawn plan: no empty card
+  if ((!can.manageReview && !can.publish) || plan.status === "published" || plan.status === "withdrawn") return null;
   const p = `/plans/${plan.id}`;
   const start = opensNow ? new Date().toISOString() : zonedToIso(startsAt, timeZone);
   const end = zonedToIso(endsAt, timeZone);
