@@ -1,4 +1,5 @@
 "use client";
+import { StartReachSelect } from "./start-reach-select";
 import { useMemo, useState } from "react";
 import { CartesianGrid, ComposedChart, Legend, Line, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import type { UnitSystem } from "@/db/schema";
@@ -61,19 +62,7 @@ export function ProfileOverlayChart({ runs, unitSystem, height = 380 }: { runs: 
     <section className="card space-y-3" data-testid="profile-overlay">
       <div className="flex flex-wrap items-end gap-3">
         <h2 className="grow">DO along the river, run by run</h2>
-        <div>
-          <label htmlFor="overlay-start" className="field-label">
-            From
-          </label>
-          <select id="overlay-start" className="field-input" value={from} onChange={(e) => setFrom(e.target.value)}>
-            {first.reaches.map((x) => (
-              <option key={x.id} value={x.id}>
-                {x.id}
-                {heads.includes(x.id) ? " (headwater)" : ""}
-              </option>
-            ))}
-          </select>
-        </div>
+        <StartReachSelect id="overlay-start" model={first} heads={heads} value={from} onChange={setFrom} />
         <div>
           <label htmlFor="overlay-condition" className="field-label">
             Condition

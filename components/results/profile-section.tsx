@@ -1,4 +1,5 @@
 "use client";
+import { StartReachSelect } from "./start-reach-select";
 import { useMemo, type ReactNode } from "react";
 import type { UnitSystem } from "@/db/schema";
 import type { ModelFile, RunResult } from "@/lib/model";
@@ -36,19 +37,7 @@ export function ProfileSection({
     <section className="card space-y-3">
       <div className="flex flex-wrap items-end gap-3">
         <h2 className="grow">{title}</h2>
-        <div>
-          <label htmlFor="profile-start" className="field-label">
-            From
-          </label>
-          <select id="profile-start" className="field-input" value={from} onChange={(e) => onFrom(e.target.value)}>
-            {model.reaches.map((x) => (
-              <option key={x.id} value={x.id}>
-                {x.id}
-                {heads.includes(x.id) ? " (headwater)" : ""}
-              </option>
-            ))}
-          </select>
-        </div>
+        <StartReachSelect id="profile-start" model={model} heads={heads} value={from} onChange={onFrom} />
         {csv && <ProfileCsvButton series={series} fileName={`${csv.fileStem}-profile-${from}.csv`} about={csv.about} condition={csv.condition} />}
       </div>
       {children}

@@ -64,8 +64,9 @@ export const insertReaches = (db: Db, rows: Insertable<ReachesTable>[]) =>
 export const insertOutfalls = (db: Db, rows: Insertable<OutfallsTable>[]) =>
   insertChunked(rows, 1000, (c) => db.insertInto("outfalls").values(c).execute());
 
-export async function listNetworks(db: Db, basinId: string) {
-  return db
+/** A basin's network versions with their size and who saved each, newest first. */
+export const networkSummaries = (db: Db, basinId: string) =>
+  db
     .selectFrom("networks as n")
     .leftJoin("users as u", "u.id", "n.created_by")
     .select([
@@ -80,8 +81,10 @@ export async function listNetworks(db: Db, basinId: string) {
         eb.selectFrom("outfalls as o").whereRef("o.network_id", "=", "n.id").select((e) => e.fn.countAll<string>().as("c")).as("outfall_count"),
     ])
     .where("n.basin_id", "=", basinId)
-    .orderBy("n.version", "desc")
-    .execute();
+    .orderBy("n.version", "desc");
+
+export async function listNetworks(db: Db, basinId: string) {
+  return networkSummaries(db, basinId).execute();
 }
 
 export async function findNetwork(db: Db, basinId: string, networkId: string) {

@@ -1,3 +1,4 @@
+import { networkSummaries } from "./networks";
 import { sql } from "kysely";
 import type { Db } from "../client";
 
@@ -51,21 +52,5 @@ export async function doneRunOutcomes(db: Db, basinId: string, limit = 200): Pro
 
 /** The basin's newest network version with its size and who saved it. */
 export async function currentNetworkSummary(db: Db, basinId: string) {
-  return db
-    .selectFrom("networks as n")
-    .leftJoin("users as u", "u.id", "n.created_by")
-    .select([
-      "n.id",
-      "n.version",
-      "n.total_length_km",
-      "n.note",
-      "n.created_at",
-      "u.name as created_by_name",
-      (eb) => eb.selectFrom("reaches as r").whereRef("r.network_id", "=", "n.id").select((e) => e.fn.countAll<string>().as("c")).as("reach_count"),
-      (eb) => eb.selectFrom("outfalls as o").whereRef("o.network_id", "=", "n.id").select((e) => e.fn.countAll<string>().as("c")).as("outfall_count"),
-    ])
-    .where("n.basin_id", "=", basinId)
-    .orderBy("n.version", "desc")
-    .limit(1)
-    .executeTakeFirst();
+  return networkSummaries(db, basinId).limit(1).executeTakeFirst();
 }

@@ -216,6 +216,19 @@ export function reachFeature(r: { reach_key: string; name: string | null; length
   };
 }
 
+/** A stored outfall as a map feature, snapped to its reach (the maps key outfalls by `outfall:<permit id>`); `name` overrides the facility's. */
+export function outfallFeature(
+  o: { permit_id: string; facility_name: string; snapped_lon: number; snapped_lat: number; reach_key: string; chainage_km: number; snap_distance_m: number },
+  name: string = o.facility_name,
+): Feature {
+  return {
+    type: "Feature",
+    id: `outfall:${o.permit_id}`,
+    geometry: { type: "Point", coordinates: [o.snapped_lon, o.snapped_lat] },
+    properties: { kind: "outfall", id: o.permit_id, name, reachId: o.reach_key, chainageKm: o.chainage_km, snapDistanceM: o.snap_distance_m },
+  };
+}
+
 /** One network version with its reaches, nodes and outfalls (tables and map GeoJSON). */
 export async function getNetwork(db: Db, actor: Actor | null, basinId: string, networkId: string | "latest"): Promise<NetworkDto> {
   const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
@@ -233,21 +246,7 @@ export async function getNetwork(db: Db, actor: Actor | null, basinId: string, n
         properties: { kind: "node", id: x.node_key, nodeKind: x.kind },
       }),
     ),
-    ...outfalls.map(
-      (o): Feature => ({
-        type: "Feature",
-        id: `outfall:${o.permit_id}`,
-        geometry: { type: "Point", coordinates: [o.snapped_lon, o.snapped_lat] },
-        properties: {
-          kind: "outfall",
-          id: o.permit_id,
-          name: o.facility_name,
-          reachId: o.reach_key,
-          chainageKm: o.chainage_km,
-          snapDistanceM: o.snap_distance_m,
-        },
-      }),
-    ),
+    ...outfalls.map((o) => outfallFeature(o)),
   ];
   return {
     id: n.id,

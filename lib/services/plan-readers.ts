@@ -6,7 +6,7 @@ import { isFollowing } from "@/db/queries/follows";
 import { networkOutfalls } from "@/db/queries/networks";
 import { planReachLines } from "@/db/queries/plan-reports";
 import { requireActor, type Actor } from "@/lib/auth/guard";
-import { reachFeature } from "./networks";
+import { outfallFeature, reachFeature } from "./networks";
 import { getPlanForReader, listPublishedPlans, listReviews } from "./plans";
 
 /**
@@ -53,23 +53,7 @@ export async function getPlanForReaderWithMap(db: Db, actor: Actor | null, basin
   const [reaches, outfalls] = await Promise.all([planReachLines(db, found.plan.id), networkId ? networkOutfalls(db, networkId) : Promise.resolve([])]);
   const features: Feature[] = [
     ...reaches.map(reachFeature),
-    ...outfalls
-      .filter((o) => names.has(o.permit_id))
-      .map(
-        (o): Feature => ({
-          type: "Feature",
-          id: `outfall:${o.permit_id}`,
-          geometry: { type: "Point", coordinates: [o.snapped_lon, o.snapped_lat] },
-          properties: {
-            kind: "outfall",
-            id: o.permit_id,
-            name: names.get(o.permit_id) ?? o.facility_name,
-            reachId: o.reach_key,
-            chainageKm: o.chainage_km,
-            snapDistanceM: o.snap_distance_m,
-          },
-        }),
-      ),
+    ...outfalls.filter((o) => names.has(o.permit_id)).map((o) => outfallFeature(o, names.get(o.permit_id))),
   ];
   const network: FeatureCollection = { type: "FeatureCollection", features };
   return { ...found, network };
