@@ -1,7 +1,10 @@
-import jStat from "jstat";
+import { createRequire } from "node:module";
 import { describe, expect, it } from "vitest";
 import { designTemperature, percentile, type DailyValue } from "@/lib/hydrology/design-temperature";
 import { transferByDrainageArea } from "@/lib/hydrology/transfer";
+
+// jStat: an independent library's quantiles (a CommonJS bundle without types)
+const { jStat } = createRequire(import.meta.url)("jstat") as { jStat: { quantiles(values: number[], p: number[], alphap: number, betap: number): number[] } };
 
 describe("drainage-area transfer", () => {
   it("scales by the area ratio to the exponent (analytic)", () => {
