@@ -1,11 +1,13 @@
 import type { ColumnType, Generated, Insertable, Selectable, Updateable } from "kysely";
+import type { BasinRole, ImportFormat, ImportLayer, PlanStatus, RunKind, RunStatus, ThreadStatus, UnitSystem } from "@/lib/domain";
+
+// The vocabulary's types come from lib/domain (one tuple each); re-exported here for the
+// queries and services that have always read them from the schema.
+export type { BasinRole, ImportFormat, ImportLayer, PlanStatus, RunKind, RunStatus, ThreadStatus, UnitSystem };
 
 /** Timestamps: read as Date, written as Date or ISO string, defaulted by the database. */
 type CreatedAt = ColumnType<Date, Date | string | undefined, never>;
 type UpdatedAt = ColumnType<Date, Date | string | undefined, Date | string>;
-
-export type UnitSystem = "SI" | "US";
-export type BasinRole = "lead" | "planner" | "discharger" | "stakeholder";
 
 export interface UsersTable {
   id: Generated<string>;
@@ -70,8 +72,6 @@ export interface AuditEventsTable {
   created_at: CreatedAt;
 }
 
-export type ImportLayer = "reaches" | "dischargers";
-export type ImportFormat = "shapefile" | "geojson" | "csv";
 type Json<T> = ColumnType<T, string, string>;
 
 export interface ImportsTable {
@@ -157,9 +157,6 @@ export interface OutfallsTable {
   source_index: number;
 }
 
-export type RunKind = "model" | "allocation";
-export type RunStatus = "queued" | "running" | "done" | "failed";
-
 export interface ScenariosTable {
   id: Generated<string>;
   basin_id: string;
@@ -193,8 +190,6 @@ export interface RunsTable {
   started_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
   finished_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
 }
-
-export type PlanStatus = "draft" | "review" | "closed" | "published" | "withdrawn";
 
 export interface PlansTable {
   id: Generated<string>;
@@ -273,7 +268,7 @@ export interface ThreadsTable {
   id: Generated<string>;
   plan_id: string;
   facility_id: string | null;
-  status: ColumnType<"open" | "addressed", "open" | "addressed" | undefined, "open" | "addressed">;
+  status: ColumnType<ThreadStatus, ThreadStatus | undefined, ThreadStatus>;
   response: ColumnType<string | null, string | null | undefined, string | null>;
   responded_by: ColumnType<string | null, string | null | undefined, string | null>;
   responded_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;

@@ -1,3 +1,4 @@
+import { IMPORT_DEFAULTS } from "@/lib/domain";
 import { error, warning, type Problem } from "./problems";
 import { SegmentIndex, type SegmentHit } from "./segment-index";
 import type { LngLat } from "./types";
@@ -18,7 +19,7 @@ export interface SnapPoint {
 }
 
 export interface SnapOptions {
-  /** Points farther than this (m) from every reach are errors unless reassigned. Default 500 m. */
+  /** Points farther than this (m) from every reach are errors unless reassigned. Default IMPORT_DEFAULTS (500 m). */
   maxSnapDistanceM?: number;
   /** Explicit assignments, point name → reach name; the point then snaps onto that reach. */
   reassign?: Readonly<Record<string, string>>;
@@ -62,7 +63,7 @@ export function snapPoints(
   points: readonly SnapPoint[],
   options: SnapOptions = {},
 ): { snapped: SnappedPoint[]; problems: Problem[] } {
-  const maxM = options.maxSnapDistanceM ?? 500;
+  const maxM = options.maxSnapDistanceM ?? IMPORT_DEFAULTS.maxSnapDistanceM;
   const index = new SegmentIndex(reaches.map((r) => r.coordinates));
   const byName = new Map<string, number>();
   reaches.forEach((r, i) => {

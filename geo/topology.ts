@@ -1,3 +1,4 @@
+import { IMPORT_DEFAULTS } from "@/lib/domain";
 import { distance, lengthToDegrees, nearestPointOnLine } from "@turf/turf";
 import { lineLengthKm } from "./geodesic";
 import { BoxGrid } from "./box-grid";
@@ -25,7 +26,7 @@ export interface TopologyLine {
 export type OutletChoice = { nodeId: string } | { reachId: string };
 
 export interface TopologyOptions {
-  /** Line ends closer than this (m) are joined into one node. Default 5 m. */
+  /** Line ends closer than this (m) are joined into one node. Default IMPORT_DEFAULTS (5 m). */
   toleranceM?: number;
   /** Unjoined ends closer than this (m) are reported as gaps. Default max(50 m, 10 × tolerance). */
   gapSearchM?: number;
@@ -324,7 +325,7 @@ function resolveChoice(choice: OutletChoice, lines: readonly TopologyLine[], g: 
  * reach_reversed.
  */
 export function buildTopology(lines: readonly TopologyLine[], options: TopologyOptions = {}): Topology {
-  const toleranceM = options.toleranceM ?? 5;
+  const toleranceM = options.toleranceM ?? IMPORT_DEFAULTS.toleranceM;
   const gapM = options.gapSearchM ?? Math.max(50, 10 * toleranceM);
   const { nodeOf, positions, problems, inGap } = joinEnds(lines, toleranceM, gapM);
   const nodeCount = positions.length;

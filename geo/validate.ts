@@ -1,3 +1,4 @@
+import { IMPORT_DEFAULTS } from "@/lib/domain";
 import type { Geometry } from "geojson";
 import { coordinateProblem, highlight } from "./coordinates";
 import {
@@ -23,7 +24,7 @@ export interface ImportInput {
 }
 
 export interface ValidateOptions extends TopologyOptions, SnapOptions {
-  /** Reaches longer than this (km, model length) get a "should be split" warning. Default 10 km. */
+  /** Reaches longer than this (km, model length) get a "should be split" warning. Default IMPORT_DEFAULTS (10 km). */
   maxReachLengthKm?: number;
   /** A length override that differs from the line length by more than this fraction is flagged. Default 0.25. */
   lengthOverrideTolerance?: number;
@@ -132,7 +133,7 @@ function duplicates<A>(items: readonly Mapped<A>[], idOf: (a: A) => string, what
 }
 
 function emptyNetwork(o: ValidateOptions): ImportNetwork {
-  return { toleranceM: o.toleranceM ?? 5, maxSnapDistanceM: o.maxSnapDistanceM ?? 500, nodes: [], reaches: [], parts: [], dischargers: [], totalLengthKm: 0 };
+  return { toleranceM: o.toleranceM ?? IMPORT_DEFAULTS.toleranceM, maxSnapDistanceM: o.maxSnapDistanceM ?? IMPORT_DEFAULTS.maxSnapDistanceM, nodes: [], reaches: [], parts: [], dischargers: [], totalLengthKm: 0 };
 }
 
 /** Lines from the mapped reaches; features that cannot be used become errors. */
@@ -188,7 +189,7 @@ function crossCheckDownstream(reaches: NetworkReach[], problems: Problem[]) {
 }
 
 function lengthChecks(reaches: NetworkReach[], o: ValidateOptions, problems: Problem[]) {
-  const maxKm = o.maxReachLengthKm ?? 10;
+  const maxKm = o.maxReachLengthKm ?? IMPORT_DEFAULTS.maxReachLengthKm;
   const tol = o.lengthOverrideTolerance ?? 0.25;
   const long = reaches.filter((r) => r.lengthKm > maxKm);
   if (long.length > 0) {

@@ -8,16 +8,15 @@ import { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import type { UnitSystem } from "@/db/schema";
 import { ApiError } from "@/lib/queries/fetcher";
-import { OBJECTIVE_NAMES, REAERATION_NAMES } from "@/lib/format/labels";
+import { ALLOCATION_OBJECTIVES, OBJECTIVE_NAMES, REAERATION_NAMES, THETA_RULE_NAMES, THETA_RULES, type KaMethod, type UnitSystem } from "@/lib/domain";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { DEFAULT_HEADWATER_DO_TEXT, defaultHeadwaterDoMgL, networkOutletFlowM3s } from "@/lib/scenarios/design-defaults";
 import { fromFormKeys, toFormKeys } from "@/lib/scenarios/form-keys";
 import { useNetworksQuery } from "@/lib/queries/networks";
 import { useScenarioQuery, useStartRunMutation, useUpdateScenarioMutation } from "@/lib/queries/scenarios";
 import type { ScenarioDto } from "@/lib/services/scenarios";
-import { OBJECTIVES, scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
+import { scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
 import { DischargerInputs, type OutfallRow } from "./discharger-inputs";
 import { INFLOW_OVERRIDE_FIELDS, REACH_OVERRIDE_FIELDS, ReachInputs, type ReachRow } from "./reach-inputs";
 import { RunStarter } from "./run-starter";
@@ -77,13 +76,10 @@ function fromFormValues(v: FormValues): FormValues {
   };
 }
 
-const OBJECTIVE_LABELS = OBJECTIVE_NAMES;
-/** The reaeration choices the editor offers ("given" rates come per reach, not from this list). */
-const KA_LABELS: Record<string, string> = Object.fromEntries(
-  Object.entries(REAERATION_NAMES)
-    .filter(([k]) => k !== "given")
-    .map(([k, v]) => [k, k === "tsivoglou-neal" ? `${v} (needs slope)` : v]),
-);
+/** The reaeration choices the editor offers, in the names' order ("given" rates come per reach, not from this list). */
+const KA_CHOICES = (Object.entries(REAERATION_NAMES) as [KaMethod, string][])
+  .filter(([k]) => k !== "given")
+  .map(([k, v]) => [k, k === "tsivoglou-neal" ? `${v} (needs slope)` : v] as const);
 
 export function ScenarioEditor({
   basinId,
@@ -260,7 +256,7 @@ export function ScenarioEditor({
               Reaeration where the network gives no k_a
             </label>
             <select id="ka-method" className="field-input" {...register("inputs.kinetics.kaMethod")}>
-              {Object.entries(KA_LABELS).map(([v, l]) => (
+              {KA_CHOICES.map(([v, l]) => (
                 <option key={v} value={v}>
                   {l}
                 </option>
@@ -275,8 +271,12 @@ export function ScenarioEditor({
               Temperature correction of k_d
             </label>
             <select id="theta-rule" className="field-input" {...register("inputs.kinetics.thetaRule")}>
-              <option value="constant">θ = 1.047</option>
-              <option value="piecewise">1.135 below 20 °C, 1.056 to 30 °C, 1.047 above</option>
+              {THETA_RULES.map((r) => (
+                <option key={r} value={r}>
+                  {THETA_RULE_NAMES[r]}
+                  {r === "constant" ? " (1.047)" : ""}
+                </option>
+              ))}
             </select>
           </div>
           {num(LABELS.ks, "inputs.kinetics.ks20PerDay", "1/d")}
@@ -320,9 +320,9 @@ export function ScenarioEditor({
               Objective
             </label>
             <select id="objective" className="field-input" {...register("inputs.allocation.objective")}>
-              {OBJECTIVES.map((o) => (
+              {ALLOCATION_OBJECTIVES.map((o) => (
                 <option key={o} value={o}>
-                  {OBJECTIVE_LABELS[o]}
+                  {OBJECTIVE_NAMES[o]}
                 </option>
               ))}
             </select>

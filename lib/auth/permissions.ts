@@ -1,6 +1,7 @@
-import type { BasinRole } from "@/db/schema";
+import { BASIN_ROLES, type BasinRole } from "@/lib/domain";
 
-export const BASIN_ROLES = ["lead", "planner", "discharger", "stakeholder"] as const satisfies readonly BasinRole[];
+// The roles are domain vocabulary (lib/domain/roles.ts); re-exported for the callers that read them here.
+export { BASIN_ROLES, type BasinRole };
 
 /**
  * Everything a member can do inside one basin. Later features add actions

@@ -3,73 +3,23 @@
  * person (objectives, reaeration formulas, roles, statuses, audit actions, conditions,
  * field labels) is read through here, so a code never reaches a reader as it is stored.
  */
-import type { BasinRole, PlanStatus, RunStatus } from "@/db/schema";
+import { ROLE_GROUP_NAMES, ROLE_NAMES, type BasinRole } from "@/lib/domain";
 
-/** Plain-word names of the scenario choices, shared by the scenario editor and the reports. */
-export const OBJECTIVE_NAMES: Record<string, string> = {
-  "max-total": "Most total load",
-  "min-removal": "Least total removal",
-  "equal-percent": "Equal percent removal",
-  "equal-concentration": "Equal effluent concentration",
-  "max-min-share": "Most even share",
-};
-
-/** Reaeration choices of a scenario and the formulas a run records per reach. */
-export const REAERATION_NAMES: Record<string, string> = {
-  "depth-velocity": "Chosen per reach by depth and velocity",
-  given: "Given rate coefficient",
-  "oconnor-dobbins": "O'Connor–Dobbins",
-  churchill: "Churchill–Elmore–Buckingham",
-  "owens-gibbs": "Owens–Edwards–Gibbs",
-  "tsivoglou-neal": "Tsivoglou–Neal",
-};
-
-/** Temperature rules for deoxygenation (MODEL.md §1). */
-export const THETA_RULE_NAMES: Record<string, string> = {
-  constant: "One θ at every temperature",
-  piecewise: "θ by temperature range (1.135 below 20 °C, 1.056 to 30 °C, 1.047 above)",
-};
-
-/** A member's role in a basin, singular and as a group ("the basin's planners"). */
-export const ROLE_NAMES: Record<BasinRole | "admin", string> = {
-  lead: "Agency lead",
-  planner: "Planner",
-  discharger: "Discharger",
-  stakeholder: "Stakeholder",
-  admin: "Site administrator",
-};
-const ROLE_GROUPS: Record<BasinRole, string> = {
-  lead: "lead",
-  planner: "planners",
-  discharger: "dischargers",
-  stakeholder: "stakeholders",
-};
-
-/** A plan's stored status (the stage a reader sees is PLAN_STAGE_TEXT in lib/plans/review-rules). */
-export const PLAN_STATUS_NAMES: Record<PlanStatus, string> = {
-  draft: "Draft",
-  review: "In review",
-  closed: "Review closed",
-  published: "Published",
-  withdrawn: "Withdrawn",
-};
-
-export const RUN_STATUS_NAMES: Record<RunStatus, string> = {
-  queued: "Waiting to start",
-  running: "Running",
-  done: "Finished",
-  failed: "Failed",
-};
-
-export const RUN_KIND_NAMES: Record<string, string> = {
-  model: "Model run on today's loads",
-  allocation: "Allocation run",
-};
-
-export const THREAD_STATUS_NAMES: Record<string, string> = {
-  open: "Awaiting a response",
-  addressed: "Answered",
-};
+// The names of the domain vocabulary (objectives, reaeration methods, temperature rules,
+// roles, run and plan states, unit systems) are kept beside their codes in lib/domain and
+// read through here like every other display name.
+export {
+  OBJECTIVE_NAMES,
+  PLAN_STATUS_NAMES,
+  REAERATION_NAMES,
+  ROLE_NAMES,
+  RUN_KIND_NAMES,
+  RUN_STATUS_NAMES,
+  THETA_RULE_NAMES,
+  THREAD_STATUS_NAMES,
+  UNIT_SYSTEM_NAMES,
+  unitSystemLabel,
+} from "@/lib/domain";
 
 /** Each recorded audit action as a sentence whose subject is the "Who" column. */
 export const AUDIT_ACTION_NAMES: Record<string, string> = {
@@ -183,8 +133,9 @@ export const SITE_ACTION_PHRASES: Record<string, string> = {
 
 /** "the basin's planners and lead" for the roles given, in the table's order. */
 export function rolesPhrase(roles: readonly BasinRole[]): string {
+  // Lead last: "the basin's planners and lead".
   const order: BasinRole[] = ["planner", "discharger", "stakeholder", "lead"];
-  const names = order.filter((r) => roles.includes(r)).map((r) => ROLE_GROUPS[r]);
+  const names = order.filter((r) => roles.includes(r)).map((r) => ROLE_GROUP_NAMES[r]);
   if (names.length === 0) return "no member of the basin";
   if (names.length === 4) return "every member of the basin";
   const list = names.length === 1 ? names[0] : `${names.slice(0, -1).join(", ")} and ${names[names.length - 1]}`;
@@ -249,4 +200,4 @@ export function titleWithBasin(basinName: string, title: string): string {
   return title.toLowerCase().startsWith(basinName.toLowerCase()) ? title : `${basinName}: ${title}`;
 }
 
-export const nameOf = (names: Record<string, string>, key: unknown): string => names[String(key)] ?? String(key);
+export const nameOf = (names: Readonly<Record<string, string>>, key: unknown): string => names[String(key)] ?? String(key);

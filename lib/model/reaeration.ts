@@ -1,9 +1,9 @@
+import type { DepthVelocityFormula, KaFormula, KaMethod } from "@/lib/domain";
 import { ModelInputError, requirePositive } from "./errors";
 
-/** How a reach's k_a is obtained. `depth-velocity` picks one of the three formulas by H and U. */
-export type KaMethod = "given" | "oconnor-dobbins" | "churchill" | "owens-gibbs" | "tsivoglou-neal" | "depth-velocity";
-/** The formula that actually produced a k_a (recorded with every run). */
-export type KaFormula = Exclude<KaMethod, "depth-velocity">;
+// How a reach's k_a is obtained (KaMethod; `depth-velocity` picks one of the three formulas by H and U)
+// and the formula that actually produced a k_a (KaFormula, recorded with every run) are domain vocabulary.
+export type { KaFormula, KaMethod };
 
 /**
  * O'Connor & Dobbins (1958): k_a = 3.93·U^0.5/H^1.5 (1/d at 20 °C; U m/s, H m).
@@ -61,7 +61,7 @@ export function tsivoglouNeal(u_m_s: number, slope_m_m: number, q_m3_s: number):
  * otherwise H > 3.45·U^2.5 → O'Connor–Dobbins; otherwise Churchill.
  * Example: `selectByDepthVelocity(0.3, 1.2)` → "oconnor-dobbins".
  */
-export function selectByDepthVelocity(u_m_s: number, h_m: number): "owens-gibbs" | "oconnor-dobbins" | "churchill" {
+export function selectByDepthVelocity(u_m_s: number, h_m: number): DepthVelocityFormula {
   requirePositive(u_m_s, ["velocity_m_s"]);
   requirePositive(h_m, ["depth_m"]);
   if (h_m < 0.61) return "owens-gibbs";
@@ -92,7 +92,7 @@ export interface ReaerationResult {
 }
 
 /** The three formulas that need only U and H, by name. */
-const BY_DEPTH_VELOCITY = { "oconnor-dobbins": oconnorDobbins, churchill, "owens-gibbs": owensGibbs } as const;
+const BY_DEPTH_VELOCITY: Record<DepthVelocityFormula, (u_m_s: number, h_m: number) => number> = { "oconnor-dobbins": oconnorDobbins, churchill, "owens-gibbs": owensGibbs };
 
 /**
  * k_a at 20 °C (1/d) for one segment by the requested method, with the optional floor

@@ -1,3 +1,4 @@
+import type { DeoxygenationThetaRule } from "@/lib/domain";
 import { ModelInputError, requireFinite, requirePositive } from "./errors";
 
 /**
@@ -16,8 +17,8 @@ export const DEFAULT_THETA = {
 
 export type ThetaSet = { -readonly [K in keyof typeof DEFAULT_THETA]: number };
 
-/** `constant`: k_d uses θ_deoxygenation at every temperature; `piecewise`: see deoxygenationTheta. */
-export type DeoxygenationThetaRule = "constant" | "piecewise";
+/** `constant`: k_d uses θ_deoxygenation at every temperature; `piecewise`: see deoxygenationTheta (the rules: lib/domain). */
+export type { DeoxygenationThetaRule };
 
 /**
  * Rate at temperature T from its 20 °C value: k_T = k_20 · θ^(T − 20).

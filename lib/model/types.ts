@@ -2,8 +2,7 @@
  * The model file as the computation core sees it (MODEL.md §8). Field names are a contract
  * shared with the CLI, the API and the zod schema in lib/validation/model-file.ts.
  */
-import type { DeoxygenationThetaRule } from "./temperature";
-import type { KaMethod } from "./reaeration";
+import type { AllocationObjective, DeoxygenationThetaRule, KaMethod } from "@/lib/domain";
 
 /** U = a·Q^b (m/s), H = c·Q^f (m), Q in m³/s (Leopold & Maddock 1953). */
 export interface HydraulicGeometry {
@@ -92,7 +91,8 @@ export interface KineticsInput {
   deoxygenation_rule?: DeoxygenationThetaRule;
 }
 
-export type AllocationObjective = "max-total" | "min-removal" | "equal-percent" | "equal-concentration" | "max-min-share";
+/** What an allocation optimises (the list: lib/domain ALLOCATION_OBJECTIVES). */
+export type { AllocationObjective };
 
 /** One design condition overriding temperatures and headwater/inflow flows. */
 export interface ConditionInput {

@@ -1,9 +1,6 @@
-import type { UnitSystem } from "@/db/schema";
-import type { AllocationObjective } from "@/lib/model/types";
+import { isLoadObjective, type UnitSystem } from "@/lib/domain";
 import { kgToLb } from "@/lib/model/units";
 import type { AllocationResult, BindingCheckpoint } from "@/lib/model/allocation/types";
-
-const LOAD_OBJECTIVES: AllocationObjective[] = ["max-total", "min-removal"];
 
 /**
  * The DO gained is stated per 1000 kg/d (or lb/d) given up: per single kg/d it reads
@@ -28,7 +25,7 @@ export interface BindingRow extends BindingCheckpoint {
  * Example: dual 2000 kg/d per mg/L in US units → 4409.2 lb/d per mg/L, gain 0.227 mg/L per 1000 lb/d.
  */
 export function bindingRows(allocation: AllocationResult, system: UnitSystem): BindingRow[] {
-  const load = LOAD_OBJECTIVES.includes(allocation.objective);
+  const load = isLoadObjective(allocation.objective);
   const us = system === "US";
   const loadUnit = us ? "lb/d" : "kg/d";
   return allocation.binding.map((b) => {

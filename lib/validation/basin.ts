@@ -1,7 +1,8 @@
 import { z } from "zod";
+import { UNIT_SYSTEMS } from "@/lib/domain";
 import { timeZoneSchema } from "./time-zone";
 
-export const unitSystemSchema = z.enum(["SI", "US"]);
+export const unitSystemSchema = z.enum(UNIT_SYSTEMS);
 
 const minReviewDaysSchema = z.coerce
   .number({ message: "The shortest review must be a number of days" })

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { BASIN_ROLES } from "@/lib/auth/permissions";
+import { BASIN_ROLES } from "@/lib/domain";
 
-export const basinRoleSchema = z.enum(BASIN_ROLES, { message: "Role must be lead, planner, discharger or stakeholder" });
+export const basinRoleSchema = z.enum(BASIN_ROLES, { message: `Role must be ${BASIN_ROLES.slice(0, -1).join(", ")} or ${BASIN_ROLES[BASIN_ROLES.length - 1]}` });
 
 export const memberAddSchema = z.object({
   email: z.string().trim().toLowerCase().pipe(z.email("Enter a valid e-mail address")),

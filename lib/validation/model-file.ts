@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { ALLOCATION_OBJECTIVES, KA_METHODS, THETA_RULES } from "@/lib/domain";
 import { compilePlan } from "@/lib/model/network/compile";
 import { ModelInputError } from "@/lib/model/errors";
 import type { ModelFile } from "@/lib/model/types";
@@ -16,7 +17,7 @@ const positive = (what: string) => finite(what).refine((v) => v > 0, `${what} mu
 const nonNegative = (what: string) => finite(what).refine((v) => v >= 0, `${what} must not be negative`);
 const id = z.string().trim().min(1, "id must not be empty").max(100);
 
-export const kaMethodSchema = z.enum(["given", "oconnor-dobbins", "churchill", "owens-gibbs", "tsivoglou-neal", "depth-velocity"]);
+export const kaMethodSchema = z.enum(KA_METHODS);
 
 const hydraulicGeometrySchema = z.strictObject({
   a: positive("a"),
@@ -118,7 +119,7 @@ export const conditionSchema = z.strictObject({
 
 export const allocationSchema = z
   .strictObject({
-    objective: z.enum(["max-total", "min-removal", "equal-percent", "equal-concentration", "max-min-share"]),
+    objective: z.enum(ALLOCATION_OBJECTIVES),
     bounds: z
       .record(id, z.strictObject({ min_kg_day: nonNegative("min_kg_day").optional(), max_kg_day: nonNegative("max_kg_day").optional() }))
       .optional(),
@@ -145,7 +146,7 @@ export const kineticsSchema = z.strictObject({
   theta_sod: positive("theta_sod").optional(),
   theta_kn: positive("theta_kn").optional(),
   theta_ks: positive("theta_ks").optional(),
-  deoxygenation_rule: z.enum(["constant", "piecewise"]).optional(),
+  deoxygenation_rule: z.enum(THETA_RULES).optional(),
 });
 
 export const modelFileSchema = z

@@ -1,7 +1,8 @@
 import { z } from "zod";
+import { IMPORT_DEFAULTS, IMPORT_LAYERS, importDefaults } from "@/lib/domain";
 import { dischargerMappingSchema, reachMappingSchema } from "@/geo/field-mapping";
 
-export const importLayerSchema = z.enum(["reaches", "dischargers"], { message: "layer must be reaches or dischargers" });
+export const importLayerSchema = z.enum(IMPORT_LAYERS, { message: `layer must be ${IMPORT_LAYERS.join(" or ")}` });
 
 /** Form fields that come with an uploaded file (multipart/form-data). */
 export const uploadFieldsSchema = z
@@ -25,10 +26,10 @@ const outletSchema = z.union([
 ]);
 
 export const networkOptionsSchema = z.object({
-  toleranceM: z.number().min(0, "tolerance cannot be negative").max(1000, "tolerance above 1000 m joins unrelated lines").default(5),
-  maxSnapDistanceM: z.number().positive("snapping distance must be positive").max(100_000).default(500),
-  maxReachLengthKm: z.number().positive().max(1000).default(10),
-  allowMultipleOutlets: z.boolean().default(false),
+  toleranceM: z.number().min(0, "tolerance cannot be negative").max(1000, "tolerance above 1000 m joins unrelated lines").default(IMPORT_DEFAULTS.toleranceM),
+  maxSnapDistanceM: z.number().positive("snapping distance must be positive").max(100_000).default(IMPORT_DEFAULTS.maxSnapDistanceM),
+  maxReachLengthKm: z.number().positive().max(1000).default(IMPORT_DEFAULTS.maxReachLengthKm),
+  allowMultipleOutlets: z.boolean().default(IMPORT_DEFAULTS.allowMultipleOutlets),
   outlets: z.array(outletSchema).max(100).optional(),
   reassign: z.record(z.string(), z.string().min(1)).optional(),
 });
@@ -41,12 +42,7 @@ export const networkDraftSchema = z
     reachMapping: reachMappingSchema,
     dischargerImportId: z.uuid("dischargerImportId must be an upload id").optional(),
     dischargerMapping: dischargerMappingSchema.optional(),
-    options: networkOptionsSchema.default({
-      toleranceM: 5,
-      maxSnapDistanceM: 500,
-      maxReachLengthKm: 10,
-      allowMultipleOutlets: false,
-    }),
+    options: networkOptionsSchema.default(importDefaults),
   })
   .refine((v) => !v.dischargerImportId || v.dischargerMapping, {
     message: "a discharger upload needs a discharger field mapping",

@@ -1,8 +1,6 @@
 import { z } from "zod";
+import { ALLOCATION_OBJECTIVES, DEFAULT_KA_METHOD, DEFAULT_OBJECTIVE, DEFAULT_THETA_RULE, KA_METHODS, RUN_KINDS, THETA_RULES } from "@/lib/domain";
 import { SCENARIO_FIELD_LABELS as L } from "@/lib/format/labels";
-
-const KA_METHODS = ["given", "oconnor-dobbins", "churchill", "owens-gibbs", "tsivoglou-neal", "depth-velocity"] as const;
-export const OBJECTIVES = ["max-total", "min-removal", "equal-percent", "equal-concentration", "max-min-share"] as const;
 
 // Messages name the field by the label the editor shows (SCENARIO_FIELD_LABELS), with its unit.
 const rate = (what: string, max = 20, unit = "1/d") =>
@@ -41,12 +39,12 @@ export type ConditionInputs = z.infer<typeof conditionSchema>;
 
 export const kineticsSchema = z.object({
   kd20PerDay: rate(L.kd, 5).default(0.3),
-  kaMethod: z.enum(KA_METHODS).default("depth-velocity"),
+  kaMethod: z.enum(KA_METHODS).default(DEFAULT_KA_METHOD),
   kaFloor: z.boolean().default(false),
   ks20PerDay: rate(L.ks, 5).default(0),
   sod20GPerM2Day: rate(L.sod, 50, "g O₂/m²/d").default(0),
   kn20PerDay: rate(L.kn, 5).default(0),
-  thetaRule: z.enum(["constant", "piecewise"]).default("constant"),
+  thetaRule: z.enum(THETA_RULES).default(DEFAULT_THETA_RULE),
 });
 
 /** Per-reach kinetics for this scenario; missing or null keeps the network's value or the scenario default. */
@@ -96,7 +94,7 @@ export const dischargerOverrideSchema = z
   .partial();
 
 export const allocationSettingsSchema = z.object({
-  objective: z.enum(OBJECTIVES).default("max-total"),
+  objective: z.enum(ALLOCATION_OBJECTIVES).default(DEFAULT_OBJECTIVE),
   /** Technology floor as effluent BOD5 at design flow (e.g. 30 mg/L secondary treatment); null = none. */
   floorBod5MgL: conc(L.floorBod5, 1000).nullable().default(30),
   mosDoMgL: z
@@ -155,7 +153,7 @@ export const scenarioUpdateSchema = z.object({
 });
 export type ScenarioUpdate = z.infer<typeof scenarioUpdateSchema>;
 
-export const runCreateSchema = z.object({ kind: z.enum(["model", "allocation"]) });
+export const runCreateSchema = z.object({ kind: z.enum(RUN_KINDS) });
 export type RunCreate = z.infer<typeof runCreateSchema>;
 
 export const scenarioDuplicateSchema = z.object({ name: z.string().trim().min(1).max(120) });

@@ -1,3 +1,4 @@
+import { isLoadObjective, isOneRuleObjective } from "@/lib/domain";
 import type { ModelFile } from "../types";
 import { solveAsLp, solveOneRule, type Solved } from "./objectives";
 import { UNITS, diagnose, entries, tmdlTable } from "./report";
@@ -46,7 +47,7 @@ export function allocate(file: ModelFile, options: AllocateOptions = {}): Alloca
   let solved: Solved | null = null;
   let iterations = 0;
   for (; iterations < maxIterations; iterations++) {
-    solved = objective === "equal-percent" || objective === "equal-concentration" ? solveOneRule(s, objective, rows) : solveAsLp(s, objective, rows, options.inspect_lp);
+    solved = isOneRuleObjective(objective) ? solveOneRule(s, objective, rows) : solveAsLp(s, objective, rows, options.inspect_lp);
     if (!solved) throw new RangeError("the allocation LP is infeasible although every discharger at its floor meets the criterion (numerical trouble)");
     const v = violations(s, solved.W, tol);
     if (v.length === 0) break;
@@ -65,7 +66,7 @@ export function allocate(file: ModelFile, options: AllocateOptions = {}): Alloca
         km: locationKm(plan, r.loc),
         do_mg_l: r.do0 - use,
         dual: final.duals[i],
-        do_gain_mg_l_per_kg_day: objective === "max-total" || objective === "min-removal" ? 1 / final.duals[i] : null,
+        do_gain_mg_l_per_kg_day: isLoadObjective(objective) ? 1 / final.duals[i] : null,
       });
     }
   });

@@ -1,4 +1,4 @@
-import type { AllocationObjective } from "../types";
+import type { AllocationObjective, OneRuleObjective } from "@/lib/domain";
 import { LOAD_FACTOR } from "../units";
 import { lpDuals, solveLp, type Lp } from "./lp";
 import type { Checkpoint, Setup } from "./setup";
@@ -67,7 +67,7 @@ export function solveAsLp(s: Setup, objective: AllocationObjective, rows: Checkp
 }
 
 /** equal-percent / equal-concentration: one free variable s, W_k = clamp(rule_k(s), lo_k, hi_k). */
-export function solveOneRule(s: Setup, objective: "equal-percent" | "equal-concentration", rows: Checkpoint[]): Solved {
+export function solveOneRule(s: Setup, objective: OneRuleObjective, rows: Checkpoint[]): Solved {
   const slope = objective === "equal-percent" ? s.today : s.flow.map((q) => LOAD_FACTOR * q);
   const sMax = objective === "equal-percent" ? 1 : Math.max(0, ...s.hi.map((h, k) => h / slope[k]));
   const loads = (x: number) => slope.map((m, k) => Math.min(s.hi[k], Math.max(s.lo[k], m * x)));

@@ -1,5 +1,5 @@
 import type { SegmentRates } from "../segment";
-import type { KaFormula } from "../reaeration";
+import type { DeoxygenationThetaRule, KaFormula } from "@/lib/domain";
 
 /** Where an inflow of any kind mixes in. */
 export type SourceKind = "headwater" | "inflow" | "discharger";
@@ -72,6 +72,6 @@ export interface Plan {
   discharger_sources: number[];
   criterion_do_mg_l: number;
   step_km: number;
-  deoxygenation_rule: "constant" | "piecewise";
+  deoxygenation_rule: DeoxygenationThetaRule;
   theta: { kd: number; ka: number; sod: number; kn: number; ks: number };
 }

@@ -1,5 +1,5 @@
 import type { ModelFile } from "../types";
-import type { KaFormula } from "../reaeration";
+import type { DeoxygenationThetaRule, KaFormula } from "@/lib/domain";
 import { compilePlan } from "./compile";
 import { evaluatePlan, type States } from "./evaluate";
 import type { Plan } from "./plan";
@@ -46,7 +46,7 @@ export interface RunResult {
   criterion_do_mg_l: number;
   /** Profile points and reach critical points with DO below the criterion. */
   below_criterion: Array<{ reach: string; km: number; do_mg_l: number; critical: boolean }>;
-  kinetics: { deoxygenation_rule: "constant" | "piecewise"; theta: Plan["theta"] };
+  kinetics: { deoxygenation_rule: DeoxygenationThetaRule; theta: Plan["theta"] };
 }
 
 /** Exact critical point of every reach of a plan for given states. */

@@ -1,9 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { auditAction, AUDIT_ACTION_NAMES, conditionName, nameOf, REAERATION_NAMES, titleWithBasin } from "@/lib/format/labels";
-import type { KaMethod } from "@/lib/model/reaeration";
-
-// every method the model knows, checked complete by the type
-const KA_METHODS = Object.keys({ given: 1, "oconnor-dobbins": 1, churchill: 1, "owens-gibbs": 1, "tsivoglou-neal": 1, "depth-velocity": 1 } satisfies Record<KaMethod, 1>);
+import { KA_METHODS } from "@/lib/domain";
 
 describe("display names", () => {
   it("a plan title that already names the basin is not prefixed again", () => {
