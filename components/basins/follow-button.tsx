@@ -1,20 +1,14 @@
 "use client";
-import { useMutation } from "@tanstack/react-query";
-import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { apiFetch } from "@/lib/queries/fetcher";
-import type { FollowDto } from "@/lib/services/follows";
+import { useFollowMutation, useFollowQuery } from "@/lib/queries/follows";
 
 /**
  * Follow or unfollow a basin for its e-mail notices (review opened or closing,
  * plan published). For signed-in users; `followed` is the state the page read.
  */
 export function FollowButton({ basinId, followed: initial }: { basinId: string; followed: boolean }) {
-  const [followed, setFollowed] = useState(initial);
-  const toggle = useMutation({
-    mutationFn: (follow: boolean) => apiFetch<FollowDto>(`/api/basins/${basinId}/follow`, { method: follow ? "PUT" : "DELETE" }),
-    onSuccess: (res) => setFollowed(res.followed),
-  });
+  const followed = useFollowQuery(basinId, initial).data.followed;
+  const toggle = useFollowMutation(basinId);
   return (
     <div className="space-y-2" data-testid="follow-basin">
       <p className="text-sm text-ink-soft">

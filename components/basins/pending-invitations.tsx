@@ -2,7 +2,7 @@
 import { useState } from "react";
 import { Notice } from "@/components/ui/notice";
 import { RoleBadge } from "@/components/ui/role-badge";
-import { useInvitationsQuery, useRevokeInvitationMutation } from "./invitation-queries";
+import { useInvitationsQuery, useRevokeInvitationMutation } from "@/lib/queries/invitations";
 
 const when = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
 

@@ -10,35 +10,27 @@ import { Field } from "@/components/ui/field";
 import { NewPasswordFields } from "./new-password-fields";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
-import { apiFetch } from "@/lib/queries/fetcher";
+import { useAcceptInvitationMutation, useRegisterByInvitationMutation } from "@/lib/queries/invitations";
+import type { AcceptedDto } from "@/lib/services/invitations";
 import { invitationRegisterSchema, type InvitationRegisterInput } from "@/lib/validation/account";
-
-interface Accepted {
-  basinId: string;
-  email: string;
-}
 
 /** Signed in as the invited address: one button joins the basin. */
 export function AcceptInvitationButton({ token }: { token: string }) {
   const router = useRouter();
-  const [busy, setBusy] = useState(false);
-  const [failure, setFailure] = useState<string | null>(null);
-  const accept = async () => {
-    setBusy(true);
-    setFailure(null);
-    try {
-      const done = await apiFetch<Accepted>(`/api/invitations/${token}/accept`, { method: "POST" });
-      router.push(`/basins/${done.basinId}`);
-      router.refresh();
-    } catch (error) {
-      setFailure(error instanceof Error ? error.message : String(error));
-      setBusy(false);
-    }
-  };
+  const accept = useAcceptInvitationMutation(token);
+  // busy from the click until the basin's page opens (not only while the request runs)
+  const busy = accept.isPending || accept.isSuccess;
+  const onAccept = () =>
+    accept.mutate(undefined, {
+      onSuccess: (done) => {
+        router.push(`/basins/${done.basinId}`);
+        router.refresh();
+      },
+    });
   return (
     <div className="space-y-3">
-      {failure && <Notice tone="error">{failure}</Notice>}
-      <Button className="w-full" onClick={accept} disabled={busy}>
+      {accept.error && <Notice tone="error">{accept.error.message}</Notice>}
+      <Button className="w-full" onClick={onAccept} disabled={busy}>
         {busy ? "Joining…" : "Accept and join the basin"}
       </Button>
     </div>
@@ -48,6 +40,7 @@ export function AcceptInvitationButton({ token }: { token: string }) {
 /** No account for the invited address yet: create it here (the invitation confirms the address), join, sign in. */
 export function InvitationRegisterForm({ token, email }: { token: string; email: string }) {
   const router = useRouter();
+  const join = useRegisterByInvitationMutation(token);
   const [failure, setFailure] = useState<string | null>(null);
   const {
     register,
@@ -61,9 +54,9 @@ export function InvitationRegisterForm({ token, email }: { token: string; email:
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
-    let done: Accepted;
+    let done: AcceptedDto;
     try {
-      done = await apiFetch<Accepted>(`/api/invitations/${token}/register`, { method: "POST", json: values });
+      done = await join.mutateAsync(values);
     } catch (error) {
       const message = applyApiError(error, setError as never, ["name", "password", "confirmPassword"]);
       if (message) setFailure(message);

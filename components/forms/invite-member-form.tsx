@@ -2,13 +2,13 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { useInviteMutation } from "@/components/basins/invitation-queries";
 import { Button } from "@/components/ui/button";
 import { RoleSelect } from "./role-select";
 import { Field } from "@/components/ui/field";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import type { FacilityDto } from "@/lib/services/dto";
+import { useInviteMutation } from "@/lib/queries/invitations";
 import { invitationCreateSchema, type InvitationCreateInput } from "@/lib/validation/account";
 
 /** A lead invites an address by e-mail; a discharger invitation names one of the basin's facilities. */

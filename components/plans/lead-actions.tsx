@@ -7,8 +7,9 @@ import { isKnownTimeZone } from "@/lib/validation/time-zone";
 import { reviewDateIssues } from "@/lib/plans/review-rules";
 import { awaitsResponse } from "@/lib/results/responsiveness";
 import { MIN_ACK_STATEMENT } from "@/lib/validation/plan";
-import type { PlanDto } from "@/lib/queries/plans";
-import { FieldMessage, failureFor, type Act, type ActFailure } from "./plan-acts";
+import { usePublishPlanMutation, useWithdrawPlanMutation, type PlanDto } from "@/lib/queries/plans";
+import { useExtendReviewMutation, useOpenReviewMutation } from "@/lib/queries/reviews";
+import { FieldMessage, serverMessages } from "./plan-acts";
 import type { PlanPermissions } from "./plan-view";
 
 const DAY = 86_400_000;
@@ -33,7 +34,10 @@ function Instant({ local, zone }: { local: string; zone: string }) {
  * A lead's actions on a plan: open its review (start, end and the time zone
  * they are read in), extend it with a reason, publish after it closes, withdraw.
  */
-export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: PlanPermissions; act: Act; failure: ActFailure | null }) {
+export function LeadActions({ basinId, plan, can }: { basinId: string; plan: PlanDto; can: PlanPermissions }) {
+  const openReview = useOpenReviewMutation(basinId, plan.id);
+  const extendReview = useExtendReviewMutation(basinId, plan.id);
+  const withdraw = useWithdrawPlanMutation(basinId, plan.id);
   // the basin's zone when it has one; else the lead's own (the first review's zone becomes the basin's)
   const [timeZone, setTimeZone] = useState(() => {
     const browserZone = Intl.DateTimeFormat().resolvedOptions().timeZone;
@@ -61,7 +65,6 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
   const [reason, setReason] = useState("");
   // nothing is left to do on a published or withdrawn plan: no empty card
   if ((!can.manageReview && !can.publish) || plan.status === "published" || plan.status === "withdrawn") return null;
-  const p = `/plans/${plan.id}`;
   const start = opensNow ? new Date().toISOString() : zonedToIso(startsAt, timeZone);
   const end = zonedToIso(endsAt, timeZone);
   const extended = zonedToIso(newEnd, periodZone);
@@ -69,9 +72,9 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
   const ruleIssues =
     start && end ? reviewDateIssues({ startsAt: new Date(start), endsAt: new Date(end), minReviewDays: plan.minReviewDays, now: new Date() }, timeZone) : [];
   const rule = Object.fromEntries(ruleIssues.map((i) => [i.path, i.message]));
-  const opened = failureFor(failure, `${p}/review`, "POST", ["startsAt", "endsAt", "timeZone"]);
-  const extendedFailure = failureFor(failure, `${p}/review`, "PATCH", ["endsAt", "reason"]);
-  const decided = failureFor(failure, `${p}/withdraw`, "POST", []);
+  const opened = serverMessages(openReview.error, ["startsAt", "endsAt", "timeZone"]);
+  const extendedFailure = serverMessages(extendReview.error, ["endsAt", "reason"]);
+  const decided = serverMessages(withdraw.error, []);
   return (
     <section className="card space-y-3" aria-label="Lead actions">
       <h2>Lead actions</h2>
@@ -134,11 +137,11 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
           </div>
           <FieldMessage text={opened.field.timeZone ?? opened.general} />
           <Button
-            disabled={!start || !end || ruleIssues.length > 0}
+            disabled={!start || !end || ruleIssues.length > 0 || openReview.isPending}
             onClick={() => {
               // "now" is the moment of the click
               const from = opensNow ? new Date().toISOString() : start;
-              if (from && end) void act(`${p}/review`, { startsAt: from, endsAt: end, timeZone });
+              if (from && end) openReview.mutate({ startsAt: from, endsAt: end, timeZone });
             }}
           >
             Open the review
@@ -172,22 +175,28 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
           <Button
             variant="secondary"
             className="mt-6"
-            disabled={reason.trim().length < 10 || !extended}
-            onClick={async () => {
-              if (extended && (await act(`${p}/review`, { endsAt: extended, reason }, "PATCH"))) {
-                setReason("");
-                setNewEnd("");
-              }
+            disabled={reason.trim().length < 10 || !extended || extendReview.isPending}
+            onClick={() => {
+              if (!extended) return;
+              extendReview.mutate(
+                { endsAt: extended, reason },
+                {
+                  onSuccess: () => {
+                    setReason("");
+                    setNewEnd("");
+                  },
+                },
+              );
             }}
           >
             Extend the review
           </Button>
         </div>
       )}
-      {plan.stage === "closed" && can.publish && <PublishPanel plan={plan} act={act} failure={failure} />}
+      {plan.stage === "closed" && can.publish && <PublishPanel basinId={basinId} plan={plan} />}
       <div className="flex flex-wrap gap-3">
         {(plan.status === "draft" || plan.status === "review" || plan.status === "closed") && can.manageReview && (
-          <Button variant="danger" onClick={() => window.confirm("Withdraw this plan?") && act(`${p}/withdraw`)}>
+          <Button variant="danger" disabled={withdraw.isPending} onClick={() => window.confirm("Withdraw this plan?") && withdraw.mutate()}>
             Withdraw
           </Button>
         )}
@@ -202,13 +211,14 @@ export function LeadActions({ plan, can, act, failure }: { plan: PlanDto; can: P
  * threads have comments without a response, sees them listed and acknowledges them with
  * a statement (kept with the plan, printed in its responsiveness summary, audited).
  */
-function PublishPanel({ plan, act, failure }: { plan: PlanDto; act: Act; failure: ActFailure | null }) {
+function PublishPanel({ basinId, plan }: { basinId: string; plan: PlanDto }) {
+  const publish = usePublishPlanMutation(basinId, plan.id);
   const [approved, setApproved] = useState(false);
   const [acknowledged, setAcknowledged] = useState(false);
   const [statement, setStatement] = useState("");
   const unanswered = plan.threads.filter(awaitsResponse);
   const n = unanswered.length;
-  const published = failureFor(failure, `/plans/${plan.id}/publish`, "POST", ["acknowledgedThreadIds", "statement"]);
+  const published = serverMessages(publish.error, ["acknowledgedThreadIds", "statement"]);
   const ready = approved && (n === 0 || (acknowledged && statement.trim().length >= MIN_ACK_STATEMENT));
   return (
     <div className="space-y-3 rounded-md border border-rule-strong p-3" data-testid="publish-panel">
@@ -255,8 +265,8 @@ function PublishPanel({ plan, act, failure }: { plan: PlanDto; act: Act; failure
         <span>I approve this plan as it stands. Once published it is frozen: it cannot be edited or withdrawn.</span>
       </label>
       <Button
-        disabled={!ready}
-        onClick={() => void act(`/plans/${plan.id}/publish`, { acknowledgedThreadIds: unanswered.map((t) => t.id), statement: n > 0 ? statement : "" })}
+        disabled={!ready || publish.isPending}
+        onClick={() => publish.mutate({ acknowledgedThreadIds: unanswered.map((t) => t.id), statement: n > 0 ? statement : "" })}
       >
         Approve and publish
       </Button>

@@ -14,7 +14,6 @@ import { downstreamOf, profileSeries } from "@/lib/results/profile-series";
 import { formatWhen } from "@/lib/format/zoned-time";
 import { PLAN_STAGE_TEXT, type PlanStage } from "@/lib/plans/review-rules";
 import { runConditions } from "@/lib/results/run-conditions";
-import { usePlanActs } from "./plan-acts";
 import { Thread } from "./plan-view";
 
 export interface MyFacility {
@@ -54,7 +53,6 @@ export function MyFacilities({
 }) {
   const { data } = usePlanQuery(basinId, initial.id, initial);
   const plan = data ?? initial;
-  const { act, failure } = usePlanActs(basinId, plan.id);
   const snapshot = plan.snapshot;
   const model = snapshot.run.modelFiles[0].file;
   const open = plan.review?.open === true;
@@ -131,7 +129,7 @@ export function MyFacilities({
             ) : (
               <Notice tone="warning">This plan allocates nothing to {f.name}: the facility was not a discharger in the network the plan was computed on.</Notice>
             )}
-            {thread && <Thread thread={thread} canComment={open} canAnswer={false} act={act} failure={failure} mine />}
+            {thread && <Thread basinId={basinId} planId={plan.id} thread={thread} canComment={open} canAnswer={false} mine />}
           </section>
         );
       })}

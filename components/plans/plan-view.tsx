@@ -13,7 +13,8 @@ import { nameOf, ROLE_NAMES, THREAD_STATUS_NAMES } from "@/lib/format/labels";
 import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
 import { governingCondition, headwaterReaches, type StoredRunResult } from "@/lib/results";
 import { usePlanQuery, type PlanDto } from "@/lib/queries/plans";
-import { FieldMessage, failureFor, usePlanActs, type Act, type ActFailure } from "./plan-acts";
+import { useAddCommentMutation, useRespondMutation } from "@/lib/queries/comments";
+import { FieldMessage, serverMessages } from "./plan-acts";
 import { LeadActions } from "./lead-actions";
 import { PlanDownloads } from "./plan-downloads";
 import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
@@ -40,7 +41,6 @@ function closesIn(endsAt: string): string {
 export function PlanView({ basinId, initial, unitSystem, can }: { basinId: string; initial: PlanDto; unitSystem: UnitSystem; can: PlanPermissions }) {
   const { data } = usePlanQuery(basinId, initial.id, initial);
   const plan = data ?? initial;
-  const { act, failure } = usePlanActs(basinId, plan.id);
   const load = unitLabel("load", unitSystem);
   const open = plan.review?.open === true;
   const [onlyWaiting, setOnlyWaiting] = useState(false);
@@ -87,7 +87,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
           )}
         </Notice>
       )}
-      <LeadActions plan={plan} can={can} act={act} failure={failure} />
+      <LeadActions basinId={basinId} plan={plan} can={can} />
 
       <section className="card">
         <h2 className="mb-3">Allocations</h2>
@@ -156,7 +156,7 @@ export function PlanView({ basinId, initial, unitSystem, can }: { basinId: strin
           </label>
         </div>
         {(onlyWaiting ? waiting : plan.threads).map((t) => (
-          <Thread key={t.id} thread={t} canComment={open && can.signedIn} canAnswer={can.answer && plan.status !== "published"} act={act} failure={failure} mine={!!t.facilityId && can.myFacilityIds.includes(t.facilityId)} />
+          <Thread key={t.id} thread={t} canComment={open && can.signedIn} canAnswer={can.answer && plan.status !== "published"} basinId={basinId} planId={plan.id} mine={!!t.facilityId && can.myFacilityIds.includes(t.facilityId)} />
         ))}
       </section>
     </div>
@@ -183,22 +183,24 @@ function PlanProfile({ plan, unitSystem }: { plan: PlanDto; unitSystem: UnitSyst
 }
 
 export function Thread({
+  basinId,
+  planId,
   thread,
   canComment,
   canAnswer,
-  act,
   mine,
-  failure = null,
 }: {
+  basinId: string;
+  planId: string;
   thread: PlanDto["threads"][number];
   canComment: boolean;
   canAnswer: boolean;
-  act: Act;
   mine: boolean;
-  failure?: ActFailure | null;
 }) {
-  const commentFailure = failureFor(failure, `/threads/${thread.id}/comments`, "POST", ["body"]);
-  const responseFailure = failureFor(failure, `/threads/${thread.id}/response`, "POST", ["response"]);
+  const comment = useAddCommentMutation(basinId, planId, thread.id);
+  const respond = useRespondMutation(basinId, planId, thread.id);
+  const commentFailure = serverMessages(comment.error, ["body"]);
+  const responseFailure = serverMessages(respond.error, ["response"]);
   const [text, setText] = useState("");
   const [response, setResponse] = useState("");
   // the box is open on one's own facility and on the plan as a whole; elsewhere one click away
@@ -251,7 +253,7 @@ export function Thread({
           </label>
           <textarea id={`comment-${thread.id}`} rows={3} className="field-input" value={text} onChange={(e) => setText(e.target.value)} />
           <FieldMessage text={commentFailure.field.body ?? commentFailure.general} />
-          <Button variant="secondary" disabled={!text.trim()} onClick={async () => (await act(`/threads/${thread.id}/comments`, { body: text })) && setText("")}>
+          <Button variant="secondary" disabled={!text.trim() || comment.isPending} onClick={() => comment.mutate({ body: text }, { onSuccess: () => setText("") })}>
             Add comment
           </Button>
         </div>
@@ -263,7 +265,7 @@ export function Thread({
           </label>
           <textarea id={`response-${thread.id}`} rows={2} className="field-input" value={response} onChange={(e) => setResponse(e.target.value)} />
           <FieldMessage text={responseFailure.field.response ?? responseFailure.general} />
-          <Button variant="secondary" disabled={!response.trim()} onClick={async () => (await act(`/threads/${thread.id}/response`, { response })) && setResponse("")}>
+          <Button variant="secondary" disabled={!response.trim() || respond.isPending} onClick={() => respond.mutate({ response }, { onSuccess: () => setResponse("") })}>
             Respond
           </Button>
         </div>

@@ -4,7 +4,7 @@ import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
-import { usePlanAction, usePlansQuery, type PlanSummaryDto } from "@/lib/queries/plans";
+import { useProposePlanMutation, usePlansQuery, type PlanSummaryDto } from "@/lib/queries/plans";
 import { useRunQuery } from "@/lib/queries/scenarios";
 
 /** Each lineage (a plan and its revisions) by its newest version, newest lineage first. */
@@ -21,7 +21,7 @@ function lineages(plans: PlanSummaryDto[]): PlanSummaryDto[] {
  */
 export function ProposePlan({ basinId, runId, defaultTitle }: { basinId: string; runId: string; defaultTitle: string }) {
   const router = useRouter();
-  const action = usePlanAction(basinId);
+  const propose = useProposePlanMutation(basinId);
   const plans = usePlansQuery(basinId).data;
   const scenarioId = useRunQuery(basinId, runId).data?.scenarioId;
   const [title, setTitle] = useState(defaultTitle);
@@ -60,12 +60,11 @@ export function ProposePlan({ basinId, runId, defaultTitle }: { basinId: string;
           </div>
         )}
         <Button
-          disabled={title.trim().length < 3 || action.isPending || plans === undefined}
+          disabled={title.trim().length < 3 || propose.isPending || plans === undefined}
           onClick={async () => {
             setFailure(null);
             try {
-              const json = { runId, title, revises: revised ? revised.id : null };
-              const plan = (await action.mutateAsync({ path: "/plans", json })) as { id: string };
+              const plan = await propose.mutateAsync({ runId, title, revises: revised ? revised.id : null });
               router.push(`/basins/${basinId}/plans/${plan.id}`);
             } catch (e) {
               setFailure(e instanceof Error ? e.message : String(e));
