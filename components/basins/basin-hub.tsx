@@ -2,7 +2,7 @@ import Link from "next/link";
 import { When } from "@/components/layout/basin-zone";
 import { RunOutcomeCell } from "@/components/scenarios/run-outcome-cell";
 import { AuditTable } from "@/components/tables/audit-table";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import type { BasinOverviewDto, PlanOverviewDto } from "@/lib/services/basin-overview";
 

@@ -8,6 +8,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
+import { UNIT_SYSTEMS, unitSystemLabel } from "@/lib/domain";
 import { basinCreateSchema, type BasinCreateInput } from "@/lib/validation/basin";
 
 const FIELDS = ["name", "slug", "description", "doCriterionMgL", "unitSystem", "minReviewDays", "timeZone"] as const;
@@ -122,12 +123,11 @@ export function BasinForm({
       <fieldset>
         <legend className="field-label">Units on screens and exports</legend>
         <div className="flex gap-6 text-sm">
-          <label className="flex items-center gap-2">
-            <input type="radio" value="SI" {...register("unitSystem")} /> SI (km, m³/s, kg/d)
-          </label>
-          <label className="flex items-center gap-2">
-            <input type="radio" value="US" {...register("unitSystem")} /> US customary (mi, cfs, lb/d)
-          </label>
+          {UNIT_SYSTEMS.map((u) => (
+            <label key={u} className="flex items-center gap-2">
+              <input type="radio" value={u} {...register("unitSystem")} /> {unitSystemLabel(u)}
+            </label>
+          ))}
         </div>
         {errors.unitSystem && <p className="field-error">{errors.unitSystem.message}</p>}
       </fieldset>

@@ -1,5 +1,5 @@
 import type { UseFormRegisterReturn } from "react-hook-form";
-import { BASIN_ROLES } from "@/lib/auth/permissions";
+import { BASIN_ROLES, ROLE_NAMES } from "@/lib/domain";
 
 /** The basin-role picker of the add-member and invitation forms. */
 export function RoleSelect({ id, field }: { id: string; field: UseFormRegisterReturn }) {
@@ -11,7 +11,7 @@ export function RoleSelect({ id, field }: { id: string; field: UseFormRegisterRe
       <select id={id} className="field-input" {...field}>
         {BASIN_ROLES.map((r) => (
           <option key={r} value={r}>
-            {r}
+            {ROLE_NAMES[r]}
           </option>
         ))}
       </select>

@@ -2,7 +2,7 @@
 import type { ColumnDef } from "@tanstack/react-table";
 import type { z } from "zod";
 import type { CsvColumn } from "@/components/tables/sortable-table";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, quantity, toSi, unitLabel, type QuantityKind } from "@/lib/format/quantities";
 import type { OutfallDto, ReachDto } from "@/lib/services/networks";
 import { outfallEditSchema, reachEditSchema } from "@/lib/validation/network";

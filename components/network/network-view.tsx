@@ -6,7 +6,7 @@ import { useMemo, useState } from "react";
 import { BasinMapLazy } from "@/components/map/basin-map-lazy";
 import { CsvButton, downloadCsv, SortableTable } from "@/components/tables/sortable-table";
 import { Notice } from "@/components/ui/notice";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { ApiError } from "@/lib/queries/fetcher";
 import { useEditMutation, useNetworkQuery, useNetworksQuery } from "@/lib/queries/networks";

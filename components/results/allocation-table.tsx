@@ -1,7 +1,7 @@
 "use client";
 import { useMemo } from "react";
 import { CsvButton, CsvLink, downloadCsv, SortableTable } from "@/components/tables/sortable-table";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { ModelFile } from "@/lib/model/types";

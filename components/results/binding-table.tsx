@@ -1,7 +1,7 @@
 "use client";
 import { useMemo } from "react";
 import { SortableTable } from "@/components/tables/sortable-table";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { conditionName } from "@/lib/format/labels";
 import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";

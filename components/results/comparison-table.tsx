@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, reductionText, unitLabel } from "@/lib/format/quantities";
 import { compareRuns, type ComparedRun } from "@/lib/results/compare";
 import { formatDo } from "@/lib/results/do-scale";

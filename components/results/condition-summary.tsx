@@ -1,4 +1,4 @@
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import { formatDo } from "@/lib/results/do-scale";
 import type { ConditionRow } from "@/lib/results/run-conditions";

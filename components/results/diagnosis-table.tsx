@@ -2,7 +2,7 @@
 import { useMemo } from "react";
 import { SortableTable } from "@/components/tables/sortable-table";
 import { Notice } from "@/components/ui/notice";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { conditionName } from "@/lib/format/labels";
 import { formatIn, formatNumber, roundDecimals, unitLabel } from "@/lib/format/quantities";
 import type { DiagnosisEntry } from "@/lib/model/allocation/types";

@@ -6,7 +6,7 @@ import { addLabelLayers } from "@/components/map/label-layers";
 import { withOutletNode } from "@/lib/map/outlet-point";
 import { MAP_COLOURS, SELECTION_HALO_PX } from "@/components/map/map-style";
 import { MapFrame, useBaseMap } from "@/components/map/use-base-map";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import type { RunResult } from "@/lib/model/network/run";
 import type { ModelFile } from "@/lib/model/types";

@@ -2,7 +2,7 @@
 import { StartReachSelect } from "./start-reach-select";
 import { useMemo, useState } from "react";
 import { CartesianGrid, ComposedChart, Legend, Line, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { ModelFile } from "@/lib/model/types";
 import type { RunResult } from "@/lib/model/network/run";

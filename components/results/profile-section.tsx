@@ -1,7 +1,7 @@
 "use client";
 import { StartReachSelect } from "./start-reach-select";
 import { useMemo, type ReactNode } from "react";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import type { ModelFile, RunResult } from "@/lib/model";
 import { headwaterReaches, profileSeries } from "@/lib/results";
 import { ProfileChart } from "./profile-chart";

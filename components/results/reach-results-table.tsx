@@ -1,7 +1,7 @@
 "use client";
 import { useMemo } from "react";
 import { SortableTable } from "@/components/tables/sortable-table";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { nameOf, REAERATION_NAMES } from "@/lib/format/labels";
 import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import type { RunResult } from "@/lib/model/network/run";

@@ -1,7 +1,7 @@
 "use client";
 import type { FeatureCollection } from "geojson";
 import { CsvButton } from "@/components/tables/sortable-table";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import type { RunResult } from "@/lib/model/network/run";
 import type { ModelFile } from "@/lib/model/types";
 import { exportPreface } from "@/lib/results/caution";

@@ -1,4 +1,4 @@
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import type { TmdlTable } from "@/lib/model/allocation/types";
 

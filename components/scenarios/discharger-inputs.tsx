@@ -1,7 +1,7 @@
 "use client";
 import { SCENARIO_FIELD_LABELS as LABELS } from "@/lib/format/labels";
 import type { Control, FieldValues, Path } from "react-hook-form";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { formKey } from "@/lib/scenarios/form-keys";
 import { UnitField } from "./unit-field";

@@ -1,7 +1,7 @@
 "use client";
 import { useState } from "react";
 import type { Control, FieldValues, Path } from "react-hook-form";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { formKey } from "@/lib/scenarios/form-keys";
 import { UnitField } from "./unit-field";

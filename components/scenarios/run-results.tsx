@@ -18,7 +18,7 @@ import { ReachResultsTable } from "@/components/results/reach-results-table";
 import { ResultsGeoJsonButton } from "@/components/results/results-geojson-button";
 import { TmdlSummary } from "@/components/results/tmdl-table";
 import { Notice } from "@/components/ui/notice";
-import type { UnitSystem } from "@/db/schema";
+import { DEFAULT_THETA_RULE, type UnitSystem } from "@/lib/domain";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { useRunQuery } from "@/lib/queries/scenarios";
 import { headwaterReaches } from "@/lib/results";
@@ -231,7 +231,7 @@ export function RunResults({
           Every export names the condition it holds; the profile CSV follows the condition shown on the map.
         </p>
         <p className="text-sm text-ink-soft">
-          Model {run.modelVersion}; deoxygenation temperature correction: {nameOf(THETA_RULE_NAMES, run.methods.deoxygenation_theta_rule ?? "constant")}; saturation:{" "}
+          Model {run.modelVersion}; deoxygenation temperature correction: {nameOf(THETA_RULE_NAMES, run.methods.deoxygenation_theta_rule ?? DEFAULT_THETA_RULE)}; saturation:{" "}
           {String(run.methods.saturation ?? "")}. The model file reproduces this run with <code>npm run model</code> or{" "}
           <code>npm run allocate</code>. Inputs hash <span className="font-mono text-xs">{run.inputsHash.slice(0, 16)}…</span>
         </p>

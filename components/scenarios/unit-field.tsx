@@ -1,7 +1,7 @@
 "use client";
 import { useState } from "react";
 import { Controller, type Control, type FieldPath, type FieldValues } from "react-hook-form";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { quantity, toSi, unitLabel, type QuantityKind } from "@/lib/format/quantities";
 
 /**

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { FollowButton } from "@/components/basins/follow-button";
 import { Notice } from "@/components/ui/notice";
 import { RoleBadge } from "@/components/ui/role-badge";
+import { UNIT_SYSTEM_NAMES } from "@/lib/domain";
 import { formatDay, formatWhen } from "@/lib/format/zoned-time";
 import { PLAN_STAGE_TEXT } from "@/lib/plans/review-rules";
 import { useBasinsQuery } from "@/lib/queries/basins";
@@ -33,7 +34,7 @@ export function BasinList() {
             </div>
             <div>
               <dt className="inline">Units </dt>
-              <dd className="inline font-semibold text-ink-soft">{b.unitSystem === "SI" ? "SI" : "US customary"}</dd>
+              <dd className="inline font-semibold text-ink-soft">{UNIT_SYSTEM_NAMES[b.unitSystem]}</dd>
             </div>
             <div>
               <dt className="inline">Members </dt>

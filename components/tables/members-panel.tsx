@@ -6,7 +6,7 @@ import { AddMemberForm } from "@/components/forms/add-member-form";
 import { InviteMemberForm } from "@/components/forms/invite-member-form";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import type { BasinRole } from "@/db/schema";
+import type { BasinRole } from "@/lib/domain";
 import type { MemberDto } from "@/lib/services/dto";
 import {
   useChangeRoleMutation,

@@ -11,8 +11,7 @@ import {
 import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { RoleBadge } from "@/components/ui/role-badge";
-import type { BasinRole } from "@/db/schema";
-import { BASIN_ROLES } from "@/lib/auth/permissions";
+import { BASIN_ROLES, ROLE_NAMES, type BasinRole } from "@/lib/domain";
 import type { MemberDto } from "@/lib/services/dto";
 
 const col = createColumnHelper<MemberDto>();
@@ -47,7 +46,7 @@ export function MembersTable({
             >
               {BASIN_ROLES.map((r) => (
                 <option key={r} value={r}>
-                  {r}
+                  {ROLE_NAMES[r]}
                 </option>
               ))}
             </select>

@@ -1,5 +1,5 @@
 import { ROLE_NAMES } from "@/lib/format/labels";
-import type { BasinRole } from "@/db/schema";
+import type { BasinRole } from "@/lib/domain";
 
 const STYLE: Record<BasinRole, string> = {
   lead: "bg-tarn-600 text-white",

@@ -1,4 +1,4 @@
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { cfsToM3s, cToF, fToC, ftPerSToMPerS, ftToM, kgToLb, kmToMi, lbToKg, m3sToCfs, miToKm, mPerSToFtPerS, mToFt } from "@/lib/model/units";
 
 /**

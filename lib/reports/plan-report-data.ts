@@ -1,5 +1,5 @@
 import type { FeatureCollection } from "geojson";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { RunResult } from "@/lib/model/network/run";

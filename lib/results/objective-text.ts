@@ -1,4 +1,4 @@
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { nameOf, OBJECTIVE_NAMES } from "@/lib/format/labels";
 import { formatIn, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationObjective } from "@/lib/model/types";

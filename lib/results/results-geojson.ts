@@ -1,5 +1,5 @@
 import type { Feature, FeatureCollection, LineString, Position } from "geojson";
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { exportIn, exportValue, unitLabel } from "@/lib/format/quantities";
 import type { RunResult } from "@/lib/model/network/run";
 import type { ModelFile } from "@/lib/model/types";
