@@ -9,10 +9,9 @@ import {
 } from "@tanstack/react-table";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { csvText } from "@/lib/reports/csv-text";
-import type { CsvColumn } from "@/lib/results/csv-rows";
+import { csvText, type CsvColumn } from "@/lib/reports/csv-text";
 
-export type { CsvColumn } from "@/lib/results/csv-rows";
+export type { CsvColumn };
 
 /**
  * Download rows as a CSV file built in the browser, by the same writer as the server's

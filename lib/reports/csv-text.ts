@@ -1,5 +1,17 @@
 import Papa from "papaparse";
-import type { CsvTable } from "@/lib/results/csv-rows";
+
+/** A column of a CSV file: its header and how a row fills its cell (empty when null or undefined). */
+export interface CsvColumn<T> {
+  header: string;
+  value: (row: T) => string | number | null | undefined;
+}
+
+/** Rows, columns and notes of one CSV file (the notes — caution first — fill its last column). */
+export interface CsvTable<T> {
+  notes: string[];
+  columns: CsvColumn<T>[];
+  rows: T[];
+}
 
 /**
  * A text cell a spreadsheet would run as a formula: it starts with =, +, -, @,
@@ -31,12 +43,16 @@ function notesColumn(notes: readonly string[], rowCount: number): string[] {
 }
 
 /**
- * The one CSV writer, for the server's downloads and the browser's alike. One header row
+ * The one CSV writer, for the server's downloads and the browser's alike (RFC 4180: fields
+ * separated by commas, quoted when they hold a comma, quote or line break, CRLF between
+ * records; the RFC allows the last record a line break or none, and every file here ends
+ * with one, as docs/exports.md states and tests/unit/reports/csv-text.test.ts pins, so a
+ * file downloaded before and after reads byte for byte the same). One header row
  * (the table's columns, then "Notes"), then the rows; the planning caution and what the
  * file holds travel in the Notes column (notesColumn), so a spreadsheet and papaparse
  * (`header: true`) read the first line as the header and every other line as data.
  * papaparse quoting; a formula-leading text cell gets a leading ' so it is shown, never
- * run; CRLF line ends including the last.
+ * run.
  */
 export function csvText<T>(table: CsvTable<T>): string {
   const notes = notesColumn(table.notes, table.rows.length);

@@ -1,23 +1,14 @@
-import type { UnitSystem } from "@/db/schema";
+import type { UnitSystem } from "@/lib/domain";
 import { exportIn, exportValue, unitLabel, type Measure } from "@/lib/format/quantities";
 import type { AllocationEntry, AllocationResult } from "@/lib/model/allocation/types";
 import type { ModelFile } from "@/lib/model/types";
 import { nameOf, OBJECTIVE_NAMES } from "@/lib/format/labels";
 import { exportPreface } from "./caution";
+import type { CsvColumn, CsvTable } from "@/lib/reports/csv-text";
 import type { ProfileSeries, SeriesPoint } from "./profile-series";
 
-/** A column of a CSV export (the shape `downloadCsv` takes). */
-export interface CsvColumn<T> {
-  header: string;
-  value: (row: T) => string | number | null | undefined;
-}
-
-/** Rows, columns and notes of one CSV file (the notes — caution first — fill its last column: lib/reports/csv-text). */
-export interface CsvTable<T> {
-  notes: string[];
-  columns: CsvColumn<T>[];
-  rows: T[];
-}
+// The CSV column and file shapes live with the one writer (lib/reports/csv-text); re-exported for the row builders' callers.
+export type { CsvColumn, CsvTable };
 
 /** An exported number by its quantity's rule (EXPORT_PRECISION), an empty cell when missing. */
 const cell = (measure: Measure, x: number | null | undefined) => exportValue(measure, x) ?? "";

@@ -1,4 +1,4 @@
-import type { CsvColumn } from "./csv-rows";
+import type { CsvColumn } from "@/lib/reports/csv-text";
 import { nameOf, ROLE_NAMES, THREAD_STATUS_NAMES } from "@/lib/format/labels";
 import { formatDay } from "@/lib/format/zoned-time";
 import { exportPreface } from "./caution";
