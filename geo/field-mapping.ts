@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { highlight } from "./coordinates";
+import { formatPath } from "@/lib/model/errors";
 import { GeoError } from "./errors";
 import { valueNumber, valueText } from "./fields";
 import { error, warning, type Problem } from "./problems";
@@ -134,7 +135,7 @@ function parseMapping<T>(schema: z.ZodType<T>, mapping: unknown, what: string): 
   const r = schema.safeParse(mapping);
   if (!r.success) {
     const issue = r.error.issues[0];
-    throw new GeoError("mapping_invalid", `The ${what} field mapping is invalid at "${issue.path.join(".")}": ${issue.message}`);
+    throw new GeoError("mapping_invalid", `The ${what} field mapping is invalid at "${formatPath(issue.path, "(mapping)")}": ${issue.message}`);
   }
   return r.data;
 }

@@ -11,9 +11,9 @@
  */
 import { readFileSync } from "node:fs";
 import { calibrate } from "@/lib/calibration/calibrate";
-import { ModelInputError } from "@/lib/model/errors";
+import { formatPath, ModelInputError } from "@/lib/model/errors";
 import { calibrationSchema } from "@/lib/validation/calibration";
-import { formatIssuePath, parseModelFile } from "@/lib/validation/model-file";
+import { parseModelFile } from "@/lib/validation/model-file";
 
 function fail(code: number, lines: string[]): never {
   for (const l of lines) process.stderr.write(`${l}\n`);
@@ -35,7 +35,7 @@ const cal = calibrationSchema.safeParse(calibration);
 const parsed = parseModelFile(model);
 const issues = [
   ...(parsed.ok ? [] : parsed.issues.map((i) => `  ${i.path}: ${i.message}`)),
-  ...(cal.success ? [] : cal.error.issues.map((i) => `  ${formatIssuePath(["calibration", ...i.path])}: ${i.message}`)),
+  ...(cal.success ? [] : cal.error.issues.map((i) => `  ${formatPath(["calibration", ...i.path])}: ${i.message}`)),
 ];
 if (calibration === undefined) issues.push("  calibration: is required (observations and the coefficients to fit)");
 if (issues.length > 0 || !parsed.ok || !cal.success) fail(1, [`${file}: invalid calibration file`, ...issues]);

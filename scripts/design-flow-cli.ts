@@ -13,6 +13,7 @@ import { parseArgs } from "node:util";
 import { z } from "zod";
 import { DEFAULT_CLIMATIC_YEAR_START, lowFlowStatistics } from "@/lib/hydrology/low-flow";
 import { flowUnitSchema, readDailyRecord, RecordError } from "@/lib/hydrology/read-record";
+import { formatPath } from "@/lib/model/errors";
 
 function fail(lines: string[]): never {
   for (const l of lines) process.stderr.write(`${l}\n`);
@@ -39,7 +40,7 @@ try {
   fail([(e as Error).message, USAGE]);
 }
 const args = designFlowArgsSchema.safeParse({ record: parsed.positionals[0], unit: parsed.values.unit, climaticYearStart: parsed.values["climatic-year-start"] });
-if (!args.success) fail([...args.error.issues.map((i) => `${i.path.join(".") || "arguments"}: ${i.message}`), USAGE]);
+if (!args.success) fail([...args.error.issues.map((i) => `${formatPath(i.path, "arguments")}: ${i.message}`), USAGE]);
 const { record, unit, climaticYearStart } = args.data;
 
 let text: string;

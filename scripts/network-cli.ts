@@ -17,6 +17,7 @@ import { GeoError } from "@/geo/errors";
 import { dischargerMappingSchema, reachMappingSchema } from "@/geo/field-mapping";
 import { DISCHARGER_FIELDS, guessBindings, REACH_FIELDS, toMapping } from "@/geo/mapping-fields";
 import { readUploadLayer, type UploadLayer } from "@/geo/read-upload";
+import { formatPath } from "@/lib/model/errors";
 import { networkOptionsSchema } from "@/lib/validation/network";
 
 function fail(code: number, lines: string[]): never {
@@ -43,7 +44,7 @@ const argsSchema = z.object({
 /** `--mapping`: the API's own reach and discharger mapping schemas. */
 const mappingFileSchema = z.object({ reaches: reachMappingSchema.optional(), dischargers: dischargerMappingSchema.optional() }).strict();
 
-const issues = (e: z.ZodError, root: string) => e.issues.map((i) => `  ${[root, ...i.path].filter((p) => p !== "").join(".")}: ${i.message}`);
+const issues = (e: z.ZodError, root: string) => e.issues.map((i) => `  ${formatPath(root === "" ? i.path : [root, ...i.path], "arguments")}: ${i.message}`);
 
 function readBytes(path: string): Uint8Array {
   try {

@@ -16,15 +16,18 @@ export class ModelInputError extends Error {
   }
 }
 
-/** `["dischargers", 2, "km"]` → `dischargers[2].km` (empty path → `(model)`). */
-export function formatPath(path: FieldPath): string {
-  if (path.length === 0) return "(model)";
+/**
+ * The one formatter of a field path, for model errors and zod issues alike (the API's
+ * model-file issues, the CLIs): `["dischargers", 2, "km"]` → `dischargers[2].km`; an empty
+ * path reads `empty` (default `(model)`, the whole file).
+ */
+export function formatPath(path: ReadonlyArray<PropertyKey>, empty = "(model)"): string {
   let out = "";
   for (const part of path) {
     if (typeof part === "number") out += `[${part}]`;
-    else out += out === "" ? part : `.${part}`;
+    else out += out === "" ? String(part) : `.${String(part)}`;
   }
-  return out;
+  return out === "" ? empty : out;
 }
 
 // The field path is `path` followed by `key` when given; it is only built when throwing,

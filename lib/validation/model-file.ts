@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { ALLOCATION_OBJECTIVES, KA_METHODS, THETA_RULES } from "@/lib/domain";
 import { compilePlan } from "@/lib/model/network/compile";
-import { ModelInputError } from "@/lib/model/errors";
+import { formatPath, ModelInputError } from "@/lib/model/errors";
 import type { ModelFile } from "@/lib/model/types";
 
 /**
@@ -194,19 +194,9 @@ export interface ModelFileIssue {
   message: string;
 }
 
-/** Formats a zod path as `dischargers[2].km`. */
-export function formatIssuePath(path: ReadonlyArray<PropertyKey>): string {
-  let out = "";
-  for (const p of path) {
-    if (typeof p === "number") out += `[${p}]`;
-    else out += out === "" ? String(p) : `.${String(p)}`;
-  }
-  return out === "" ? "(model)" : out;
-}
-
 /** Parses unknown JSON into a model file, or returns every issue with its field path. */
 export function parseModelFile(data: unknown): { ok: true; file: ModelFileInput } | { ok: false; issues: ModelFileIssue[] } {
   const r = modelFileSchema.safeParse(data);
   if (r.success) return { ok: true, file: r.data };
-  return { ok: false, issues: r.error.issues.map((i) => ({ path: formatIssuePath(i.path), message: i.message })) };
+  return { ok: false, issues: r.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message })) };
 }
