@@ -1,23 +1,31 @@
 import { NextResponse, type NextRequest } from "next/server";
 import type { z } from "zod";
 import { getDb, type Db } from "@/db/client";
-import { requireActor, requireBasinAction, requireSiteAction, type Actor, type BasinAccess } from "@/lib/auth/guard";
+import { requireActor, requireSiteAction, type Actor } from "@/lib/auth/guard";
 import type { BasinAction, SiteAction } from "@/lib/auth/permissions";
+import { basinScope, type BasinScope } from "@/lib/auth/scope";
 import { actorFromRequest } from "@/lib/auth/session";
 import { appUrl } from "@/lib/email/app-url";
 import { AppError } from "@/lib/errors";
 import { readMultipart, type UploadedForm } from "./multipart";
 import { errorResponse, invalid } from "./respond";
 
-/** What a handler needs before it runs. */
+/**
+ * What a handler needs before it runs. `{ basin: true }`: a signed-in caller
+ * and a basin that exists (the `basinId` path parameter); route() builds the
+ * request's basin scope once and hands it over as `ctx.scope`, and the service
+ * requires the action next to its data, so each endpoint names its permission
+ * in one place. `{ basin: action }` also refuses in route() (for handlers that
+ * call no basin service).
+ */
 export type Access =
   | { public: true }
   | { signedIn: true }
   | { site: SiteAction }
-  | { basin: BasinAction };
+  | { basin: true | BasinAction };
 
-interface Spec<P extends z.ZodType, B extends z.ZodType, Q extends z.ZodType> {
-  access: Access;
+interface Spec<A extends Access, P extends z.ZodType, B extends z.ZodType, Q extends z.ZodType> {
+  access: A;
   params?: P;
   body?: B;
   /** The query string (each parameter once, as text); a bad one is a 422 naming it. */
@@ -38,20 +46,21 @@ interface Spec<P extends z.ZodType, B extends z.ZodType, Q extends z.ZodType> {
   status?: number;
 }
 
-export interface RouteContext<P, B, Q = Record<string, string>> {
+export interface RouteContext<P, B, Q = Record<string, string>, S = BasinScope | null> {
   db: Db;
   req: NextRequest;
   actor: Actor | null;
   params: P;
   body: B;
   query: Q;
-  /** Set when access is { basin: … }: the basin and the actor's role in it. */
-  access: BasinAccess | null;
+  /** With access { basin }: this request's basin scope (the basin and the caller's role, read once). */
+  scope: S;
   /** The uploaded file, when the spec names a fileField. */
   file: { name: string; bytes: Buffer } | null;
 }
 
-type Handler<P, B, Q> = (ctx: RouteContext<P, B, Q>) => Promise<unknown>;
+type ScopeOf<A> = A extends { basin: unknown } ? BasinScope : null;
+type Handler<A, P, B, Q> = (ctx: RouteContext<P, B, Q, ScopeOf<A>>) => Promise<unknown>;
 
 /**
  * The most bytes a JSON body may have unless a route says otherwise: every
@@ -190,10 +199,11 @@ async function readForm(req: NextRequest, limit: number, field: string): Promise
  * validation → service → JSON, with every error mapped in one place.
  */
 export function route<
+  const A extends Access,
   P extends z.ZodType = z.ZodType<Record<string, string>>,
   B extends z.ZodType = z.ZodType<undefined>,
   Q extends z.ZodType = z.ZodType<Record<string, string>>,
->(spec: Spec<P, B, Q>, handler: Handler<z.infer<P>, z.infer<B>, z.infer<Q>>) {
+>(spec: Spec<A, P, B, Q>, handler: Handler<A, z.infer<P>, z.infer<B>, z.infer<Q>>) {
   return async (req: NextRequest, ctx: { params: Promise<Record<string, string | string[]>> }): Promise<Response> => {
     try {
       refuseForeignOrigin(req);
@@ -213,11 +223,12 @@ export function route<
         params = parsed.data;
       }
 
-      let access: BasinAccess | null = null;
+      let scope: BasinScope | null = null;
       if ("basin" in spec.access) {
         const basinId = (params as { basinId?: string }).basinId;
         if (!basinId) throw new Error("route with basin access needs a basinId parameter");
-        access = await requireBasinAction(db, actor, basinId, spec.access.basin);
+        scope = await basinScope(db, actor, basinId);
+        if (spec.access.basin !== true) scope.require(spec.access.basin);
       }
 
       let query = Object.fromEntries(req.nextUrl.searchParams) as z.infer<Q>;
@@ -253,7 +264,7 @@ export function route<
         body = parsed.data;
       }
 
-      const result = await handler({ db, req, actor, params, body, query, access, file });
+      const result = await handler({ db, req, actor, params, body, query, scope: scope as ScopeOf<A>, file });
       if (result instanceof Response) return result;
       const status = spec.status ?? 200;
       if (status === 204 || result === undefined) return new NextResponse(null, { status: 204 });

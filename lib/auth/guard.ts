@@ -4,7 +4,7 @@ import { findUserById } from "@/db/queries/users";
 import type { BasinRole } from "@/db/schema";
 import { AppError, forbidden, notFound, unauthenticated } from "@/lib/errors";
 import { refusal, SITE_ACTION_PHRASES } from "@/lib/format/labels";
-import { roleAllows, rolesAllowing, type BasinAction, type SiteAction } from "./permissions";
+import { ADMIN_BASIN_ACTIONS, roleAllows, rolesAllowing, type BasinAction, type SiteAction } from "./permissions";
 
 /** The signed-in person, as re-read from the database for every check. */
 export interface Actor {
@@ -13,17 +13,6 @@ export interface Actor {
   name: string;
   isAdmin: boolean;
 }
-
-/** Site admins may look after every basin's settings, members and facilities. */
-const ADMIN_BASIN_ACTIONS: readonly BasinAction[] = [
-  "basin.read",
-  "basin.update",
-  "members.read",
-  "members.manage",
-  "facilities.read",
-  "facilities.manage",
-  "audit.read",
-];
 
 /**
  * Resolve a session's user id to a live account, or null when it no longer

@@ -28,6 +28,16 @@ export const BASIN_ACTIONS = [
 ] as const;
 export type BasinAction = (typeof BASIN_ACTIONS)[number];
 
+/**
+ * Site administrators look after every basin's settings, members, facilities
+ * and audit trail (not its scenarios, plans or reviews): every action of
+ * those areas, derived from BASIN_ACTIONS so a new action there is covered.
+ */
+const ADMIN_AREAS = ["basin", "members", "facilities", "audit"] as const;
+export const ADMIN_BASIN_ACTIONS: readonly BasinAction[] = BASIN_ACTIONS.filter((a) =>
+  (ADMIN_AREAS as readonly string[]).includes(a.split(".")[0]),
+);
+
 /** Site-wide actions, held by site admins only. */
 export const SITE_ACTIONS = ["users.manage", "basins.manage"] as const;
 export type SiteAction = (typeof SITE_ACTIONS)[number];
