@@ -45,6 +45,10 @@ const CORE: Record<string, Entry> = {
     load: () => import("@/app/api/health/route"),
     methods: { GET: { expect: all(200) } },
   },
+  "app/api/health/live/route.ts": {
+    load: () => import("@/app/api/health/live/route"),
+    methods: { GET: { expect: all(200) } },
+  },
   "app/api/me/route.ts": {
     load: () => import("@/app/api/me/route"),
     methods: { GET: { expect: signedIn(200) } },
