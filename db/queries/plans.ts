@@ -371,3 +371,38 @@ export async function setPublicationAcknowledgement(db: Db, planId: string, ack:
 export async function planSnapshot(db: Db, planId: string): Promise<unknown> {
   return (await db.selectFrom("plans").select("snapshot").where("id", "=", planId).executeTakeFirst())?.snapshot;
 }
+
+/**
+ * What a published plan's page and files are drawn from besides its frozen rows: the plan's
+ * state and publication time, its basin's name, slug, units and zone (a lead may change
+ * them), and the newest later version of its lineage that is published (the page says it
+ * is superseded). One row by primary key, read on every request for a published plan so
+ * that any process's change is seen at once; undefined when the plan is not the basin's.
+ */
+export async function findPublicationStamp(db: Db, basinId: string, planId: string) {
+  if (!isUuid(basinId) || !isUuid(planId)) return undefined;
+  return db
+    .selectFrom("plans as p")
+    .innerJoin("basins as b", "b.id", "p.basin_id")
+    .select((eb) => [
+      "p.id",
+      "p.status",
+      "p.published_at",
+      "b.name as basin_name",
+      "b.slug as basin_slug",
+      "b.unit_system",
+      "b.time_zone",
+      eb
+        .selectFrom("plans as q")
+        .select("q.id")
+        .whereRef("q.lineage_id", "=", "p.lineage_id")
+        .where("q.status", "=", "published")
+        .whereRef("q.version", ">", "p.version")
+        .orderBy("q.version", "desc")
+        .limit(1)
+        .as("newer_published_id"),
+    ])
+    .where("p.id", "=", planId)
+    .where("p.basin_id", "=", basinId)
+    .executeTakeFirst();
+}

@@ -17,6 +17,7 @@ import { conditionRows, conditionsLine, runConditions } from "@/lib/results/run-
 import { AppError } from "@/lib/errors";
 import { reachFeature } from "./networks";
 import { getPlan, getPlanForReader, getPublishedPlan } from "./plans";
+import { cachedPublishedFile, cachedPublishedPage, publicationKey, publishedStamp } from "./published-cache";
 
 export type PlanExportFormat = "pdf" | "csv" | "geojson";
 
@@ -57,8 +58,26 @@ const about = (basin: { name: string; timeZone: string | null }, plan: PlanDto) 
     : `DRAFT — not published (${nameOf(PLAN_STATUS_NAMES, plan.status).toLowerCase()})`,
 ];
 
+type Made = { download: PlanDownload; published: boolean };
+
+/**
+ * A download: a published plan's from this process's cache (lib/services/published-cache.ts),
+ * checked first by one read of the plan's state and basin so that a change made in any
+ * process is seen at once, with an ETag; any other plan's through `make` as before
+ * (its own read rules, audited, private).
+ */
+async function download(db: Db, basinId: string, planId: string, what: string, make: () => Promise<Made>): Promise<PlanDownload> {
+  const stamp = await publishedStamp(db, basinId, planId);
+  if (stamp) return cachedPublishedFile(publicationKey(stamp, what), make);
+  return (await make()).download;
+}
+
 /** The plan report as PDF (see lib/reports/plan-pdf.tsx). */
 export async function planReportPdf(db: Db, actor: Actor | null, basinId: string, planId: string, now = new Date()): Promise<PlanDownload> {
+  return download(db, basinId, planId, "pdf", () => makePdf(db, actor, basinId, planId, now));
+}
+
+async function makePdf(db: Db, actor: Actor | null, basinId: string, planId: string, now: Date): Promise<Made> {
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const render = async () => {
     const network = await planNetwork(db, plan.id);
@@ -68,9 +87,9 @@ export async function planReportPdf(db: Db, actor: Actor | null, basinId: string
   if (plan.status !== "published") {
     const bytes = await render();
     await recordExport(db, actor, basin.id, plan, "pdf");
-    return { body: bytes, contentType: "application/pdf", fileName: `${stem}.pdf` };
+    return { download: { body: bytes, contentType: "application/pdf", fileName: `${stem}.pdf` }, published: false };
   }
-  return { body: await publishedPdf(db, plan.id, render), contentType: "application/pdf", fileName: `${stem}.pdf` };
+  return { download: { body: await publishedPdf(db, plan.id, render), contentType: "application/pdf", fileName: `${stem}.pdf` }, published: true };
 }
 
 /** Renders in flight in this process, so requests arriving together for a new published plan render it once. */
@@ -93,6 +112,10 @@ async function publishedPdf(db: Db, planId: string, render: () => Promise<Uint8A
 
 /** The allocation table as CSV, loads in the basin's unit, the caution and what the file is in its Notes column (docs/exports.md). */
 export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: string, planId: string): Promise<PlanDownload> {
+  return download(db, basinId, planId, "csv", () => makeCsv(db, actor, basinId, planId));
+}
+
+async function makeCsv(db: Db, actor: Actor | null, basinId: string, planId: string): Promise<Made> {
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const s = readSnapshot(plan.snapshot);
   const names = Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]));
@@ -100,7 +123,7 @@ export async function planAllocationsCsv(db: Db, actor: Actor | null, basinId: s
     allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unitSystem, [...about(basin, plan), conditionsLine({ conditions: s.run.result.conditions, allocation: s.allocation })], names),
   );
   await recordExport(db, actor, basin.id, plan, "csv");
-  return { body: text, contentType: "text/csv; charset=utf-8", fileName: `${stem}-allocations.csv` };
+  return { download: { body: text, contentType: "text/csv; charset=utf-8", fileName: `${stem}-allocations.csv` }, published: plan.status === "published" };
 }
 
 /**
@@ -120,6 +143,10 @@ export async function planReachesGeoJson(
   conditionName?: string,
   layer: ExportLayer = "reaches",
 ): Promise<PlanDownload> {
+  return download(db, basinId, planId, JSON.stringify(["geojson", layer, conditionName ?? null]), () => makeGeoJson(db, actor, basinId, planId, conditionName, layer));
+}
+
+async function makeGeoJson(db: Db, actor: Actor | null, basinId: string, planId: string, conditionName: string | undefined, layer: ExportLayer): Promise<Made> {
   const { plan, basin, stem } = await readPlan(db, actor, basinId, planId);
   const s = readSnapshot(plan.snapshot);
   const network = await planNetwork(db, plan.id);
@@ -163,12 +190,26 @@ export async function planReachesGeoJson(
   };
   await recordExport(db, actor, basin.id, plan, "geojson");
   const conditionPart = index === read.governing ? "" : `-${shown.name.replace(/[^\w-]+/g, "-").toLowerCase()}`;
-  return { body: JSON.stringify(json), contentType: "application/geo+json", fileName: `${stem}-${layer}${conditionPart}.geojson` };
+  return {
+    download: { body: JSON.stringify(json), contentType: "application/geo+json", fileName: `${stem}-${layer}${conditionPart}.geojson` },
+    published: plan.status === "published",
+  };
 }
 
-/** The public page's plan (null unless published) with the reach lines its DO map is drawn on. */
-export async function getPublishedPlanWithMap(db: Db, actor: Actor | null, basinId: string, planId: string) {
-  const found = await getPublishedPlan(db, actor, basinId, planId);
-  if (!found) return null;
-  return { ...found, network: await planNetwork(db, found.plan.id) };
+/**
+ * The public page's plan (null unless published) with the reach lines its DO map is drawn
+ * on. The same for every reader, so kept in this process's cache under the plan's stamp
+ * (its state, its basin's name, units and zone, and any later published version), which is
+ * read on every request: a change made in any process is seen at once. The value is
+ * shared between requests; callers must not change it.
+ */
+export async function getPublishedPlanWithMap(db: Db, basinId: string, planId: string) {
+  const stamp = await publishedStamp(db, basinId, planId);
+  if (!stamp) return null;
+  return cachedPublishedPage(publicationKey(stamp, "page"), async () => {
+    // a published plan reads the same to everyone: no caller is needed (nor kept with the value)
+    const found = await getPublishedPlan(db, null, basinId, planId);
+    if (!found) return null;
+    return { ...found, network: await planNetwork(db, found.plan.id) };
+  });
 }

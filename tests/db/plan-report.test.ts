@@ -15,6 +15,7 @@ import { dischargersFile, piecesFile, reachesFile } from "../unit/results/export
 import { formatDay } from "@/lib/format/zoned-time";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { planReachesGeoJson, planReportPdf } from "@/lib/services/plan-reports";
+import { resetPublishedCache } from "@/lib/services/published-cache";
 import { addComment, closeDueReviews, getPlan, publishPlan, respondToThread } from "@/lib/services/plans";
 import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
@@ -117,6 +118,8 @@ describe("the report of a published plan (US units) with a comment and its respo
 
   it("is rendered once for a published plan and served from storage after that, also to requests arriving together", async () => {
     await db.deleteFrom("plan_report_files").where("plan_id", "=", planId).execute();
+    // and the copy this process keeps in memory (lib/services/published-cache.ts), so that storage is what is tested
+    resetPublishedCache();
     const together = await Promise.all([1, 2, 3, 4].map(() => planReportPdf(db, null, w.basinId, planId)));
     const stored = await db.selectFrom("plan_report_files").select(["pdf", "created_at"]).where("plan_id", "=", planId).execute();
     expect(stored).toHaveLength(1);

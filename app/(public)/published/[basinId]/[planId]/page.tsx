@@ -5,7 +5,6 @@ import { PublicPlan } from "@/components/plans/public-plan";
 import { CriticalConditions, MethodGroups, ResponsivenessRecord } from "@/components/plans/public-plan-record";
 import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db/client";
-import { currentActor } from "@/lib/auth/session";
 import { formatWhen } from "@/lib/format/zoned-time";
 import { planReport, readSnapshot } from "@/lib/reports/plan-report-data";
 import { governingCondition } from "@/lib/results/governing";
@@ -13,12 +12,16 @@ import { acknowledgementSummary, responsivenessRows } from "@/lib/results/respon
 import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
 
 export const metadata: Metadata = { title: "Published plan" };
+// Rendered per request: the public layout's header names whoever is signed in (a session
+// cookie), so the HTML is not the same for everyone and must not be stored by shared
+// caches. The plan's data is cached instead (getPublishedPlanWithMap: one row read per
+// request checks the plan is still published and nothing it is drawn with has changed).
 export const dynamic = "force-dynamic";
 
 /** A published plan, readable without signing in. */
 export default async function PublishedPlanPage({ params }: { params: Promise<{ basinId: string; planId: string }> }) {
   const { basinId, planId } = await params;
-  const found = await getPublishedPlanWithMap(getDb(), await currentActor(), basinId, planId);
+  const found = await getPublishedPlanWithMap(getDb(), basinId, planId);
   if (!found) notFound();
   const { plan, basin, network } = found;
   // checked against its schema when the plan was read (lib/plans/snapshot.ts)

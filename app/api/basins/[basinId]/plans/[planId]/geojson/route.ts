@@ -15,6 +15,6 @@ const query = z.object({
 });
 
 /** One layer of the plan's results under its allocation (GeoJSON); same access and audit as the report. */
-export const GET = route({ access: { public: true }, params: planParams, query }, async ({ db, actor, params, query }) =>
-  downloadResponse(await planReachesGeoJson(db, actor, params.basinId, params.planId, query.condition, query.layer)),
+export const GET = route({ access: { public: true }, params: planParams, query }, async ({ db, actor, params, query, req }) =>
+  downloadResponse(await planReachesGeoJson(db, actor, params.basinId, params.planId, query.condition, query.layer), req.headers.get("if-none-match")),
 );
