@@ -1,10 +1,8 @@
 import type { Db } from "@/db/client";
-import { findBasinWithRole, type BasinRecord } from "@/db/queries/basins";
 import { findUserById } from "@/db/queries/users";
-import type { BasinRole } from "@/db/schema";
-import { AppError, forbidden, notFound, unauthenticated } from "@/lib/errors";
-import { refusal, SITE_ACTION_PHRASES } from "@/lib/format/labels";
-import { ADMIN_BASIN_ACTIONS, roleAllows, rolesAllowing, type BasinAction, type SiteAction } from "./permissions";
+import { forbidden, unauthenticated } from "@/lib/errors";
+import { SITE_ACTION_PHRASES } from "@/lib/format/labels";
+import type { SiteAction } from "./permissions";
 
 /** The signed-in person, as re-read from the database for every check. */
 export interface Actor {
@@ -37,42 +35,4 @@ export function requireSiteAction(actor: Actor | null, action: SiteAction): Acto
   const a = requireActor(actor);
   if (!a.isAdmin) throw forbidden(`Only site administrators can ${SITE_ACTION_PHRASES[action] ?? "do this"}.`);
   return a;
-}
-
-export interface BasinAccess {
-  basin: BasinRecord;
-  role: BasinRole | null;
-}
-
-/**
- * The one guard for basin-scoped work: the basin must exist and the actor's
- * current role in it (read now, not from the session) must allow `action`.
- * Throws 401 when signed out, 404 for an unknown basin, 403 otherwise.
- */
-export async function requireBasinAction(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
-  action: BasinAction,
-): Promise<BasinAccess> {
-  const a = requireActor(actor);
-  const found = await findBasinWithRole(db, basinId, a.id);
-  if (!found) throw notFound("Basin");
-  const { basin, role } = found;
-  if (roleAllows(role, action) || (a.isAdmin && ADMIN_BASIN_ACTIONS.includes(action))) {
-    return { basin, role };
-  }
-  if (!role && !a.isAdmin) throw new AppError("forbidden", "You are not a member of this basin; its lead can invite you.");
-  throw forbidden(refusal(action, rolesAllowing(action), role));
-}
-
-/** The same check as a boolean, for deciding what a page shows. */
-export async function canInBasin(db: Db, actor: Actor | null, basinId: string, action: BasinAction): Promise<boolean> {
-  try {
-    await requireBasinAction(db, actor, basinId, action);
-    return true;
-  } catch (error) {
-    if (error instanceof AppError) return false;
-    throw error;
-  }
 }

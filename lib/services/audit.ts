@@ -1,6 +1,5 @@
-import type { Db } from "@/db/client";
 import { listAuditEvents } from "@/db/queries/audit";
-import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import type { AuditQuery } from "@/lib/validation/audit";
 
 export interface AuditEventDto {
@@ -26,13 +25,9 @@ export const AUDIT_AREAS: Record<AuditArea, { label: string; prefixes: readonly 
 };
 
 /** A page of the basin's audit trail, newest first (leads and admins); `options` as auditQuerySchema checks them. */
-export async function listBasinAudit(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
-  options: AuditQuery & { limit?: number } = {},
-): Promise<AuditEventDto[]> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "audit.read");
+export async function listBasinAudit(scope: BasinScope, options: AuditQuery & { limit?: number } = {}): Promise<AuditEventDto[]> {
+  scope.require("audit.read");
+  const { db, basin } = scope;
   const rows = await listAuditEvents(db, basin.id, {
     prefixes: options.area ? [...AUDIT_AREAS[options.area].prefixes] : undefined,
     beforeId: options.before,

@@ -1,8 +1,7 @@
-import type { Db } from "@/db/client";
 import { listBasinPlans } from "@/db/queries/plans";
 import { currentNetworkSummary, doneRunOutcomes, latestDoneRunPerScenario, type RunOutcomeRow } from "@/db/queries/run-outcomes";
 import { listScenarios as listScenarioRows } from "@/db/queries/scenarios";
-import { canInBasin, requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { PLAN_STAGE_TEXT, planStage, type PlanStage } from "@/lib/plans/review-rules";
 import { runOutcome, type RunOutcome } from "@/lib/results/run-outcome";
 import { listBasinAudit, type AuditEventDto } from "./audit";
@@ -61,15 +60,16 @@ const RECENT_EVENTS = 6;
 const outcomeOf = (r: RunOutcomeRow): RunOutcome | null => runOutcome({ kind: r.kind, conditions: r.conditions ?? [], allocation: r.allocation });
 
 /** The overview of a basin (basin.read), each part only as the reader's role allows. A fixed number of queries, whatever the basin holds. */
-export async function basinOverview(db: Db, actor: Actor | null, basinId: string, now = new Date()): Promise<BasinOverviewDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "basin.read");
-  const [planner, auditor] = await Promise.all([canInBasin(db, actor, basin.id, "scenario.read"), canInBasin(db, actor, basin.id, "audit.read")]);
+export async function basinOverview(scope: BasinScope, now = new Date()): Promise<BasinOverviewDto> {
+  scope.require("basin.read");
+  const { db, basin } = scope;
+  const [planner, auditor] = [scope.can("scenario.read"), scope.can("audit.read")];
   const [net, scenarioRows, latestRuns, planRows, events] = await Promise.all([
     planner ? currentNetworkSummary(db, basin.id) : undefined,
     planner ? listScenarioRows(db, basin.id) : [],
     planner ? latestDoneRunPerScenario(db, basin.id) : [],
     listBasinPlans(db, basin.id, planner ? "planner" : "signedIn"),
-    auditor ? listBasinAudit(db, actor, basin.id, { limit: RECENT_EVENTS }) : null,
+    auditor ? listBasinAudit(scope, { limit: RECENT_EVENTS }) : null,
   ]);
   const runBy = new Map(latestRuns.map((r) => [r.scenario_id, r]));
   return {
@@ -125,8 +125,9 @@ export interface RunOutcomesDto {
 }
 
 /** Outcomes of the basin's finished runs for the runs list (scenario.read), and the newest network version. */
-export async function listRunOutcomes(db: Db, actor: Actor | null, basinId: string): Promise<RunOutcomesDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function listRunOutcomes(scope: BasinScope): Promise<RunOutcomesDto> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   const [rows, net] = await Promise.all([doneRunOutcomes(db, basin.id), currentNetworkSummary(db, basin.id)]);
   return { latestNetworkVersion: net?.version ?? null, runs: Object.fromEntries(rows.map((r) => [r.id, outcomeOf(r)])) };
 }

@@ -3,7 +3,8 @@ import { insertAuditEvent } from "@/db/queries/audit";
 import { findBasinBySlug, insertBasin, listBasinsForUser, updateBasin as updateBasinRow } from "@/db/queries/basins";
 import { insertMembership, userLeadsAnyBasin } from "@/db/queries/memberships";
 import type { BasinUpdate } from "@/db/schema";
-import { requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { requireActor, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { mayCreateBasin } from "@/lib/auth/permissions";
 import { conflict, forbidden } from "@/lib/errors";
 import type { BasinCreateInput, BasinUpdateInput } from "@/lib/validation/basin";
@@ -52,19 +53,18 @@ export async function createBasin(db: Db, actor: Actor | null, input: BasinCreat
   });
 }
 
-export async function getBasin(db: Db, actor: Actor | null, basinId: string): Promise<BasinDto> {
-  const { basin, role } = await requireBasinAction(db, actor, basinId, "basin.read");
+export async function getBasin(scope: BasinScope): Promise<BasinDto> {
+  scope.require("basin.read");
+  const { basin, role } = scope;
   return basinDto(basin, role);
 }
 
 /** Change basin settings (lead or admin); records what changed. */
-export async function updateBasin(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function updateBasin(scope: BasinScope,
   input: BasinUpdateInput,
 ): Promise<BasinDto> {
-  const { basin, role } = await requireBasinAction(db, actor, basinId, "basin.update");
+  scope.require("basin.update");
+  const { db, actor, basin, role } = scope;
   const patch: BasinUpdate = {};
   if (input.name !== undefined) patch.name = input.name;
   if (input.slug !== undefined) patch.slug = input.slug;
@@ -84,7 +84,7 @@ export async function updateBasin(
     for (const key of Object.keys(patch) as (keyof typeof patch)[]) before[key] = basin[key as keyof typeof basin];
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "basin.updated",
       targetType: "basin",
       targetId: basin.id,

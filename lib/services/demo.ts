@@ -6,6 +6,7 @@ import { latestNetworkId } from "@/db/queries/networks";
 import { DEMO_DISCHARGER_MAPPING, DEMO_GIS_FILES, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
 import { DEMO_BASINS, DEMO_USERS } from "@/db/seed/demo-data";
 import { loadActor } from "@/lib/auth/guard";
+import { basinScope } from "@/lib/auth/scope";
 import { findUserByEmail } from "@/db/queries/users";
 import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { uploadImport } from "./imports";
@@ -41,10 +42,11 @@ export async function loadDemoNetwork(db: Db, root: string): Promise<number | nu
   if (!basin || (await latestNetworkId(db, basin.id))) return null;
   const plannerRow = await findUserByEmail(db, DEMO_USERS.find((u) => u.key === "planner")!.email);
   const planner = await loadActor(db, plannerRow?.id);
+  const scope = await basinScope(db, planner, basin.id);
   const read = (p: string) => ({ name: p.split("/").at(-1)!, bytes: readFileSync(join(root, p)) });
-  const reaches = await uploadImport(db, planner, basin.id, read(DEMO_GIS_FILES.reaches), { layer: "reaches" });
-  const dischargers = await uploadImport(db, planner, basin.id, read(DEMO_GIS_FILES.dischargers), { layer: "dischargers" });
-  const network = await commitNetwork(db, planner, basin.id, {
+  const reaches = await uploadImport(scope, read(DEMO_GIS_FILES.reaches), { layer: "reaches" });
+  const dischargers = await uploadImport(scope, read(DEMO_GIS_FILES.dischargers), { layer: "dischargers" });
+  const network = await commitNetwork(scope, {
     draft: {
       reachImportId: reaches.id,
       reachMapping: DEMO_REACH_MAPPING,
@@ -55,6 +57,6 @@ export async function loadDemoNetwork(db: Db, root: string): Promise<number | nu
     note: "Demo network loaded from the Tamsel River shapefile and discharger CSV",
     acceptReport: true,
   });
-  await createScenario(db, planner, basin.id, scenarioCreateSchema.parse(DEMO_STRESS_SCENARIO));
+  await createScenario(scope, scenarioCreateSchema.parse(DEMO_STRESS_SCENARIO));
   return network.version;
 }

@@ -1,4 +1,3 @@
-import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
 import {
   facilityIdsForUser,
@@ -10,7 +9,7 @@ import {
   unlinkFacilityUser,
 } from "@/db/queries/facilities";
 import { findMembershipRole } from "@/db/queries/memberships";
-import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { roleAllows } from "@/lib/auth/permissions";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { FacilityCreateInput, FacilityLinkInput } from "@/lib/validation/member";
@@ -20,21 +19,20 @@ import { facilityDto, type FacilityDto } from "./dto";
  * Facilities of a basin. Planners, leads and admins see all of them with their
  * linked users; a discharger sees only the facilities it is linked to.
  */
-export async function listFacilities(db: Db, actor: Actor | null, basinId: string): Promise<FacilityDto[]> {
-  const { basin, role } = await requireBasinAction(db, actor, basinId, "facilities.read");
+export async function listFacilities(scope: BasinScope): Promise<FacilityDto[]> {
+  scope.require("facilities.read");
+  const { db, actor, basin, role } = scope;
   const all = (await listFacilityRows(db, basin.id)).map(facilityDto);
-  if (actor!.isAdmin || roleAllows(role, "facilities.manage")) return all;
-  const mine = new Set(await facilityIdsForUser(db, basin.id, actor!.id));
-  return all.filter((f) => mine.has(f.id)).map((f) => ({ ...f, users: f.users.filter((u) => u.id === actor!.id) }));
+  if (actor.isAdmin || roleAllows(role, "facilities.manage")) return all;
+  const mine = new Set(await facilityIdsForUser(db, basin.id, actor.id));
+  return all.filter((f) => mine.has(f.id)).map((f) => ({ ...f, users: f.users.filter((u) => u.id === actor.id) }));
 }
 
-export async function createFacility(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function createFacility(scope: BasinScope,
   input: FacilityCreateInput,
 ): Promise<FacilityDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "facilities.manage");
+  scope.require("facilities.manage");
+  const { db, actor, basin } = scope;
   return db.transaction().execute(async (trx) => {
     if (await findFacilityByPermit(trx, basin.id, input.permitId)) {
       throw conflict(`Permit id ${input.permitId} already belongs to a facility in this basin`, [
@@ -44,7 +42,7 @@ export async function createFacility(
     const f = await insertFacility(trx, { basin_id: basin.id, name: input.name, permit_id: input.permitId });
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "facility.created",
       targetType: "facility",
       targetId: f.id,
@@ -55,14 +53,12 @@ export async function createFacility(
 }
 
 /** Link a discharger member of the basin to a facility. */
-export async function linkUserToFacility(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function linkUserToFacility(scope: BasinScope,
   facilityId: string,
   input: FacilityLinkInput,
 ): Promise<FacilityDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+  scope.require("members.manage");
+  const { db, actor, basin } = scope;
   return db.transaction().execute(async (trx) => {
     const facility = await findFacility(trx, basin.id, facilityId);
     if (!facility) throw notFound("Facility");
@@ -75,7 +71,7 @@ export async function linkUserToFacility(
     await linkFacilityUser(trx, facility.id, input.userId);
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "facility.user_linked",
       targetType: "facility",
       targetId: facility.id,
@@ -86,21 +82,19 @@ export async function linkUserToFacility(
   });
 }
 
-export async function unlinkUserFromFacility(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function unlinkUserFromFacility(scope: BasinScope,
   facilityId: string,
   userId: string,
 ): Promise<void> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+  scope.require("members.manage");
+  const { db, actor, basin } = scope;
   await db.transaction().execute(async (trx) => {
     const facility = await findFacility(trx, basin.id, facilityId);
     if (!facility) throw notFound("Facility");
     if (!(await unlinkFacilityUser(trx, facility.id, userId))) throw notFound("Link between this user and facility");
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "facility.user_unlinked",
       targetType: "facility",
       targetId: facility.id,
@@ -110,7 +104,6 @@ export async function unlinkUserFromFacility(
 }
 
 /** The facilities of a basin that the actor represents (empty for everyone else). */
-export async function myFacilityIds(db: Db, actor: Actor | null, basinId: string): Promise<string[]> {
-  if (!actor) return [];
-  return facilityIdsForUser(db, basinId, actor.id);
+export async function myFacilityIds(scope: BasinScope): Promise<string[]> {
+  return facilityIdsForUser(scope.db, scope.basin.id, scope.actor.id);
 }

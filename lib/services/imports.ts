@@ -13,7 +13,7 @@ import {
 import type { ImportFormat, ImportLayer } from "@/db/schema";
 import { sniffFormat, unknownFormatMessage } from "@/geo/detect-format";
 import type { FieldInfo, ReadOptions } from "@/geo";
-import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { ImportJobError, importPool } from "@/lib/compute/import-pool";
 import type { UploadBytes } from "@/lib/compute/import-protocol";
 import { AppError, notFound } from "@/lib/errors";
@@ -80,14 +80,9 @@ export function importFailure(e: unknown, path = "file"): unknown {
  * Keep an upload (bytes, SHA-256, who, when) after it has been read
  * successfully; returns its fields with sample values for the mapping step.
  */
-export async function uploadImport(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
-  file: { name: string; bytes: Buffer },
-  fields: UploadFields,
-): Promise<ImportDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+export async function uploadImport(scope: BasinScope, file: { name: string; bytes: Buffer }, fields: UploadFields): Promise<ImportDto> {
+  scope.require("network.import");
+  const { db, actor, basin } = scope;
   if (file.bytes.byteLength > uploadLimitBytes()) {
     throw new AppError("too_large", `${file.name} is larger than the ${uploadLimitBytes() / 1048576} MB upload limit`, [
       { path: "file", message: "File too large" },
@@ -123,11 +118,11 @@ export async function uploadImport(
       readOptions: { ...options },
       featureCount: read.featureCount,
       fields: read.fields,
-      uploadedBy: actor!.id,
+      uploadedBy: actor.id,
     });
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "import.uploaded",
       targetType: "import",
       targetId: row.id,
@@ -148,14 +143,16 @@ export async function loadUploadBytes(db: Db, basinId: string, importId: string,
   return { format: row.format, bytes, options: row.read_options as ReadOptions, fileName: row.file_name, path };
 }
 
-export async function listBasinImports(db: Db, actor: Actor | null, basinId: string): Promise<ImportDto[]> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function listBasinImports(scope: BasinScope): Promise<ImportDto[]> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   return (await listImports(db, basin.id)).map(importDto);
 }
 
 /** The original bytes of an upload, for download (traceability). */
-export async function importFile(db: Db, actor: Actor | null, basinId: string, importId: string) {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function importFile(scope: BasinScope, importId: string) {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   const row = await findImport(db, basin.id, importId);
   if (!row) throw notFound("Upload");
   return { fileName: row.file_name, format: row.format, content: row.content, sha256: row.sha256 };
@@ -169,8 +166,9 @@ export interface FieldMappingDto {
   createdAt: string;
 }
 
-export async function listMappings(db: Db, actor: Actor | null, basinId: string): Promise<FieldMappingDto[]> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+export async function listMappings(scope: BasinScope): Promise<FieldMappingDto[]> {
+  scope.require("network.import");
+  const { db, basin } = scope;
   return (await listFieldMappings(db, basin.id)).map((m) => ({
     id: m.id,
     layer: m.layer,
@@ -181,14 +179,15 @@ export async function listMappings(db: Db, actor: Actor | null, basinId: string)
 }
 
 /** Save (or replace, by name) a field mapping for the next import into this basin. */
-export async function saveMapping(db: Db, actor: Actor | null, basinId: string, input: FieldMappingSave): Promise<FieldMappingDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+export async function saveMapping(scope: BasinScope, input: FieldMappingSave): Promise<FieldMappingDto> {
+  scope.require("network.import");
+  const { db, actor, basin } = scope;
   const m = await upsertFieldMapping(db, {
     basinId: basin.id,
     layer: input.layer,
     name: input.name,
     mapping: input.mapping as Record<string, unknown>,
-    createdBy: actor!.id,
+    createdBy: actor.id,
   });
   return { id: m.id, layer: m.layer, name: m.name, mapping: m.mapping, createdAt: m.created_at.toISOString() };
 }

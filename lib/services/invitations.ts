@@ -17,7 +17,8 @@ import { findUserByEmail, insertUser } from "@/db/queries/users";
 import type { BasinRole } from "@/db/schema";
 import { invitationEmail } from "@/lib/email/account-templates";
 import { queueEmail } from "@/lib/email/outbox";
-import { requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { requireActor, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import type { InvitationCreateInput, InvitationRegisterInput } from "@/lib/validation/account";
 import { appUrl } from "@/lib/email/app-url";
@@ -59,8 +60,9 @@ function invitationDto(i: InvitationRecord): InvitationDto {
 }
 
 /** Lead: the basin's invitations not yet accepted or revoked (expired ones say so). */
-export async function listInvitations(db: Db, actor: Actor | null, basinId: string): Promise<InvitationDto[]> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+export async function listInvitations(scope: BasinScope): Promise<InvitationDto[]> {
+  scope.require("members.manage");
+  const { db, basin } = scope;
   return (await listOpenInvitations(db, basin.id)).map(invitationDto);
 }
 
@@ -69,13 +71,11 @@ export async function listInvitations(db: Db, actor: Actor | null, basinId: stri
  * of the basin's facilities). The invitation e-mail is queued in the same
  * transaction; the link works once, for 14 days.
  */
-export async function createInvitation(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function createInvitation(scope: BasinScope,
   input: InvitationCreateInput,
 ): Promise<InvitationDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+  scope.require("members.manage");
+  const { db, actor, basin } = scope;
   const lead = actor!;
   return db.transaction().execute(async (trx) => {
     const now = new Date();
@@ -133,8 +133,9 @@ export async function createInvitation(
 }
 
 /** Lead: withdraw an open invitation; its link stops working at once. */
-export async function revokeInvitation(db: Db, actor: Actor | null, basinId: string, invitationId: string): Promise<void> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+export async function revokeInvitation(scope: BasinScope, invitationId: string): Promise<void> {
+  scope.require("members.manage");
+  const { db, actor, basin } = scope;
   await db.transaction().execute(async (trx) => {
     const inv = await findInvitation(trx, basin.id, invitationId);
     if (!inv) throw notFound("Invitation");
@@ -143,7 +144,7 @@ export async function revokeInvitation(db: Db, actor: Actor | null, basinId: str
     }
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "invitation.revoked",
       targetType: "invitation",
       targetId: inv.id,

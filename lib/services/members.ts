@@ -11,20 +11,23 @@ import {
 import { unlinkUserFromBasinFacilities } from "@/db/queries/facilities";
 import { lockBasin } from "@/db/queries/basins";
 import { findUserByEmail } from "@/db/queries/users";
-import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { Actor } from "@/lib/auth/guard";
+import { basinScope, type BasinScope } from "@/lib/auth/scope";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { MemberAddInput, MemberUpdateInput } from "@/lib/validation/member";
 import { memberDto, type MemberDto } from "./dto";
 import { endSessions } from "./users";
 
-export async function listMembers(db: Db, actor: Actor | null, basinId: string): Promise<MemberDto[]> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "members.read");
+export async function listMembers(scope: BasinScope): Promise<MemberDto[]> {
+  scope.require("members.read");
+  const { db, basin } = scope;
   return (await listMemberRows(db, basin.id)).map(memberDto);
 }
 
 /** Add an existing account to the basin with a role. */
-export async function addMember(db: Db, actor: Actor | null, basinId: string, input: MemberAddInput): Promise<MemberDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+export async function addMember(scope: BasinScope, input: MemberAddInput): Promise<MemberDto> {
+  scope.require("members.manage");
+  const { db, actor, basin } = scope;
   return db.transaction().execute(async (trx) => {
     const user = await findUserByEmail(trx, input.email);
     if (!user) {
@@ -38,7 +41,7 @@ export async function addMember(db: Db, actor: Actor | null, basinId: string, in
     await insertMembership(trx, basin.id, user.id, input.role);
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "member.added",
       targetType: "user",
       targetId: user.id,
@@ -58,9 +61,9 @@ const selfGranted = (actor: Actor | null, userId: string) => actor?.isAdmin === 
  * locked), and the actor's own right is checked again under the lock: two
  * leads demoting each other at once leave one lead, not none.
  */
-async function serialiseMembership(trx: Db, actor: Actor | null, basinId: string): Promise<void> {
-  await lockBasin(trx, basinId);
-  await requireBasinAction(trx, actor, basinId, "members.manage");
+async function serialiseMembership(trx: Db, scope: BasinScope): Promise<void> {
+  await lockBasin(trx, scope.basin.id);
+  (await basinScope(trx, scope.actor, scope.basin.id)).require("members.manage");
 }
 
 async function refuseLastLead(trx: Db, basinId: string, userId: string, verb: string): Promise<void> {
@@ -71,16 +74,14 @@ async function refuseLastLead(trx: Db, basinId: string, userId: string, verb: st
   }
 }
 
-export async function changeMemberRole(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function changeMemberRole(scope: BasinScope,
   userId: string,
   input: MemberUpdateInput,
 ): Promise<MemberDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+  scope.require("members.manage");
+  const { db, actor, basin } = scope;
   return db.transaction().execute(async (trx) => {
-    await serialiseMembership(trx, actor, basin.id);
+    await serialiseMembership(trx, scope);
     const before = await findMembershipRole(trx, basin.id, userId);
     if (!before) throw notFound("Member");
     if (before !== input.role) await refuseLastLead(trx, basin.id, userId, "change the role of");
@@ -92,7 +93,7 @@ export async function changeMemberRole(
     }
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "member.role_changed",
       targetType: "user",
       targetId: userId,
@@ -104,17 +105,18 @@ export async function changeMemberRole(
 }
 
 /** Remove a member; takes effect on their next request (roles are read per check). */
-export async function removeMember(db: Db, actor: Actor | null, basinId: string, userId: string): Promise<void> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "members.manage");
+export async function removeMember(scope: BasinScope, userId: string): Promise<void> {
+  scope.require("members.manage");
+  const { db, actor, basin } = scope;
   await db.transaction().execute(async (trx) => {
-    await serialiseMembership(trx, actor, basin.id);
+    await serialiseMembership(trx, scope);
     await refuseLastLead(trx, basin.id, userId, "remove");
     await unlinkUserFromBasinFacilities(trx, basin.id, userId);
     await deleteMembership(trx, basin.id, userId);
     await endSessions(trx, userId);
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "member.removed",
       targetType: "user",
       targetId: userId,

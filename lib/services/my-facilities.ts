@@ -1,7 +1,6 @@
-import type { Db } from "@/db/client";
 import { facilityIdsForUser, listFacilities as listFacilityRows } from "@/db/queries/facilities";
 import { currentPeriod } from "@/db/queries/plans";
-import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { notFound } from "@/lib/errors";
 import type { PlanStage } from "@/lib/plans/review-rules";
 import { getPlan, listPlans } from "./plans";
@@ -67,9 +66,10 @@ export function versionLabel(
  * (see governingPlan), and one plan in full — the governing one unless `planId` names another.
  * Anyone who may read the basin gets an answer; it is empty for people who represent no facility.
  */
-export async function getMyFacilities(db: Db, actor: Actor | null, basinId: string, planId?: string) {
-  const { basin } = await requireBasinAction(db, actor, basinId, "basin.read");
-  const mine = new Set(await facilityIdsForUser(db, basin.id, actor!.id));
+export async function getMyFacilities(scope: BasinScope, planId?: string) {
+  scope.require("basin.read");
+  const { db, actor, basin } = scope;
+  const mine = new Set(await facilityIdsForUser(db, basin.id, actor.id));
   const facilities = (await listFacilityRows(db, basin.id))
     .filter((f) => mine.has(f.id))
     .map((f) => ({ id: f.id, name: f.name, permitId: f.permit_id }));

@@ -9,7 +9,7 @@ import {
   updateOutfallAttributes,
   updateReach,
 } from "@/db/queries/networks";
-import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { conflict, notFound } from "@/lib/errors";
 import type { OutfallEdit, ReachEdit } from "@/lib/validation/network";
 
@@ -34,15 +34,13 @@ async function editableNetwork(db: Db, basinId: string, networkId: string) {
   return network;
 }
 
-export async function editReach(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function editReach(scope: BasinScope,
   networkId: string,
   reachId: string,
   edit: ReachEdit,
 ): Promise<void> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  scope.require("network.import");
+  const { db, actor, basin } = scope;
   await db.transaction().execute(async (trx) => {
     const network = await editableNetwork(trx, basin.id, networkId);
     const reach = await findReach(trx, network.id, reachId);
@@ -56,7 +54,7 @@ export async function editReach(
     });
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "network.reach_edited",
       targetType: "reach",
       targetId: `${network.id}/${reachId}`,
@@ -65,15 +63,13 @@ export async function editReach(
   });
 }
 
-export async function editOutfall(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function editOutfall(scope: BasinScope,
   networkId: string,
   facilityId: string,
   edit: OutfallEdit,
 ): Promise<void> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  scope.require("network.import");
+  const { db, actor, basin } = scope;
   await db.transaction().execute(async (trx) => {
     const network = await editableNetwork(trx, basin.id, networkId);
     const outfall = await findOutfall(trx, network.id, facilityId);
@@ -81,7 +77,7 @@ export async function editOutfall(
     await updateOutfallAttributes(trx, network.id, facilityId, merge(outfall.attributes, edit));
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "network.discharger_edited",
       targetType: "facility",
       targetId: facilityId,

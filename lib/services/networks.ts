@@ -18,7 +18,7 @@ import {
   nextNetworkVersion,
 } from "@/db/queries/networks";
 import type { ImportReport } from "@/geo";
-import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { ImportJobError, importPool, type ProgressListener } from "@/lib/compute/import-pool";
 import type { ValidateResult } from "@/lib/compute/import-protocol";
 import { AppError, notFound } from "@/lib/errors";
@@ -69,14 +69,12 @@ async function runValidation(db: Db, basinId: string, draft: NetworkDraft, forCo
  * loop). The pieces are views of the worker's buffer, never copied on this thread.
  * `onProgress` hears the stages as the worker goes through them.
  */
-export async function validateDraftJson(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function validateDraftJson(scope: BasinScope,
   draft: NetworkDraft,
   onProgress?: ProgressListener,
 ): Promise<Uint8Array[]> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+  scope.require("network.import");
+  const { db, basin } = scope;
   const result = await runValidation(db, basin.id, draft, false, onProgress);
   const knownPermits = await knownPermitsJson(db, basin.id, result.permitsJson);
   const text = new TextEncoder();
@@ -84,8 +82,8 @@ export async function validateDraftJson(
 }
 
 /** validateDraftJson, parsed (for scripts and tests that want the objects). */
-export async function validateDraft(db: Db, actor: Actor | null, basinId: string, draft: NetworkDraft): Promise<DraftResult> {
-  return JSON.parse(Buffer.concat(await validateDraftJson(db, actor, basinId, draft)).toString("utf8")) as DraftResult;
+export async function validateDraft(scope: BasinScope, draft: NetworkDraft): Promise<DraftResult> {
+  return JSON.parse(Buffer.concat(await validateDraftJson(scope, draft)).toString("utf8")) as DraftResult;
 }
 
 export interface NetworkSummaryDto {
@@ -104,8 +102,9 @@ export interface NetworkSummaryDto {
  * network, nodes, reaches, outfalls; facilities matched by permit id (new
  * permits become new facilities); the uploads marked as used; an audit event.
  */
-export async function commitNetwork(db: Db, actor: Actor | null, basinId: string, input: NetworkCommit): Promise<NetworkSummaryDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "network.import");
+export async function commitNetwork(scope: BasinScope, input: NetworkCommit): Promise<NetworkSummaryDto> {
+  scope.require("network.import");
+  const { db, actor, basin } = scope;
   const { draft } = input;
   return db.transaction().execute(async (trx) => {
     const net = (await runValidation(trx, basin.id, draft, true)).commit!;
@@ -133,7 +132,7 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
       reportJson: net.storedReport,
       totalLengthKm: net.totalLengthKm,
       note: input.note,
-      createdBy: actor!.id,
+      createdBy: actor.id,
     });
     for (const rows of net.nodes) await insertNodesJson(trx, network.id, rows);
     for (const rows of net.reaches) await insertReachesJson(trx, network.id, rows);
@@ -144,7 +143,7 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
     await markImportsCommitted(trx, [draft.reachImportId, ...(draft.dischargerImportId ? [draft.dischargerImportId] : [])]);
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "network.committed",
       targetType: "network",
       targetId: network.id,
@@ -158,13 +157,14 @@ export async function commitNetwork(db: Db, actor: Actor | null, basinId: string
       outfallCount,
       note: network.note,
       createdAt: network.created_at.toISOString(),
-      createdBy: actor!.name,
+      createdBy: actor.name,
     };
   });
 }
 
-export async function listNetworks(db: Db, actor: Actor | null, basinId: string): Promise<NetworkSummaryDto[]> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function listNetworks(scope: BasinScope): Promise<NetworkSummaryDto[]> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   return (await listNetworkRows(db, basin.id)).map((n) => ({
     id: n.id,
     version: n.version,
@@ -230,8 +230,9 @@ export function outfallFeature(
 }
 
 /** One network version with its reaches, nodes and outfalls (tables and map GeoJSON). */
-export async function getNetwork(db: Db, actor: Actor | null, basinId: string, networkId: string | "latest"): Promise<NetworkDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function getNetwork(scope: BasinScope, networkId: string | "latest"): Promise<NetworkDto> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   const id = networkId === "latest" ? await latestNetworkId(db, basin.id) : networkId;
   const n = id ? await findNetwork(db, basin.id, id) : undefined;
   if (!n) throw notFound("Network");

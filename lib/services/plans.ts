@@ -1,7 +1,6 @@
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
 import { findFacilityByPermit } from "@/db/queries/facilities";
-import { findMembershipRole } from "@/db/queries/memberships";
 import {
   currentPeriod,
   dueReviewPeriods,
@@ -22,16 +21,17 @@ import {
   threadTitle,
   updateReviewPeriod, planAllocations, listBasinPlans, planThreads, transitionPlanStatus, lockPlanStatus } from "@/db/queries/plans";
 import type { PlanStatus, PublicationAcknowledgement } from "@/db/schema";
-import { canInBasin, requireActor, requireBasinAction, type Actor } from "@/lib/auth/guard";
+import { requireActor, type Actor } from "@/lib/auth/guard";
+import { basinScope, type BasinScope } from "@/lib/auth/scope";
 import { PLAN_STAGE_TEXT, planStage, reviewDateIssues } from "@/lib/plans/review-rules";
-import { AppError, conflict, notFound } from "@/lib/errors";
+import { AppError, conflict, notFound, unauthenticated } from "@/lib/errors";
 import { formatWhen } from "@/lib/format/zoned-time";
 import { awaitsResponse } from "@/lib/results/responsiveness";
 import { PLAN_SNAPSHOT_VERSION, readPlanSnapshot } from "@/lib/plans/snapshot";
 import { MIN_ACK_STATEMENT, type PlanPropose, type PlanPublish, type ReviewExtend, type ReviewOpen } from "@/lib/validation/plan";
 import { noticePlanPublished, noticeReviewClosingSoon, noticeReviewOpened, noticeThreadReply } from "./plan-notices";
 import { getRun, runScenarioRecord } from "./runs";
-import { findBasinById, setBasinTimeZoneIfUnset } from "@/db/queries/basins";
+import { findBasinById, setBasinTimeZoneIfUnset, type BasinRecord } from "@/db/queries/basins";
 import { networkReachLines } from "@/db/queries/plan-reports";
 
 /** Another request changed the plan's state first. */
@@ -40,10 +40,18 @@ const raced = () => conflict("The plan's state changed while this request was be
 /** Plan states anyone signed in may read (and, when published, anyone at all). */
 const PUBLIC_READ: PlanStatus[] = ["review", "closed", "published"];
 
-async function basinOr404(db: Db, basinId: string) {
+/**
+ * A plan's reader outside a basin scope (the public pages and downloads, readers of plans
+ * under review): the basin, and for a signed-in reader their scope in it, in one read.
+ */
+async function readerScope(db: Db, actor: Actor | null, basinId: string): Promise<{ basin: BasinRecord; scope: BasinScope | null }> {
+  if (actor) {
+    const scope = await basinScope(db, actor, basinId);
+    return { basin: scope.basin, scope };
+  }
   const basin = await findBasinById(db, basinId);
   if (!basin) throw notFound("Basin");
-  return basin;
+  return { basin, scope: null };
 }
 
 /**
@@ -51,19 +59,18 @@ async function basinOr404(db: Db, basinId: string) {
  * review any signed-in person (also once withdrawn, when they had been
  * reviewed: the comments stay on the record); published plans everyone.
  */
-async function requirePlanRead(db: Db, actor: Actor | null, basinId: string, status: PlanStatus, reviewed: boolean): Promise<void> {
+function requirePlanRead(scope: BasinScope | null, status: PlanStatus, reviewed: boolean): void {
   if (status === "published") return;
-  if (PUBLIC_READ.includes(status) || (status === "withdrawn" && reviewed)) {
-    requireActor(actor);
-    return;
-  }
-  await requireBasinAction(db, actor, basinId, "scenario.read");
+  if (!scope) throw unauthenticated();
+  if (PUBLIC_READ.includes(status) || (status === "withdrawn" && reviewed)) return;
+  scope.require("scenario.read");
 }
 
 /** Propose a plan from a finished, feasible allocation run: a frozen snapshot of what was run. */
-export async function proposePlan(db: Db, actor: Actor | null, basinId: string, input: PlanPropose) {
-  const { basin } = await requireBasinAction(db, actor, basinId, "plan.propose");
-  const run = await getRun(db, actor, basin.id, input.runId);
+export async function proposePlan(scope: BasinScope, input: PlanPropose) {
+  scope.require("plan.propose");
+  const { db, actor, basin } = scope;
+  const run = await getRun(scope, input.runId);
   if (run.kind !== "allocation" || run.status !== "done" || !run.result?.allocation) {
     throw new AppError("invalid", "A plan is proposed from a finished allocation run", [{ path: "runId", message: "Not a finished allocation run" }]);
   }
@@ -102,7 +109,7 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
       runId: run.id,
       reachLines,
       snapshot,
-      createdBy: actor!.id,
+      createdBy: actor.id,
     });
     const facilityIds: string[] = [];
     for (const a of allocation.allocations) {
@@ -123,14 +130,15 @@ export async function proposePlan(db: Db, actor: Actor | null, basinId: string, 
       });
     }
     await insertThreads(trx, plan.id, facilityIds);
-    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.proposed", targetType: "plan", targetId: plan.id, details: { version, runId: run.id, revises: revisedPlanId } });
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor.id, action: "plan.proposed", targetType: "plan", targetId: plan.id, details: { version, runId: run.id, revises: revisedPlanId } });
     return { id: plan.id, version, revises: revisedPlanId };
   });
 }
 
+/** A basin's plans, as many as the reader may see: drafts for its planners and leads, the rest for anyone signed in, published ones for all. */
 export async function listPlans(db: Db, actor: Actor | null, basinId: string) {
-  const basin = await basinOr404(db, basinId);
-  const seesDrafts = await canInBasin(db, actor, basin.id, "scenario.read");
+  const { basin, scope } = await readerScope(db, actor, basinId);
+  const seesDrafts = scope?.can("scenario.read") ?? false;
   const rows = await listBasinPlans(db, basin.id, seesDrafts ? "planner" : actor ? "signedIn" : "public");
   const now = new Date();
   return rows.map((p) => ({
@@ -151,11 +159,18 @@ export async function listPlans(db: Db, actor: Actor | null, basinId: string) {
 
 /** A plan with its allocations, review period and threads (comments as plain text). */
 export async function getPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
-  const basin = await basinOr404(db, basinId);
+  const { basin, scope } = await readerScope(db, actor, basinId);
+  return planView(db, basin, scope, planId);
+}
+
+/** The same plan read inside a basin scope the request already holds (workspace pages): no further basin read. */
+export const getPlanIn = (scope: BasinScope, planId: string) => planView(scope.db, scope.basin, scope, planId);
+
+async function planView(db: Db, basin: BasinRecord, scope: BasinScope | null, planId: string) {
   const plan = await findPlan(db, basin.id, planId, true);
   if (!plan) throw notFound("Plan");
   const period = await currentPeriod(db, plan.id);
-  await requirePlanRead(db, actor, basin.id, plan.status, period !== undefined);
+  requirePlanRead(scope, plan.status, period !== undefined);
   const [allocations, threads] = await Promise.all([planAllocations(db, plan.id), planThreads(db, plan.id)]);
   return {
     id: plan.id,
@@ -212,16 +227,17 @@ export async function getPlan(db: Db, actor: Actor | null, basinId: string, plan
 const isOpen = (p: { starts_at: Date; ends_at: Date; closed_at: Date | null }, now: Date) =>
   p.closed_at === null && p.starts_at <= now && now < p.ends_at;
 
-async function planForLead(db: Db, actor: Actor | null, basinId: string, planId: string, action: "review.manage" | "plan.publish") {
-  const { basin } = await requireBasinAction(db, actor, basinId, action);
+async function planForLead(scope: BasinScope, planId: string, action: "review.manage" | "plan.publish") {
+  scope.require(action);
+  const { db, actor, basin } = scope;
   const plan = await findPlan(db, basin.id, planId);
   if (!plan) throw notFound("Plan");
-  return { basin, plan };
+  return { db, actor, basin, plan };
 }
 
 /** Open the review period of a draft plan (lead). */
-export async function openReview(db: Db, actor: Actor | null, basinId: string, planId: string, input: ReviewOpen) {
-  const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
+export async function openReview(scope: BasinScope, planId: string, input: ReviewOpen) {
+  const { db, actor, basin, plan } = await planForLead(scope, planId, "review.manage");
   if (plan.status !== "draft") throw conflict(`Only a draft plan can go to review; this one is ${plan.status}`);
   const issues = reviewDateIssues(
     { startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), minReviewDays: basin.min_review_days, now: new Date() },
@@ -231,17 +247,17 @@ export async function openReview(db: Db, actor: Actor | null, basinId: string, p
   await db.transaction().execute(async (trx) => {
     // the state changes first, in one statement: a second "open" sent at the same time finds it changed
     if (!(await transitionPlanStatus(trx, plan.id, ["draft"], "review"))) throw raced();
-    const period = await insertReviewPeriod(trx, { planId: plan.id, startsAt: input.startsAt, endsAt: input.endsAt, timeZone: input.timeZone, openedBy: actor!.id });
+    const period = await insertReviewPeriod(trx, { planId: plan.id, startsAt: input.startsAt, endsAt: input.endsAt, timeZone: input.timeZone, openedBy: actor.id });
     // a basin without a time zone of its own takes its first review's
     await setBasinTimeZoneIfUnset(trx, basin.id, input.timeZone);
     await noticeReviewOpened(trx, plan, { id: period.id, startsAt: period.starts_at, endsAt: period.ends_at, timeZone: input.timeZone });
-    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.opened", targetType: "plan", targetId: plan.id, details: { ...input } });
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor.id, action: "review.opened", targetType: "plan", targetId: plan.id, details: { ...input } });
   });
 }
 
 /** Extend an open review; a reason is required and recorded. */
-export async function extendReview(db: Db, actor: Actor | null, basinId: string, planId: string, input: ReviewExtend) {
-  const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
+export async function extendReview(scope: BasinScope, planId: string, input: ReviewExtend) {
+  const { db, actor, basin, plan } = await planForLead(scope, planId, "review.manage");
   const period = await currentPeriod(db, plan.id);
   if (plan.status !== "review" || !period) throw conflict("Only a plan in review can have its review extended");
   if (period.ends_at.getTime() <= Date.now()) throw reviewEnded(period);
@@ -252,9 +268,9 @@ export async function extendReview(db: Db, actor: Actor | null, basinId: string,
     const locked = (await currentPeriod(trx, plan.id))!;
     if (locked.closed_at !== null || locked.ends_at.getTime() <= Date.now()) throw reviewEnded(locked);
     if (Date.parse(input.endsAt) <= locked.ends_at.getTime()) throw notLater(locked);
-    const extensions = [...locked.extensions, { at: new Date().toISOString(), by: actor!.name, from: locked.ends_at.toISOString(), to: input.endsAt, reason: input.reason }];
+    const extensions = [...locked.extensions, { at: new Date().toISOString(), by: actor.name, from: locked.ends_at.toISOString(), to: input.endsAt, reason: input.reason }];
     await updateReviewPeriod(trx, locked.id, { ends_at: input.endsAt, closed_at: null, extensions });
-    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "review.extended", targetType: "plan", targetId: plan.id, details: { ...input } });
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor.id, action: "review.extended", targetType: "plan", targetId: plan.id, details: { ...input } });
   });
 }
 
@@ -317,8 +333,8 @@ const threadTopic = (facilityName: string | null) => facilityName ?? "The plan a
  * written to the audit trail. A thread left unanswered that the lead did not see (a
  * comment written or a response withdrawn meanwhile) is refused by name.
  */
-export async function publishPlan(db: Db, actor: Actor | null, basinId: string, planId: string, input: PlanPublish = { acknowledgedThreadIds: [], statement: "" }) {
-  const { basin, plan } = await planForLead(db, actor, basinId, planId, "plan.publish");
+export async function publishPlan(scope: BasinScope, planId: string, input: PlanPublish = { acknowledgedThreadIds: [], statement: "" }) {
+  const { db, actor, basin, plan } = await planForLead(scope, planId, "plan.publish");
   await db.transaction().execute(async (trx) => {
     // the row lock holds responses and the closing job off until this transaction ends
     const status = await lockPlanStatus(trx, plan.id, "update");
@@ -351,8 +367,8 @@ export async function publishPlan(db: Db, actor: Actor | null, basinId: string, 
     let ack: PublicationAcknowledgement | null = null;
     if (unanswered.length > 0) {
       ack = {
-        by: actor!.name,
-        byId: actor!.id,
+        by: actor.name,
+        byId: actor.id,
         at: publishedAt.toISOString(),
         statement: input.statement,
         threads: unanswered.map((t) => ({
@@ -366,11 +382,11 @@ export async function publishPlan(db: Db, actor: Actor | null, basinId: string, 
       // written while the plan is still closed: once published, its row is frozen
       await setPublicationAcknowledgement(trx, plan.id, ack);
     }
-    if (!(await transitionPlanStatus(trx, plan.id, ["closed"], "published", { published_by: actor!.id, published_at: publishedAt }))) throw raced();
+    if (!(await transitionPlanStatus(trx, plan.id, ["closed"], "published", { published_by: actor.id, published_at: publishedAt }))) throw raced();
     await noticePlanPublished(trx, plan, publishedAt, period?.time_zone ?? "UTC");
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "plan.published",
       targetType: "plan",
       targetId: plan.id,
@@ -383,12 +399,12 @@ export async function publishPlan(db: Db, actor: Actor | null, basinId: string, 
 }
 
 /** Withdraw a plan that is not published (lead). */
-export async function withdrawPlan(db: Db, actor: Actor | null, basinId: string, planId: string) {
-  const { basin, plan } = await planForLead(db, actor, basinId, planId, "review.manage");
+export async function withdrawPlan(scope: BasinScope, planId: string) {
+  const { db, actor, basin, plan } = await planForLead(scope, planId, "review.manage");
   if (plan.status === "published" || plan.status === "withdrawn") throw conflict(`This plan is ${plan.status} and cannot be withdrawn`);
   await db.transaction().execute(async (trx) => {
     if (!(await transitionPlanStatus(trx, plan.id, ["draft", "review", "closed"], "withdrawn"))) throw raced();
-    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "plan.withdrawn", targetType: "plan", targetId: plan.id });
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor.id, action: "plan.withdrawn", targetType: "plan", targetId: plan.id });
   });
 }
 
@@ -396,9 +412,8 @@ export async function withdrawPlan(db: Db, actor: Actor | null, basinId: string,
  * Comment on a thread: any signed-in person (members with their basin role,
  * others as members of the public), only while the plan's review period is open.
  */
-export async function addComment(db: Db, actor: Actor | null, basinId: string, threadId: string, body: string, now = new Date()) {
-  const a = requireActor(actor);
-  const basin = await basinOr404(db, basinId);
+export async function addComment(scope: BasinScope, threadId: string, body: string, now = new Date()) {
+  const { db, actor: a, basin } = scope;
   const thread = await findThread(db, basin.id, threadId);
   if (!thread) throw notFound("Thread");
   const period = await currentPeriod(db, thread.plan_id);
@@ -408,7 +423,7 @@ export async function addComment(db: Db, actor: Actor | null, basinId: string, t
       : "";
     throw conflict(`Comments are accepted only while the plan's review period is open${when}`);
   }
-  const role = (await findMembershipRole(db, basin.id, a.id)) ?? "stakeholder (public)";
+  const role = scope.role ?? "stakeholder (public)";
   return db.transaction().execute(async (trx) => {
     // the review must still be open when the comment is written (the closing job or a withdrawal may have won the race)
     const status = await lockPlanStatus(trx, thread.plan_id, "share");
@@ -428,8 +443,9 @@ export async function addComment(db: Db, actor: Actor | null, basinId: string, t
 }
 
 /** A planner's response marks the thread addressed; everyone who wrote in the thread hears of it. */
-export async function respondToThread(db: Db, actor: Actor | null, basinId: string, threadId: string, response: string) {
-  const { basin, role } = await requireBasinAction(db, actor, basinId, "comment.answer");
+export async function respondToThread(scope: BasinScope, threadId: string, response: string) {
+  scope.require("comment.answer");
+  const { db, actor, basin, role } = scope;
   const thread = await findThread(db, basin.id, threadId);
   if (!thread) throw notFound("Thread");
   if (thread.plan_status === "published" || thread.plan_status === "withdrawn") throw conflict(`This plan is ${thread.plan_status}; its threads are closed`);
@@ -437,15 +453,15 @@ export async function respondToThread(db: Db, actor: Actor | null, basinId: stri
     // publishing locks the plan for update: a response waits for it, then finds the plan frozen
     const status = await lockPlanStatus(trx, thread.plan_id, "share");
     if (status === "published" || status === "withdrawn") throw conflict(`This plan is ${status}; its threads are closed`);
-    await markThreadAddressed(trx, thread.id, response, actor!.id);
+    await markThreadAddressed(trx, thread.id, response, actor.id);
     const plan = (await findPlan(trx, basin.id, thread.plan_id))!;
     await noticeThreadReply(
       trx,
       plan,
       { id: thread.id, title: await threadTitle(trx, thread.facility_id) },
-      { id: `${thread.id}:response:${Date.now()}`, authorId: actor!.id, authorName: actor!.name, authorRole: `${role ?? "admin"}, responding`, body: response },
+      { id: `${thread.id}:response:${Date.now()}`, authorId: actor.id, authorName: actor.name, authorRole: `${role ?? "admin"}, responding`, body: response },
     );
-    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "thread.addressed", targetType: "thread", targetId: thread.id });
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor.id, action: "thread.addressed", targetType: "thread", targetId: thread.id });
   });
 }
 
@@ -499,7 +515,7 @@ export async function listReviews(db: Db, actor: Actor | null, now = new Date())
 
 /** A plan with its basin's name and units, for a reader outside the basin (the plan's own rules decide who may read it). */
 export async function getPlanForReader(db: Db, actor: Actor | null, basinId: string, planId: string) {
-  const plan = await getPlan(db, actor, basinId, planId);
-  const basin = (await findBasinById(db, basinId))!;
+  const { basin, scope } = await readerScope(db, actor, basinId);
+  const plan = await planView(db, basin, scope, planId);
   return { plan, basin: { id: basin.id, name: basin.name, slug: basin.slug, unitSystem: basin.unit_system, timeZone: basin.time_zone } };
 }

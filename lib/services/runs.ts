@@ -8,7 +8,7 @@ import type { RunKind } from "@/db/schema";
 import { enqueueRun, findRunJob, runTimeLimitSeconds } from "@/lib/jobs/queue";
 import { ComputeTimeoutError } from "@/lib/compute/pool";
 import { computeRunPayload, ModelInputError, type ModelFile, type RunPayload, type RunResult } from "@/lib/model";
-import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/errors";
 import { buildConditionFiles, buildModelFile, ScenarioInputError } from "@/lib/scenarios/build-model-file";
 import { MODEL_VERSION, SATURATION_METHOD } from "@/lib/scenarios/model-version";
@@ -100,14 +100,9 @@ const summary = (r: RunRow & { scenario_name: string }): RunSummaryDto => ({
  * files are built (and checked) here, stored with the run and hashed; a
  * finished run with the same inputs is returned instead of computing again.
  */
-export async function createRun(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
-  scenarioId: string,
-  kind: RunKind,
-): Promise<RunSummaryDto & { reused: boolean }> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.run");
+export async function createRun(scope: BasinScope, scenarioId: string, kind: RunKind): Promise<RunSummaryDto & { reused: boolean }> {
+  scope.require("scenario.run");
+  const { db, actor, basin } = scope;
   const scenario = await findScenario(db, basin.id, scenarioId);
   if (!scenario) throw notFound("Scenario");
   const inputs = scenarioInputsSchema.parse(scenario.inputs);
@@ -143,11 +138,11 @@ export async function createRun(
       inputsHash: hash,
       modelFile: runInputs,
       modelVersion: MODEL_VERSION,
-      userId: actor!.id,
+      userId: actor.id,
     });
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "run.queued",
       targetType: "run",
       targetId: run.id,
@@ -270,15 +265,17 @@ export async function sweepStuckRuns(db: Db, lookupJob: RunJobLookup = findRunJo
   return failed;
 }
 
-export async function listRuns(db: Db, actor: Actor | null, basinId: string, scenarioId?: string): Promise<RunSummaryDto[]> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function listRuns(scope: BasinScope, scenarioId?: string): Promise<RunSummaryDto[]> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   // a scenario that is not this basin's is not found, rather than a list with nothing in it
   if (scenarioId !== undefined && !(await findScenario(db, basin.id, scenarioId))) throw notFound("Scenario");
   return (await listRunRows(db, basin.id, scenarioId)).map(summary);
 }
 
-export async function getRun(db: Db, actor: Actor | null, basinId: string, runId: string): Promise<RunDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function getRun(scope: BasinScope, runId: string): Promise<RunDto> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   const row = await findRun(db, basin.id, runId, true);
   if (!row) throw notFound("Run");
   const r = row as typeof row & { result: RunResultPayload | null; model_file: RunInputs };
@@ -301,8 +298,9 @@ export async function runScenarioRecord(db: Db, basinId: string, run: RunDto): P
 }
 
 /** Status only (for polling). */
-export async function getRunStatus(db: Db, actor: Actor | null, basinId: string, runId: string): Promise<RunSummaryDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function getRunStatus(scope: BasinScope, runId: string): Promise<RunSummaryDto> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   const row = await findRun(db, basin.id, runId, false);
   if (!row) throw notFound("Run");
   return summary(row);
@@ -313,8 +311,9 @@ export async function getRunStatus(db: Db, actor: Actor | null, basinId: string,
  * result is read often (results pages, comparisons, review) and never changes,
  * so it is not parsed and serialised again on every request.
  */
-export async function getRunJson(db: Db, actor: Actor | null, basinId: string, runId: string): Promise<{ json: string; etag: string }> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function getRunJson(scope: BasinScope, runId: string): Promise<{ json: string; etag: string }> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   // the small row first: it proves the run exists in this basin and says whether it can change
   const brief = await findRun(db, basin.id, runId, false);
   if (!brief) throw notFound("Run");

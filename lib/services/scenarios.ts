@@ -10,7 +10,7 @@ import {
   listScenarios as listScenarioRows,
   updateScenarioIfVersion,
 } from "@/db/queries/scenarios";
-import { requireBasinAction, type Actor } from "@/lib/auth/guard";
+import type { BasinScope } from "@/lib/auth/scope";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { NetworkForModel } from "@/lib/scenarios/build-model-file";
 import { scenarioInputsSchema, type ScenarioCreate, type ScenarioInputs, type ScenarioUpdate } from "@/lib/validation/scenario";
@@ -51,20 +51,23 @@ export async function loadNetworkForModel(db: Db, networkId: string): Promise<Ne
 
 const nameTaken = (name: string) => conflict(`A scenario named "${name}" already exists in this basin`, [{ path: "name", message: "Already in use" }]);
 
-export async function listScenarios(db: Db, actor: Actor | null, basinId: string): Promise<ScenarioDto[]> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function listScenarios(scope: BasinScope): Promise<ScenarioDto[]> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   return (await listScenarioRows(db, basin.id)).map(dto);
 }
 
-export async function getScenario(db: Db, actor: Actor | null, basinId: string, scenarioId: string): Promise<ScenarioDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.read");
+export async function getScenario(scope: BasinScope, scenarioId: string): Promise<ScenarioDto> {
+  scope.require("scenario.read");
+  const { db, basin } = scope;
   const s = await findScenario(db, basin.id, scenarioId);
   if (!s) throw notFound("Scenario");
   return dto(s);
 }
 
-export async function createScenario(db: Db, actor: Actor | null, basinId: string, input: ScenarioCreate): Promise<ScenarioDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.edit");
+export async function createScenario(scope: BasinScope, input: ScenarioCreate): Promise<ScenarioDto> {
+  scope.require("scenario.edit");
+  const { db, actor, basin } = scope;
   return db.transaction().execute(async (trx) => {
     const networkId = input.networkId ?? (await latestNetworkId(trx, basin.id));
     if (!networkId || !(await findNetwork(trx, basin.id, networkId))) {
@@ -79,27 +82,25 @@ export async function createScenario(db: Db, actor: Actor | null, basinId: strin
       name: input.name,
       description: input.description,
       inputs: input.inputs,
-      userId: actor!.id,
+      userId: actor.id,
     });
-    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "scenario.created", targetType: "scenario", targetId: id, details: { name: input.name } });
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor.id, action: "scenario.created", targetType: "scenario", targetId: id, details: { name: input.name } });
     return dto((await findScenario(trx, basin.id, id))!);
   });
 }
 
 /** Save an edit made from `version`; a stale version gets 409 and nothing is written. */
-export async function updateScenario(
-  db: Db,
-  actor: Actor | null,
-  basinId: string,
+export async function updateScenario(scope: BasinScope,
   scenarioId: string,
   input: ScenarioUpdate,
 ): Promise<ScenarioDto> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.edit");
+  scope.require("scenario.edit");
+  const { db, actor, basin } = scope;
   return db.transaction().execute(async (trx) => {
     const current = await findScenario(trx, basin.id, scenarioId);
     if (!current) throw notFound("Scenario");
     if (input.name && input.name !== current.name && (await findScenarioByName(trx, basin.id, input.name))) throw nameTaken(input.name);
-    const ok = await updateScenarioIfVersion(trx, current.id, input.version, input, actor!.id);
+    const ok = await updateScenarioIfVersion(trx, current.id, input.version, input, actor.id);
     if (!ok) {
       throw conflict(
         `Someone saved this scenario after you opened it (now version ${current.version}${current.updated_by_name ? `, by ${current.updated_by_name}` : ""}); reload it and apply your change again`,
@@ -108,7 +109,7 @@ export async function updateScenario(
     }
     await insertAuditEvent(trx, {
       basinId: basin.id,
-      actorId: actor!.id,
+      actorId: actor.id,
       action: "scenario.updated",
       targetType: "scenario",
       targetId: current.id,
@@ -118,9 +119,9 @@ export async function updateScenario(
   });
 }
 
-export async function duplicateScenario(db: Db, actor: Actor | null, basinId: string, scenarioId: string, name: string): Promise<ScenarioDto> {
-  const source = await getScenario(db, actor, basinId, scenarioId);
-  return createScenario(db, actor, basinId, {
+export async function duplicateScenario(scope: BasinScope, scenarioId: string, name: string): Promise<ScenarioDto> {
+  const source = await getScenario(scope, scenarioId);
+  return createScenario(scope, {
     name,
     description: source.description,
     networkId: source.networkId,
@@ -129,14 +130,15 @@ export async function duplicateScenario(db: Db, actor: Actor | null, basinId: st
 }
 
 /** Delete a scenario that has never been run (runs keep their scenario for traceability). */
-export async function deleteScenario(db: Db, actor: Actor | null, basinId: string, scenarioId: string): Promise<void> {
-  const { basin } = await requireBasinAction(db, actor, basinId, "scenario.edit");
+export async function deleteScenario(scope: BasinScope, scenarioId: string): Promise<void> {
+  scope.require("scenario.edit");
+  const { db, actor, basin } = scope;
   await db.transaction().execute(async (trx) => {
     const s = await findScenario(trx, basin.id, scenarioId);
     if (!s) throw notFound("Scenario");
     const runs = await countRuns(trx, s.id);
     if (runs > 0) throw conflict(`"${s.name}" has ${runs} run(s) and is kept so they stay traceable; duplicate it to start afresh`);
     await deleteScenarioRow(trx, s.id);
-    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor!.id, action: "scenario.deleted", targetType: "scenario", targetId: s.id, details: { name: s.name } });
+    await insertAuditEvent(trx, { basinId: basin.id, actorId: actor.id, action: "scenario.deleted", targetType: "scenario", targetId: s.id, details: { name: s.name } });
   });
 }

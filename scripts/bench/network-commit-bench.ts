@@ -7,12 +7,13 @@
  * beside it: the share of validation in the commit.
  */
 import { performance } from "node:perf_hooks";
-import { createDb, type Db } from "../../db/client";
+import { createDb } from "../../db/client";
 import { migrateToLatest } from "../../db/migrate";
 import { insertBasin } from "../../db/queries/basins";
 import { insertMembership } from "../../db/queries/memberships";
 import { insertUser } from "../../db/queries/users";
 import type { Actor } from "../../lib/auth/guard";
+import { basinScope, type BasinScope } from "../../lib/auth/scope";
 import { uploadImport } from "../../lib/services/imports";
 import { commitNetwork, validateDraft } from "../../lib/services/networks";
 import type { NetworkDraft } from "../../lib/validation/network";
@@ -20,9 +21,9 @@ import { createThrowawayDatabase, dropDatabase, ensureTestCluster } from "../../
 import { SYNTHETIC_DISCHARGER_MAPPING, SYNTHETIC_REACH_MAPPING, syntheticFiles } from "./geo-import";
 import { median } from "./measure";
 
-async function draftFor(db: Db, actor: Actor, basinId: string, files: ReturnType<typeof syntheticFiles>): Promise<NetworkDraft> {
-  const reaches = await uploadImport(db, actor, basinId, { name: "synthetic.zip", bytes: Buffer.from(files.zip) }, { layer: "reaches" });
-  const dischargers = await uploadImport(db, actor, basinId, { name: "dischargers.csv", bytes: Buffer.from(files.csv) }, { layer: "dischargers" });
+async function draftFor(scope: BasinScope, files: ReturnType<typeof syntheticFiles>): Promise<NetworkDraft> {
+  const reaches = await uploadImport(scope, { name: "synthetic.zip", bytes: Buffer.from(files.zip) }, { layer: "reaches" });
+  const dischargers = await uploadImport(scope, { name: "dischargers.csv", bytes: Buffer.from(files.csv) }, { layer: "dischargers" });
   return {
     reachImportId: reaches.id,
     reachMapping: SYNTHETIC_REACH_MAPPING,
@@ -42,17 +43,18 @@ export async function networkCommitBench(target: number, dischargerCount: number
     const actor: Actor = { id: u.id, email: u.email, name: u.name, isAdmin: false };
     const basin = await insertBasin(db, { slug: "bench", name: "Bench basin", description: "" });
     await insertMembership(db, basin.id, actor.id, "lead");
+    const scope = await basinScope(db, actor, basin.id);
     const files = syntheticFiles(target, dischargerCount);
     const commits: number[] = [];
     const validations: number[] = [];
     let reaches = 0;
     for (let i = 0; i < repeats; i++) {
-      const draft = await draftFor(db, actor, basin.id, files);
+      const draft = await draftFor(scope, files);
       const v0 = performance.now();
-      await validateDraft(db, actor, basin.id, draft);
+      await validateDraft(scope, draft);
       validations.push(performance.now() - v0);
       const c0 = performance.now();
-      const saved = await commitNetwork(db, actor, basin.id, { draft, note: "", acceptReport: true });
+      const saved = await commitNetwork(scope, { draft, note: "", acceptReport: true });
       commits.push(performance.now() - c0);
       reaches = saved.reachCount;
     }

@@ -8,6 +8,7 @@ import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { fileDb } from "../support/file-db";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 const db = fileDb();
 
@@ -25,16 +26,16 @@ beforeAll(async () => {
   w = await buildWorld(db);
   review = await planAt(db, w, "review");
   draft = await planAt(db, w, "draft");
-  const s = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Model only", inputs: { conditions: [{ name: "7Q10" }, { name: "Hot", temperatureC: 30 }] } }));
+  const s = await scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Model only", inputs: { conditions: [{ name: "7Q10" }, { name: "Hot", temperatureC: 30 }] } }));
   modelScenarioId = s.id;
-  const run = await createRun(db, w.users.planner, w.basinId, s.id, "model");
+  const run = await scoped(createRun)(db, w.users.planner, w.basinId, s.id, "model");
   await processRun(db, run.id);
   modelRunId = run.id;
 }, 120_000);
 
 /** The lowest DO and its condition as the run page's headline reads them (full result, runConditions). */
 async function headline(runId: string) {
-  const run = await getRun(db, w.users.planner, w.basinId, runId);
+  const run = await scoped(getRun)(db, w.users.planner, w.basinId, runId);
   const rc = runConditions(run.result!);
   const c = rc.conditions[rc.governing];
   return { condition: c.name, doMgL: c.run.minimum.do_mg_l, feasible: rc.allocation?.feasible ?? null };
@@ -42,7 +43,7 @@ async function headline(runId: string) {
 
 describe("basinOverview: what each role sees", () => {
   it("a lead sees the network, every scenario with its latest run's outcome, every plan and recent activity", async () => {
-    const o = await basinOverview(db, w.users.lead, w.basinId);
+    const o = await scoped(basinOverview)(db, w.users.lead, w.basinId);
     expect(o.network?.version).toBe(2);
     expect(o.network?.reachCount).toBeGreaterThan(0);
     expect(o.network?.outfallCount).toBeGreaterThan(0);
@@ -85,7 +86,7 @@ describe("basinOverview: what each role sees", () => {
   });
 
   it("a planner sees the same without the audit trail", async () => {
-    const o = await basinOverview(db, w.users.planner, w.basinId);
+    const o = await scoped(basinOverview)(db, w.users.planner, w.basinId);
     expect(o.network?.version).toBe(2);
     expect(o.scenarios).toHaveLength(3);
     expect(o.plans).toHaveLength(2);
@@ -93,7 +94,7 @@ describe("basinOverview: what each role sees", () => {
   });
 
   it.each(["discharger", "stakeholder"] as const)("a %s sees only plans in or after review: no network, scenarios or activity", async (role) => {
-    const o = await basinOverview(db, w.users[role], w.basinId);
+    const o = await scoped(basinOverview)(db, w.users[role], w.basinId);
     expect(o.network).toBeNull();
     expect(o.scenarios).toBeNull();
     expect(o.activity).toBeNull();
@@ -101,7 +102,7 @@ describe("basinOverview: what each role sees", () => {
   });
 
   it("a site admin sees plans in review and the activity, not the models", async () => {
-    const o = await basinOverview(db, w.users.admin, w.basinId);
+    const o = await scoped(basinOverview)(db, w.users.admin, w.basinId);
     expect(o.scenarios).toBeNull();
     expect(o.network).toBeNull();
     expect(o.plans.map((p) => p.id)).toEqual([review.planId]);
@@ -109,21 +110,21 @@ describe("basinOverview: what each role sees", () => {
   });
 
   it("refuses someone who is not a member, and the signed-out", async () => {
-    await expect(basinOverview(db, w.users.outsider, w.basinId)).rejects.toMatchObject({ status: 403 });
-    await expect(basinOverview(db, null, w.basinId)).rejects.toBeInstanceOf(AppError);
+    await expect(scoped(basinOverview)(db, w.users.outsider, w.basinId)).rejects.toMatchObject({ status: 403 });
+    await expect(scoped(basinOverview)(db, null, w.basinId)).rejects.toBeInstanceOf(AppError);
   });
 });
 
 describe("listRunOutcomes (the runs list's outcome column)", () => {
   it("gives each finished run its governing lowest DO and the newest network version, to planners only", async () => {
-    const o = await listRunOutcomes(db, w.users.planner, w.basinId);
+    const o = await scoped(listRunOutcomes)(db, w.users.planner, w.basinId);
     expect(o.latestNetworkVersion).toBe(2);
     for (const runId of [review.runId, modelRunId]) {
       const h = await headline(runId);
       expect(o.runs[runId]?.lowestDoMgL).toBe(h.doMgL);
       expect(o.runs[runId]?.condition).toBe(h.condition);
     }
-    await expect(listRunOutcomes(db, w.users.discharger, w.basinId)).rejects.toMatchObject({ status: 403 });
-    await expect(listRunOutcomes(db, w.users.stakeholder, w.basinId)).rejects.toMatchObject({ status: 403 });
+    await expect(scoped(listRunOutcomes)(db, w.users.discharger, w.basinId)).rejects.toMatchObject({ status: 403 });
+    await expect(scoped(listRunOutcomes)(db, w.users.stakeholder, w.basinId)).rejects.toMatchObject({ status: 403 });
   });
 });

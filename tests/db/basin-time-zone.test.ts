@@ -7,6 +7,7 @@ import { err } from "../support/errors";
 import { fileDb } from "../support/file-db";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld } from "../support/world";
+import { scoped } from "../support/scoped";
 
 /** A basin's time zone: lead-set, or taken from its first review; what its notices give times in. */
 const db = fileDb();
@@ -58,7 +59,7 @@ describe("a basin's time zone", () => {
       [w.users.stakeholder, "Third."],
       [w.users.discharger, "Fourth."],
     ] as const)
-      await addComment(db, who, w.basinId, p.planThreadId, body);
+      await scoped(addComment)(db, who, w.basinId, p.planThreadId, body);
     const digests = await db.selectFrom("email_outbox").select("text_body").where("basin_id", "=", w.basinId).where("dedupe_key", "like", "thread_digest:%").execute();
     expect(digests.length).toBeGreaterThan(0);
     for (const d of digests) {

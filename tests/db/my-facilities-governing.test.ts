@@ -3,6 +3,7 @@ import { getMyFacilities, governingPlan, versionLabel } from "@/lib/services/my-
 import { fileDb } from "../support/file-db";
 import { readerBasin, readerPlan } from "../support/reader-plans";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 const db = fileDb();
 
@@ -42,7 +43,7 @@ describe("My facilities opens on the plan that governs", () => {
 
   it("with one plan under review, that plan", async () => {
     ({ planId: closedLater } = await readerPlan(db, w, { stage: "closed", title: "First proposal" }));
-    const view = await getMyFacilities(db, w.users.discharger, w.basinId);
+    const view = await scoped(getMyFacilities)(db, w.users.discharger, w.basinId);
     expect(view.plan?.id).toBe(closedLater);
     expect(view.plans.map((p) => p.label)).toEqual([expect.stringMatching(/^Review closed \d{1,2} \w{3} \d{4} — version \d+$/)]);
   });
@@ -50,7 +51,7 @@ describe("My facilities opens on the plan that governs", () => {
   it("once a plan is published, the published one — also after a later version is proposed and its review closed", async () => {
     ({ planId: published } = await readerPlan(db, w, { stage: "published", title: "Adopted plan" }));
     ({ planId: openLatest } = await readerPlan(db, w, { stage: "open", title: "Revision under review" }));
-    const view = await getMyFacilities(db, w.users.discharger, w.basinId);
+    const view = await scoped(getMyFacilities)(db, w.users.discharger, w.basinId);
     expect(view.governingId).toBe(published);
     expect(view.plan?.id).toBe(published);
     expect(view.plan?.status).toBe("published");
@@ -64,21 +65,21 @@ describe("My facilities opens on the plan that governs", () => {
   });
 
   it("shows another version when asked, and refuses a plan that is not offered", async () => {
-    expect((await getMyFacilities(db, w.users.discharger, w.basinId, openLatest)).plan?.id).toBe(openLatest);
+    expect((await scoped(getMyFacilities)(db, w.users.discharger, w.basinId, openLatest)).plan?.id).toBe(openLatest);
     const { planId: draft } = await readerPlan(db, w, { stage: "draft" });
-    expect((await getMyFacilities(db, w.users.discharger, w.basinId)).plans.map((p) => p.id)).not.toContain(draft);
-    await expect(getMyFacilities(db, w.users.discharger, w.basinId, draft)).rejects.toMatchObject({ status: 404 });
+    expect((await scoped(getMyFacilities)(db, w.users.discharger, w.basinId)).plans.map((p) => p.id)).not.toContain(draft);
+    await expect(scoped(getMyFacilities)(db, w.users.discharger, w.basinId, draft)).rejects.toMatchObject({ status: 404 });
   });
 
   it("a later published plan governs over the earlier one, which is then marked superseded", async () => {
     const { planId: second } = await readerPlan(db, w, { stage: "published", title: "Adopted revision" });
-    const view = await getMyFacilities(db, w.users.discharger, w.basinId);
+    const view = await scoped(getMyFacilities)(db, w.users.discharger, w.basinId);
     expect(view.plan?.id).toBe(second);
     expect(view.plans.find((p) => p.id === published)?.label).toMatch(/\(superseded\)$/);
   });
 
   it("is empty for a member who represents no facility", async () => {
-    const view = await getMyFacilities(db, w.users.stakeholder, w.basinId);
+    const view = await scoped(getMyFacilities)(db, w.users.stakeholder, w.basinId);
     expect(view).toMatchObject({ facilities: [], plans: [], plan: null, governingId: null });
   });
 });

@@ -22,6 +22,7 @@ import { err } from "../support/errors";
 import { planAt } from "../support/plan-fixture";
 import { fileDb } from "../support/file-db";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 const db = fileDb();
 let dir: string;
@@ -54,10 +55,10 @@ describe("the report of a published plan (US units) with a comment and its respo
     const p = await planAt(db, w, "review");
     planId = p.planId;
     const facilityThread = p.threads.find((t) => t.facility_id !== null)!.id;
-    await addComment(db, w.users.stakeholder, w.basinId, facilityThread, COMMENT);
-    await respondToThread(db, w.users.planner, w.basinId, facilityThread, RESPONSE);
+    await scoped(addComment)(db, w.users.stakeholder, w.basinId, facilityThread, COMMENT);
+    await scoped(respondToThread)(db, w.users.planner, w.basinId, facilityThread, RESPONSE);
     await closeDueReviews(db, new Date(Date.now() + 32 * 86_400_000));
-    await publishPlan(db, w.users.lead, w.basinId, planId);
+    await scoped(publishPlan)(db, w.users.lead, w.basinId, planId);
   }, 120_000);
 
   it("downloads signed out as an attachment named after the basin and version", async () => {

@@ -13,6 +13,7 @@ import { getPlan } from "@/lib/services/plans";
 import { fileDb } from "../support/file-db";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 /**
  * Every stored shape of a plan's snapshot (tests/fixtures/plans/) goes through every reader:
@@ -72,7 +73,7 @@ describe.each(FIXTURES)("a plan whose snapshot was stored as %s", (name) => {
   it("feeds the review page's map and a discharger's own view", async () => {
     const reader = await getPlanForReaderWithMap(db, w.users.outsider, w.basinId, planId);
     expect(reader.plan.id).toBe(planId);
-    const mine = await getMyFacilities(db, w.users.discharger, w.basinId, planId);
+    const mine = await scoped(getMyFacilities)(db, w.users.discharger, w.basinId, planId);
     expect(mine.plan?.id).toBe(planId);
   });
 });

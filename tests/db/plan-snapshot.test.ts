@@ -9,6 +9,7 @@ import { scenarioCreateSchema, scenarioInputsSchema } from "@/lib/validation/sce
 import { commitDemo } from "../support/demo-network";
 import { fileDb } from "../support/file-db";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 // A plan must record what its run used. The scenario is edited between the run
 // and the proposal; the plan, its report and its snapshot must still say what was run.
@@ -21,8 +22,8 @@ beforeAll(async () => {
 
 async function runThenEdit(name: string) {
   const inputs = scenarioInputsSchema.parse({ conditions: [{ name: "Hot, dry 7Q10" }], kinetics: { kd20PerDay: 0.3 }, allocation: { mosFraction: 0 } });
-  const scenario = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name, inputs }));
-  const run = await createRun(db, w.users.planner, w.basinId, scenario.id, "allocation");
+  const scenario = await scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name, inputs }));
+  const run = await scoped(createRun)(db, w.users.planner, w.basinId, scenario.id, "allocation");
   await processRun(db, run.id);
   const edited = scenarioInputsSchema.parse({
     ...inputs,
@@ -30,14 +31,14 @@ async function runThenEdit(name: string) {
     kinetics: { ...inputs.kinetics, kd20PerDay: 4.9 },
     allocation: { ...inputs.allocation, mosFraction: 0.5 },
   });
-  await updateScenario(db, w.users.planner, w.basinId, scenario.id, { version: scenario.version, name: `${name} (renamed)`, inputs: edited });
+  await scoped(updateScenario)(db, w.users.planner, w.basinId, scenario.id, { version: scenario.version, name: `${name} (renamed)`, inputs: edited });
   return { scenario, run };
 }
 
 describe("a plan proposed from a run after its scenario was edited", () => {
   it("snapshots the run's own inputs, name and version, not the scenario's current ones", async () => {
     const { scenario, run } = await runThenEdit("Snapshot basis");
-    const plan = await proposePlan(db, w.users.planner, w.basinId, { runId: run.id, title: "Snapshot plan" });
+    const plan = await scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: run.id, title: "Snapshot plan" });
     const read = await getPlan(db, w.users.planner, w.basinId, plan.id);
     const s = readSnapshot(read.snapshot as Record<string, unknown>);
     expect(s.scenario.version).toBe(scenario.version);
@@ -58,7 +59,7 @@ describe("a plan proposed from a run after its scenario was edited", () => {
     const { run } = await runThenEdit("Old-style run");
     // a run from before runs kept their scenario record
     await sql`UPDATE runs SET model_file = model_file - 'scenario' WHERE id = ${run.id}`.execute(db);
-    const e = await proposePlan(db, w.users.planner, w.basinId, { runId: run.id, title: "Old" }).then(() => null, (x: AppError) => x);
+    const e = await scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: run.id, title: "Old" }).then(() => null, (x: AppError) => x);
     expect(e).toBeInstanceOf(AppError);
     expect(e?.code).toBe("conflict");
     expect(e?.message).toMatch(/edited since this run/);

@@ -12,6 +12,7 @@ import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 const db = fileDb();
 let w: World;
@@ -96,7 +97,7 @@ describe("a plan from proposal to publication", () => {
     const plan = await getPlan(db, w.users.planner, w.basinId, planId);
     expect(plan.threads.find((t) => t.id === facilityThread)).toMatchObject({ status: "addressed", response: "A compliance schedule is proposed." });
     // a later reply reaches the earlier participants (the discharger and the planner who answered), not its author
-    await addComment(db, w.users.stakeholder, w.basinId, facilityThread, "We support the schedule.");
+    await scoped(addComment)(db, w.users.stakeholder, w.basinId, facilityThread, "We support the schedule.");
     const replies = await db
       .selectFrom("email_outbox")
       .select("to_address")
@@ -123,17 +124,17 @@ describe("a plan from proposal to publication", () => {
     expect((await getPlan(db, w.users.lead, w.basinId, planId)).status).toBe("review");
     expect(await closeDueReviews(db, new Date(Date.now() + 34 * 86_400_000))).toBeGreaterThanOrEqual(1);
     expect((await getPlan(db, w.users.lead, w.basinId, planId)).status).toBe("closed");
-    await expect(addComment(db, w.users.stakeholder, w.basinId, planThread, "late")).rejects.toThrow(/review period is open/);
+    await expect(scoped(addComment)(db, w.users.stakeholder, w.basinId, planThread, "late")).rejects.toThrow(/review period is open/);
   });
 
   it("is published by a lead, then frozen: readable signed out, no edit path, and direct SQL refused by the trigger", async () => {
-    await expect(publishPlan(db, w.users.planner, w.basinId, planId)).rejects.toThrow("Only the basin's lead can publish plans; you are a planner here.");
+    await expect(scoped(publishPlan)(db, w.users.planner, w.basinId, planId)).rejects.toThrow("Only the basin's lead can publish plans; you are a planner here.");
     const dp1001 = await db.selectFrom("plan_allocations").select("facility_id").where("plan_id", "=", planId).where("permit_id", "=", "DP-1001").executeTakeFirstOrThrow();
     await db.insertInto("facility_users").values({ facility_id: dp1001.facility_id, user_id: w.users.discharger.id }).execute();
     // threads with comments after their last response: the lead acknowledges them (tests/db/publication.test.ts has the rules)
     const waiting = (await getPlan(db, w.users.lead, w.basinId, planId)).threads.filter(awaitsResponse).map((t) => t.id);
     expect(waiting.length).toBeGreaterThan(0);
-    await publishPlan(db, w.users.lead, w.basinId, planId, { acknowledgedThreadIds: waiting, statement: "Answered in the permit notices that follow." });
+    await scoped(publishPlan)(db, w.users.lead, w.basinId, planId, { acknowledgedThreadIds: waiting, statement: "Answered in the permit notices that follow." });
     const published = await db.selectFrom("email_outbox").select(["to_address", "text_body"]).where("basin_id", "=", w.basinId).where("kind", "=", "plan_published").execute();
     // every member hears of it; the linked discharger with its final allocation
     expect(published.map((p) => p.to_address)).toContain(w.users.stakeholder.email);
@@ -143,8 +144,8 @@ describe("a plan from proposal to publication", () => {
     expect((signedOut.json as PlanJson).status).toBe("published");
     expect(((await callRoute(plansRoute.GET, "GET", { params: { basinId: w.basinId } })).json as { id: string }[]).map((p) => p.id)).toContain(planId);
 
-    await expect(respondToThread(db, w.users.planner, w.basinId, planThread, "after the fact")).rejects.toThrow(/published/);
-    await expect(withdrawPlan(db, w.users.lead, w.basinId, planId)).rejects.toThrow(/published/);
+    await expect(scoped(respondToThread)(db, w.users.planner, w.basinId, planThread, "after the fact")).rejects.toThrow(/published/);
+    await expect(scoped(withdrawPlan)(db, w.users.lead, w.basinId, planId)).rejects.toThrow(/published/);
     await expect(sql`update plans set title = 'changed' where id = ${planId}`.execute(db)).rejects.toThrow(/published and frozen/);
     await expect(sql`update plan_allocations set cbodu_kg_day = 1 where plan_id = ${planId}`.execute(db)).rejects.toThrow(/published and frozen/);
     await expect(sql`delete from comments where thread_id = ${planThread}`.execute(db)).rejects.toThrow(/published and frozen/);

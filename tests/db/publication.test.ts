@@ -15,6 +15,7 @@ import { err } from "../support/errors";
 import { fileDb } from "../support/file-db";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 /** Publishing a plan: unanswered threads acknowledged and audited, who hears of it, and versions per lineage. */
 const db = fileDb();
@@ -33,8 +34,8 @@ async function closedWithComments() {
   const p = await planAt(db, w, "review");
   const facility = await findFacilityByPermit(db, w.basinId, "DP-1001");
   const facilityThread = p.threads.find((t) => t.facility_id === facility!.id)!.id;
-  await addComment(db, w.users.stakeholder, w.basinId, p.planThreadId, "Keep the August flow for the herons.");
-  await addComment(db, w.users.discharger, w.basinId, facilityThread, "We need until 2028 to upgrade.");
+  await scoped(addComment)(db, w.users.stakeholder, w.basinId, p.planThreadId, "Keep the August flow for the herons.");
+  await scoped(addComment)(db, w.users.discharger, w.basinId, facilityThread, "We need until 2028 to upgrade.");
   await closeDueReviews(db, new Date(Date.now() + 32 * DAY));
   return { ...p, facilityThread, facilityName: facility!.name };
 }
@@ -70,7 +71,7 @@ describe("publishing with threads unanswered", () => {
   it("publishes once acknowledged: kept with the plan, in the audit trail and in the responsiveness summary", async () => {
     const p = await closedWithComments();
     // the facility's thread is answered; only the plan as a whole waits
-    await respondToThread(db, w.users.planner, w.basinId, p.facilityThread, "A compliance schedule to 2028 is proposed.");
+    await scoped(respondToThread)(db, w.users.planner, w.basinId, p.facilityThread, "A compliance schedule to 2028 is proposed.");
     const statement = "The heron question is taken up in the next revision of the plan.";
     const res = await publish(p.planId, { acknowledgedThreadIds: [p.planThreadId], statement });
     expect(res.status).toBe(204);
@@ -93,10 +94,10 @@ describe("publishing with threads unanswered", () => {
 
   it("counts a thread with comments after its response as unanswered", async () => {
     const p = await planAt(db, w, "review");
-    await addComment(db, w.users.stakeholder, w.basinId, p.planThreadId, "First question.");
-    await respondToThread(db, w.users.planner, w.basinId, p.planThreadId, "First answer.");
+    await scoped(addComment)(db, w.users.stakeholder, w.basinId, p.planThreadId, "First question.");
+    await scoped(respondToThread)(db, w.users.planner, w.basinId, p.planThreadId, "First answer.");
     await new Promise((r) => setTimeout(r, 5));
-    await addComment(db, w.users.stakeholder, w.basinId, p.planThreadId, "A follow-up that nobody answered.");
+    await scoped(addComment)(db, w.users.stakeholder, w.basinId, p.planThreadId, "A follow-up that nobody answered.");
     await closeDueReviews(db, new Date(Date.now() + 32 * DAY));
     expect((await publish(p.planId, {})).status).toBe(422);
     expect((await publish(p.planId, { acknowledgedThreadIds: [p.planThreadId], statement: "The follow-up repeats the first question." })).status).toBe(204);
@@ -104,8 +105,8 @@ describe("publishing with threads unanswered", () => {
 
   it("needs no acknowledgement when every comment has its response", async () => {
     const p = await planAt(db, w, "review");
-    await addComment(db, w.users.stakeholder, w.basinId, p.planThreadId, "A question.");
-    await respondToThread(db, w.users.planner, w.basinId, p.planThreadId, "An answer.");
+    await scoped(addComment)(db, w.users.stakeholder, w.basinId, p.planThreadId, "A question.");
+    await scoped(respondToThread)(db, w.users.planner, w.basinId, p.planThreadId, "An answer.");
     await closeDueReviews(db, new Date(Date.now() + 32 * DAY));
     expect((await publish(p.planId, {})).status).toBe(204);
     expect((await planRow(p.planId)).publication_acknowledgement).toBeNull();
@@ -115,7 +116,7 @@ describe("publishing with threads unanswered", () => {
     const p = await closedWithComments();
     const [pub, resp] = await Promise.allSettled([
       publish(p.planId, { acknowledgedThreadIds: [p.planThreadId, p.facilityThread], statement: "Published as reviewed; see the permit notices." }),
-      respondToThread(db, w.users.planner, w.basinId, p.planThreadId, "A late answer."),
+      scoped(respondToThread)(db, w.users.planner, w.basinId, p.planThreadId, "A late answer."),
     ]);
     expect(pub.status === "fulfilled" && pub.value.status).toBe(204);
     const thread = await db.selectFrom("threads").select(["response", "responded_at"]).where("id", "=", p.planThreadId).executeTakeFirstOrThrow();
@@ -164,10 +165,10 @@ describe("who hears of a publication", () => {
     const commenter = await insertUser(db, { email: `commenter-${w.basinId.slice(0, 8)}@world.test`, name: "A commenter", password_hash: "x", is_admin: false });
     const follower = await insertUser(db, { email: `follower-${w.basinId.slice(0, 8)}@world.test`, name: "A follower", password_hash: "x", is_admin: false });
     await followBasin(db, { id: follower.id, email: follower.email, name: follower.name, isAdmin: false }, w.basinId);
-    await addComment(db, { id: commenter.id, email: commenter.email, name: commenter.name, isAdmin: false }, w.basinId, p.planThreadId, "From outside the basin.");
-    await addComment(db, { id: follower.id, email: follower.email, name: follower.name, isAdmin: false }, w.basinId, p.planThreadId, "From a follower.");
-    await addComment(db, w.users.stakeholder, w.basinId, p.planThreadId, "From a member.");
-    await respondToThread(db, w.users.planner, w.basinId, p.planThreadId, "Answered together.");
+    await scoped(addComment)(db, { id: commenter.id, email: commenter.email, name: commenter.name, isAdmin: false }, w.basinId, p.planThreadId, "From outside the basin.");
+    await scoped(addComment)(db, { id: follower.id, email: follower.email, name: follower.name, isAdmin: false }, w.basinId, p.planThreadId, "From a follower.");
+    await scoped(addComment)(db, w.users.stakeholder, w.basinId, p.planThreadId, "From a member.");
+    await scoped(respondToThread)(db, w.users.planner, w.basinId, p.planThreadId, "Answered together.");
     await closeDueReviews(db, new Date(Date.now() + 32 * DAY));
     expect((await publish(p.planId, {})).status).toBe(204);
 
@@ -195,22 +196,22 @@ describe("plan versions count within a lineage", () => {
   it("a plan from the same scenario revises the newest plan of that scenario; another scenario starts at version 1", async () => {
     const first = await planAt(db, w, "draft");
     const scenarioOf = async (runId: string) => (await db.selectFrom("runs").select("scenario_id").where("id", "=", runId).executeTakeFirstOrThrow()).scenario_id;
-    const rerun = await createRun(db, w.users.planner, w.basinId, await scenarioOf(first.runId), "allocation");
+    const rerun = await scoped(createRun)(db, w.users.planner, w.basinId, await scenarioOf(first.runId), "allocation");
     await processRun(db, rerun.id);
-    const revision = await proposePlan(db, w.users.planner, w.basinId, { runId: rerun.id, title: "Revised" });
+    const revision = await scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: rerun.id, title: "Revised" });
     expect(revision).toMatchObject({ version: 2, revises: first.planId });
     // another scenario (other inputs: a run of its own) starts a plan of its own
-    const scenario = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Warmer", inputs: { conditions: [{ name: "Warm 7Q10", temperatureC: 24 }] } }));
-    const warm = await createRun(db, w.users.planner, w.basinId, scenario.id, "allocation");
+    const scenario = await scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Warmer", inputs: { conditions: [{ name: "Warm 7Q10", temperatureC: 24 }] } }));
+    const warm = await scoped(createRun)(db, w.users.planner, w.basinId, scenario.id, "allocation");
     await processRun(db, warm.id);
-    const other = await proposePlan(db, w.users.planner, w.basinId, { runId: warm.id, title: "Warm plan" });
+    const other = await scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: warm.id, title: "Warm plan" });
     expect(other).toMatchObject({ version: 1, revises: null });
     expect((await getPlan(db, w.users.planner, w.basinId, other.id)).lineageId).toBe(other.id);
     expect((await getPlan(db, w.users.planner, w.basinId, revision.id)).lineageId).toBe(first.planId);
     // explicitly a revision of the first, or explicitly a plan of its own
-    const third = await proposePlan(db, w.users.planner, w.basinId, { runId: rerun.id, title: "Third", revises: first.planId });
+    const third = await scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: rerun.id, title: "Third", revises: first.planId });
     expect(third.version).toBe(3);
-    const fresh = await proposePlan(db, w.users.planner, w.basinId, { runId: rerun.id, title: "Fresh", revises: null });
+    const fresh = await scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: rerun.id, title: "Fresh", revises: null });
     expect(fresh).toMatchObject({ version: 1, revises: null });
   });
 
@@ -229,7 +230,7 @@ describe("plan versions count within a lineage", () => {
 
   it("two proposals at once in one lineage take different versions", async () => {
     const first = await planAt(db, w, "draft");
-    const rs = await Promise.all([1, 2].map((i) => proposePlan(db, w.users.planner, w.basinId, { runId: first.runId, title: `Parallel ${i}`, revises: first.planId })));
+    const rs = await Promise.all([1, 2].map((i) => scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: first.runId, title: `Parallel ${i}`, revises: first.planId })));
     expect(rs.map((r) => r.version).sort()).toEqual([2, 3]);
   });
 });

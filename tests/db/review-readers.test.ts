@@ -29,6 +29,7 @@ import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 const db = fileDb();
 
@@ -47,7 +48,7 @@ describe("review closing soon", () => {
     opened = Date.now();
     // the fixture's review runs from a minute ago for 31 days
     plan = await planAt(db, w, "review");
-    await addComment(db, w.users.outsider, w.basinId, plan.planThreadId, "A comment from outside the basin");
+    await scoped(addComment)(db, w.users.outsider, w.basinId, plan.planThreadId, "A comment from outside the basin");
   });
 
   it("says nothing while the end is more than two days away", async () => {
@@ -73,7 +74,7 @@ describe("review closing soon", () => {
   it("announces the new end again after an extension, when that end draws near", async () => {
     const before = (await closingMail(w.basinId)).length;
     const newEnd = new Date(opened + 45 * DAY);
-    await extendReview(db, w.users.lead, w.basinId, plan.planId, { endsAt: newEnd.toISOString(), reason: "Dischargers asked for two more weeks" });
+    await scoped(extendReview)(db, w.users.lead, w.basinId, plan.planId, { endsAt: newEnd.toISOString(), reason: "Dischargers asked for two more weeks" });
     await sendClosingSoonNotices(db, new Date(opened + 35 * DAY));
     expect(await closingMail(w.basinId)).toHaveLength(before);
     await sendClosingSoonNotices(db, new Date(newEnd.getTime() - DAY));
@@ -85,11 +86,11 @@ describe("review closing soon", () => {
     const w2 = await buildWorld(db);
     const draft = await planAt(db, w2, "draft");
     // the basin allows short reviews (its lead's setting; 0: no minimum)
-    await updateBasin(db, w2.users.lead, w2.basinId, { minReviewDays: 0 });
+    await scoped(updateBasin)(db, w2.users.lead, w2.basinId, { minReviewDays: 0 });
     const start = Date.now();
     // a 6-hour review: the notice is due in its last 3 hours, not the moment it opens
-    const other = await proposePlan(db, w2.users.planner, w2.basinId, { runId: draft.runId, title: "Short review" });
-    await openReview(db, w2.users.lead, w2.basinId, other.id, {
+    const other = await scoped(proposePlan)(db, w2.users.planner, w2.basinId, { runId: draft.runId, title: "Short review" });
+    await scoped(openReview)(db, w2.users.lead, w2.basinId, other.id, {
       startsAt: new Date(start).toISOString(),
       endsAt: new Date(start + 6 * HOUR).toISOString(),
       timeZone: "UTC",
@@ -115,7 +116,7 @@ describe("followers", () => {
     await sendClosingSoonNotices(db, new Date(Date.now() + 30 * DAY));
     expect((await mail("review_closing")).filter((m) => m.to_address === w.users.outsider.email)).toHaveLength(1);
     await closeDueReviews(db, new Date(Date.now() + 32 * DAY));
-    await publishPlan(db, w.users.lead, w.basinId, plan.planId);
+    await scoped(publishPlan)(db, w.users.lead, w.basinId, plan.planId);
     const published = await mail("plan_published");
     const outsider = published.filter((m) => m.to_address === w.users.outsider.email);
     expect(outsider).toHaveLength(1);
@@ -128,9 +129,9 @@ describe("a planner's response", () => {
   it("is e-mailed to everyone who wrote in the thread, not to the responder", async () => {
     const w = await buildWorld(db);
     const plan = await planAt(db, w, "review");
-    await addComment(db, w.users.discharger, w.basinId, plan.planThreadId, "Our load is already low");
-    await addComment(db, w.users.outsider, w.basinId, plan.planThreadId, "So is ours");
-    await respondToThread(db, w.users.planner, w.basinId, plan.planThreadId, "Noted: the allocation keeps today's load");
+    await scoped(addComment)(db, w.users.discharger, w.basinId, plan.planThreadId, "Our load is already low");
+    await scoped(addComment)(db, w.users.outsider, w.basinId, plan.planThreadId, "So is ours");
+    await scoped(respondToThread)(db, w.users.planner, w.basinId, plan.planThreadId, "Noted: the allocation keeps today's load");
     const replies = await db
       .selectFrom("email_outbox")
       .select(["to_address", "text_body"])
@@ -175,13 +176,13 @@ describe("versions", () => {
   it("a plan withdrawn after its review stays readable with its comments; a withdrawn draft does not", async () => {
     const w = await buildWorld(db);
     const reviewed = await planAt(db, w, "review");
-    await addComment(db, w.users.stakeholder, w.basinId, reviewed.planThreadId, "Kept on the record");
-    await withdrawPlan(db, w.users.lead, w.basinId, reviewed.planId);
+    await scoped(addComment)(db, w.users.stakeholder, w.basinId, reviewed.planThreadId, "Kept on the record");
+    await scoped(withdrawPlan)(db, w.users.lead, w.basinId, reviewed.planId);
     const read = await getPlan(db, w.users.outsider, w.basinId, reviewed.planId);
     expect(read.status).toBe("withdrawn");
     expect(read.threads.flatMap((t) => t.comments.map((c) => c.body))).toContain("Kept on the record");
     const draft = await planAt(db, w, "draft");
-    await withdrawPlan(db, w.users.lead, w.basinId, draft.planId);
+    await scoped(withdrawPlan)(db, w.users.lead, w.basinId, draft.planId);
     await expect(getPlan(db, w.users.stakeholder, w.basinId, draft.planId)).rejects.toMatchObject({ status: 403 });
     const listed = (await listPlans(db, w.users.stakeholder, w.basinId)).map((p) => p.id);
     expect(listed).toContain(reviewed.planId);
@@ -218,7 +219,7 @@ describe("a discharger's own facilities", () => {
   });
 
   it("is empty for a member who represents no facility", async () => {
-    const v = await getMyFacilities(db, w.users.stakeholder, w.basinId);
+    const v = await scoped(getMyFacilities)(db, w.users.stakeholder, w.basinId);
     expect(v).toMatchObject({ facilities: [], plans: [], plan: null });
   });
 
@@ -227,7 +228,7 @@ describe("a discharger's own facilities", () => {
     const f = await findFacilityByPermit(db, w.basinId, "DP-1001");
     facilityId = f!.id;
     await linkFacilityUser(db, facilityId, w.users.discharger.id);
-    const v = await getMyFacilities(db, w.users.discharger, w.basinId);
+    const v = await scoped(getMyFacilities)(db, w.users.discharger, w.basinId);
     // the world's own facility and the demo network's DP-1001
     expect(v.facilities.map((x) => x.id).sort()).toEqual([w.facilityId, facilityId].sort());
     expect(v.plans).toEqual([]);
@@ -236,7 +237,7 @@ describe("a discharger's own facilities", () => {
 
   it("shows the newest plan in review with the facility's allocation and its thread", async () => {
     const review = await planAt(db, w, "review");
-    const v = await getMyFacilities(db, w.users.discharger, w.basinId);
+    const v = await scoped(getMyFacilities)(db, w.users.discharger, w.basinId);
     expect(v.plans.map((p) => p.id)).toEqual([review.planId]);
     expect(v.plan!.id).toBe(review.planId);
     const mine = v.plan!.allocations.find((a) => a.facilityId === facilityId)!;
@@ -250,11 +251,11 @@ describe("a discharger's own facilities", () => {
 
   it("refuses a plan version it does not offer", async () => {
     const draft = await planAt(db, w, "draft");
-    await expect(getMyFacilities(db, w.users.discharger, w.basinId, draft.planId)).rejects.toMatchObject({ status: 404 });
+    await expect(scoped(getMyFacilities)(db, w.users.discharger, w.basinId, draft.planId)).rejects.toMatchObject({ status: 404 });
   });
 
   it("is for members only", async () => {
-    await expect(getMyFacilities(db, w.users.outsider, w.basinId)).rejects.toMatchObject({ status: 403 });
+    await expect(scoped(getMyFacilities)(db, w.users.outsider, w.basinId)).rejects.toMatchObject({ status: 403 });
   });
 });
 
@@ -266,11 +267,11 @@ describe("the audit trail", () => {
   });
 
   it("records the plan's life and filters by area", async () => {
-    const plans = await listBasinAudit(db, w.users.lead, w.basinId, { area: "plans" });
+    const plans = await scoped(listBasinAudit)(db, w.users.lead, w.basinId, { area: "plans" });
     const actions = plans.map((e) => e.action);
     expect(actions).toEqual(expect.arrayContaining(["plan.proposed", "review.opened", "review.closed", "plan.published"]));
     expect(actions.every((a) => /^(plan|review|comment|thread)\./.test(a))).toBe(true);
-    const network = await listBasinAudit(db, w.users.lead, w.basinId, { area: "network" });
+    const network = await scoped(listBasinAudit)(db, w.users.lead, w.basinId, { area: "network" });
     expect(network.length).toBeGreaterThan(0);
     expect(network.every((e) => /^(import|network)\./.test(e.action))).toBe(true);
     // the scheduled close has no person behind it
@@ -280,9 +281,9 @@ describe("the audit trail", () => {
   it("a comment's and a response's events name the thread's plan, so the trail links to the thread on its page", async () => {
     const v = await buildWorld(db);
     const plan = await planAt(db, v, "review");
-    await addComment(db, v.users.stakeholder, v.basinId, plan.planThreadId, "When is the next survey?");
-    await respondToThread(db, v.users.planner, v.basinId, plan.planThreadId, "In August");
-    const events = await listBasinAudit(db, v.users.lead, v.basinId, { area: "plans" });
+    await scoped(addComment)(db, v.users.stakeholder, v.basinId, plan.planThreadId, "When is the next survey?");
+    await scoped(respondToThread)(db, v.users.planner, v.basinId, plan.planThreadId, "In August");
+    const events = await scoped(listBasinAudit)(db, v.users.lead, v.basinId, { area: "plans" });
     const threadEvents = events.filter((e) => e.targetType === "thread");
     expect(threadEvents.map((e) => e.action).sort()).toEqual(["comment.added", "thread.addressed"]);
     for (const e of threadEvents) expect(e).toMatchObject({ targetId: plan.planThreadId, planId: plan.planId });
@@ -292,9 +293,9 @@ describe("the audit trail", () => {
   });
 
   it("pages backwards by event id without gaps or repeats", async () => {
-    const all = await listBasinAudit(db, w.users.lead, w.basinId);
-    const first = await listBasinAudit(db, w.users.lead, w.basinId, { limit: 3 });
-    const rest = await listBasinAudit(db, w.users.lead, w.basinId, { before: first[2].id });
+    const all = await scoped(listBasinAudit)(db, w.users.lead, w.basinId);
+    const first = await scoped(listBasinAudit)(db, w.users.lead, w.basinId, { limit: 3 });
+    const rest = await scoped(listBasinAudit)(db, w.users.lead, w.basinId, { before: first[2].id });
     expect([...first, ...rest].map((e) => e.id)).toEqual(all.map((e) => e.id));
   });
 

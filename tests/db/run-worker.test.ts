@@ -9,6 +9,7 @@ import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { commitDemo } from "../support/demo-network";
 import { fileDb } from "../support/file-db";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 /** The background worker's way of computing runs: a worker thread with a time limit, and several workers on one queue. */
 const db = fileDb();
@@ -17,7 +18,7 @@ let pool: ComputePool;
 const pooled = (p: ComputePool): RunCompute => (job, onProgress) => p.payload(job, onProgress);
 
 async function scenario(name: string, flowScale = 1) {
-  return createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name, inputs: { conditions: [{ name: "7Q10", flowScale }] } }));
+  return scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name, inputs: { conditions: [{ name: "7Q10", flowScale }] } }));
 }
 
 beforeAll(async () => {
@@ -32,7 +33,7 @@ afterAll(async () => {
 describe("a run computed in the compute worker thread", () => {
   it("stores the same result as the same computation in this thread, with its progress", async () => {
     const s = await scenario("Worker thread");
-    const a = await createRun(db, w.users.planner, w.basinId, s.id, "allocation");
+    const a = await scoped(createRun)(db, w.users.planner, w.basinId, s.id, "allocation");
     const seen: number[] = [];
     await processRun(db, a.id, (job, onProgress) =>
       pool.payload(job, (done) => {
@@ -40,7 +41,7 @@ describe("a run computed in the compute worker thread", () => {
         onProgress(done);
       }),
     );
-    const threaded = await getRun(db, w.users.planner, w.basinId, a.id);
+    const threaded = await scoped(getRun)(db, w.users.planner, w.basinId, a.id);
     expect(threaded.status).toBe("done");
     expect(seen.length).toBeGreaterThan(0);
     expect(seen.at(-1)).toBeLessThanOrEqual(1);
@@ -51,7 +52,7 @@ describe("a run computed in the compute worker thread", () => {
 
   it("fails a run whose computation passes its time limit, with the reason, logged once with the run id", async () => {
     const s = await scenario("Too slow for its limit", 0.9);
-    const run = await createRun(db, w.users.planner, w.basinId, s.id, "model");
+    const run = await scoped(createRun)(db, w.users.planner, w.basinId, s.id, "model");
     // a limit shorter than starting the thread: the computation cannot finish in it
     const tight = createComputePool({ size: 1, timeoutMs: 1 });
     const errors = vi.spyOn(console, "error").mockImplementation(() => {});
@@ -63,7 +64,7 @@ describe("a run computed in the compute worker thread", () => {
       logged = [...errors.mock.calls];
       errors.mockRestore();
     }
-    const failed = await getRun(db, w.users.planner, w.basinId, run.id);
+    const failed = await scoped(getRun)(db, w.users.planner, w.basinId, run.id);
     expect(failed.status).toBe("failed");
     expect(failed.error).toMatch(/did not finish within the run's time limit \(0 s\) and was stopped/);
     expect(logged.filter((c) => String(c[0]).includes(run.id))).toHaveLength(1);
@@ -71,7 +72,7 @@ describe("a run computed in the compute worker thread", () => {
 
   it("a model input the computation refuses fails the run naming the field, without an operator log", async () => {
     const s = await scenario("Bad input in the thread", 0.8);
-    const run = await createRun(db, w.users.planner, w.basinId, s.id, "model");
+    const run = await scoped(createRun)(db, w.users.planner, w.basinId, s.id, "model");
     // the stored inputs made unusable (a negative length): the model refuses them by field
     await db
       .updateTable("runs")
@@ -86,7 +87,7 @@ describe("a run computed in the compute worker thread", () => {
       logged = [...errors.mock.calls];
       errors.mockRestore();
     }
-    const failed = await getRun(db, w.users.planner, w.basinId, run.id);
+    const failed = await scoped(getRun)(db, w.users.planner, w.basinId, run.id);
     expect(failed.status).toBe("failed");
     expect(failed.error).toMatch(/^reaches\.0\.length_km: /);
     expect(logged).toEqual([]);
@@ -98,7 +99,7 @@ describe("two workers on one queue", () => {
     const runIds: string[] = [];
     for (let i = 0; i < 6; i++) {
       const s = await scenario(`Queue share ${i}`, 0.5 + i * 0.05);
-      runIds.push((await createRun(db, w.users.planner, w.basinId, s.id, "model")).id);
+      runIds.push((await scoped(createRun)(db, w.users.planner, w.basinId, s.id, "model")).id);
     }
     const taken: Array<{ worker: number; runId: string }> = [];
     const bosses = await Promise.all(

@@ -15,6 +15,7 @@ import { callRoute } from "../support/call-route";
 import { err } from "../support/errors";
 import { commitDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 const db = fileDb();
 let w: World;
@@ -116,7 +117,7 @@ describe("runs", () => {
     expect(run.progress).toBe(1);
     expect(run.result!.conditions[0].run).toEqual(runModel(run.modelFiles[0].file));
     // the stored-text fast path gives the same document as the parsed one
-    expect(run).toEqual(await getRun(db, w.users.lead, w.basinId, summary.id));
+    expect(run).toEqual(await scoped(getRun)(db, w.users.lead, w.basinId, summary.id));
     expect(run.methods).toMatchObject({ deoxygenation_theta_rule: "constant", saturation: expect.stringMatching(/Benson/) });
     expect(Object.keys(run.methods.reaeration as object)).toHaveLength(17);
 

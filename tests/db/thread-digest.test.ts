@@ -3,6 +3,7 @@ import { addComment, respondToThread } from "@/lib/services/plans";
 import { fileDb } from "../support/file-db";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 const db = fileDb();
 
@@ -26,18 +27,18 @@ describe("thread notices are gathered per recipient and window", () => {
 
   it("notifies the first comment at once; 300 comments make a handful of e-mails, not hundreds", async () => {
     const authors = [w.users.discharger, w.users.outsider, w.users.stakeholder, w.users.spare];
-    await addComment(db, authors[0], w.basinId, threadId, "comment 0 from the discharger");
+    await scoped(addComment)(db, authors[0], w.basinId, threadId, "comment 0 from the discharger");
     expect(await threadMail(w.basinId)).toHaveLength(0); // nobody else has written yet
 
     const before = Date.now();
-    await addComment(db, authors[1], w.basinId, threadId, "comment 1, the first reply");
+    await scoped(addComment)(db, authors[1], w.basinId, threadId, "comment 1, the first reply");
     const first = await threadMail(w.basinId);
     // the discharger hears of the first reply straight away, with its text
     expect(first.map((m) => m.to_address)).toEqual([authors[0].email]);
     expect(first[0].text_body).toContain("comment 1, the first reply");
     expect(first[0].next_attempt_at.getTime()).toBeLessThanOrEqual(before + 5_000);
 
-    for (let i = 2; i < 300; i++) await addComment(db, authors[i % authors.length], w.basinId, threadId, `comment ${i} in a busy thread`);
+    for (let i = 2; i < 300; i++) await scoped(addComment)(db, authors[i % authors.length], w.basinId, threadId, `comment ${i} in a busy thread`);
 
     const mail = await threadMail(w.basinId);
     // one "first" notice and at most one summary per recipient per window; the 300
@@ -60,7 +61,7 @@ describe("thread notices are gathered per recipient and window", () => {
   });
 
   it("a planner's response still goes to each participant on its own", async () => {
-    await respondToThread(db, w.users.planner, w.basinId, threadId, "Noted: the busy thread is answered");
+    await scoped(respondToThread)(db, w.users.planner, w.basinId, threadId, "Noted: the busy thread is answered");
     const answers = (await threadMail(w.basinId)).filter((m) => m.text_body.includes("the busy thread is answered"));
     expect(answers).toHaveLength(4);
   });

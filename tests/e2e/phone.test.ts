@@ -11,6 +11,7 @@ import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { readerBasin } from "../support/reader-plans";
 import { buildWorld, WORLD_PASSWORD, type World, type WorldUserKey } from "../support/world";
 import { launchBrowser, signInAs } from "./support/browser";
+import { scoped } from "../support/scoped";
 
 /**
  * The main pages on a phone (390 × 844), each in a role that reads it, signed out too:
@@ -89,8 +90,8 @@ async function expectNoSidewaysScroll(page: Page, name: string, prefix = "phone"
  * does it, but waiting for the run: the browser tests' worker may take the run first.
  */
 async function planAt(stage: "open" | "published", title: string) {
-  const scenario = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: `Phone basis ${title}`, inputs: { conditions: [{ name: "7Q10" }] } }));
-  const run = await createRun(db, w.users.planner, w.basinId, scenario.id, "allocation");
+  const scenario = await scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: `Phone basis ${title}`, inputs: { conditions: [{ name: "7Q10" }] } }));
+  const run = await scoped(createRun)(db, w.users.planner, w.basinId, scenario.id, "allocation");
   await processRun(db, run.id);
   for (let i = 0; i < 240; i++) {
     const { status } = await db.selectFrom("runs").select("status").where("id", "=", run.id).executeTakeFirstOrThrow();
@@ -98,16 +99,16 @@ async function planAt(stage: "open" | "published", title: string) {
     if (status === "failed") throw new Error(`the fixture's allocation run failed`);
     await new Promise((r) => setTimeout(r, 250));
   }
-  const plan = await proposePlan(db, w.users.planner, w.basinId, { runId: run.id, title });
+  const plan = await scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: run.id, title });
   const now = Date.now();
-  await openReview(db, w.users.lead, w.basinId, plan.id, {
+  await scoped(openReview)(db, w.users.lead, w.basinId, plan.id, {
     startsAt: new Date(now - 60_000).toISOString(),
     endsAt: new Date(now + 31 * 86_400_000).toISOString(),
     timeZone: "America/Chicago",
   });
   if (stage === "published") {
     await closeDueReviews(db, new Date(Date.now() + 32 * 86_400_000));
-    await publishPlan(db, w.users.lead, w.basinId, plan.id);
+    await scoped(publishPlan)(db, w.users.lead, w.basinId, plan.id);
   }
   return { planId: plan.id, runId: run.id, scenarioId: scenario.id };
 }

@@ -8,6 +8,7 @@ import { addComment, respondToThread } from "@/lib/services/plans";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, WORLD_PASSWORD, type World } from "../support/world";
 import { launchBrowser, signInAs } from "./support/browser";
+import { scoped } from "../support/scoped";
 
 /**
  * Plain words and sensible numbers in the browser: the audit trail reads as sentences and
@@ -40,8 +41,8 @@ beforeAll(async () => {
   db = createDb(inject("e2eDatabaseUrl"), 2);
   w = await buildWorld(db);
   plan = await planAt(db, w, "review");
-  await addComment(db, w.users.stakeholder, w.basinId, plan.planThreadId, "Will the August survey be used?");
-  await respondToThread(db, w.users.planner, w.basinId, plan.planThreadId, "Yes, for calibration.");
+  await scoped(addComment)(db, w.users.stakeholder, w.basinId, plan.planThreadId, "Will the August survey be used?");
+  await scoped(respondToThread)(db, w.users.planner, w.basinId, plan.planThreadId, "Yes, for calibration.");
   browser = await launchBrowser();
 }, 120_000);
 afterAll(async () => {

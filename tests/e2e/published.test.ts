@@ -9,6 +9,7 @@ import { launchBrowser, signInAs } from "./support/browser";
 import { inkPixels } from "./support/pixels";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, WORLD_PASSWORD, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 const baseUrl = inject("baseUrl");
 let browser: Browser;
@@ -30,12 +31,12 @@ beforeAll(async () => {
   // a plan taken through a review with a comment and its response, and one comment left
   // unanswered that the lead acknowledged on publishing
   const { planId, planThreadId, threads } = await planAt(db, w, "review");
-  await addComment(db, w.users.stakeholder, w.basinId, planThreadId, COMMENT);
-  await respondToThread(db, w.users.planner, w.basinId, planThreadId, RESPONSE);
+  await scoped(addComment)(db, w.users.stakeholder, w.basinId, planThreadId, COMMENT);
+  await scoped(respondToThread)(db, w.users.planner, w.basinId, planThreadId, RESPONSE);
   const facilityThread = threads.find((t) => t.facility_id !== null)!.id;
-  await addComment(db, w.users.stakeholder, w.basinId, facilityThread, UNANSWERED);
+  await scoped(addComment)(db, w.users.stakeholder, w.basinId, facilityThread, UNANSWERED);
   await closeDueReviews(db, new Date(Date.now() + 32 * 86_400_000));
-  await publishPlan(db, w.users.lead, w.basinId, planId, { acknowledgedThreadIds: [facilityThread], statement: ACK });
+  await scoped(publishPlan)(db, w.users.lead, w.basinId, planId, { acknowledgedThreadIds: [facilityThread], statement: ACK });
   url = `${baseUrl}/published/${w.basinId}/${planId}`;
   const other = await buildWorld(db);
   const draft = await planAt(db, other, "draft");

@@ -5,6 +5,7 @@ import { addComment, closeDueReviews, extendReview, openReview, publishPlan, wit
 import { fileDb } from "../support/file-db";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 // Every state change checks and changes state in one statement or under a row
 // lock: two requests sent together must leave the state one of them would have
@@ -28,7 +29,7 @@ describe("concurrent state transitions of a plan", () => {
   it("withdraw and publish sent together: exactly one happens (three tries)", async () => {
     for (let i = 0; i < 3; i++) {
       const { planId } = await planAt(db, w, "closed");
-      const rs = await settle([withdrawPlan(db, w.users.lead, w.basinId, planId), publishPlan(db, w.users.lead, w.basinId, planId)]);
+      const rs = await settle([scoped(withdrawPlan)(db, w.users.lead, w.basinId, planId), scoped(publishPlan)(db, w.users.lead, w.basinId, planId)]);
       expect(codes(rs)).toEqual(["conflict", "ok"]);
       const plan = await db.selectFrom("plans").select("status").where("id", "=", planId).executeTakeFirstOrThrow();
       const withdrawn = await auditCount(planId, "plan.withdrawn");
@@ -42,7 +43,7 @@ describe("concurrent state transitions of a plan", () => {
     const { planId } = await planAt(db, w, "draft");
     const now = Date.now();
     const body = { startsAt: new Date(now - 60_000).toISOString(), endsAt: new Date(now + 31 * 86_400_000).toISOString(), timeZone: "UTC" };
-    const rs = await settle([openReview(db, w.users.lead, w.basinId, planId, body), openReview(db, w.users.lead, w.basinId, planId, body)]);
+    const rs = await settle([scoped(openReview)(db, w.users.lead, w.basinId, planId, body), scoped(openReview)(db, w.users.lead, w.basinId, planId, body)]);
     expect(codes(rs)).toEqual(["conflict", "ok"]);
     const periods = await db.selectFrom("review_periods").select("id").where("plan_id", "=", planId).execute();
     expect(periods).toHaveLength(1);
@@ -58,8 +59,8 @@ describe("concurrent state transitions of a plan", () => {
     const period = await db.selectFrom("review_periods").selectAll().where("plan_id", "=", planId).executeTakeFirstOrThrow();
     const later = (days: number) => new Date(period.ends_at.getTime() + days * 86_400_000).toISOString();
     const rs = await settle([
-      extendReview(db, w.users.lead, w.basinId, planId, { endsAt: later(3), reason: "first" }),
-      extendReview(db, w.users.lead, w.basinId, planId, { endsAt: later(5), reason: "second" }),
+      scoped(extendReview)(db, w.users.lead, w.basinId, planId, { endsAt: later(3), reason: "first" }),
+      scoped(extendReview)(db, w.users.lead, w.basinId, planId, { endsAt: later(5), reason: "second" }),
     ]);
     const after = await db.selectFrom("review_periods").selectAll().where("id", "=", period.id).executeTakeFirstOrThrow();
     const ok = rs.filter((r) => r.status === "fulfilled").length;
@@ -72,7 +73,7 @@ describe("concurrent state transitions of a plan", () => {
     const period = await db.selectFrom("review_periods").selectAll().where("plan_id", "=", planId).executeTakeFirstOrThrow();
     const inside = new Date(period.ends_at.getTime() - 1000);
     const after = new Date(period.ends_at.getTime() + 1000);
-    const [comment] = await settle<unknown>([addComment(db, w.users.stakeholder, w.basinId, planThreadId, "Racing the close", inside), closeDueReviews(db, after)]);
+    const [comment] = await settle<unknown>([scoped(addComment)(db, w.users.stakeholder, w.basinId, planThreadId, "Racing the close", inside), closeDueReviews(db, after)]);
     const closed = await db.selectFrom("review_periods").select("closed_at").where("id", "=", period.id).executeTakeFirstOrThrow();
     expect(closed.closed_at).not.toBeNull();
     const comments = await db.selectFrom("comments").select("id").where("thread_id", "=", planThreadId).execute();
@@ -80,17 +81,17 @@ describe("concurrent state transitions of a plan", () => {
     if (comment.status === "rejected") expect((comment.reason as { code: string }).code).toBe("conflict");
     expect(await auditCount(planId, "review.closed")).toBe(1);
     // and once closed, a comment is refused
-    await expect(addComment(db, w.users.stakeholder, w.basinId, planThreadId, "Too late", after)).rejects.toMatchObject({ code: "conflict" });
+    await expect(scoped(addComment)(db, w.users.stakeholder, w.basinId, planThreadId, "Too late", after)).rejects.toMatchObject({ code: "conflict" });
   });
 });
 
 describe("concurrent membership changes", () => {
   it("two leads demoting each other at once leave the basin with a lead", async () => {
     // a second lead
-    await changeMemberRole(db, w.users.lead, w.basinId, w.users.planner.id, { role: "lead" });
+    await scoped(changeMemberRole)(db, w.users.lead, w.basinId, w.users.planner.id, { role: "lead" });
     const rs = await settle([
-      changeMemberRole(db, w.users.lead, w.basinId, w.users.planner.id, { role: "planner" }),
-      changeMemberRole(db, w.users.planner, w.basinId, w.users.lead.id, { role: "planner" }),
+      scoped(changeMemberRole)(db, w.users.lead, w.basinId, w.users.planner.id, { role: "planner" }),
+      scoped(changeMemberRole)(db, w.users.planner, w.basinId, w.users.lead.id, { role: "planner" }),
     ]);
     expect(codes(rs)).toContain("ok");
     const leads = await db.selectFrom("memberships").select("user_id").where("basin_id", "=", w.basinId).where("role", "=", "lead").execute();
@@ -102,11 +103,11 @@ describe("a site admin giving themselves a basin role", () => {
   it("is recorded as such in the basin's audit trail, which its leads read", async () => {
     const { addMember } = await import("@/lib/services/members");
     const { listBasinAudit } = await import("@/lib/services/audit");
-    await addMember(db, w.users.admin, w.basinId, { email: w.users.admin.email, role: "planner" });
+    await scoped(addMember)(db, w.users.admin, w.basinId, { email: w.users.admin.email, role: "planner" });
     // whichever of the two leads above kept the role reads the trail
     const lead = await db.selectFrom("memberships").select("user_id").where("basin_id", "=", w.basinId).where("role", "=", "lead").executeTakeFirstOrThrow();
     const reader = [w.users.lead, w.users.planner].find((u) => u.id === lead.user_id)!;
-    const events = await listBasinAudit(db, reader, w.basinId, {});
+    const events = await scoped(listBasinAudit)(db, reader, w.basinId, {});
     const row = events.find((e) => e.action === "member.added" && e.targetId === w.users.admin.id);
     expect(row?.details).toMatchObject({ role: "planner", selfGrantedBySiteAdmin: true });
   });

@@ -6,6 +6,7 @@ import { callRoute } from "../support/call-route";
 import { fileDb } from "../support/file-db";
 import { planAt } from "../support/plan-fixture";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 // A published plan's CSV is downloaded by anyone: a facility name chosen to be a
 // formula must arrive as text a spreadsheet shows, not runs.
@@ -17,7 +18,7 @@ beforeAll(async () => {
   w = await buildWorld(db);
   planId = (await planAt(db, w, "closed")).planId;
   await db.updateTable("plan_allocations").set({ facility_name: HOSTILE }).where("plan_id", "=", planId).execute();
-  await publishPlan(db, w.users.lead, w.basinId, planId);
+  await scoped(publishPlan)(db, w.users.lead, w.basinId, planId);
 });
 
 describe("CSV formula injection", () => {

@@ -17,6 +17,7 @@ import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { callRoute } from "../support/call-route";
 import { commitDemo } from "../support/demo-network";
 import { buildWorld, type World } from "../support/world";
+import { scoped } from "../support/scoped";
 
 /**
  * A PostgreSQL restart under a running worker, on a private cluster of this
@@ -67,7 +68,7 @@ async function waitForRun(id: string, ms: number) {
   }
   return run;
 }
-const queue = (i: number, kind: "model" | "allocation") => createRun(db, w.users.planner, w.basinId, scenarios[i], kind);
+const queue = (i: number, kind: "model" | "allocation") => scoped(createRun)(db, w.users.planner, w.basinId, scenarios[i], kind);
 const queueMail = (key: string) =>
   queueEmail(db, { to: w.users.stakeholder.email, kind: "review_opened", dedupeKey: `restart:${key}`, subject: `Restart ${key}`, text: "t", html: "<p>t</p>" });
 async function waitForMail(subject: string, ms: number): Promise<boolean> {
@@ -90,7 +91,7 @@ beforeAll(async () => {
   await commitDemo(db, w.users.planner, w.basinId);
   scenarios = [];
   for (const [i, temperatureC] of [20, 24, 28].entries()) {
-    const s = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: `Restart ${i}`, inputs: { conditions: [{ name: "7Q10", temperatureC }] } }));
+    const s = await scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: `Restart ${i}`, inputs: { conditions: [{ name: "7Q10", temperatureC }] } }));
     scenarios.push(s.id);
   }
   mail = await startMailServer({ port: 0 });

@@ -6,6 +6,7 @@ import type { Actor } from "@/lib/auth/guard";
 import { uploadImport } from "@/lib/services/imports";
 import { commitNetwork } from "@/lib/services/networks";
 import type { NetworkDraft } from "@/lib/validation/network";
+import { scoped } from "./scoped";
 
 const ROOT = fileURLToPath(new URL("../..", import.meta.url));
 
@@ -25,8 +26,8 @@ export function demoForm(key: keyof typeof DEMO_GIS_FILES, layer: "reaches" | "d
 
 /** Upload the demo shapefile and CSV as `actor`; returns a draft ready to validate or commit. */
 export async function uploadDemo(db: Db, actor: Actor, basinId: string): Promise<NetworkDraft> {
-  const reaches = await uploadImport(db, actor, basinId, demoFile("reaches"), { layer: "reaches" });
-  const dischargers = await uploadImport(db, actor, basinId, demoFile("dischargers"), { layer: "dischargers" });
+  const reaches = await scoped(uploadImport)(db, actor, basinId, demoFile("reaches"), { layer: "reaches" });
+  const dischargers = await scoped(uploadImport)(db, actor, basinId, demoFile("dischargers"), { layer: "dischargers" });
   return {
     reachImportId: reaches.id,
     reachMapping: DEMO_REACH_MAPPING,
@@ -38,5 +39,5 @@ export async function uploadDemo(db: Db, actor: Actor, basinId: string): Promise
 
 export async function commitDemo(db: Db, actor: Actor, basinId: string) {
   const draft = await uploadDemo(db, actor, basinId);
-  return { draft, network: await commitNetwork(db, actor, basinId, { draft, note: "", acceptReport: true }) };
+  return { draft, network: await scoped(commitNetwork)(db, actor, basinId, { draft, note: "", acceptReport: true }) };
 }

@@ -6,6 +6,7 @@ import { createScenario } from "@/lib/services/scenarios";
 import { scenarioCreateSchema, type ConditionInputs } from "@/lib/validation/scenario";
 import { commitDemo } from "./demo-network";
 import type { World } from "./world";
+import { scoped } from "./scoped";
 
 /** A demo discharger (db/seed/demo-gis dischargers file), to link the world's discharger to. */
 export const DEMO_PERMIT = "DP-1001";
@@ -35,19 +36,19 @@ export async function readerPlan(
   w: World,
   { stage, conditions = [{ name: "7Q10" }], title = "Tamsel River DO plan" }: { stage: ReaderStage; conditions?: Partial<ConditionInputs>[]; title?: string },
 ) {
-  const scenario = await createScenario(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: `Reader basis ${Math.random()}`, inputs: { conditions } }));
-  const run = await createRun(db, w.users.planner, w.basinId, scenario.id, "allocation");
+  const scenario = await scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: `Reader basis ${Math.random()}`, inputs: { conditions } }));
+  const run = await scoped(createRun)(db, w.users.planner, w.basinId, scenario.id, "allocation");
   await processRun(db, run.id);
-  const plan = await proposePlan(db, w.users.planner, w.basinId, { runId: run.id, title });
+  const plan = await scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: run.id, title });
   if (stage !== "draft") {
     const now = Date.now();
-    await openReview(db, w.users.lead, w.basinId, plan.id, {
+    await scoped(openReview)(db, w.users.lead, w.basinId, plan.id, {
       startsAt: new Date(now - 60_000).toISOString(),
       endsAt: new Date(now + 31 * 86_400_000).toISOString(),
       timeZone: "America/Chicago",
     });
   }
   if (stage === "closed" || stage === "published") await closeDueReviews(db, new Date(Date.now() + 32 * 86_400_000));
-  if (stage === "published") await publishPlan(db, w.users.lead, w.basinId, plan.id);
+  if (stage === "published") await scoped(publishPlan)(db, w.users.lead, w.basinId, plan.id);
   return { planId: plan.id, runId: run.id, version: plan.version };
 }

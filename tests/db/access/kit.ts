@@ -8,6 +8,7 @@ import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { planAt, type PlanStage } from "../../support/plan-fixture";
 import { commitDemo, uploadDemo } from "../../support/demo-network";
 import type { World } from "../../support/world";
+import { scoped } from "../../support/scoped";
 
 /** The matrix's database, opened by `openMatrixDb()` before any case runs. */
 export const matrix: { db: Db } = { db: undefined as unknown as Db };
@@ -72,12 +73,12 @@ export const withDraft = async (w: World) => {
 export const SCENARIO = { name: "Matrix scenario", inputs: { conditions: [{ name: "7Q10" }] } };
 export const withScenario = async (w: World) => {
   await commitDemo(matrix.db, w.users.planner, w.basinId);
-  const s = await createScenario(matrix.db, w.users.planner, w.basinId, scenarioCreateSchema.parse(SCENARIO));
+  const s = await scoped(createScenario)(matrix.db, w.users.planner, w.basinId, scenarioCreateSchema.parse(SCENARIO));
   return { scenarioId: s.id };
 };
 export const withRun = async (w: World) => {
   const { scenarioId } = await withScenario(w);
-  const run = await createRun(matrix.db, w.users.planner, w.basinId, scenarioId, "model");
+  const run = await scoped(createRun)(matrix.db, w.users.planner, w.basinId, scenarioId, "model");
   await processRun(matrix.db, run.id);
   return { scenarioId, runId: run.id };
 };
@@ -90,7 +91,7 @@ export const plan = (stage: PlanStage) => async (w: World) => {
 };
 export const withAllocationRun = async (w: World) => {
   const { scenarioId } = await withScenario(w);
-  const run = await createRun(matrix.db, w.users.planner, w.basinId, scenarioId, "allocation");
+  const run = await scoped(createRun)(matrix.db, w.users.planner, w.basinId, scenarioId, "allocation");
   await processRun(matrix.db, run.id);
   return { runId: run.id };
 };

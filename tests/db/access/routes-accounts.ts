@@ -3,6 +3,7 @@ import { register, requestPasswordReset } from "@/lib/services/accounts";
 import { invitationCreateSchema } from "@/lib/validation/account";
 import type { World } from "../../support/world";
 import { all, basin, denied, matrix, signedIn, uniq, type Entry } from "./kit";
+import { scoped } from "../../support/scoped";
 
 /** Accounts for the public: registration, confirmation, password reset, invitations, following. */
 
@@ -34,7 +35,7 @@ const withResetLink = async (w: World) => {
 /** An invitation of a new address (no account yet) into the world's basin, sent by its lead. */
 const withInvitation = async (w: World) => {
   const email = `invited-${uniq()}@public.test`;
-  const inv = await createInvitation(matrix.db, w.users.lead, w.basinId, invitationCreateSchema.parse({ email, role: "stakeholder" }));
+  const inv = await scoped(createInvitation)(matrix.db, w.users.lead, w.basinId, invitationCreateSchema.parse({ email, role: "stakeholder" }));
   return { invitationId: inv.id, token: await tokenFor(email, "/invite") };
 };
 const token = (_w: World, p: Record<string, string>) => ({ token: p.token });

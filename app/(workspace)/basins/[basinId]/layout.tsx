@@ -4,7 +4,6 @@ import { BasinTabs } from "@/components/layout/basin-tabs";
 import { BasinZoneProvider } from "@/components/layout/basin-zone";
 import { Denied } from "@/components/ui/denied";
 import { RoleBadge } from "@/components/ui/role-badge";
-import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { myFacilityIds } from "@/lib/services/facilities";
 
@@ -24,13 +23,13 @@ export default async function BasinLayout({
   const { basin, role } = access;
   const tabs = [
     { href: `/basins/${basin.id}`, label: "Overview", show: true },
-    { href: `/basins/${basin.id}/network`, label: "Network", show: await access.can("scenario.read") },
-    { href: `/basins/${basin.id}/scenarios`, label: "Scenarios", show: await access.can("scenario.read") },
+    { href: `/basins/${basin.id}/network`, label: "Network", show: access.can("scenario.read") },
+    { href: `/basins/${basin.id}/scenarios`, label: "Scenarios", show: access.can("scenario.read") },
     { href: `/basins/${basin.id}/plans`, label: "Plans", show: true },
-    { href: `/basins/${basin.id}/my-facilities`, label: "My facilities", show: (await myFacilityIds(getDb(), access.actor, basin.id)).length > 0 },
-    { href: `/basins/${basin.id}/members`, label: "Members & facilities", show: await access.can("members.read") },
-    { href: `/basins/${basin.id}/audit`, label: "Audit trail", show: await access.can("audit.read") },
-    { href: `/basins/${basin.id}/settings`, label: "Settings", show: await access.can("basin.update") },
+    { href: `/basins/${basin.id}/my-facilities`, label: "My facilities", show: (await myFacilityIds(access.scope)).length > 0 },
+    { href: `/basins/${basin.id}/members`, label: "Members & facilities", show: access.can("members.read") },
+    { href: `/basins/${basin.id}/audit`, label: "Audit trail", show: access.can("audit.read") },
+    { href: `/basins/${basin.id}/settings`, label: "Settings", show: access.can("basin.update") },
   ].filter((t) => t.show);
   return (
     <div>

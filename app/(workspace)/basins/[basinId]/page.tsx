@@ -21,9 +21,9 @@ export default async function BasinOverviewPage({ params }: { params: Promise<{ 
   const { basin, role, actor } = access;
   const db = getDb();
   const [facilities, follow, overview] = await Promise.all([
-    access.can("facilities.read") ? listFacilities(db, actor, basin.id) : null,
+    access.can("facilities.read") ? listFacilities(access.scope) : null,
     followState(db, actor, basin.id),
-    basinOverview(db, actor, basin.id),
+    basinOverview(access.scope),
   ]);
   const us = basin.unitSystem === "US";
   return (

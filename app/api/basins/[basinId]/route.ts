@@ -3,11 +3,11 @@ import { getBasin, updateBasin } from "@/lib/services/basins";
 import { basinUpdateSchema } from "@/lib/validation/basin";
 import { basinParams } from "@/lib/validation/params";
 
-export const GET = route({ access: { basin: "basin.read" }, params: basinParams }, ({ db, actor, params }) =>
-  getBasin(db, actor, params.basinId),
+export const GET = route({ access: { basin: true }, params: basinParams }, ({ scope }) =>
+  getBasin(scope),
 );
 
 export const PATCH = route(
-  { access: { basin: "basin.update" }, params: basinParams, body: basinUpdateSchema },
-  ({ db, actor, params, body }) => updateBasin(db, actor, params.basinId, body),
+  { access: { basin: true }, params: basinParams, body: basinUpdateSchema },
+  ({ scope, body }) => updateBasin(scope, body),
 );

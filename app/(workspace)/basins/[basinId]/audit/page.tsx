@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { AuditTable } from "@/components/tables/audit-table";
 import { Denied } from "@/components/ui/denied";
-import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { AUDIT_AREAS, listBasinAudit } from "@/lib/services/audit";
 import { auditQuerySchema } from "@/lib/validation/audit";
@@ -26,7 +25,7 @@ export default async function AuditPage({
   // a hand-edited address that does not parse shows the newest events of every area
   const parsed = auditQuerySchema.safeParse(query);
   const { area, before } = parsed.success ? parsed.data : {};
-  const events = await listBasinAudit(getDb(), access.actor, access.basin.id, { area, before, limit: PAGE });
+  const events = await listBasinAudit(access.scope, { area, before, limit: PAGE });
   const base = `/basins/${access.basin.id}/audit`;
   const href = (a?: string, b?: string) => {
     const q = new URLSearchParams();

@@ -28,11 +28,11 @@ export default async function ComparePage({
   if (!access.ok) return <Denied message={access.message} />;
   const db = getDb();
   const ids = [...new Set(runs.split(",").filter(Boolean))].slice(0, 8);
-  const loaded = await Promise.all(ids.map((id) => getRun(db, access.actor, access.basin.id, id).catch(() => null)));
+  const loaded = await Promise.all(ids.map((id) => getRun(access.scope, id).catch(() => null)));
   const done = loaded.filter((r) => r?.status === "done" && r.result?.conditions.length).map((r) => r!);
   const records = await Promise.all(done.map((r) => runScenarioRecord(db, access.basin.id, r)));
   // names beside permit ids; a reader without the facility list still gets the ids
-  const names = Object.fromEntries((await listFacilities(db, access.actor, access.basin.id).catch(() => [])).map((f) => [f.permitId, f.name]));
+  const names = Object.fromEntries((await listFacilities(access.scope).catch(() => [])).map((f) => [f.permitId, f.name]));
   const label = (r: (typeof done)[number]) =>
     `${r.scenarioName} · ${r.kind} · version ${r.scenarioVersion}, ${formatTime(new Date(r.createdAt), access.basin.timeZone ?? "UTC")}`;
   const compared = done.map((r) => ({ run: r, read: runConditions(r.result!) }));

@@ -12,8 +12,8 @@ export default async function MembersPage({ params }: { params: Promise<{ basinI
   return (
     <MembersPanel
       basinId={access.basin.id}
-      canManage={await access.can("members.manage")}
-      canManageFacilities={await access.can("facilities.manage")}
+      canManage={access.can("members.manage")}
+      canManageFacilities={access.can("facilities.manage")}
       me={access.actor.id}
     />
   );

@@ -4,7 +4,6 @@ import { notFound } from "next/navigation";
 import { MyFacilities } from "@/components/plans/my-facilities";
 import { Denied } from "@/components/ui/denied";
 import { Notice } from "@/components/ui/notice";
-import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { AppError } from "@/lib/errors";
 import { getMyFacilities } from "@/lib/services/my-facilities";
@@ -25,7 +24,7 @@ export default async function MyFacilitiesPage({
   if (!access.ok) return <Denied message={access.message} />;
   let view;
   try {
-    view = await getMyFacilities(getDb(), access.actor, access.basin.id, planId);
+    view = await getMyFacilities(access.scope, planId);
   } catch (e) {
     if (e instanceof AppError && e.status === 404) notFound();
     throw e;

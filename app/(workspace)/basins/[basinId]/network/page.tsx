@@ -22,7 +22,7 @@ export default async function NetworkPage({
       basinId={access.basin.id}
       basinSlug={access.basin.slug}
       unitSystem={access.basin.unitSystem}
-      canImport={await access.can("network.import")}
+      canImport={access.can("network.import")}
       savedVersion={Number.isInteger(saved) && saved > 0 ? saved : undefined}
     />
   );

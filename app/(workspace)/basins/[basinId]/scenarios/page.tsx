@@ -9,5 +9,5 @@ export default async function ScenariosPage({ params }: { params: Promise<{ basi
   const { basinId } = await params;
   const access = await basinPageAccess(basinId, "scenario.read");
   if (!access.ok) return <Denied message={access.message} />;
-  return <ScenarioList basinId={access.basin.id} canEdit={await access.can("scenario.edit")} />;
+  return <ScenarioList basinId={access.basin.id} canEdit={access.can("scenario.edit")} />;
 }

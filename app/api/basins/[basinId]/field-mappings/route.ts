@@ -3,11 +3,11 @@ import { listMappings, saveMapping } from "@/lib/services/imports";
 import { fieldMappingSaveSchema } from "@/lib/validation/network";
 import { basinParams } from "@/lib/validation/params";
 
-export const GET = route({ access: { basin: "network.import" }, params: basinParams }, ({ db, actor, params }) =>
-  listMappings(db, actor, params.basinId),
+export const GET = route({ access: { basin: true }, params: basinParams }, ({ scope }) =>
+  listMappings(scope),
 );
 
 export const POST = route(
-  { access: { basin: "network.import" }, params: basinParams, body: fieldMappingSaveSchema, status: 201 },
-  ({ db, actor, params, body }) => saveMapping(db, actor, params.basinId, body),
+  { access: { basin: true }, params: basinParams, body: fieldMappingSaveSchema, status: 201 },
+  ({ scope, body }) => saveMapping(scope, body),
 );

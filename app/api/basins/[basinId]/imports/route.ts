@@ -3,14 +3,14 @@ import { listBasinImports, uploadImport, uploadLimitBytes } from "@/lib/services
 import { uploadFieldsSchema } from "@/lib/validation/network";
 import { basinParams } from "@/lib/validation/params";
 
-export const GET = route({ access: { basin: "scenario.read" }, params: basinParams }, ({ db, actor, params }) =>
-  listBasinImports(db, actor, params.basinId),
+export const GET = route({ access: { basin: true }, params: basinParams }, ({ scope }) =>
+  listBasinImports(scope),
 );
 
 /** multipart/form-data: file + layer (reaches | dischargers), optional epsg and CSV column names. */
 export const POST = route(
   {
-    access: { basin: "network.import" },
+    access: { basin: true },
     params: basinParams,
     body: uploadFieldsSchema,
     fileField: "file",
@@ -18,5 +18,5 @@ export const POST = route(
     maxUploadBytes: () => uploadLimitBytes() + 64 * 1024,
     status: 201,
   },
-  ({ db, actor, params, body, file }) => uploadImport(db, actor, params.basinId, file!, body),
+  ({ scope, body, file }) => uploadImport(scope, file!, body),
 );

@@ -4,12 +4,12 @@ import { createInvitation, listInvitations } from "@/lib/services/invitations";
 import { invitationCreateSchema } from "@/lib/validation/account";
 import { basinParams } from "@/lib/validation/params";
 
-export const GET = route({ access: { basin: "members.manage" }, params: basinParams }, ({ db, actor, params }) =>
-  listInvitations(db, actor, params.basinId),
+export const GET = route({ access: { basin: true }, params: basinParams }, ({ scope }) =>
+  listInvitations(scope),
 );
 
 export const POST = route(
-  { access: { basin: "members.manage" }, params: basinParams, body: invitationCreateSchema, status: 201 },
+  { access: { basin: true }, params: basinParams, body: invitationCreateSchema, status: 201 },
   // each invitation is an e-mail to an address the sender chose: limited per sender (429 with Retry-After beyond it)
-  ({ db, actor, params, body }) => limited([["invite_actor", actor!.id]], () => createInvitation(db, actor, params.basinId, body)),
+  ({ scope, body }) => limited([["invite_actor", scope.actor.id]], () => createInvitation(scope, body)),
 );

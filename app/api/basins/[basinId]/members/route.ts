@@ -3,11 +3,11 @@ import { addMember, listMembers } from "@/lib/services/members";
 import { memberAddSchema } from "@/lib/validation/member";
 import { basinParams } from "@/lib/validation/params";
 
-export const GET = route({ access: { basin: "members.read" }, params: basinParams }, ({ db, actor, params }) =>
-  listMembers(db, actor, params.basinId),
+export const GET = route({ access: { basin: true }, params: basinParams }, ({ scope }) =>
+  listMembers(scope),
 );
 
 export const POST = route(
-  { access: { basin: "members.manage" }, params: basinParams, body: memberAddSchema, status: 201 },
-  ({ db, actor, params, body }) => addMember(db, actor, params.basinId, body),
+  { access: { basin: true }, params: basinParams, body: memberAddSchema, status: 201 },
+  ({ scope, body }) => addMember(scope, body),
 );

@@ -7,6 +7,6 @@ import { planProposeSchema } from "@/lib/validation/plan";
 export const GET = route({ access: { public: true }, params: basinParams }, ({ db, actor, params }) => listPlans(db, actor, params.basinId));
 
 export const POST = route(
-  { access: { basin: "plan.propose" }, params: basinParams, body: planProposeSchema, status: 201 },
-  ({ db, actor, params, body }) => proposePlan(db, actor, params.basinId, body),
+  { access: { basin: true }, params: basinParams, body: planProposeSchema, status: 201 },
+  ({ scope, body }) => proposePlan(scope, body),
 );

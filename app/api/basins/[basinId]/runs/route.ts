@@ -2,6 +2,6 @@ import { route } from "@/lib/api/route";
 import { listRuns } from "@/lib/services/runs";
 import { basinParams } from "@/lib/validation/params";
 
-export const GET = route({ access: { basin: "scenario.read" }, params: basinParams }, ({ db, actor, params }) =>
-  listRuns(db, actor, params.basinId),
+export const GET = route({ access: { basin: true }, params: basinParams }, ({ scope }) =>
+  listRuns(scope),
 );

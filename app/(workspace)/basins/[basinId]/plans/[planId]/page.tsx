@@ -2,11 +2,10 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { PlanView } from "@/components/plans/plan-view";
 import { Denied } from "@/components/ui/denied";
-import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { AppError } from "@/lib/errors";
 import { myFacilityIds } from "@/lib/services/facilities";
-import { getPlan } from "@/lib/services/plans";
+import { getPlanIn } from "@/lib/services/plans";
 
 export const metadata: Metadata = { title: "Plan" };
 
@@ -14,10 +13,9 @@ export default async function PlanPage({ params }: { params: Promise<{ basinId: 
   const { basinId, planId } = await params;
   const access = await basinPageAccess(basinId, "basin.read");
   if (!access.ok) return <Denied message={access.message} />;
-  const db = getDb();
   let plan;
   try {
-    plan = await getPlan(db, access.actor, access.basin.id, planId);
+    plan = await getPlanIn(access.scope, planId);
   } catch (e) {
     if (e instanceof AppError && e.status === 404) notFound();
     if (e instanceof AppError) return <Denied message={e.message} />;
@@ -32,10 +30,10 @@ export default async function PlanPage({ params }: { params: Promise<{ basinId: 
         unitSystem={access.basin.unitSystem}
         can={{
           signedIn: true,
-          manageReview: await access.can("review.manage"),
-          publish: await access.can("plan.publish"),
-          answer: await access.can("comment.answer"),
-          myFacilityIds: await myFacilityIds(db, access.actor, access.basin.id),
+          manageReview: access.can("review.manage"),
+          publish: access.can("plan.publish"),
+          answer: access.can("comment.answer"),
+          myFacilityIds: await myFacilityIds(access.scope),
         }}
       />
     </div>

@@ -16,21 +16,21 @@ export default async function RunPage({ params }: { params: Promise<{ basinId: s
   const access = await basinPageAccess(basinId, "scenario.read");
   if (!access.ok) return <Denied message={access.message} />;
   const db = getDb();
-  const run = await getRun(db, access.actor, access.basin.id, runId).catch((e) => {
+  const run = await getRun(access.scope, runId).catch((e) => {
     if (e instanceof AppError && e.status === 404) return null;
     throw e;
   });
   if (!run) notFound();
   // The map shows the network this run used (the scenario may since have moved to another version).
   const used = await runScenarioRecord(db, access.basin.id, run);
-  const networkId = used?.networkId ?? (await getScenario(db, access.actor, access.basin.id, run.scenarioId)).networkId;
-  const network = await getNetwork(db, access.actor, access.basin.id, networkId);
+  const networkId = used?.networkId ?? (await getScenario(access.scope, run.scenarioId)).networkId;
+  const network = await getNetwork(access.scope, networkId);
   return (
     <div>
       <h2 className="mb-4">
         {used?.name ?? run.scenarioName} — {run.kind === "allocation" ? "allocation" : "model"} run
       </h2>
-      <RunResults basinId={access.basin.id} basinName={access.basin.name} initial={run} network={network.geojson} unitSystem={access.basin.unitSystem} canPropose={await access.can("plan.propose")} />
+      <RunResults basinId={access.basin.id} basinName={access.basin.name} initial={run} network={network.geojson} unitSystem={access.basin.unitSystem} canPropose={access.can("plan.propose")} />
     </div>
   );
 }

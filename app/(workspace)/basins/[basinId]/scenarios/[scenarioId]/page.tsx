@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { ScenarioEditor } from "@/components/scenarios/scenario-editor";
 import { Denied } from "@/components/ui/denied";
-import { getDb } from "@/db/client";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { AppError } from "@/lib/errors";
 import { getNetwork } from "@/lib/services/networks";
@@ -14,12 +13,12 @@ export default async function ScenarioPage({ params }: { params: Promise<{ basin
   const { basinId, scenarioId } = await params;
   const access = await basinPageAccess(basinId, "scenario.read");
   if (!access.ok) return <Denied message={access.message} />;
-  const scenario = await getScenario(getDb(), access.actor, access.basin.id, scenarioId).catch((e) => {
+  const scenario = await getScenario(access.scope, scenarioId).catch((e) => {
     if (e instanceof AppError && e.status === 404) return null;
     throw e;
   });
   if (!scenario) notFound();
-  const network = await getNetwork(getDb(), access.actor, access.basin.id, scenario.networkId);
+  const network = await getNetwork(access.scope, scenario.networkId);
   return (
     <div>
       <h2 className="mb-4">{scenario.name}</h2>
@@ -28,7 +27,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ basin
         scenario={scenario}
         unitSystem={access.basin.unitSystem}
         basinCriterion={access.basin.doCriterionMgL}
-        canEdit={await access.can("scenario.edit")}
+        canEdit={access.can("scenario.edit")}
         reaches={network.reaches.map((r) => ({ id: r.id, name: r.name, downstreamId: r.downstreamId, attributes: r.attributes }))}
         outfalls={network.outfalls.map((o) => ({ permitId: o.permitId, facilityName: o.facilityName, reachId: o.reachId, attributes: o.attributes }))}
       />

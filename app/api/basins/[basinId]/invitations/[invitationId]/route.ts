@@ -2,6 +2,6 @@ import { route } from "@/lib/api/route";
 import { revokeInvitation } from "@/lib/services/invitations";
 import { invitationParams } from "@/lib/validation/account";
 
-export const DELETE = route({ access: { basin: "members.manage" }, params: invitationParams, status: 204 }, ({ db, actor, params }) =>
-  revokeInvitation(db, actor, params.basinId, params.invitationId),
+export const DELETE = route({ access: { basin: true }, params: invitationParams, status: 204 }, ({ scope, params }) =>
+  revokeInvitation(scope, params.invitationId),
 );

@@ -4,11 +4,11 @@ import { memberUpdateSchema } from "@/lib/validation/member";
 import { memberParams } from "@/lib/validation/params";
 
 export const PATCH = route(
-  { access: { basin: "members.manage" }, params: memberParams, body: memberUpdateSchema },
-  ({ db, actor, params, body }) => changeMemberRole(db, actor, params.basinId, params.userId, body),
+  { access: { basin: true }, params: memberParams, body: memberUpdateSchema },
+  ({ scope, params, body }) => changeMemberRole(scope, params.userId, body),
 );
 
 export const DELETE = route(
-  { access: { basin: "members.manage" }, params: memberParams, status: 204 },
-  ({ db, actor, params }) => removeMember(db, actor, params.basinId, params.userId),
+  { access: { basin: true }, params: memberParams, status: 204 },
+  ({ scope, params }) => removeMember(scope, params.userId),
 );

@@ -10,13 +10,13 @@ import { basinParams } from "@/lib/validation/params";
  * with `?progress=<uuid>` its stages can be followed at GET ./<uuid> meanwhile.
  */
 export const POST = route(
-  { access: { basin: "network.import" }, params: basinParams, body: networkDraftSchema, query: validateQuerySchema },
-  async ({ db, actor, params, body, query }) => {
+  { access: { basin: true }, params: basinParams, body: networkDraftSchema, query: validateQuerySchema },
+  async ({ scope, body, query }) => {
     const key = query.progress;
-    const track = key ? (stage: Parameters<typeof setProgress>[3], fraction?: number) => setProgress(key, params.basinId, actor!.id, stage, fraction) : undefined;
+    const track = key ? (stage: Parameters<typeof setProgress>[3], fraction?: number) => setProgress(key, scope.basin.id, scope.actor.id, stage, fraction) : undefined;
     track?.("queued");
     try {
-      const json = await validateDraftJson(db, actor, params.basinId, body, track);
+      const json = await validateDraftJson(scope, body, track);
       track?.("done");
       return bytesResponse(json, "application/json");
     } catch (e) {

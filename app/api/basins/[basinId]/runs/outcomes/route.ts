@@ -3,6 +3,6 @@ import { listRunOutcomes } from "@/lib/services/basin-overview";
 import { basinParams } from "@/lib/validation/params";
 
 /** What each finished run came to (lowest DO under the governing condition, feasible), for the runs list. */
-export const GET = route({ access: { basin: "scenario.read" }, params: basinParams }, ({ db, actor, params }) =>
-  listRunOutcomes(db, actor, params.basinId),
+export const GET = route({ access: { basin: true }, params: basinParams }, ({ scope }) =>
+  listRunOutcomes(scope),
 );

@@ -4,6 +4,6 @@ import { facilityLinkSchema } from "@/lib/validation/member";
 import { facilityParams } from "@/lib/validation/params";
 
 export const POST = route(
-  { access: { basin: "members.manage" }, params: facilityParams, body: facilityLinkSchema, status: 201 },
-  ({ db, actor, params, body }) => linkUserToFacility(db, actor, params.basinId, params.facilityId, body),
+  { access: { basin: true }, params: facilityParams, body: facilityLinkSchema, status: 201 },
+  ({ scope, params, body }) => linkUserToFacility(scope, params.facilityId, body),
 );

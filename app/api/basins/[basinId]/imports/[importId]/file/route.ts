@@ -5,8 +5,8 @@ import { importParams } from "@/lib/validation/params";
 const TYPES = { shapefile: "application/zip", geojson: "application/geo+json", csv: "text/csv" } as const;
 
 /** The original uploaded bytes, unchanged (with their SHA-256 in a header). */
-export const GET = route({ access: { basin: "scenario.read" }, params: importParams }, async ({ db, actor, params }) => {
-  const f = await importFile(db, actor, params.basinId, params.importId);
+export const GET = route({ access: { basin: true }, params: importParams }, async ({ scope, params }) => {
+  const f = await importFile(scope, params.importId);
   return new Response(new Uint8Array(f.content), {
     headers: {
       "content-type": TYPES[f.format],

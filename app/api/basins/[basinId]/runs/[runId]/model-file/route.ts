@@ -6,8 +6,8 @@ import { runParams } from "@/lib/validation/params";
  * The run's model file in the MODEL.md format (the first condition's file for
  * a model run), which `npm run model` / `npm run allocate` reproduce exactly.
  */
-export const GET = route({ access: { basin: "scenario.read" }, params: runParams }, async ({ db, actor, params }) => {
-  const run = await getRun(db, actor, params.basinId, params.runId);
+export const GET = route({ access: { basin: true }, params: runParams }, async ({ scope, params }) => {
+  const run = await getRun(scope, params.runId);
   const file = run.modelFiles[0].file;
   return new Response(JSON.stringify(file, null, 2), {
     headers: {

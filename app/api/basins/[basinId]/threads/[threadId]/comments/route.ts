@@ -9,6 +9,6 @@ import { commentSchema } from "@/lib/validation/plan";
  * (checked in the service); each person is limited to a number of comments
  * per window (429 with Retry-After beyond it).
  */
-export const POST = route({ access: { signedIn: true }, params: threadParams, body: commentSchema, status: 201 }, ({ db, actor, params, body }) =>
-  limited([["comment_actor", actor!.id]], () => addComment(db, actor, params.basinId, params.threadId, body.body)),
+export const POST = route({ access: { basin: true }, params: threadParams, body: commentSchema, status: 201 }, ({ scope, params, body }) =>
+  limited([["comment_actor", scope.actor.id]], () => addComment(scope, params.threadId, body.body)),
 );

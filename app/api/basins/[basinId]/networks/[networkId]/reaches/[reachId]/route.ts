@@ -4,6 +4,6 @@ import { reachEditSchema } from "@/lib/validation/network";
 import { reachParams } from "@/lib/validation/params";
 
 export const PATCH = route(
-  { access: { basin: "network.import" }, params: reachParams, body: reachEditSchema, status: 204 },
-  ({ db, actor, params, body }) => editReach(db, actor, params.basinId, params.networkId, params.reachId, body),
+  { access: { basin: true }, params: reachParams, body: reachEditSchema, status: 204 },
+  ({ scope, params, body }) => editReach(scope, params.networkId, params.reachId, body),
 );
