@@ -25,6 +25,16 @@ export function BasinForm({
 }) {
   const [failure, setFailure] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
+  const defaults: z.input<typeof basinCreateSchema> = {
+    name: "",
+    slug: "",
+    description: "",
+    doCriterionMgL: 5,
+    unitSystem: "SI",
+    minReviewDays: 30,
+    ...initial,
+    timeZone: initial?.timeZone ?? "",
+  };
   const {
     register,
     handleSubmit,
@@ -34,16 +44,13 @@ export function BasinForm({
     formState: { errors, isSubmitting, dirtyFields },
   } = useForm<z.input<typeof basinCreateSchema>, unknown, BasinCreateInput>({
     resolver: zodResolver(basinCreateSchema),
-    defaultValues: {
-      name: "",
-      slug: "",
-      description: "",
-      doCriterionMgL: 5,
-      unitSystem: "SI",
-      minReviewDays: 30,
-      ...initial,
-      timeZone: initial?.timeZone ?? "",
-    },
+    defaultValues: defaults,
+  });
+  // register() leaves an input empty until the page hydrates; its starting value in the
+  // server's HTML means a slow phone (or a quick reader) sees the settings as they are.
+  const field = <K extends Exclude<(typeof FIELDS)[number], "unitSystem">>(name: K, options?: Parameters<typeof register<K>>[1]) => ({
+    ...register(name, options),
+    defaultValue: String(defaults[name] ?? ""),
   });
 
   const submit = handleSubmit(async (values) => {
@@ -59,7 +66,7 @@ export function BasinForm({
   });
 
   // Suggest a short name from the name until the planner types one.
-  const nameField = register("name", {
+  const nameField = field("name", {
     onChange: () => {
       if (!initial?.slug && !dirtyFields.slug) {
         const slug = String(getValues("name"))
@@ -82,13 +89,13 @@ export function BasinForm({
         label="Short name (used in links)"
         error={errors.slug?.message}
         hint="Lower-case letters, digits and hyphens."
-        {...register("slug")}
+        {...field("slug")}
       />
       <div>
         <label htmlFor="description" className="field-label">
           Description
         </label>
-        <textarea id="description" rows={3} className="field-input" {...register("description")} />
+        <textarea id="description" rows={3} className="field-input" {...field("description")} />
         {errors.description && <p className="field-error">{errors.description.message}</p>}
       </div>
       <Field
@@ -98,7 +105,7 @@ export function BasinForm({
         inputMode="decimal"
         error={errors.doCriterionMgL?.message}
         hint="The dissolved-oxygen level every reach must stay above at critical conditions."
-        {...register("doCriterionMgL")}
+        {...field("doCriterionMgL")}
       />
       <Field
         label="Shortest review (days)"
@@ -107,13 +114,13 @@ export function BasinForm({
         inputMode="numeric"
         error={errors.minReviewDays?.message}
         hint="A plan's review period must run at least this long (0: no minimum). 30 days is common practice; your jurisdiction's rules decide."
-        {...register("minReviewDays")}
+        {...field("minReviewDays")}
       />
       <div>
         <label htmlFor="basin-time-zone" className="field-label">
           Time zone
         </label>
-        <TimeZoneInput id="basin-time-zone" aria-describedby="basin-time-zone-hint" {...register("timeZone")} />
+        <TimeZoneInput id="basin-time-zone" aria-describedby="basin-time-zone-hint" {...field("timeZone")} />
         <p id="basin-time-zone-hint" className="text-xs text-ink-faint">
           Every date and time of this basin — review periods, comments, e-mails, reports — is shown in this zone, named. Type to search (e.g. “Chicago”). Left
           empty, the first review&apos;s zone is taken.
@@ -125,7 +132,7 @@ export function BasinForm({
         <div className="flex gap-6 text-sm">
           {UNIT_SYSTEMS.map((u) => (
             <label key={u} className="flex items-center gap-2">
-              <input type="radio" value={u} {...register("unitSystem")} /> {unitSystemLabel(u)}
+              <input type="radio" value={u} defaultChecked={defaults.unitSystem === u} {...register("unitSystem")} /> {unitSystemLabel(u)}
             </label>
           ))}
         </div>
