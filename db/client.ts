@@ -1,4 +1,5 @@
-import { Kysely, PostgresDialect } from "kysely";
+import { appendFileSync } from "node:fs";
+import { Kysely, PostgresDialect, type LogEvent } from "kysely";
 import pg from "pg";
 import type { Database } from "./schema";
 
@@ -99,9 +100,20 @@ export function createDb(url: string = databaseUrl(), max = 10): Db {
     // pool drops the client on release (it is no longer queryable).
     client.on("error", (error) => noteDatabaseDown("connection", error));
   });
-  const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+  const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }), ...(process.env.SAGLINE_SQL_LOG ? { log: sqlLog(process.env.SAGLINE_SQL_LOG) } : {}) });
   pools.set(db, pool);
   return db;
+}
+
+/**
+ * SAGLINE_SQL_LOG=<file>: every statement's SQL text (without its parameters) appended to the
+ * file, one line each — for seeing what a page or route asks of the database (the browser tests
+ * count a run page's reads with it). Off unless set: each line is a synchronous write.
+ */
+function sqlLog(file: string) {
+  return (event: LogEvent) => {
+    if (event.level === "query") appendFileSync(file, `${event.query.sql.replace(/\s+/g, " ")}\n`);
+  };
 }
 
 const globalForDb = globalThis as unknown as { saglineDb?: Db };

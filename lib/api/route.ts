@@ -1,12 +1,12 @@
 import { NextResponse, type NextRequest } from "next/server";
 import type { z } from "zod";
 import { getDb, type Db } from "@/db/client";
-import { requireActor, requireSiteAction, type Actor } from "@/lib/auth/guard";
+import { loadActor, requireActor, requireSiteAction, type Actor } from "@/lib/auth/guard";
 import type { BasinAction, SiteAction } from "@/lib/auth/permissions";
-import { basinScope, type BasinScope } from "@/lib/auth/scope";
-import { actorFromRequest } from "@/lib/auth/session";
+import { basinScope, sessionBasinScope, type BasinScope } from "@/lib/auth/scope";
+import { sessionFromRequest } from "@/lib/auth/session";
 import { appUrl } from "@/lib/email/app-url";
-import { AppError } from "@/lib/errors";
+import { AppError, notFound } from "@/lib/errors";
 import { readMultipart, type UploadedForm } from "./multipart";
 import { errorResponse, invalid } from "./respond";
 
@@ -128,6 +128,10 @@ function refuseNul(value: unknown, where: string): void {
   }
 }
 
+const basinNotFound = (): never => {
+  throw notFound("Basin");
+};
+
 const foreign = (path: string, value: string) =>
   new AppError("forbidden", "This request came from another site; Sagline accepts changes only from its own pages", [{ path, message: value }]);
 
@@ -209,7 +213,18 @@ export function route<
       refuseForeignOrigin(req);
       const db = getDb();
       const rawParams = (await ctx?.params) ?? {};
-      const actor = "public" in spec.access ? await actorFromRequest(req).catch(() => null) : await actorFromRequest(req);
+      // a basin route reads the account, the basin and the role in one query; the others read the account
+      const session = "public" in spec.access ? await sessionFromRequest(req).catch(() => null) : await sessionFromRequest(req);
+      const rawBasinId = "basin" in spec.access ? rawParams.basinId : undefined;
+      let actor: Actor | null;
+      let found: { scope: BasinScope | null } | null = null;
+      if (session && typeof rawBasinId === "string") {
+        const both = await sessionBasinScope(db, session, rawBasinId);
+        actor = both.actor;
+        found = { scope: both.scope };
+      } else {
+        actor = session ? await loadActor(db, session.userId, session.sessionVersion) : null;
+      }
       if (!("public" in spec.access)) requireActor(actor);
       if ("site" in spec.access) requireSiteAction(actor, spec.access.site);
 
@@ -227,7 +242,8 @@ export function route<
       if ("basin" in spec.access) {
         const basinId = (params as { basinId?: string }).basinId;
         if (!basinId) throw new Error("route with basin access needs a basinId parameter");
-        scope = await basinScope(db, actor, basinId);
+        if (found?.scope && found.scope.basin.id.toLowerCase() !== basinId.toLowerCase()) throw new Error("the basin scope was read for another basin id");
+        scope = found ? (found.scope ?? basinNotFound()) : await basinScope(db, actor, basinId);
         if (spec.access.basin !== true) scope.require(spec.access.basin);
       }
 

@@ -21,7 +21,14 @@ export interface Actor {
  */
 export async function loadActor(db: Db, userId: string | null | undefined, sessionVersion?: number): Promise<Actor | null> {
   if (!userId) return null;
-  const user = await findUserById(db, userId);
+  return actorOf(await findUserById(db, userId), sessionVersion);
+}
+
+/** loadActor's rule on an account already read: gone or stale is null. */
+export function actorOf(
+  user: { id: string; email: string; name: string; is_admin: boolean; session_version: number } | undefined,
+  sessionVersion?: number,
+): Actor | null {
   if (!user || (sessionVersion !== undefined && user.session_version !== sessionVersion)) return null;
   return { id: user.id, email: user.email, name: user.name, isAdmin: user.is_admin };
 }

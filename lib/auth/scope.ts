@@ -1,9 +1,9 @@
 import type { Db } from "@/db/client";
-import { findBasinWithRole, type BasinRecord } from "@/db/queries/basins";
+import { findBasinWithRole, findUserInBasin, type BasinRecord } from "@/db/queries/basins";
 import type { BasinRole } from "@/db/schema";
 import { AppError, forbidden, notFound } from "@/lib/errors";
 import { refusal } from "@/lib/format/labels";
-import { requireActor, type Actor } from "./guard";
+import { actorOf, requireActor, type Actor } from "./guard";
 import { ADMIN_BASIN_ACTIONS, roleAllows, rolesAllowing, type BasinAction } from "./permissions";
 
 /**
@@ -61,4 +61,20 @@ export async function basinScope(db: Db, actor: Actor | null, basinId: string): 
   const found = await findBasinWithRole(db, basinId, a.id);
   if (!found) throw notFound("Basin");
   return scopeOf(db, a, found.basin, found.role);
+}
+
+/**
+ * route()'s builder for basin routes: the session's account (null when gone or
+ * stale, as loadActor) and, for that account, the basin's scope (null when the
+ * basin does not exist), from one query instead of a user read and a basin+role read.
+ */
+export async function sessionBasinScope(
+  db: Db,
+  session: { userId: string; sessionVersion: number },
+  basinId: string,
+): Promise<{ actor: Actor | null; scope: BasinScope | null }> {
+  const found = await findUserInBasin(db, session.userId, basinId);
+  const actor = actorOf(found.user, session.sessionVersion);
+  if (!actor || !found.basin) return { actor, scope: null };
+  return { actor, scope: scopeOf(db, actor, found.basin, found.role) };
 }

@@ -1,16 +1,43 @@
 import "server-only";
+import { LRUCache } from "lru-cache";
 import { getServerSession } from "next-auth";
-import { getToken } from "next-auth/jwt";
+import { decode, getToken, type JWT, type JWTDecodeParams } from "next-auth/jwt";
 import type { NextRequest } from "next/server";
 import { cache } from "react";
 import { getDb } from "@/db/client";
 import { loadActor, type Actor } from "./guard";
 import { authOptions } from "./options";
 
+/**
+ * Decoded session tokens by their text, until each one's own expiry. A token is
+ * encrypted and authenticated with the server's secret, so the same text always
+ * decodes to the same claims; decoding (key derivation and AES-GCM) is the
+ * costliest step of a signed-in read, and the claims say only who — whether
+ * that account and session are still good is read from the database on every
+ * request (loadActor's session-version check), cached or not.
+ */
+const decoded = new LRUCache<string, JWT>({ max: 10_000, ttlAutopurge: false });
+
+async function cachedDecode(params: JWTDecodeParams): Promise<JWT | null> {
+  const key = `${params.secret}\u0000${params.token ?? ""}`;
+  const hit = decoded.get(key);
+  if (hit) return hit;
+  const claims = await decode(params);
+  const expiresMs = typeof claims?.exp === "number" ? claims.exp * 1000 - Date.now() : 0;
+  if (claims && expiresMs > 0) decoded.set(key, claims, { ttl: expiresMs });
+  return claims;
+}
+
+/** The session's claims behind an API request (session cookie or bearer JWT): who, and the session version; null when signed out. */
+export async function sessionFromRequest(req: NextRequest): Promise<{ userId: string; sessionVersion: number } | null> {
+  const token = await getToken({ req, secret: process.env.NEXTAUTH_SECRET, decode: cachedDecode });
+  return token?.sub ? { userId: token.sub, sessionVersion: typeof token.sv === "number" ? token.sv : 0 } : null;
+}
+
 /** The actor behind an API request (session cookie or bearer JWT), or null (signed out, or a stale session). */
 export async function actorFromRequest(req: NextRequest): Promise<Actor | null> {
-  const token = await getToken({ req, secret: process.env.NEXTAUTH_SECRET });
-  return loadActor(getDb(), token?.sub, token?.sv ?? 0);
+  const session = await sessionFromRequest(req);
+  return loadActor(getDb(), session?.userId, session?.sessionVersion ?? 0);
 }
 
 /**

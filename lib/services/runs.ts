@@ -311,24 +311,36 @@ export async function getRunStatus(scope: BasinScope, runId: string): Promise<Ru
  * result is read often (results pages, comparisons, review) and never changes,
  * so it is not parsed and serialised again on every request.
  */
-export async function getRunJson(scope: BasinScope, runId: string): Promise<{ json: string; etag: string }> {
+export async function getRunJson(scope: BasinScope, runId: string): Promise<{ bytes: Uint8Array<ArrayBuffer>; etag: string }> {
   scope.require("scenario.read");
   const { db, basin } = scope;
+  // a finished run of this basin read before by this process: nothing about it can have changed
+  const key = `${basin.id}/${runId.toLowerCase()}`;
+  const kept = finishedRuns.get(key);
+  if (kept) return kept;
   // the small row first: it proves the run exists in this basin and says whether it can change
   const brief = await findRun(db, basin.id, runId, false);
   if (!brief) throw notFound("Run");
   const etag = `"${brief.id}-${brief.status}-${brief.finished_at?.getTime() ?? 0}"`;
-  const final = brief.status === "done" || brief.status === "failed";
-  const cached = final ? finishedRunJson.get(etag) : undefined;
-  if (cached) return { json: cached, etag };
   const row = await findRunJsonText(db, basin.id, runId);
   if (!row) throw notFound("Run");
   const head = JSON.stringify(summary(row));
-  const json = `${head.slice(0, -1)},"result":${row.result_text ?? "null"},"modelFiles":${row.files_text}}`;
-  // a finished run never changes (its ETag names its final state), so its text is kept for the next reader
-  if (final && row.status === brief.status) finishedRunJson.set(etag, json);
-  return { json, etag };
+  const bytes = utf8.encode(`${head.slice(0, -1)},"result":${row.result_text ?? "null"},"modelFiles":${row.files_text}}`);
+  const final = brief.status === "done" || brief.status === "failed";
+  if (final && row.status === brief.status) finishedRuns.set(key, { bytes, etag });
+  return { bytes, etag };
 }
 
-/** Finished runs' JSON documents by ETag, up to 64 MiB: rendering one from PostgreSQL's jsonb costs more than all the rest of a read. */
-const finishedRunJson = new LRUCache<string, string>({ maxSize: 64 * 1024 * 1024, sizeCalculation: (json) => Math.max(1, json.length) });
+/**
+ * Finished runs' JSON documents (UTF-8 bytes and ETag) by basin and run id, up to 64 MiB.
+ * Keeping them is sound because a run's final state is final: the only writes to a run
+ * (setUnfinishedRunState) touch a queued or running one, and runs are never deleted
+ * (a scenario with runs cannot be, nor can a basin). Rendering one from PostgreSQL's jsonb
+ * costs more than all the rest of a read, and encoding the text again on every response
+ * costs more than sending it; the caller's role is still checked first, on every request.
+ */
+const utf8 = new TextEncoder();
+const finishedRuns = new LRUCache<string, { bytes: Uint8Array<ArrayBuffer>; etag: string }>({
+  maxSize: 64 * 1024 * 1024,
+  sizeCalculation: (kept) => Math.max(1, kept.bytes.byteLength),
+});

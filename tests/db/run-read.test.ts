@@ -19,13 +19,13 @@ describe("reading a stored run as JSON text", () => {
     const scenario = await scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Read me", inputs: { conditions: [{ name: "7Q10" }] } }));
     const run = await scoped(createRun)(db, w.users.planner, w.basinId, scenario.id, "model");
     const queued = await scoped(getRunJson)(db, w.users.planner, w.basinId, run.id);
-    expect(JSON.parse(queued.json)).toMatchObject({ id: run.id, status: "queued", result: null });
+    expect(JSON.parse(new TextDecoder().decode(queued.bytes))).toMatchObject({ id: run.id, status: "queued", result: null });
 
     await processRun(db, run.id);
     const first = await scoped(getRunJson)(db, w.users.planner, w.basinId, run.id);
     expect(first.etag).not.toBe(queued.etag);
     // the same document getRun builds by parsing
-    expect(JSON.parse(first.json)).toEqual(JSON.parse(JSON.stringify(await scoped(getRun)(db, w.users.planner, w.basinId, run.id))));
+    expect(JSON.parse(new TextDecoder().decode(first.bytes))).toEqual(JSON.parse(JSON.stringify(await scoped(getRun)(db, w.users.planner, w.basinId, run.id))));
     const again = await scoped(getRunJson)(db, w.users.lead, w.basinId, run.id);
     expect(again).toEqual(first);
     // a kept document is never handed to someone who may not read it

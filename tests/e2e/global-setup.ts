@@ -15,6 +15,8 @@ declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
     e2eDatabaseUrl: string;
+    /** The web server's SQL statement log (SAGLINE_SQL_LOG, db/client.ts): one line per statement. */
+    sqlLog: string;
     /** Where the fake SMTP server keeps this run's messages (read with readMailbox from lib/email/mailbox). */
     mailDir: string;
   }
@@ -62,6 +64,7 @@ export default async function setup(project: TestProject) {
   // the local fake SMTP server, keeping this run's messages in a fresh folder
   const smtpPort = Number(process.env.SAGLINE_E2E_SMTP_PORT ?? 2535);
   const mailDir = mkdtempSync(path.join(tmpdir(), "sagline-e2e-mail-"));
+  const sqlLog = path.join(mailDir, "..", `${path.basename(mailDir)}-sql.log`);
   const mailEnv = { SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, SAGLINE_MAIL_DIR: mailDir, SAGLINE_DEV_PAGES: "1" };
   const smtp = spawn("npx", ["tsx", "scripts/fake-smtp.ts"], {
     cwd: ROOT,
@@ -80,6 +83,8 @@ export default async function setup(project: TestProject) {
       NEXTAUTH_SECRET: "e2e-secret-for-sagline-browser-tests",
       // every browser signs in from 127.0.0.1 many times: raise the rate limits (lib/security/rate-limit.ts)
       SAGLINE_RATE_LIMIT_SCALE: process.env.SAGLINE_RATE_LIMIT_SCALE ?? "100",
+      // what each request asks of the database, for the test that counts a run page's reads
+      SAGLINE_SQL_LOG: sqlLog,
       ...mailEnv,
     },
     stdio: ["ignore", "pipe", "pipe"],
@@ -109,6 +114,7 @@ export default async function setup(project: TestProject) {
   project.provide("baseUrl", baseUrl);
   project.provide("e2eDatabaseUrl", url);
   project.provide("mailDir", mailDir);
+  project.provide("sqlLog", sqlLog);
 
   return async () => {
     // stop the server, the worker and the fake SMTP server we started, by their process group ids
@@ -124,6 +130,7 @@ export default async function setup(project: TestProject) {
     if (!process.env.SAGLINE_KEEP_TEST_DB) {
       await dropDatabase(name);
       rmSync(mailDir, { recursive: true, force: true });
+      rmSync(sqlLog, { force: true });
     }
   };
 }

@@ -3,6 +3,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as resetConfirmRoute from "@/app/api/account/password-reset/confirm/route";
 import * as basinsRoute from "@/app/api/basins/route";
 import * as memberRoute from "@/app/api/basins/[basinId]/members/[userId]/route";
+import * as basinRoute from "@/app/api/basins/[basinId]/route";
 import { findUserById } from "@/db/queries/users";
 import { loadActor } from "@/lib/auth/guard";
 import { authOptions } from "@/lib/auth/options";
@@ -65,5 +66,24 @@ describe("sessions end when the account's session version moves on", () => {
     expect(await loadActor(db, u.id, session_version + 1)).toBeNull();
     const session = await authOptions.callbacks!.session!({ session: { user: {}, expires: "" }, token: { sub: u.id, sv: 4 } } as never);
     expect((session as { user: { id: string; sv: number } }).user).toMatchObject({ id: u.id, sv: 4 });
+  });
+
+  it("a basin route, which reads the account, the basin and the role in one query, refuses a stale session the same way", async () => {
+    const u = w.users.discharger;
+    const cookie = await cookieFor(u.id);
+    const basin = (basinId: string) => callRoute(basinRoute.GET, "GET", { params: { basinId }, headers: { cookie } });
+    // twice: the second decode of the same token comes from the process's token cache
+    expect((await basin(w.basinId)).status).toBe(200);
+    expect((await basin(w.basinId)).status).toBe(200);
+    // the same id in capitals names the same basin
+    expect((await basin(w.basinId.toUpperCase())).status).toBe(200);
+    // signed in, an unknown basin is not found and another basin is not this member's
+    expect((await basin("00000000-0000-4000-8000-000000000000")).status).toBe(404);
+    expect((await basin(w.otherBasinId)).status).toBe(403);
+    // a cached token is not a live session: once the version moves on, the same cookie is refused
+    await db.updateTable("users").set((eb) => ({ session_version: eb("session_version", "+", 1) })).where("id", "=", u.id).execute();
+    const stale = await basin(w.basinId);
+    expect(stale.status).toBe(401);
+    expect((await basin("not-an-id")).status).toBe(401);
   });
 });
