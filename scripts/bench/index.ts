@@ -12,6 +12,11 @@
  *      with 50 stations (≤ 60 s).
  *   9. Committing a 2k-reach network with 200 dischargers into PostgreSQL (a throwaway database
  *      on the test cluster, started when needed); target ≤ 2 s. `--no-db` skips it.
+ *  10. Reads that scale (issue 14, scripts/bench/reads.ts): `next start` from the existing build
+ *      on a throwaway demo database — the trivial route, a stored-run read (200 and 304), the
+ *      published page and downloads, and bare node:http on the same bytes, at 20 and 50
+ *      connections; goal: the run read ≤ 1.5× the trivial route's cost. Needs `npm run build`
+ *      (skipped, saying so, without one); `--no-db` skips it.
  * Targets (issue 3): 10k-reach run ≤ 20 ms; ≥ 100× faster than the ODE integrator;
  * 500-discharger allocation ≤ 2 s and no slower than HiGHS on the full LP.
  * Options: `npm run bench -- --quick` skips the 10k ODE comparison and the 500-discharger case.
@@ -25,6 +30,7 @@ import { geodesicBench } from "./geodesic-bench";
 import { networkCommitBench } from "./network-commit-bench";
 import { designFlowBench } from "./design-flow-bench";
 import { calibrationBench } from "./calibration-bench";
+import { readsBench } from "./reads";
 
 const quick = process.argv.includes("--quick");
 
@@ -40,7 +46,10 @@ async function main() {
   geodesicBench();
   designFlowBench(50);
   calibrationBench();
-  if (!process.argv.includes("--no-db")) await networkCommitBench(2000, 200);
+  if (!process.argv.includes("--no-db")) {
+    await networkCommitBench(2000, 200);
+    await readsBench(5);
+  }
 }
 
 main().then(() => process.exit(0), (e: unknown) => {
