@@ -38,8 +38,6 @@ export class GeoError extends Error {
   }
 }
 
-export const isGeoError = (e: unknown): e is GeoError => e instanceof GeoError;
-
 /** Re-throws a GeoError as is and turns anything else into one with `code`. */
 export function wrapUnknown(e: unknown, code: GeoErrorCode, message: string): GeoError {
   if (e instanceof GeoError) return e;

@@ -5,11 +5,10 @@
  * importer's; the numbers are that table's.
  */
 import { withoutFloatNoise } from "@/lib/format/quantities";
-import { FT3_TO_M3, FT_TO_M, MGD_TO_M3_S, MI_TO_KM, SECONDS_PER_DAY as DAY_S, US_GAL_TO_L } from "@/lib/model/units";
+import { FT3_TO_M3, FT_TO_M, MGD_TO_M3_S, MI_TO_KM, SECONDS_PER_DAY as DAY_S } from "@/lib/model/units";
 
 export const METRES_PER_FOOT = FT_TO_M;
 export const KILOMETRES_PER_MILE = MI_TO_KM;
-export const CUBIC_METRES_PER_US_GALLON = US_GAL_TO_L / 1000;
 export const SECONDS_PER_DAY = DAY_S;
 /** 1 ft³/s in m³/s: 0.3048³ = 0.028316846592 (exact). */
 export const CUBIC_METRES_PER_SECOND_PER_CFS = FT3_TO_M3;

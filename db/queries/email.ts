@@ -54,7 +54,6 @@ export async function claimDueEmails(db: Db, now: Date, claimUntil: Date, limit:
     .execute();
 }
 
-export type ClaimedEmail = Awaited<ReturnType<typeof claimDueEmails>>[number];
 
 export async function markEmailSent(db: Db, id: string, messageId: string, now: Date): Promise<void> {
   await db

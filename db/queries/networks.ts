@@ -1,7 +1,5 @@
 import { sql } from "kysely";
 import type { Db } from "../client";
-import type { Insertable } from "kysely";
-import type { NetworkNodesTable, OutfallsTable, ReachesTable } from "../schema";
 import { isUuid } from "./users";
 
 /** The next version number of a basin's network; locks the basin row until the transaction ends. */
@@ -52,17 +50,7 @@ export async function insertNetwork(
     .executeTakeFirstOrThrow();
 }
 
-/** Insert rows in chunks (PostgreSQL caps a statement at 65 535 parameters). */
-async function insertChunked<T>(rows: T[], size: number, insert: (chunk: T[]) => Promise<unknown>): Promise<void> {
-  for (let i = 0; i < rows.length; i += size) await insert(rows.slice(i, i + size));
-}
 
-export const insertNodes = (db: Db, rows: Insertable<NetworkNodesTable>[]) =>
-  insertChunked(rows, 2000, (c) => db.insertInto("network_nodes").values(c).execute());
-export const insertReaches = (db: Db, rows: Insertable<ReachesTable>[]) =>
-  insertChunked(rows, 1000, (c) => db.insertInto("reaches").values(c).execute());
-export const insertOutfalls = (db: Db, rows: Insertable<OutfallsTable>[]) =>
-  insertChunked(rows, 1000, (c) => db.insertInto("outfalls").values(c).execute());
 
 /** A basin's network versions with their size and who saved each, newest first. */
 export const networkSummaries = (db: Db, basinId: string) =>

@@ -97,10 +97,6 @@ export async function lockPlanStatus(db: Db, planId: string, mode: "share" | "up
   return row?.status;
 }
 
-export async function setPlanStatus(db: Db, planId: string, status: PlanStatus, extra: { published_by?: string; published_at?: Date } = {}) {
-  await db.updateTable("plans").set({ status, ...extra }).where("id", "=", planId).execute();
-}
-
 export async function planAllocations(db: Db, planId: string) {
   return db
     .selectFrom("plan_allocations as a")

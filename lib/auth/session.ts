@@ -34,12 +34,6 @@ export async function sessionFromRequest(req: NextRequest): Promise<{ userId: st
   return token?.sub ? { userId: token.sub, sessionVersion: typeof token.sv === "number" ? token.sv : 0 } : null;
 }
 
-/** The actor behind an API request (session cookie or bearer JWT), or null (signed out, or a stale session). */
-export async function actorFromRequest(req: NextRequest): Promise<Actor | null> {
-  const session = await sessionFromRequest(req);
-  return loadActor(getDb(), session?.userId, session?.sessionVersion ?? 0);
-}
-
 /**
  * The actor for a server component or server action, or null when signed out
  * or the session is stale. Read once per request (React cache): the layout

@@ -84,12 +84,6 @@ export const AUDIT_DETAIL_NAMES: Record<string, string> = {
   fields: "fields",
 };
 
-/** "Maren Oakhurst opened a review period." — an unknown action reads as a recorded event, never as its code alone. */
-export function auditSentence(actor: string | null, action: string): string {
-  const verb = AUDIT_ACTION_NAMES[action] ?? `recorded an event (${action})`;
-  return `${actor ?? "Sagline (on schedule)"} ${verb}.`;
-}
-
 /** What an audit event changed, as a word the "On" column shows. */
 export const AUDIT_TARGET_NAMES: Record<string, string> = {
   basin: "basin",

@@ -15,7 +15,6 @@ export const DEFAULT_THETA = {
   settling: 1.0,
 } as const;
 
-export type ThetaSet = { -readonly [K in keyof typeof DEFAULT_THETA]: number };
 
 /** `constant`: k_d uses θ_deoxygenation at every temperature; `piecewise`: see deoxygenationTheta (the rules: lib/domain). */
 export type { DeoxygenationThetaRule };

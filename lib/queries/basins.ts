@@ -5,16 +5,6 @@ import type { BasinCreateInput, BasinUpdateInput } from "@/lib/validation/basin"
 import { apiFetch } from "./fetcher";
 import { queryKeys } from "./keys";
 
-export interface MeDto {
-  id: string;
-  email: string;
-  name: string;
-  isAdmin: boolean;
-  canCreateBasin: boolean;
-}
-
-export const useMeQuery = () => useQuery({ queryKey: queryKeys.me(), queryFn: () => apiFetch<MeDto>("/api/me") });
-
 export const useBasinsQuery = () =>
   useQuery({ queryKey: queryKeys.basins.list(), queryFn: () => apiFetch<BasinDto[]>("/api/basins") });
 

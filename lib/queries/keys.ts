@@ -1,6 +1,5 @@
 /** Query keys, scoped by parent id so a mutation can invalidate exactly what it touched. */
 export const queryKeys = {
-  me: () => ["me"] as const,
   basins: {
     all: () => ["basins"] as const,
     list: () => ["basins", "list"] as const,

@@ -96,4 +96,3 @@ export async function getMyFacilities(scope: BasinScope, planId?: string) {
   return { facilities, plans, governingId: governing?.id ?? null, plan };
 }
 
-export type MyFacilitiesView = Awaited<ReturnType<typeof getMyFacilities>>;

@@ -28,7 +28,6 @@ export const registerSchema = z.object({ name, email, password, confirmPassword:
 export type RegisterInput = z.infer<typeof registerSchema>;
 
 export const verifyEmailSchema = z.object({ token: tokenSchema });
-export type VerifyEmailInput = z.infer<typeof verifyEmailSchema>;
 
 export const resetRequestSchema = z.object({ email });
 export type ResetRequestInput = z.infer<typeof resetRequestSchema>;

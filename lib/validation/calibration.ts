@@ -29,4 +29,3 @@ export const calibrationSchema = z.strictObject({
   observations: z.array(observationSchema).min(1, "observations must hold at least one observation").max(10_000),
   fit: z.array(fitEntrySchema).min(1, "fit must name at least one coefficient").max(50),
 });
-export type CalibrationInput = z.infer<typeof calibrationSchema>;

@@ -33,7 +33,6 @@ export const networkOptionsSchema = z.object({
   outlets: z.array(outletSchema).max(100).optional(),
   reassign: z.record(z.string(), z.string().min(1)).optional(),
 });
-export type NetworkOptions = z.infer<typeof networkOptionsSchema>;
 
 /** A network draft: which uploads, how their fields map, and the topology options. */
 export const networkDraftSchema = z

@@ -154,6 +154,5 @@ export const scenarioUpdateSchema = z.object({
 export type ScenarioUpdate = z.infer<typeof scenarioUpdateSchema>;
 
 export const runCreateSchema = z.object({ kind: z.enum(RUN_KINDS) });
-export type RunCreate = z.infer<typeof runCreateSchema>;
 
 export const scenarioDuplicateSchema = z.object({ name: z.string().trim().min(1).max(120) });

@@ -3,7 +3,6 @@ import type { ModelFile } from "../types";
 import { applyCondition } from "./conditions";
 import type { AllocationResult } from "./types";
 
-export { OWN_CONDITION, nameOwnCondition } from "./own-condition";
 
 /** Replace each discharger's effluent by its allocated CBODu load (same flow). Dischargers without an allocation (future ones) keep theirs. */
 export function withAllocatedLoads(file: ModelFile, allocation: Pick<AllocationResult, "allocations">): ModelFile {

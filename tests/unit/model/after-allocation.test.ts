@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { readPointCsv, readShapefileZip, validateImport } from "@/geo";
 import { DEMO_DISCHARGER_MAPPING, DEMO_REACH_MAPPING } from "@/db/seed/demo-gis";
-import { allocate, nameOwnCondition, runModel, runsAfterAllocation, withAllocatedLoads, type RunResult } from "@/lib/model";
+import { allocate, runModel, runsAfterAllocation, withAllocatedLoads, type RunResult } from "@/lib/model";
+import { nameOwnCondition } from "@/lib/model/allocation/own-condition";
 import { buildConditionFiles, buildModelFile, type NetworkForModel } from "@/lib/scenarios/build-model-file";
 import { scenarioInputsSchema } from "@/lib/validation/scenario";
 import { fixtureBytes, fixtureText } from "../geo/helpers";

@@ -10,7 +10,6 @@ const Q = "44444444-4444-4444-8444-444444444444";
 
 /** Every key a page of basin A (and one of basin B) may hold, by a name the tests use. */
 const cached = {
-  me: queryKeys.me(),
   basinList: queryKeys.basins.list(),
   basinA: queryKeys.basins.detail(A),
   membersA: queryKeys.basins.members(A),
