@@ -14,3 +14,4 @@ export * from "./temperature";
 export * from "./objectives";
 export * from "./statuses";
 export * from "./imports";
+export * from "./hydraulics";

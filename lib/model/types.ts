@@ -12,15 +12,26 @@ export interface HydraulicGeometry {
   f: number;
 }
 
+/** A prismatic channel for Manning's equation; the bed slope is the reach's `slope_m_m`. */
+export interface ManningInput {
+  /** Manning's roughness n, s/m^(1/3). */
+  n: number;
+  bottom_width_m: number;
+  /** Horizontal run per unit rise of each bank; default 0 (rectangular). */
+  side_slope?: number;
+}
+
 export interface ReachInput {
   id: string;
   /** Next reach downstream, or null for an outlet. */
   downstream: string | null;
   length_km: number;
-  /** Give velocity and depth, or hydraulic_geometry. */
+  /** Give velocity and depth, or hydraulic_geometry, or manning (with slope_m_m). */
   velocity_m_s?: number;
   depth_m?: number;
   hydraulic_geometry?: HydraulicGeometry;
+  /** Velocity (Q/A) and mean depth (A/T) from Manning's equation at normal depth for the reach's flow. */
+  manning?: ManningInput;
   kd20_per_day: number;
   ka20_per_day?: number;
   /** Default: "given" when ka20_per_day is present, else "depth-velocity". */
@@ -101,6 +112,10 @@ export interface ConditionInput {
   temperature_c?: number;
   /** Overrides per headwater, matched by reach id. */
   headwaters?: Array<{ reach: string; flow_m3_s?: number; temperature_c?: number; do_mg_l?: number }>;
+  /** Overrides per lateral inflow or tributary, matched by its id. */
+  inflows?: Array<{ id: string; flow_m3_s?: number; temperature_c?: number; do_mg_l?: number }>;
+  /** Effluent flows per discharger, matched by id (the allocation's loads stay the unknowns). */
+  dischargers?: Array<{ id: string; flow_m3_s: number }>;
 }
 
 export interface AllocationInput {

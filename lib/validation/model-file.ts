@@ -26,6 +26,12 @@ const hydraulicGeometrySchema = z.strictObject({
   f: finite("f"),
 });
 
+const manningSchema = z.strictObject({
+  n: positive("n"),
+  bottom_width_m: positive("bottom_width_m"),
+  side_slope: nonNegative("side_slope").optional(),
+});
+
 export const reachSchema = z
   .strictObject({
     id,
@@ -34,6 +40,7 @@ export const reachSchema = z
     velocity_m_s: positive("velocity_m_s").optional(),
     depth_m: positive("depth_m").optional(),
     hydraulic_geometry: hydraulicGeometrySchema.optional(),
+    manning: manningSchema.optional(),
     kd20_per_day: nonNegative("kd20_per_day"),
     ka20_per_day: positive("ka20_per_day").optional(),
     ka_method: kaMethodSchema.optional(),
@@ -51,12 +58,20 @@ export const reachSchema = z
   })
   .superRefine((r, ctx) => {
     const geometry = r.hydraulic_geometry !== undefined;
-    if (geometry && (r.velocity_m_s !== undefined || r.depth_m !== undefined)) {
-      ctx.addIssue({ code: "custom", path: ["hydraulic_geometry"], message: "give velocity_m_s and depth_m, or hydraulic_geometry, not both" });
+    const manning = r.manning !== undefined;
+    if (geometry && manning) {
+      ctx.addIssue({ code: "custom", path: ["manning"], message: "give hydraulic_geometry or manning, not both" });
     }
-    if (!geometry) {
-      if (r.velocity_m_s === undefined) ctx.addIssue({ code: "custom", path: ["velocity_m_s"], message: "velocity_m_s is required (or hydraulic_geometry)" });
-      if (r.depth_m === undefined) ctx.addIssue({ code: "custom", path: ["depth_m"], message: "depth_m is required (or hydraulic_geometry)" });
+    if ((geometry || manning) && (r.velocity_m_s !== undefined || r.depth_m !== undefined)) {
+      const rule = geometry ? "hydraulic_geometry" : "manning";
+      ctx.addIssue({ code: "custom", path: [rule], message: `give velocity_m_s and depth_m, or ${rule}, not both` });
+    }
+    if (manning && r.slope_m_m === undefined) {
+      ctx.addIssue({ code: "custom", path: ["slope_m_m"], message: "slope_m_m (the bed slope) is required with manning" });
+    }
+    if (!geometry && !manning) {
+      if (r.velocity_m_s === undefined) ctx.addIssue({ code: "custom", path: ["velocity_m_s"], message: "velocity_m_s is required (or hydraulic_geometry, or manning)" });
+      if (r.depth_m === undefined) ctx.addIssue({ code: "custom", path: ["depth_m"], message: "depth_m is required (or hydraulic_geometry, or manning)" });
     }
     const method = r.ka_method ?? (r.ka20_per_day !== undefined ? "given" : "depth-velocity");
     if (method === "given" && r.ka20_per_day === undefined) {
@@ -115,6 +130,17 @@ export const conditionSchema = z.strictObject({
       }),
     )
     .optional(),
+  inflows: z
+    .array(
+      z.strictObject({
+        id,
+        flow_m3_s: positive("flow_m3_s").optional(),
+        temperature_c: finite("temperature_c").optional(),
+        do_mg_l: nonNegative("do_mg_l").optional(),
+      }),
+    )
+    .optional(),
+  dischargers: z.array(z.strictObject({ id, flow_m3_s: positive("flow_m3_s") })).optional(),
 });
 
 export const allocationSchema = z

@@ -1,6 +1,8 @@
 import { DEFAULT_BOTTLE_K_PER_DAY, ultimateFromBodT } from "../bod";
 import { doSaturationAtElevation } from "../do-saturation";
 import { type FieldPath, ModelInputError, requireFinite, requireNonNegative, requirePositive } from "../errors";
+import type { HydraulicsRule } from "@/lib/domain";
+import { manningSection } from "../hydraulics";
 import { reaeration } from "../reaeration";
 import { DEFAULT_THETA, deoxygenationTheta, rateAtTemperature } from "../temperature";
 import type { ModelFile, ReachInput, WaterInput } from "../types";
@@ -78,17 +80,34 @@ function collectSources(file: ModelFile, index: Map<string, number>): PendingSou
   return out;
 }
 
-function reachHydraulics(r: ReachInput, q: number, path: FieldPath): { u: number; h: number } {
+/** Velocity and depth of a reach at flow q, and the rule that gave them (MODEL.md §3). */
+function reachHydraulics(r: ReachInput, q: number, path: FieldPath): { u: number; h: number; rule: HydraulicsRule } {
+  if (r.hydraulic_geometry && r.manning) throw new ModelInputError([...path, "manning"], "give hydraulic_geometry or manning, not both");
   if (r.hydraulic_geometry) {
     const g = r.hydraulic_geometry;
     const gp = [...path, "hydraulic_geometry"];
     const u = requirePositive(g.a, gp, "a") * Math.pow(q, requireFinite(g.b, gp, "b"));
     const h = requirePositive(g.c, gp, "c") * Math.pow(q, requireFinite(g.f, gp, "f"));
-    return { u: requirePositive(u, path, "velocity_m_s"), h: requirePositive(h, path, "depth_m") };
+    return { u: requirePositive(u, path, "velocity_m_s"), h: requirePositive(h, path, "depth_m"), rule: "hydraulic-geometry" };
   }
-  if (r.velocity_m_s === undefined) throw new ModelInputError([...path, "velocity_m_s"], "is required (or hydraulic_geometry)");
-  if (r.depth_m === undefined) throw new ModelInputError([...path, "depth_m"], "is required (or hydraulic_geometry)");
-  return { u: requirePositive(r.velocity_m_s, path, "velocity_m_s"), h: requirePositive(r.depth_m, path, "depth_m") };
+  if (r.manning) {
+    const m = r.manning;
+    const mp = [...path, "manning"];
+    if (r.slope_m_m === undefined) throw new ModelInputError([...path, "slope_m_m"], "(the bed slope) is required with manning");
+    const section = manningSection(
+      {
+        n: requirePositive(m.n, mp, "n"),
+        slope_m_m: requirePositive(r.slope_m_m, path, "slope_m_m"),
+        bottom_width_m: requirePositive(m.bottom_width_m, mp, "bottom_width_m"),
+        side_slope: requireNonNegative(m.side_slope ?? 0, mp, "side_slope"),
+      },
+      q,
+    );
+    return { u: section.velocity_m_s, h: section.mean_depth_m, rule: "manning" };
+  }
+  if (r.velocity_m_s === undefined) throw new ModelInputError([...path, "velocity_m_s"], "is required (or hydraulic_geometry, or manning)");
+  if (r.depth_m === undefined) throw new ModelInputError([...path, "depth_m"], "is required (or hydraulic_geometry, or manning)");
+  return { u: requirePositive(r.velocity_m_s, path, "velocity_m_s"), h: requirePositive(r.depth_m, path, "depth_m"), rule: "given" };
 }
 
 /**
@@ -188,7 +207,7 @@ export function compilePlan(file: ModelFile): Plan {
         cs = doSaturationAtElevation(T, elevation, salinity);
         csT = T;
       }
-      const { u, h } = reachHydraulics(r, q, path);
+      const { u, h, rule: hydraulics } = reachHydraulics(r, q, path);
       const formulaKa = withPrefix(path, () =>
         reaeration({ method, velocity_m_s: u, depth_m: h, ka20_per_day: r.ka20_per_day, slope_m_m: r.slope_m_m, flow_m3_s: q, floor: r.ka_floor ?? false }),
       );
@@ -208,6 +227,7 @@ export function compilePlan(file: ModelFile): Plan {
         cs_mg_l: cs,
         velocity_m_s: u,
         depth_m: h,
+        hydraulics,
         rates: {
           kd,
           kr: kd + ks,

@@ -1,5 +1,5 @@
 import type { SegmentRates } from "../segment";
-import type { DeoxygenationThetaRule, KaFormula } from "@/lib/domain";
+import type { DeoxygenationThetaRule, HydraulicsRule, KaFormula } from "@/lib/domain";
 
 /** Where an inflow of any kind mixes in. */
 export type SourceKind = "headwater" | "inflow" | "discharger";
@@ -36,6 +36,8 @@ export interface PlanSegment {
   cs_mg_l: number;
   velocity_m_s: number;
   depth_m: number;
+  /** The rule that gave velocity and depth at this segment's flow. */
+  hydraulics: HydraulicsRule;
   rates: SegmentRates;
   ka20_per_day: number;
   ka_formula: KaFormula;

@@ -1,5 +1,5 @@
 import type { ModelFile } from "../types";
-import type { DeoxygenationThetaRule, KaFormula } from "@/lib/domain";
+import type { DeoxygenationThetaRule, HydraulicsRule, KaFormula } from "@/lib/domain";
 import { compilePlan } from "./compile";
 import { evaluatePlan, type States } from "./evaluate";
 import type { Plan } from "./plan";
@@ -12,6 +12,8 @@ export interface SegmentReport {
   temperature_c: number;
   velocity_m_s: number;
   depth_m: number;
+  /** How velocity and depth were found at this segment's flow (given, hydraulic geometry, Manning). */
+  hydraulics: HydraulicsRule;
   kd_per_day: number;
   kr_per_day: number;
   ka_per_day: number;
@@ -83,6 +85,7 @@ export function reportRun(plan: Plan, states: States): RunResult {
       temperature_c: s.temperature_c,
       velocity_m_s: s.velocity_m_s,
       depth_m: s.depth_m,
+      hydraulics: s.hydraulics,
       kd_per_day: s.rates.kd,
       kr_per_day: s.rates.kr,
       ka_per_day: s.rates.ka,
