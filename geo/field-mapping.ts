@@ -39,6 +39,9 @@ export const reachMappingSchema = z.object({
   velocity: withUnit(VELOCITY_UNITS).optional(),
   depth: withUnit(DEPTH_UNITS).optional(),
   slope: plain.optional(),
+  manningN: plain.optional(),
+  bottomWidth: withUnit(DEPTH_UNITS).optional(),
+  sideSlope: plain.optional(),
   designFlow: withUnit(FLOW_UNITS).optional(),
   temperature: withUnit(TEMPERATURE_UNITS).optional(),
   elevation: withUnit(DEPTH_UNITS).optional(),
@@ -72,6 +75,11 @@ export interface ReachAttributes {
   velocityMps?: number;
   depthM?: number;
   slope?: number;
+  /** Manning's roughness n (s/m^(1/3)); with bottomWidthM and slope, velocity and depth follow the flow. */
+  manningN?: number;
+  bottomWidthM?: number;
+  /** Bank slope, horizontal per vertical (0 = rectangular). */
+  sideSlope?: number;
   designFlowM3s?: number;
   temperatureC?: number;
   elevationM?: number;
@@ -115,6 +123,9 @@ const REACH_NUMBERS: NumericRule<ReachMapping, ReachAttributes>[] = [
   { target: "velocityMps", key: "velocity", label: "velocity", convert: (v, b) => velocityToMps(v, b.unit as VelocityUnit) },
   { target: "depthM", key: "depth", label: "depth", convert: (v, b) => depthToM(v, b.unit as DepthUnit) },
   { target: "slope", key: "slope", label: "slope", convert: same },
+  { target: "manningN", key: "manningN", label: "Manning's n", convert: same },
+  { target: "bottomWidthM", key: "bottomWidth", label: "bottom width", convert: (v, b) => depthToM(v, b.unit as DepthUnit) },
+  { target: "sideSlope", key: "sideSlope", label: "side slope", convert: same },
   { target: "designFlowM3s", key: "designFlow", label: "design flow", convert: (v, b) => flowToM3s(v, b.unit as FlowUnit) },
   { target: "temperatureC", key: "temperature", label: "temperature", convert: (v, b) => temperatureToC(v, b.unit as TemperatureUnit), signed: true },
   { target: "elevationM", key: "elevation", label: "elevation", convert: (v, b) => depthToM(v, b.unit as DepthUnit), signed: true },

@@ -95,6 +95,10 @@ export function reachColumns(system: UnitSystem, save?: SaveField) {
     { id: "flow", header: `Design flow (${unitLabel("flow", system)})`, value: (r) => attr(r, "designFlowM3s"), kind: "flow", edit: "designFlowM3s" },
     { id: "velocity", header: `Velocity (${unitLabel("velocity", system)})`, value: (r) => attr(r, "velocityMps"), kind: "velocity", edit: "velocityMps" },
     { id: "depth", header: `Depth (${unitLabel("depth", system)})`, value: (r) => attr(r, "depthM"), kind: "depth", edit: "depthM" },
+    { id: "slope", header: "Slope (m/m)", value: (r) => attr(r, "slope"), digits: 5, edit: "slope" },
+    { id: "manning", header: "Manning's n", value: (r) => attr(r, "manningN"), digits: 3, edit: "manningN" },
+    { id: "width", header: `Bottom width (${unitLabel("depth", system)})`, value: (r) => attr(r, "bottomWidthM"), kind: "depth", edit: "bottomWidthM" },
+    { id: "side", header: "Side slope (H:V)", value: (r) => attr(r, "sideSlope"), digits: 2, edit: "sideSlope" },
     {
       id: "temperature",
       header: `Temperature (${unitLabel("temperature", system)})`,

@@ -1,7 +1,7 @@
 "use client";
 import { useMemo } from "react";
 import { SortableTable } from "@/components/tables/sortable-table";
-import type { UnitSystem } from "@/lib/domain";
+import { HYDRAULICS_RULE_SHORT, type UnitSystem } from "@/lib/domain";
 import { nameOf, REAERATION_NAMES } from "@/lib/format/labels";
 import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import type { RunResult } from "@/lib/model/network/run";
@@ -10,6 +10,8 @@ import { column, DoCell } from "./columns";
 
 /** "O'Connor–Dobbins, Owens–Edwards–Gibbs (raised to the 0.6/H floor)": the formulas that gave k_a, by name. */
 export const kaMethodText = (r: ReachRow) => `${r.ka_methods.map((m) => nameOf(REAERATION_NAMES, m)).join(", ")}${r.ka_floored ? " (raised to the 0.6/H floor)" : ""}`;
+
+const hydraulicsText = (r: ReachRow) => r.hydraulics.map((h) => HYDRAULICS_RULE_SHORT[h]).join(", ");
 
 /** Per-reach results: minimum DO and where, travel time, k_a and the method that gave it. */
 export function ReachResultsTable({
@@ -51,8 +53,12 @@ export function ReachResultsTable({
         },
       }),
       column<ReachRow>("method", "Reaeration formula", (r) => kaMethodText(r), { show: (r) => kaMethodText(r) }),
+      // only when some reach's velocity and depth follow its flow; otherwise every reach's are as given
+      ...(rows.some((r) => r.hydraulics.some((h) => h !== "given"))
+        ? [column<ReachRow>("hydraulics", "Velocity and depth", (r) => hydraulicsText(r), { show: (r) => hydraulicsText(r) })]
+        : []),
     ],
-    [len, unitSystem, run.criterion_do_mg_l, reachNames],
+    [len, unitSystem, run.criterion_do_mg_l, reachNames, rows],
   );
   return (
     <SortableTable

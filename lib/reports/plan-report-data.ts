@@ -1,5 +1,5 @@
 import type { FeatureCollection } from "geojson";
-import type { UnitSystem } from "@/lib/domain";
+import { HYDRAULICS_RULE_NAMES, type HydraulicsRule, type UnitSystem } from "@/lib/domain";
 import { formatIn, formatNumber, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { RunResult } from "@/lib/model/network/run";
@@ -188,6 +188,13 @@ function tmdlTable(allocation: AllocationResult, system: UnitSystem): ReportTabl
   };
 }
 
+/** "Manning's equation at normal depth (3 reaches); velocity and depth as given (5 reaches)": how each reach's U and H were found. */
+function hydraulicsText(run: RunResult): string {
+  const count = new Map<HydraulicsRule, number>();
+  for (const r of run.reaches) for (const h of new Set(r.segments.map((g) => g.hydraulics ?? "given"))) count.set(h, (count.get(h) ?? 0) + 1);
+  return [...count.entries()].map(([h, n]) => `${HYDRAULICS_RULE_NAMES[h]} (${n} reach${n === 1 ? "" : "es"})`).join("; ") || "—";
+}
+
 function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, system: UnitSystem, governing: string, zone: string): PlanReport["methods"] {
   const utcMinute = minuteIn(zone);
   const i = s.scenario.inputs;
@@ -225,6 +232,7 @@ function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, 
         { label: "Deoxygenation k_d", value: `${formatNumber("rate", k.kd20PerDay)} 1/d` },
         { label: "Reaeration method", value: `${nameOf(REAERATION_NAMES, k.kaMethod)}${k.kaFloor ? ", with a minimum rate" : ""}` },
         { label: "Reaeration formulas used", value: usedText || "—" },
+        { label: "Velocity and depth", value: hydraulicsText(run) },
         { label: "Settling k_s", value: `${formatNumber("rate", k.ks20PerDay)} 1/d` },
         { label: "Sediment oxygen demand", value: `${num(k.sod20GPerM2Day, 2)} g/m²/d` },
         { label: "Nitrogenous k_n", value: `${formatNumber("rate", k.kn20PerDay)} 1/d` },

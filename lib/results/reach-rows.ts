@@ -1,6 +1,7 @@
 import { isBelowCriterion } from "./do-scale";
 import type { KaFormula } from "@/lib/model/reaeration";
 import type { RunResult } from "@/lib/model/network/run";
+import type { HydraulicsRule } from "@/lib/domain";
 
 /** One row of the per-reach results table. */
 export interface ReachRow {
@@ -20,6 +21,8 @@ export interface ReachRow {
   /** The formulas that gave k_a, in segment order without repeats. */
   ka_methods: KaFormula[];
   ka_floored: boolean;
+  /** How velocity and depth were found at the flow, in segment order without repeats (runs before the rule was recorded: given). */
+  hydraulics: HydraulicsRule[];
 }
 
 /** Per-reach summary of a run, in the run's reach order. */
@@ -40,6 +43,7 @@ export function reachRows(run: RunResult): ReachRow[] {
       ka_max_per_day: Math.max(...ka),
       ka_methods: [...new Set(r.segments.map((s) => s.ka_method))],
       ka_floored: r.segments.some((s) => s.ka_floored),
+      hydraulics: [...new Set(r.segments.map((s) => s.hydraulics ?? "given"))],
     };
   });
 }

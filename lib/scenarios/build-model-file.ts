@@ -79,15 +79,39 @@ export function flowIncrements(network: NetworkForModel, condition: ConditionInp
   return out;
 }
 
+/**
+ * Where a reach's velocity and depth come from: a Manning channel (n, bottom width, the
+ * reach's slope; side slope optional) makes them follow each condition's flow (MODEL.md §5);
+ * otherwise the velocity and depth entered at design flow are used at every flow.
+ */
+function reachHydraulics(r: NetworkForModel["reaches"][number]): Pick<ReachInput, "velocity_m_s" | "depth_m" | "manning"> {
+  const a = r.attributes;
+  const n = num(a.manningN);
+  const width = num(a.bottomWidthM);
+  if (n !== undefined || width !== undefined) {
+    const missing = [n === undefined && "Manning's n", width === undefined && "a bottom width", num(a.slope) === undefined && "a slope"].filter(Boolean);
+    if (missing.length) {
+      throw new ScenarioInputError(`network.reaches.${r.id}`, `Reach ${r.id} has part of a Manning channel: add ${missing.join(" and ")} in the network table, or clear it`);
+    }
+    const side = num(a.sideSlope);
+    return { manning: { n: n!, bottom_width_m: width!, ...(side !== undefined ? { side_slope: side } : {}) } };
+  }
+  const velocity = num(a.velocityMps);
+  const depth = num(a.depthM);
+  if (velocity === undefined || depth === undefined) {
+    throw new ScenarioInputError(
+      `network.reaches.${r.id}`,
+      `Reach ${r.id} needs a velocity and a depth at design flow, or a Manning channel (n, bottom width, slope); add them in the network table`,
+    );
+  }
+  return { velocity_m_s: velocity, depth_m: depth };
+}
+
 function reachInput(r: NetworkForModel["reaches"][number], inputs: ScenarioInputs, condition: ConditionInputs): ReachInput {
   const a = r.attributes;
   const o = inputs.reachOverrides[r.id] ?? {};
   const k = inputs.kinetics;
-  const velocity = num(a.velocityMps);
-  const depth = num(a.depthM);
-  if (velocity === undefined || depth === undefined) {
-    throw new ScenarioInputError(`network.reaches.${r.id}`, `Reach ${r.id} needs a velocity and a depth at design flow; add them in the network table`);
-  }
+  const hydraulics = reachHydraulics(r);
   const givenKa = o.ka20PerDay ?? (o.kaMethod == null ? num(a.reaerationRatePerDay) : undefined);
   const method = givenKa !== undefined ? "given" : (o.kaMethod ?? k.kaMethod);
   if (method === "given" && givenKa === undefined) {
@@ -98,8 +122,7 @@ function reachInput(r: NetworkForModel["reaches"][number], inputs: ScenarioInput
     id: r.id,
     downstream: r.downstreamId,
     length_km: r.lengthKm,
-    velocity_m_s: velocity,
-    depth_m: depth,
+    ...hydraulics,
     kd20_per_day: o.kd20PerDay ?? num(a.deoxygenationRatePerDay) ?? k.kd20PerDay,
     ...(givenKa !== undefined ? { ka20_per_day: givenKa } : {}),
     ka_method: method,

@@ -35,6 +35,20 @@ describe("mapReaches", () => {
     ]);
   });
 
+  it("maps a Manning channel: n and side slope as they are, the bottom width in the chosen unit", () => {
+    const layer = readGeoJson(
+      JSON.stringify({
+        type: "FeatureCollection",
+        features: [{ type: "Feature", properties: { ID: "R1", MANN_N: 0.035, BWIDTH_FT: 25, SIDE: 2 }, geometry: null }],
+      }),
+    );
+    const { reaches, problems } = mapReaches(layer, { reachId: "ID", manningN: { source: "MANN_N" }, bottomWidth: { source: "BWIDTH_FT", unit: "ft" }, sideSlope: { source: "SIDE" } });
+    expect(problems).toEqual([]);
+    // 25 ft × 0.3048 m/ft (exact) = 7.62 m
+    expect(reaches[0].attributes).toMatchObject({ manningN: 0.035, sideSlope: 2 });
+    expect(reaches[0].attributes.bottomWidthM).toBeCloseTo(7.62, 12);
+  });
+
   it("refuses a mapping naming a field the file lacks, or a bad unit", () => {
     expect(() => mapReaches(REACHES, { reachId: "REACH" })).toThrow(expect.objectContaining({ code: "mapping_invalid", message: expect.stringContaining('"REACH"') }));
     const bad = { reachId: "ID", designFlow: { source: "Q", unit: "gpm" } } as unknown as Parameters<typeof mapReaches>[1];

@@ -111,6 +111,28 @@ describe("model file from a scenario and a network version", () => {
     }
   });
 
+  it("a reach with a Manning channel gets its velocity and depth from each condition's flow; part of one is refused, naming what is missing", async () => {
+    const net = await demoNetwork();
+    const target = net.reaches.find((r) => r.attributes.slope !== undefined)!;
+    target.attributes = { ...target.attributes, manningN: 0.035, bottomWidthM: 6, sideSlope: 1.5 };
+    const files = buildConditionFiles(net, inputs({ conditions: [{ name: "design" }, { name: "half", flowScale: 0.5 }] }), 5);
+    const reach = files[0].file.reaches.find((r) => r.id === target.id)!;
+    expect(reach.manning).toEqual({ n: 0.035, bottom_width_m: 6, side_slope: 1.5 });
+    expect(reach.velocity_m_s).toBeUndefined();
+    expect(parseModelFile(files[0].file).ok).toBe(true);
+    const seg = (i: number) => runModel(files[i].file).reaches.find((r) => r.id === target.id)!.segments[0];
+    expect(seg(0).hydraulics).toBe("manning");
+    expect(seg(1).velocity_m_s).toBeLessThan(seg(0).velocity_m_s);
+    expect(seg(1).depth_m).toBeLessThan(seg(0).depth_m);
+    // the other reaches keep the velocity and depth entered at design flow
+    const other = net.reaches.find((r) => r.id !== target.id)!;
+    expect(runModel(files[1].file).reaches.find((r) => r.id === other.id)!.segments[0].velocity_m_s).toBe(other.attributes.velocityMps);
+
+    const partial = await demoNetwork();
+    partial.reaches[1].attributes = { ...partial.reaches[1].attributes, manningN: 0.03, slope: undefined };
+    expect(() => buildModelFile(partial, inputs(), 5, false)).toThrow(new RegExp(`Reach ${partial.reaches[1].id} has part of a Manning channel: add a bottom width and a slope`));
+  });
+
   it("gives one single-condition file per condition for model runs", async () => {
     const net = await demoNetwork();
     const files = buildConditionFiles(net, inputs({ conditions: [{ name: "a" }, { name: "b", flowScale: 2 }] }), 5);
