@@ -92,6 +92,29 @@ export interface ImportsTable {
   uploaded_at: CreatedAt;
 }
 
+/** A gauge's daily flow record and the low-flow statistics computed from it at upload. */
+export interface GaugeRecordsTable {
+  id: Generated<string>;
+  basin_id: string;
+  name: string;
+  station_code: string | null;
+  /** Where on the network the gauge stands (a reach id), when the planner says. */
+  reach_key: string | null;
+  unit: "m3/s" | "cfs";
+  climatic_year_start: string;
+  file_name: string;
+  size_bytes: number;
+  sha256: string;
+  content: Buffer;
+  first_day: ColumnType<string, string, string>;
+  last_day: ColumnType<string, string, string>;
+  day_count: number;
+  missing_days: number;
+  statistics: Json<unknown>;
+  uploaded_by: string | null;
+  uploaded_at: CreatedAt;
+}
+
 export interface FieldMappingsTable {
   id: Generated<string>;
   basin_id: string;
@@ -334,6 +357,7 @@ export interface Database {
   account_tokens: AccountTokensTable;
   invitations: InvitationsTable;
   basin_follows: BasinFollowsTable;
+  gauge_records: GaugeRecordsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

@@ -12,6 +12,7 @@ import * as m2026120206 from "./2026120206_review_rules";
 import * as m2026120301 from "./2026120301_publication_acknowledgement";
 import * as m2026120302 from "./2026120302_plan_lineage";
 import * as m2026120303 from "./2026120303_basin_time_zone";
+import * as m2026120401 from "./2026120401_gauge_records";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -32,6 +33,7 @@ export const migrations: Record<string, Migration> = {
   "2026120301_publication_acknowledgement": m2026120301,
   "2026120302_plan_lineage": m2026120302,
   "2026120303_basin_time_zone": m2026120303,
+  "2026120401_gauge_records": m2026120401,
 };
 
 export const migrationProvider: MigrationProvider = {

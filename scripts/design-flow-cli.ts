@@ -11,9 +11,10 @@
 import { readFileSync } from "node:fs";
 import { parseArgs } from "node:util";
 import { z } from "zod";
-import { DEFAULT_CLIMATIC_YEAR_START, lowFlowStatistics } from "@/lib/hydrology/low-flow";
+import { lowFlowStatistics } from "@/lib/hydrology/low-flow";
 import { flowUnitSchema, readDailyRecord, RecordError } from "@/lib/hydrology/read-record";
 import { formatPath } from "@/lib/model/errors";
+import { climaticYearStartSchema } from "@/lib/validation/gauges";
 
 function fail(lines: string[]): never {
   for (const l of lines) process.stderr.write(`${l}\n`);
@@ -26,11 +27,8 @@ const USAGE = "usage: npm run design-flow -- RECORD [--unit m3/s|cfs] [--climati
 export const designFlowArgsSchema = z.object({
   record: z.string({ message: "give the record file" }).min(1, "give the record file"),
   unit: flowUnitSchema.default("m3/s"),
-  climaticYearStart: z
-    .string()
-    .regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, "--climatic-year-start must be MM-DD, e.g. 04-01")
-    .refine((s) => s !== "02-29", "--climatic-year-start cannot be 29 February")
-    .default(DEFAULT_CLIMATIC_YEAR_START),
+  // the same rule as the app's upload (lib/validation/gauges.ts)
+  climaticYearStart: climaticYearStartSchema,
 });
 
 let parsed;
@@ -40,7 +38,9 @@ try {
   fail([(e as Error).message, USAGE]);
 }
 const args = designFlowArgsSchema.safeParse({ record: parsed.positionals[0], unit: parsed.values.unit, climaticYearStart: parsed.values["climatic-year-start"] });
-if (!args.success) fail([...args.error.issues.map((i) => `${formatPath(i.path, "arguments")}: ${i.message}`), USAGE]);
+// each issue named by the flag that gave the value
+const FLAGS: Record<string, string> = { record: "record", unit: "--unit", climaticYearStart: "--climatic-year-start" };
+if (!args.success) fail([...args.error.issues.map((i) => `${FLAGS[String(i.path[0])] ?? formatPath(i.path, "arguments")}: ${i.message}`), USAGE]);
 const { record, unit, climaticYearStart } = args.data;
 
 let text: string;

@@ -18,3 +18,4 @@ export const scenarioParams = basinParams.extend({ scenarioId: id("scenarioId") 
 export const runParams = basinParams.extend({ runId: id("runId") });
 export const planParams = basinParams.extend({ planId: id("planId") });
 export const threadParams = basinParams.extend({ threadId: id("threadId") });
+export const gaugeParams = basinParams.extend({ gaugeId: id("gaugeId") });

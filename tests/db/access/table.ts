@@ -2,6 +2,7 @@ import { readdirSync, statSync } from "node:fs";
 import { join, relative } from "node:path";
 import { fileURLToPath } from "node:url";
 import { commitDemo, demoForm } from "../../support/demo-network";
+import { gaugeForm, uploadDemoGauge } from "../../support/gauge-record";
 import { DEMO_DISCHARGER_MAPPING } from "@/db/seed/demo-gis";
 import {
   SCENARIO,
@@ -135,6 +136,23 @@ const CORE: Record<string, Entry> = {
     methods: {
       GET: { expect: planners(200), params: basin },
       POST: { expect: planners(201), params: basin, body: () => demoForm("reachesGeoJson", "reaches") },
+    },
+  },
+  "app/api/basins/[basinId]/gauges/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/gauges/route"),
+    methods: {
+      GET: { expect: planners(200), params: basin },
+      POST: { expect: planners(201), params: basin, body: () => gaugeForm() },
+    },
+  },
+  "app/api/basins/[basinId]/gauges/[gaugeId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/gauges/[gaugeId]/route"),
+    methods: {
+      GET: {
+        expect: planners(200),
+        prepare: async (w) => ({ gaugeId: (await uploadDemoGauge(matrix.db, w.users.planner, w.basinId)).id }),
+        params: (w, p) => ({ basinId: w.basinId, gaugeId: p.gaugeId }),
+      },
     },
   },
   "app/api/basins/[basinId]/imports/[importId]/file/route.ts": {

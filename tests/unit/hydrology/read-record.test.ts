@@ -79,7 +79,7 @@ describe("npm run design-flow", () => {
     const unit = cli([file, "--unit", "gallons"]);
     expect(unit.code).toBe(2);
     expect(unit.err).toMatch(/unit: unit must be "m3\/s" or "cfs"/);
-    expect(cli([file, "--climatic-year-start", "4/1"]).err).toMatch(/--climatic-year-start must be MM-DD/);
+    expect(cli([file, "--climatic-year-start", "4/1"]).err).toMatch(/--climatic-year-start: climatic year start must be MM-DD/);
     expect(cli([]).err).toMatch(/record: give the record file/);
     const missing = cli([join(dir, "nope.csv")]);
     expect(missing.code).toBe(2);

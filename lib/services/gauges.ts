@@ -1,0 +1,146 @@
+import { createHash } from "node:crypto";
+import { insertAuditEvent } from "@/db/queries/audit";
+import { findGaugeRecord, insertGaugeRecord, listGaugeRecords as listGaugeRows } from "@/db/queries/gauges";
+import { findReach, latestNetworkId } from "@/db/queries/networks";
+import type { BasinScope } from "@/lib/auth/scope";
+import { AppError, notFound } from "@/lib/errors";
+import { lowFlowStatistics, type DesignFlowResult, type LowFlowReport } from "@/lib/hydrology/low-flow";
+import { readDailyRecord, RecordError } from "@/lib/hydrology/read-record";
+import type { GaugeUpload } from "@/lib/validation/gauges";
+
+/** The most bytes a daily record may have: 200 years of daily rdb text is under 10 MB. */
+export const GAUGE_RECORD_MAX_BYTES = 10 * 1024 * 1024;
+
+export interface GaugeSummaryDto {
+  id: string;
+  name: string;
+  stationCode: string | null;
+  reachId: string | null;
+  /** The unit the file was read in; every flow Sagline reports from it is in m³/s. */
+  unit: "m3/s" | "cfs";
+  climaticYearStart: string;
+  fileName: string;
+  sizeBytes: number;
+  sha256: string;
+  firstDay: string;
+  lastDay: string;
+  dayCount: number;
+  missingDays: number;
+  uploadedAt: string;
+  uploadedBy: string | null;
+  designFlows: DesignFlowResult[];
+}
+
+export interface GaugeDto extends GaugeSummaryDto {
+  /** Everything the statistics were computed from and with (lib/hydrology/low-flow.ts). */
+  statistics: LowFlowReport;
+}
+
+type SummaryRow = Awaited<ReturnType<typeof listGaugeRows>>[number];
+
+function summaryDto(r: Omit<SummaryRow, "design_flows">, designFlows: DesignFlowResult[]): GaugeSummaryDto {
+  return {
+    id: r.id,
+    name: r.name,
+    stationCode: r.station_code,
+    reachId: r.reach_key,
+    unit: r.unit,
+    climaticYearStart: r.climatic_year_start,
+    fileName: r.file_name,
+    sizeBytes: r.size_bytes,
+    sha256: r.sha256,
+    firstDay: r.first_day,
+    lastDay: r.last_day,
+    dayCount: r.day_count,
+    missingDays: r.missing_days,
+    uploadedAt: r.uploaded_at.toISOString(),
+    uploadedBy: r.uploaded_by_name,
+    designFlows,
+  };
+}
+
+const fileProblem = (message: string) => new AppError("invalid", message, [{ path: "file", message }]);
+
+/**
+ * A gauge's daily flow record: the file is read (CSV `date,flow` or rdb text, in the unit the
+ * planner chose), its low-flow statistics computed (n-day minima by climatic year, log-Pearson
+ * Type III) and both kept with who uploaded it, when, and the file's SHA-256. Nothing is saved
+ * when the file cannot be read; the error names the line at fault.
+ */
+export async function uploadGaugeRecord(scope: BasinScope, file: { name: string; bytes: Buffer }, fields: GaugeUpload): Promise<GaugeDto> {
+  scope.require("network.import");
+  const { db, actor, basin } = scope;
+  if (file.bytes.byteLength > GAUGE_RECORD_MAX_BYTES) {
+    throw new AppError("too_large", `${file.name} is larger than the ${GAUGE_RECORD_MAX_BYTES / 1048576} MB limit for a daily record`, [{ path: "file", message: "File too large" }]);
+  }
+  if (file.bytes.byteLength === 0) throw fileProblem(`${file.name} is empty`);
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(file.bytes);
+  } catch {
+    throw fileProblem(`${file.name} is not UTF-8 text: upload the record as CSV (date,flow) or rdb text`);
+  }
+  let report: LowFlowReport;
+  let days: ReturnType<typeof readDailyRecord>;
+  try {
+    days = readDailyRecord(text, fields.unit);
+    if (days.length === 0) throw new RecordError(null, "the record has no days");
+    report = lowFlowStatistics(days, { climaticYearStart: fields.climaticYearStart });
+  } catch (e) {
+    if (e instanceof RecordError || e instanceof RangeError) throw fileProblem(`${file.name}: ${e.message}`);
+    throw e;
+  }
+  if (fields.reachId !== undefined) {
+    const networkId = await latestNetworkId(db, basin.id);
+    if (!networkId || !(await findReach(db, networkId, fields.reachId))) {
+      throw new AppError("invalid", `There is no reach "${fields.reachId}" in the basin's newest network`, [{ path: "reachId", message: "Unknown reach" }]);
+    }
+  }
+  const sorted = days.map((d) => d.date).sort();
+  const sha256 = createHash("sha256").update(file.bytes).digest("hex");
+  return db.transaction().execute(async (trx) => {
+    const { id } = await insertGaugeRecord(trx, {
+      basin_id: basin.id,
+      name: fields.name,
+      station_code: fields.stationCode ?? null,
+      reach_key: fields.reachId ?? null,
+      unit: fields.unit,
+      climatic_year_start: fields.climaticYearStart,
+      file_name: file.name,
+      size_bytes: file.bytes.byteLength,
+      sha256,
+      content: file.bytes,
+      first_day: sorted[0],
+      last_day: sorted[sorted.length - 1],
+      day_count: days.length,
+      missing_days: days.filter((d) => d.flow === null).length,
+      statistics: JSON.stringify(report),
+      uploaded_by: actor.id,
+    });
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor.id,
+      action: "gauge.uploaded",
+      targetType: "gauge",
+      targetId: id,
+      details: { name: fields.name, fileName: file.name, sha256, yearsUsed: report.years_used },
+    });
+    const row = await findGaugeRecord(trx, basin.id, id);
+    const { statistics, ...rest } = row!;
+    return { ...summaryDto(rest, report.statistics), statistics: statistics as LowFlowReport };
+  });
+}
+
+export async function listGaugeRecords(scope: BasinScope): Promise<GaugeSummaryDto[]> {
+  scope.require("scenario.read");
+  return (await listGaugeRows(scope.db, scope.basin.id)).map(({ design_flows, ...r }) => summaryDto(r, design_flows as DesignFlowResult[]));
+}
+
+export async function getGaugeRecord(scope: BasinScope, gaugeId: string): Promise<GaugeDto> {
+  scope.require("scenario.read");
+  const row = await findGaugeRecord(scope.db, scope.basin.id, gaugeId);
+  if (!row) throw notFound("Gauge record");
+  const { statistics, ...rest } = row;
+  const report = statistics as LowFlowReport;
+  return { ...summaryDto(rest, report.statistics), statistics: report };
+}

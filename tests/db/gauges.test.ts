@@ -1,0 +1,121 @@
+import { spawnSync } from "node:child_process";
+import { beforeAll, describe, expect, it } from "vitest";
+import * as gaugeRoute from "@/app/api/basins/[basinId]/gauges/[gaugeId]/route";
+import * as gaugesRoute from "@/app/api/basins/[basinId]/gauges/route";
+import type { GaugeDto, GaugeSummaryDto } from "@/lib/services/gauges";
+import { callRoute } from "../support/call-route";
+import { commitDemo } from "../support/demo-network";
+import { err } from "../support/errors";
+import { fileDb } from "../support/file-db";
+import { DEMO_GAUGE_FILE, demoGaugeBytes, gaugeForm } from "../support/gauge-record";
+import { buildWorld, type World } from "../support/world";
+
+/**
+ * A gauge's daily flow record uploaded into a basin: read, its low-flow statistics computed
+ * and kept with the file. The statistics are the design-flow command's (same reader, same
+ * computation, same numbers); their science is tested against published tables in
+ * tests/reference and tests/unit/hydrology.
+ */
+const db = fileDb();
+let w: World;
+beforeAll(async () => {
+  w = await buildWorld(db);
+  await commitDemo(db, w.users.planner, w.basinId);
+});
+
+const upload = (form: FormData, userId = w.users.planner.id) => callRoute(gaugesRoute.POST, "POST", { userId, params: { basinId: w.basinId }, body: form });
+const count = async () => Number((await db.selectFrom("gauge_records").select((e) => e.fn.countAll<string>().as("n")).where("basin_id", "=", w.basinId).executeTakeFirstOrThrow()).n);
+
+describe("a gauge's daily flow record", () => {
+  let first: GaugeDto;
+
+  it("is read, its design flows computed as the design-flow command computes them, and kept with the file's checksum and who uploaded it", async () => {
+    const res = await upload(gaugeForm({ stationCode: "TQ-01", reachId: "TR-04" }));
+    expect(res.status, JSON.stringify(res.json)).toBe(201);
+    first = res.json as GaugeDto;
+    expect(first).toMatchObject({ name: "Quillford gauge", stationCode: "TQ-01", reachId: "TR-04", unit: "m3/s", climaticYearStart: "04-01", uploadedBy: w.users.planner.name });
+    expect(first.sha256).toMatch(/^[0-9a-f]{64}$/);
+    expect(first.firstDay).toBe("1994-04-01");
+    expect(first.dayCount).toBeGreaterThan(365 * 29);
+    const cli = spawnSync(process.execPath, ["--import", "tsx", "scripts/design-flow-cli.ts", DEMO_GAUGE_FILE], { encoding: "utf8" });
+    expect(cli.status, cli.stderr).toBe(0);
+    const printed = JSON.parse(cli.stdout) as { years_used: number; statistics: { name: string; value: number | null; empirical: number | null }[] };
+    expect(first.statistics.years_used).toBe(printed.years_used);
+    for (const s of printed.statistics) {
+      const mine = first.designFlows.find((d) => d.name === s.name)!;
+      expect(mine.value).toBe(s.value);
+      expect(mine.empirical).toBe(s.empirical);
+    }
+    expect(first.statistics.annual_minima["7"].length).toBe(first.statistics.years_used);
+    const audit = await db.selectFrom("audit_events").select(["action", "details"]).where("target_id", "=", first.id).executeTakeFirstOrThrow();
+    expect(audit.action).toBe("gauge.uploaded");
+    // the original bytes are kept
+    const kept = await db.selectFrom("gauge_records").select("content").where("id", "=", first.id).executeTakeFirstOrThrow();
+    expect(Buffer.compare(kept.content, demoGaugeBytes())).toBe(0);
+  });
+
+  it("read in cfs, every design flow is the same multiple of the m³/s one (log-Pearson III quantiles scale with the data: exact)", async () => {
+    const res = await upload(gaugeForm({ name: "Quillford gauge, read as cfs", unit: "cfs" }));
+    expect(res.status).toBe(201);
+    const cfs = res.json as GaugeDto;
+    const CFS = 0.028316846592; // m³/s per ft³/s (exact: 0.3048³)
+    for (const d of cfs.designFlows) {
+      const m3 = first.designFlows.find((x) => x.name === d.name)!;
+      expect(d.value! / m3.value!).toBeCloseTo(CFS, 12);
+    }
+  });
+
+  it("is listed newest first with its design flows, and read back whole", async () => {
+    const list = (await callRoute(gaugesRoute.GET, "GET", { userId: w.users.lead.id, params: { basinId: w.basinId } })).json as GaugeSummaryDto[];
+    expect(list.map((g) => g.name)).toEqual(["Quillford gauge, read as cfs", "Quillford gauge"]);
+    expect(list[1].designFlows.map((d) => d.name)).toEqual(first.designFlows.map((d) => d.name));
+    const one = await callRoute(gaugeRoute.GET, "GET", { userId: w.users.lead.id, params: { basinId: w.basinId, gaugeId: first.id } });
+    expect(one.status).toBe(200);
+    expect(one.json).toEqual(first);
+    const other = await callRoute(gaugeRoute.GET, "GET", { userId: w.users.lead.id, params: { basinId: w.basinId, gaugeId: "00000000-0000-4000-8000-000000000000" } });
+    expect(other.status).toBe(404);
+  });
+
+  it("a file it cannot read is refused naming the line, and nothing is saved", async () => {
+    const before = await count();
+    const bad = await upload(gaugeForm({}, Buffer.from("date,flow\n2020-04-01,1.5\n2020-04-02,lots\n"), "bad.csv"));
+    expect(bad.status).toBe(422);
+    expect(err(bad.json).message).toMatch(/bad\.csv: line 3: flow "lots" is not a number/);
+    expect(err(bad.json).details?.[0]?.path).toBe("file");
+    const binary = await upload(gaugeForm({}, Buffer.from([0xff, 0xfe, 0x00, 0x41]), "record.bin"));
+    expect(binary.status).toBe(422);
+    expect(err(binary.json).message).toMatch(/not UTF-8 text/);
+    const empty = await upload(gaugeForm({}, Buffer.alloc(0), "empty.csv"));
+    expect(empty.status).toBe(422);
+    expect(await count()).toBe(before);
+  });
+
+  it("bad form fields are refused naming the field: an unknown reach, a unit, a climatic year start, a missing name", async () => {
+    const before = await count();
+    const reach = await upload(gaugeForm({ reachId: "XX-99" }));
+    expect(reach.status).toBe(422);
+    expect(err(reach.json).details?.[0]?.path).toBe("reachId");
+    const unit = await upload(gaugeForm({ unit: "gallons" }));
+    expect(unit.status).toBe(422);
+    expect(JSON.stringify(unit.json)).toMatch(/unit/);
+    const start = await upload(gaugeForm({ climaticYearStart: "02-29" }));
+    expect(start.status).toBe(422);
+    expect(JSON.stringify(start.json)).toMatch(/climaticYearStart/);
+    const form = gaugeForm();
+    form.delete("name");
+    const nameless = await upload(form);
+    expect(nameless.status).toBe(422);
+    expect(JSON.stringify(nameless.json)).toMatch(/name/);
+    expect(await count()).toBe(before);
+  });
+
+  it("a short record is kept with the warning that says so", async () => {
+    const lines = ["date,flow"];
+    for (let d = Date.UTC(2019, 3, 1); d < Date.UTC(2022, 3, 1); d += 86_400_000) lines.push(`${new Date(d).toISOString().slice(0, 10)},${(2 + Math.sin(d / 3e9)).toFixed(3)}`);
+    const res = await upload(gaugeForm({ name: "Short record" }, Buffer.from(lines.join("\n")), "short.csv"));
+    expect(res.status).toBe(201);
+    const g = res.json as GaugeDto;
+    expect(g.statistics.years_used).toBe(3);
+    expect(g.statistics.warnings.join("\n")).toMatch(/Only 3 complete climatic years/);
+  });
+});
