@@ -114,6 +114,11 @@ export const networkOutfalls = (db: Db, networkId: string) =>
     .orderBy("f.name")
     .execute();
 
+/** A network version's reach ids, in order (no geometry). */
+export async function reachKeys(db: Db, networkId: string): Promise<string[]> {
+  return (await db.selectFrom("reaches").select("reach_key").where("network_id", "=", networkId).orderBy("reach_key").execute()).map((r) => r.reach_key);
+}
+
 export async function findReach(db: Db, networkId: string, reachKey: string) {
   return db.selectFrom("reaches").selectAll().where("network_id", "=", networkId).where("reach_key", "=", reachKey).executeTakeFirst();
 }

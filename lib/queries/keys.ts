@@ -13,6 +13,7 @@ export const queryKeys = {
     network: (basinId: string, networkId: string) => ["basins", basinId, "networks", networkId] as const,
     imports: (basinId: string) => ["basins", basinId, "imports"] as const,
     mappings: (basinId: string) => ["basins", basinId, "field-mappings"] as const,
+    gauges: (basinId: string) => ["basins", basinId, "gauges"] as const,
     scenarios: (basinId: string) => ["basins", basinId, "scenarios"] as const,
     scenario: (basinId: string, scenarioId: string) => ["basins", basinId, "scenarios", scenarioId] as const,
     runs: (basinId: string) => ["basins", basinId, "runs"] as const,

@@ -11,6 +11,8 @@ import { findUserByEmail } from "@/db/queries/users";
 import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { uploadImport } from "./imports";
 import { commitNetwork } from "./networks";
+import { gaugeUploadSchema } from "@/lib/validation/gauges";
+import { uploadGaugeRecord } from "./gauges";
 import { createScenario } from "./scenarios";
 
 /**
@@ -31,10 +33,16 @@ export const DEMO_STRESS_SCENARIO = {
   },
 };
 
+/** The demo's invented gauge record and how it is uploaded (invented, for the demo only). */
+export const DEMO_GAUGE = {
+  file: "examples/tamsel-quillford-gauge-daily.csv",
+  fields: { name: "Tamsel River at Quillford", stationCode: "TQ-0410", reachId: "TR-04", unit: "m3/s", climaticYearStart: "04-01" },
+};
+
 /**
  * Load the demo basin's network from the demo GIS files through the same
  * upload → validate → commit path a planner uses, with one ready scenario
- * (DEMO_STRESS_SCENARIO). Skipped when the basin already has a network.
+ * (DEMO_STRESS_SCENARIO) and the invented gauge's daily record (DEMO_GAUGE). Skipped when the basin already has a network.
  * Returns the new version number, or null.
  */
 export async function loadDemoNetwork(db: Db, root: string): Promise<number | null> {
@@ -58,5 +66,7 @@ export async function loadDemoNetwork(db: Db, root: string): Promise<number | nu
     acceptReport: true,
   });
   await createScenario(scope, scenarioCreateSchema.parse(DEMO_STRESS_SCENARIO));
+  // the invented gauge at Quillford (examples/, made by scripts/make-demo-gauge.ts), with its low flows
+  await uploadGaugeRecord(scope, read(DEMO_GAUGE.file), gaugeUploadSchema.parse(DEMO_GAUGE.fields));
   return network.version;
 }

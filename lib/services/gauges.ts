@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import { insertAuditEvent } from "@/db/queries/audit";
 import { findGaugeRecord, insertGaugeRecord, listGaugeRecords as listGaugeRows } from "@/db/queries/gauges";
-import { findReach, latestNetworkId } from "@/db/queries/networks";
+import { findReach, latestNetworkId, reachKeys } from "@/db/queries/networks";
 import type { BasinScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/errors";
 import { lowFlowStatistics, type DesignFlowResult, type LowFlowReport } from "@/lib/hydrology/low-flow";
@@ -143,4 +143,11 @@ export async function getGaugeRecord(scope: BasinScope, gaugeId: string): Promis
   const { statistics, ...rest } = row;
   const report = statistics as LowFlowReport;
   return { ...summaryDto(rest, report.statistics), statistics: report };
+}
+
+/** The reaches a new record may be placed on: the newest network version's. */
+export async function gaugeReachChoices(scope: BasinScope): Promise<string[]> {
+  scope.require("network.import");
+  const networkId = await latestNetworkId(scope.db, scope.basin.id);
+  return networkId ? reachKeys(scope.db, networkId) : [];
 }
