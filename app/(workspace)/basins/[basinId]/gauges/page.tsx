@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { GaugeUploadForm } from "@/components/gauges/gauge-upload-form";
+import { PlanningCaution } from "@/components/results/planning-caution";
 import { Denied } from "@/components/ui/denied";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { formatDay } from "@/lib/format/zoned-time";
-import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { gaugeReachChoices, listGaugeRecords } from "@/lib/services/gauges";
 
 export const metadata: Metadata = { title: "Gauges" };
@@ -76,11 +76,7 @@ export default async function GaugesPage({ params }: { params: Promise<{ basinId
         )}
       </section>
       {canUpload && <GaugeUploadForm basinId={access.basin.id} reachIds={reaches} />}
-      <section className="space-y-1 text-xs text-ink-faint">
-        {PLANNING_CAUTION.map((c) => (
-          <p key={c}>{c}</p>
-        ))}
-      </section>
+      <PlanningCaution />
     </div>
   );
 }

@@ -2,13 +2,13 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { FrequencyChart } from "@/components/gauges/frequency-chart";
+import { PlanningCaution } from "@/components/results/planning-caution";
 import { Denied } from "@/components/ui/denied";
 import { Notice } from "@/components/ui/notice";
 import { basinPageAccess } from "@/lib/auth/page-access";
 import { AppError } from "@/lib/errors";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { formatWhen } from "@/lib/format/zoned-time";
-import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { frequencyPlot } from "@/lib/results/frequency-plot";
 import { getGaugeRecord } from "@/lib/services/gauges";
 
@@ -145,11 +145,7 @@ export default async function GaugePage({ params }: { params: Promise<{ basinId:
           </div>
         </details>
       </section>
-      <section className="space-y-1 text-xs text-ink-faint">
-        {PLANNING_CAUTION.map((c) => (
-          <p key={c}>{c}</p>
-        ))}
-      </section>
+      <PlanningCaution />
     </div>
   );
 }
