@@ -1,6 +1,6 @@
 import { join } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
-import type { ImportErrorData, ImportJob, ImportResponse, ImportStage, ReadResult, ValidateResult } from "./import-protocol";
+import type { GaugeReadResult, ImportErrorData, ImportJob, ImportResponse, ImportStage, ReadResult, ValidateResult } from "./import-protocol";
 import { createWorkerPool } from "./worker-pool";
 
 /** An import job failed in the worker; `data` carries a GeoError's code and details. */
@@ -16,6 +16,8 @@ export type ProgressListener = (stage: ImportStage, fraction: number) => void;
 export interface ImportPool {
   read(job: Extract<ImportJob, { kind: "read" }>): Promise<ReadResult>;
   validate(job: Extract<ImportJob, { kind: "validate" }>, onProgress?: ProgressListener): Promise<ValidateResult>;
+  /** Read a gauge's daily record and compute its low flows (40–90 ms for 30 years; longer records scale with their length). */
+  gauge(job: Omit<Extract<ImportJob, { kind: "gauge" }>, "kind">): Promise<GaugeReadResult>;
   close(): Promise<void>;
 }
 
@@ -61,6 +63,7 @@ export function createImportPool(options: { size?: number; timeoutMs?: number } 
   return {
     read: (job) => pool.submit(job) as Promise<ReadResult>,
     validate: (job, onProgress) => pool.submit(job, progress(onProgress)) as Promise<ValidateResult>,
+    gauge: (job) => pool.submit({ kind: "gauge", ...job }) as Promise<GaugeReadResult>,
     close: pool.close,
   };
 }

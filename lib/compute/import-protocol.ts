@@ -1,3 +1,5 @@
+import type { LowFlowReport } from "../hydrology/low-flow";
+import type { FlowUnit } from "../hydrology/read-record";
 import type { CrsInfo, DischargerMapping, FieldInfo, ReachMapping, ReadOptions, SourceFormat, UploadLayer, ValidateOptions } from "../../geo";
 
 /** One kept upload as the import worker reads it. */
@@ -12,6 +14,8 @@ export interface UploadBytes {
 
 export type ImportJob =
   | { kind: "read"; upload: UploadBytes; layer: UploadLayer }
+  /** A gauge's daily flow record: read and its low-flow statistics computed (lib/hydrology). */
+  | { kind: "gauge"; bytes: Uint8Array; fileName: string; unit: FlowUnit; climaticYearStart: string }
   | {
       kind: "validate";
       reaches: UploadBytes;
@@ -22,6 +26,11 @@ export type ImportJob =
       /** Also return the rows a commit writes. */
       forCommit: boolean;
     };
+
+/** A gauge record read in the worker, or the reason it could not be (naming the line). */
+export type GaugeReadResult =
+  | { ok: true; report: LowFlowReport; sha256: string; dayCount: number; missingDays: number; firstDay: string; lastDay: string }
+  | { ok: false; message: string };
 
 export interface ReadResult {
   crs: CrsInfo;

@@ -8,7 +8,9 @@ import { GeoError } from "../../geo/errors";
 import { readUploadLayer } from "../../geo/read-upload";
 import { validateImport, type ValidateProgress } from "../../geo/validate";
 import type { Problem } from "../../geo/problems";
-import { MAX_LISTED_PROBLEMS, type ImportJob, type ImportRequest, type ImportResponse, type ImportStage, type ReadResult, type UploadBytes, type ValidateResult } from "./import-protocol";
+import { lowFlowStatistics } from "../hydrology/low-flow";
+import { readDailyRecord, RecordError } from "../hydrology/read-record";
+import { MAX_LISTED_PROBLEMS, type GaugeReadResult, type ImportJob, type ImportRequest, type ImportResponse, type ImportStage, type ReadResult, type UploadBytes, type ValidateResult } from "./import-protocol";
 
 if (!parentPort) throw new Error("lib/compute/import-worker.ts must be started as a worker thread");
 const port = parentPort;
@@ -57,8 +59,38 @@ function chunks<T>(items: readonly T[], max: number, weight: (t: T) => number, r
 
 const summarise = (ps: Problem[]) => ps.map((p) => ({ code: p.code, message: p.message, features: p.features }));
 
-async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateResult> {
+/** A daily flow record: UTF-8 text, read in its unit, with its low-flow statistics; a bad line is an answer, not a failure. */
+function readGauge(job: Extract<ImportJob, { kind: "gauge" }>): GaugeReadResult {
+  const bytes = own(job.bytes);
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    return { ok: false, message: `${job.fileName} is not UTF-8 text: upload the record as CSV (date,flow) or rdb text` };
+  }
+  try {
+    const days = readDailyRecord(text, job.unit);
+    if (days.length === 0) return { ok: false, message: `${job.fileName}: the record has no days` };
+    const report = lowFlowStatistics(days, { climaticYearStart: job.climaticYearStart });
+    const dates = days.map((d) => d.date).sort();
+    return {
+      ok: true,
+      report,
+      sha256: createHash("sha256").update(bytes).digest("hex"),
+      dayCount: days.length,
+      missingDays: days.filter((d) => d.flow === null).length,
+      firstDay: dates[0],
+      lastDay: dates[dates.length - 1],
+    };
+  } catch (e) {
+    if (e instanceof RecordError || e instanceof RangeError) return { ok: false, message: `${job.fileName}: ${e.message}` };
+    throw e;
+  }
+}
+
+async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateResult | GaugeReadResult> {
   const progress = (stage: ImportStage, fraction: number) => port.postMessage({ id, type: "progress", stage, fraction } satisfies ImportResponse);
+  if (job.kind === "gauge") return readGauge(job);
   if (job.kind === "read") {
     const upload = { ...job.upload, bytes: own(job.upload.bytes) };
     const source = await read(upload, job.layer);

@@ -107,6 +107,9 @@ function indexed(record: readonly DailyFlow[]) {
   return index;
 }
 
+/** A year as the four digits of an ISO date (years before 1000 padded: 0812). */
+const yyyy = (year: number) => String(year).padStart(4, "0");
+
 /** The climatic year a day belongs to (the calendar year in which that climatic year starts). */
 export function climaticYear(date: string, start = DEFAULT_CLIMATIC_YEAR_START): number {
   const y = Number(date.slice(0, 4));
@@ -127,8 +130,8 @@ export function annualMinima(record: readonly DailyFlow[], days: number, start =
   const minima: AnnualMinimum[] = [];
   const excluded: number[] = [];
   for (const year of years) {
-    const from = dayNumber(`${year}-${start}`);
-    const to = dayNumber(`${year + 1}-${start}`) - 1;
+    const from = dayNumber(`${yyyy(year)}-${start}`);
+    const to = dayNumber(`${yyyy(year + 1)}-${start}`) - 1;
     const flows: number[] = [];
     let complete = true;
     for (let day = from; day <= to; day++) {

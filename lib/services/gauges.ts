@@ -1,12 +1,12 @@
-import { createHash } from "node:crypto";
 import { insertAuditEvent } from "@/db/queries/audit";
 import { findGaugeRecord, insertGaugeRecord, listGaugeRecords as listGaugeRows } from "@/db/queries/gauges";
 import { findReach, latestNetworkId, reachKeys } from "@/db/queries/networks";
 import type { BasinScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/errors";
-import { lowFlowStatistics, type DesignFlowResult, type LowFlowReport } from "@/lib/hydrology/low-flow";
-import { readDailyRecord, RecordError } from "@/lib/hydrology/read-record";
+import { importPool } from "@/lib/compute/import-pool";
+import type { DesignFlowResult, LowFlowReport } from "@/lib/hydrology/low-flow";
 import type { GaugeUpload } from "@/lib/validation/gauges";
+import { importFailure } from "./imports";
 
 /** The most bytes a daily record may have: 200 years of daily rdb text is under 10 MB. */
 export const GAUGE_RECORD_MAX_BYTES = 10 * 1024 * 1024;
@@ -74,30 +74,20 @@ export async function uploadGaugeRecord(scope: BasinScope, file: { name: string;
     throw new AppError("too_large", `${file.name} is larger than the ${GAUGE_RECORD_MAX_BYTES / 1048576} MB limit for a daily record`, [{ path: "file", message: "File too large" }]);
   }
   if (file.bytes.byteLength === 0) throw fileProblem(`${file.name} is empty`);
-  let text: string;
-  try {
-    text = new TextDecoder("utf-8", { fatal: true }).decode(file.bytes);
-  } catch {
-    throw fileProblem(`${file.name} is not UTF-8 text: upload the record as CSV (date,flow) or rdb text`);
-  }
-  let report: LowFlowReport;
-  let days: ReturnType<typeof readDailyRecord>;
-  try {
-    days = readDailyRecord(text, fields.unit);
-    if (days.length === 0) throw new RecordError(null, "the record has no days");
-    report = lowFlowStatistics(days, { climaticYearStart: fields.climaticYearStart });
-  } catch (e) {
-    if (e instanceof RecordError || e instanceof RangeError) throw fileProblem(`${file.name}: ${e.message}`);
-    throw e;
-  }
+  // reading and the statistics run in the import worker thread: a century of daily rdb text takes a second
+  const read = await importPool()
+    .gauge({ bytes: file.bytes, fileName: file.name, unit: fields.unit, climaticYearStart: fields.climaticYearStart })
+    .catch((e: unknown) => {
+      throw importFailure(e);
+    });
+  if (!read.ok) throw fileProblem(read.message);
+  const { report, sha256 } = read;
   if (fields.reachId !== undefined) {
     const networkId = await latestNetworkId(db, basin.id);
     if (!networkId || !(await findReach(db, networkId, fields.reachId))) {
       throw new AppError("invalid", `There is no reach "${fields.reachId}" in the basin's newest network`, [{ path: "reachId", message: "Unknown reach" }]);
     }
   }
-  const sorted = days.map((d) => d.date).sort();
-  const sha256 = createHash("sha256").update(file.bytes).digest("hex");
   return db.transaction().execute(async (trx) => {
     const { id } = await insertGaugeRecord(trx, {
       basin_id: basin.id,
@@ -110,10 +100,10 @@ export async function uploadGaugeRecord(scope: BasinScope, file: { name: string;
       size_bytes: file.bytes.byteLength,
       sha256,
       content: file.bytes,
-      first_day: sorted[0],
-      last_day: sorted[sorted.length - 1],
-      day_count: days.length,
-      missing_days: days.filter((d) => d.flow === null).length,
+      first_day: read.firstDay,
+      last_day: read.lastDay,
+      day_count: read.dayCount,
+      missing_days: read.missingDays,
       statistics: JSON.stringify(report),
       uploaded_by: actor.id,
     });

@@ -9,11 +9,13 @@ import { randomUUID } from "node:crypto";
 import { encode } from "next-auth/jwt";
 import { NextRequest } from "next/server";
 import { beforeAll, describe, expect, it } from "vitest";
+import * as gaugesRoute from "@/app/api/basins/[basinId]/gauges/route";
 import * as importsRoute from "@/app/api/basins/[basinId]/imports/route";
 import * as networksRoute from "@/app/api/basins/[basinId]/networks/route";
 import * as progressRoute from "@/app/api/basins/[basinId]/networks/validate/[progressId]/route";
 import * as validateRoute from "@/app/api/basins/[basinId]/networks/validate/route";
 import { IMPORT_LIMITS } from "@/geo/limits";
+import { GAUGE_RECORD_MAX_BYTES } from "@/lib/services/gauges";
 import { fileDb } from "../support/file-db";
 import { buildWorld, type World } from "../support/world";
 
@@ -79,9 +81,9 @@ class Multipart {
     readonly bytes: Uint8Array,
     readonly type: string,
   ) {}
-  static async of(layer: string, name: string, text: string): Promise<Multipart> {
+  static async of(layer: string, name: string, text: string, fields: Record<string, string> = { layer }): Promise<Multipart> {
     const f = new FormData();
-    f.set("layer", layer);
+    for (const [k, v] of Object.entries(fields)) f.set(k, v);
     f.set("file", new File([text], name));
     const encoded = new Request("http://127.0.0.1/", { method: "POST", body: f });
     return new Multipart(new Uint8Array(await encoded.arrayBuffer()), encoded.headers.get("content-type")!);
@@ -240,6 +242,27 @@ describe("imports at the limits", () => {
     const csv = JSON.parse(result.csv.text) as { error: { message: string; details: Array<Record<string, unknown>> } };
     expect(csv.error.message).toContain(`row ${IMPORT_LIMITS.dischargerFeatures + 1}`);
     expect(csv.error.details[0]).toMatchObject({ code: "too_many_features", limit: "dischargerFeatures" });
+    return maxMs;
+  }
+
+  it("read a gauge record just under its size limit (centuries of days) and compute its low flows without stalling", async () => {
+    expect(await withinTarget("largest gauge record", largestGaugeRecord)).toBeLessThan(STALL_TARGET_MS);
+  }, 240_000);
+
+  async function largestGaugeRecord(): Promise<number> {
+    const lines = ["date,flow"];
+    let bytes = 10;
+    // an invented record (for the test only): a seasonal wave, read as m³/s
+    for (let d = Date.UTC(800, 3, 1); bytes < GAUGE_RECORD_MAX_BYTES - 64; d += 86_400_000) {
+      const line = `${new Date(d).toISOString().slice(0, 10)},${(2 + Math.sin(d / 5.0226e9)).toFixed(3)}`;
+      lines.push(line);
+      bytes += line.length + 1;
+    }
+    lines.pop();
+    const body = await Multipart.of("", "centuries.csv", lines.join("\n"), { name: "Centuries of days" });
+    const { result, maxMs } = await worstStall(() => call(gaugesRoute.POST, "POST", { basinId: w.basinId }, body));
+    expect(result.status, result.text.slice(0, 300)).toBe(201);
+    expect((JSON.parse(result.text) as { statistics: { years_used: number } }).statistics.years_used).toBeGreaterThan(1000);
     return maxMs;
   }
 });

@@ -90,6 +90,11 @@ describe("n-day minima by climatic year (hand-checked records)", () => {
     expect(annualMinima(days, 7).minima.map((m) => m.flow)).toEqual([4, 46 / 7]);
   });
 
+  it("reads years before 1000 (four-digit ISO years such as 0812) like any other", () => {
+    const days = record("0812-04-01", 365, () => 3);
+    expect(annualMinima(days, 7)).toEqual({ minima: [{ year: 812, flow: 3 }], excluded: [] });
+  });
+
   it("leaves out a year with a missing day or a null flow", () => {
     const full = record("2020-04-01", 730, () => 5);
     const gap = full.filter((d) => d.date !== "2020-12-25");
