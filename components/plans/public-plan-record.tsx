@@ -1,4 +1,5 @@
 import type { UnitSystem } from "@/db/schema";
+import { conditionFlowText } from "@/lib/results/condition-flow";
 import { nameOf, ROLE_NAMES, THREAD_STATUS_NAMES } from "@/lib/format/labels";
 import { formatIn, formatNumber, unitLabel } from "@/lib/format/quantities";
 import { formatWhen } from "@/lib/format/zoned-time";
@@ -53,7 +54,7 @@ export function CriticalConditions({ inputs, result, unitSystem }: { inputs: Con
                   {row.governing && <span className="ml-2 rounded bg-ochre-100 px-1.5 py-0.5 text-xs font-semibold text-ink">governing</span>}
                 </td>
                 <td>
-                  {input ? `network design low flow × ${input.flowScale}` : "—"}
+                  {input ? conditionFlowText(input, unitSystem) : "—"}
                   {handSet > 0 && `; ${handSet} reach flow${handSet === 1 ? "" : "s"} set by hand`}
                 </td>
                 <td>

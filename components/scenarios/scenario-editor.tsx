@@ -28,6 +28,7 @@ const formSchema = z.object({
   inputs: scenarioInputsSchema,
 });
 type FormValues = z.infer<typeof formSchema>;
+type GaugeStatistic = NonNullable<ScenarioInputs["conditions"][number]["gaugeFlow"]>["statistic"];
 
 const DISCHARGER_FIELDS = ["designFlowM3s", "bod5MgL", "cbodUMgL", "bottleKPerDay", "doMgL", "temperatureC"] as const;
 
@@ -81,6 +82,14 @@ const KA_CHOICES = (Object.entries(REAERATION_NAMES) as [KaMethod, string][])
   .filter(([k]) => k !== "given")
   .map(([k, v]) => [k, k === "tsivoglou-neal" ? `${v} (needs slope)` : v] as const);
 
+/** A gauge record a condition may take its design flow from: its reach and its statistics' values (m³/s). */
+export interface GaugeChoice {
+  id: string;
+  name: string;
+  reachId: string | null;
+  designFlows: { name: string; value: number | null }[];
+}
+
 export function ScenarioEditor({
   basinId,
   scenario: initial,
@@ -89,6 +98,7 @@ export function ScenarioEditor({
   canEdit,
   outfalls,
   reaches,
+  gauges = [],
 }: {
   basinId: string;
   scenario: ScenarioDto;
@@ -97,6 +107,8 @@ export function ScenarioEditor({
   canEdit: boolean;
   outfalls: OutfallRow[];
   reaches: ReachRow[];
+  /** Gauge records placed on a reach, whose statistics a condition may take. */
+  gauges?: GaugeChoice[];
 }) {
   const query = useScenarioQuery(basinId, initial.id);
   const scenario = query.data ?? initial;
@@ -116,6 +128,24 @@ export function ScenarioEditor({
   const watchedConditions = useWatch({ control, name: "inputs.conditions" });
   const headwaterTemperature = useWatch({ control, name: "inputs.headwater.temperatureC" });
   const outletFlow = networkOutletFlowM3s(reaches);
+  const gaugeOptions = gauges.flatMap((g) =>
+    g.reachId === null
+      ? []
+      : g.designFlows
+          .filter((d) => d.value !== null && d.value > 0)
+          .map((d) => ({ key: `${g.id}|${d.name}`, gaugeId: g.id, statistic: d.name, reachId: g.reachId!, value: d.value!, label: `${d.name} at ${g.name} (${formatIn("flow", d.value, unitSystem)} ${unitLabel("flow", unitSystem)})` })),
+  );
+  /** The factor on the network's design flows a condition gives (what the model file will use). */
+  const effectiveScale = (c: FormValues["inputs"]["conditions"][number] | undefined): number | null => {
+    if (!c) return null;
+    if (c.gaugeFlow) {
+      const option = gaugeOptions.find((o) => o.gaugeId === c.gaugeFlow!.gaugeId && o.statistic === c.gaugeFlow!.statistic);
+      const own = reaches.find((r) => r.id === option?.reachId)?.attributes.designFlowM3s;
+      return option && typeof own === "number" && own > 0 ? option.value / own : null;
+    }
+    if (c.outletFlowM3s != null) return outletFlow ? c.outletFlowM3s / outletFlow : null;
+    return c.flowScale;
+  };
   // the default at the first condition's temperature, or the headwater's own when the condition sets none
   const exampleT = watchedConditions?.[0]?.temperatureC ?? headwaterTemperature;
   const headwaterDoExample =
@@ -195,6 +225,7 @@ export function ScenarioEditor({
                   name: `Condition ${conditions.fields.length + 1}`,
                   flowScale: 1,
                   outletFlowM3s: null,
+                  gaugeFlow: null,
                   reachFlowsM3s: toFormKeys(Object.fromEntries(reaches.map((r) => [r.id, null]))),
                   temperatureC: null,
                 })
@@ -206,19 +237,23 @@ export function ScenarioEditor({
           </div>
           <p className="text-sm text-ink-soft">
             Design flows come from the network&apos;s reach table (its low-flow statistic, e.g. 7Q10). Scale them here, or
-            enter the design flow at the outlet and every reach is scaled to match; a flow for one reach goes in{" "}
+            enter the design flow at the outlet, or take a gauge&apos;s statistic (its reach gets that flow), and every reach is scaled to match; a flow for one reach goes in{" "}
             <em>Reach by reach</em> below. A blank temperature keeps each reach&apos;s own. An allocation keeps DO above the
             criterion under every condition at once.
           </p>
           {errors.inputs?.conditions?.message && <p className="field-error">{errors.inputs.conditions.message}</p>}
           {conditions.fields.map((c, i) => (
-            <div key={c.id} className="grid items-end gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_1fr_1fr_1fr_auto]">
+            <div key={c.id} className="grid items-end gap-3 border-t border-rule pt-3 md:grid-cols-[2fr_1fr_1fr_1.6fr_1fr_auto]">
               <Field label="Name" error={errors.inputs?.conditions?.[i]?.name?.message} {...register(`inputs.conditions.${i}.name`)} />
-              {watchedConditions?.[i]?.outletFlowM3s != null ? (
+              {watchedConditions?.[i]?.gaugeFlow || watchedConditions?.[i]?.outletFlowM3s != null ? (
                 <div>
                   <span className="field-label">Flow scale</span>
                   <p className="py-2 text-sm" data-testid={`effective-scale-${i}`}>
-                    {outletFlow ? `× ${(watchedConditions[i].outletFlowM3s! / outletFlow).toFixed(3)} (from the outlet flow)` : "set by the outlet flow"}
+                    {(() => {
+                      const scale = effectiveScale(watchedConditions[i]);
+                      const from = watchedConditions[i].gaugeFlow ? "from the gauge" : "from the outlet flow";
+                      return scale !== null ? `× ${scale.toFixed(3)} (${from})` : `set ${from}`;
+                    })()}
                   </p>
                 </div>
               ) : (
@@ -233,6 +268,30 @@ export function ScenarioEditor({
                 nullable
                 placeholder={outletFlow !== undefined ? `network: ${formatIn("flow", outletFlow, unitSystem)}` : "none in the network"}
               />
+              <div>
+                <label htmlFor={`gauge-flow-${i}`} className="field-label">
+                  or from a gauge
+                </label>
+                <select
+                  id={`gauge-flow-${i}`}
+                  className="field-input"
+                  disabled={!canEdit}
+                  value={watchedConditions?.[i]?.gaugeFlow ? `${watchedConditions[i].gaugeFlow!.gaugeId}|${watchedConditions[i].gaugeFlow!.statistic}` : ""}
+                  onChange={(e) => {
+                    const option = gaugeOptions.find((o) => o.key === e.target.value);
+                    setValue(`inputs.conditions.${i}.gaugeFlow`, option ? { gaugeId: option.gaugeId, statistic: option.statistic as GaugeStatistic } : null, { shouldDirty: true });
+                    if (option) setValue(`inputs.conditions.${i}.outletFlowM3s`, null, { shouldDirty: true });
+                  }}
+                >
+                  <option value="">{gaugeOptions.length ? "No gauge" : "No gauge record on a reach"}</option>
+                  {gaugeOptions.map((o) => (
+                    <option key={o.key} value={o.key}>
+                      {o.label}
+                    </option>
+                  ))}
+                </select>
+                {errors.inputs?.conditions?.[i]?.gaugeFlow?.message && <p className="field-error">{errors.inputs.conditions[i].gaugeFlow.message}</p>}
+              </div>
               <UnitField
                 control={control}
                 name={`inputs.conditions.${i}.temperatureC`}
@@ -305,7 +364,7 @@ export function ScenarioEditor({
           reaches={reaches}
           conditions={(watchedConditions ?? []).map((c) => ({
             name: c.name,
-            flowScale: c.outletFlowM3s != null && outletFlow ? c.outletFlowM3s / outletFlow : c.flowScale,
+            flowScale: effectiveScale(c) ?? c.flowScale,
           }))}
           system={unitSystem}
           defaults={{ kn20PerDay: scenario.inputs.kinetics.kn20PerDay, cbodUMgL: scenario.inputs.headwater.cbodUMgL, doMgL: scenario.inputs.headwater.doMgL }}

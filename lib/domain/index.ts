@@ -15,3 +15,4 @@ export * from "./objectives";
 export * from "./statuses";
 export * from "./imports";
 export * from "./hydraulics";
+export * from "./hydrology";

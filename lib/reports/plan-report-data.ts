@@ -5,6 +5,7 @@ import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { RunResult } from "@/lib/model/network/run";
 import type { ModelFile } from "@/lib/model/types";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
+import { conditionFlowText } from "@/lib/results/condition-flow";
 import { formatDo } from "@/lib/results/do-scale";
 import { conditionRows, quoted, runConditions } from "@/lib/results/run-conditions";
 import { headwaterReaches, pathToOutlet } from "@/lib/results/path";
@@ -223,7 +224,7 @@ function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, 
       heading: "Critical conditions",
       items: i.conditions.map((c) => ({
         label: c.name,
-        value: `design flow × ${c.flowScale}${Object.keys(c.reachFlowsM3s ?? {}).length ? `, ${Object.keys(c.reachFlowsM3s).length} reach flow(s) set by hand` : ""}; temperature ${t(c.temperatureC)}`,
+        value: `${conditionFlowText(c, system)}${Object.keys(c.reachFlowsM3s ?? {}).length ? `, ${Object.keys(c.reachFlowsM3s).length} reach flow(s) set by hand` : ""}; temperature ${t(c.temperatureC)}`,
       })),
     },
     {

@@ -1,4 +1,5 @@
 import type { UnitSystem } from "@/lib/domain";
+import { conditionFlowText } from "./condition-flow";
 import { nameOf, OBJECTIVE_NAMES, REAERATION_NAMES } from "@/lib/format/labels";
 import { formatIn, formatPercent, unitLabel } from "@/lib/format/quantities";
 import type { ModelFile } from "@/lib/model/types";
@@ -68,7 +69,7 @@ function facts(run: RunInputsForDiff, system: UnitSystem): Facts {
   }
   put("conditions", "Design conditions", i.conditions.map((c) => c.name).join(", "));
   for (const c of i.conditions) {
-    put(`c:${c.name}:scale`, `“${c.name}”: flow scale`, c.outletFlowM3s != null ? `design flow at the outlet ${flow(c.outletFlowM3s)}` : `× ${n(c.flowScale)}`);
+    put(`c:${c.name}:scale`, `“${c.name}”: flow scale`, c.gaugeFlow || c.outletFlowM3s != null ? conditionFlowText(c, system) : `× ${n(c.flowScale)}`);
     put(`c:${c.name}:temp`, `“${c.name}”: temperature`, temp(c.temperatureC, "each reach's own"));
     for (const [reach, q] of Object.entries(c.reachFlowsM3s ?? {})) put(`c:${c.name}:q:${reach}`, `“${c.name}”: design flow of ${reach}`, flow(q));
   }

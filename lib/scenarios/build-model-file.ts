@@ -27,11 +27,27 @@ export const DEFAULT_EFFLUENT_DO_MG_L = 2;
 export const DEFAULT_BOTTLE_K_PER_DAY = 0.23;
 
 /**
- * The factor on every reach's network design flow under a condition: the ratio of the
- * condition's outlet flow to the network's when the planner entered one, else flowScale.
+ * The factor on every reach's network design flow under a condition: the gauge statistic's
+ * value over the network's design flow at the gauge's reach when the condition takes its flow
+ * from a gauge; the ratio of the condition's outlet flow to the network's when the planner
+ * entered one; else flowScale.
  * Example: network outlet 2.0 m³/s, outletFlowM3s 1.5 → 0.75.
  */
 export function conditionFlowScale(network: NetworkForModel, condition: ConditionInputs, conditionPath: string): number {
+  const gauge = condition.gaugeFlow ?? null;
+  if (gauge) {
+    const source = gauge.source;
+    if (!source) throw new ScenarioInputError(`${conditionPath}.gaugeFlow`, `Condition "${condition.name}": save the scenario again so the gauge's ${gauge.statistic} is read`);
+    const reach = network.reaches.find((r) => r.id === source.reachId);
+    const own = reach ? num(reach.attributes.designFlowM3s) : undefined;
+    if (own === undefined || !(own > 0)) {
+      throw new ScenarioInputError(
+        `${conditionPath}.gaugeFlow`,
+        `Condition "${condition.name}": the gauge's reach ${source.reachId} has ${reach ? "no design flow" : "no place"} in this network version to scale from`,
+      );
+    }
+    return source.valueM3s / own;
+  }
   const outlet = condition.outletFlowM3s ?? null;
   if (outlet === null) return condition.flowScale;
   const own = networkOutletFlowM3s(network.reaches);

@@ -13,7 +13,9 @@ import {
 import type { BasinScope } from "@/lib/auth/scope";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { NetworkForModel } from "@/lib/scenarios/build-model-file";
-import { scenarioInputsSchema, type ScenarioCreate, type ScenarioInputs, type ScenarioUpdate } from "@/lib/validation/scenario";
+import { scenarioInputsSchema, type GaugeFlowSource, type ScenarioCreate, type ScenarioInputs, type ScenarioUpdate } from "@/lib/validation/scenario";
+import { findGaugeRecord } from "@/db/queries/gauges";
+import type { LowFlowReport } from "@/lib/hydrology/low-flow";
 
 export interface ScenarioDto {
   id: string;
@@ -65,6 +67,41 @@ export async function getScenario(scope: BasinScope, scenarioId: string): Promis
   return dto(s);
 }
 
+/**
+ * Fill in each gauge-based condition's source from the gauge record as it is now (its
+ * statistic's value, name, station, reach, checksum, period): what a run, and a plan, will
+ * say its design flow came from. 422 naming the condition's field when the record is not
+ * this basin's, stands on no reach, or gives no value for the statistic.
+ */
+async function withGaugeSources(db: Db, basinId: string, inputs: ScenarioInputs): Promise<ScenarioInputs> {
+  if (!inputs.conditions.some((c) => c.gaugeFlow)) return inputs;
+  const conditions = await Promise.all(
+    inputs.conditions.map(async (c, i) => {
+      if (!c.gaugeFlow) return c;
+      const path = `inputs.conditions.${i}.gaugeFlow`;
+      const refuse = (field: string, message: string) => new AppError("invalid", `Condition "${c.name}": ${message}`, [{ path: `${path}.${field}`, message }]);
+      const g = await findGaugeRecord(db, basinId, c.gaugeFlow.gaugeId);
+      if (!g) throw refuse("gaugeId", "no such gauge record in this basin");
+      if (!g.reach_key) throw refuse("gaugeId", `the gauge record "${g.name}" is not placed on a reach; upload it again naming the reach it stands on`);
+      const report = g.statistics as LowFlowReport;
+      const value = report.statistics.find((s) => s.name === c.gaugeFlow!.statistic)?.value ?? null;
+      if (value === null || !(value > 0)) throw refuse("statistic", `the record "${g.name}" gives no ${c.gaugeFlow.statistic} above zero (too few years to fit, or a zero low flow)`);
+      const source: GaugeFlowSource = {
+        valueM3s: value,
+        gaugeName: g.name,
+        stationCode: g.station_code,
+        reachId: g.reach_key,
+        sha256: g.sha256,
+        firstDay: g.first_day,
+        lastDay: g.last_day,
+        yearsUsed: report.years_used,
+      };
+      return { ...c, gaugeFlow: { gaugeId: c.gaugeFlow.gaugeId, statistic: c.gaugeFlow.statistic, source } };
+    }),
+  );
+  return { ...inputs, conditions };
+}
+
 export async function createScenario(scope: BasinScope, input: ScenarioCreate): Promise<ScenarioDto> {
   scope.require("scenario.edit");
   const { db, actor, basin } = scope;
@@ -81,7 +118,7 @@ export async function createScenario(scope: BasinScope, input: ScenarioCreate): 
       networkId,
       name: input.name,
       description: input.description,
-      inputs: input.inputs,
+      inputs: await withGaugeSources(trx, basin.id, input.inputs),
       userId: actor.id,
     });
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor.id, action: "scenario.created", targetType: "scenario", targetId: id, details: { name: input.name } });
@@ -100,7 +137,8 @@ export async function updateScenario(scope: BasinScope,
     const current = await findScenario(trx, basin.id, scenarioId);
     if (!current) throw notFound("Scenario");
     if (input.name && input.name !== current.name && (await findScenarioByName(trx, basin.id, input.name))) throw nameTaken(input.name);
-    const ok = await updateScenarioIfVersion(trx, current.id, input.version, input, actor.id);
+    const patch = input.inputs ? { ...input, inputs: await withGaugeSources(trx, basin.id, input.inputs) } : input;
+    const ok = await updateScenarioIfVersion(trx, current.id, input.version, patch, actor.id);
     if (!ok) {
       throw conflict(
         `Someone saved this scenario after you opened it (now version ${current.version}${current.updated_by_name ? `, by ${current.updated_by_name}` : ""}); reload it and apply your change again`,

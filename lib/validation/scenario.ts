@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ALLOCATION_OBJECTIVES, DEFAULT_KA_METHOD, DEFAULT_OBJECTIVE, DEFAULT_THETA_RULE, KA_METHODS, RUN_KINDS, THETA_RULES } from "@/lib/domain";
+import { ALLOCATION_OBJECTIVES, DEFAULT_KA_METHOD, DESIGN_FLOW_NAMES, DEFAULT_OBJECTIVE, DEFAULT_THETA_RULE, KA_METHODS, RUN_KINDS, THETA_RULES } from "@/lib/domain";
 import { SCENARIO_FIELD_LABELS as L } from "@/lib/format/labels";
 
 // Messages name the field by the label the editor shows (SCENARIO_FIELD_LABELS), with its unit.
@@ -11,6 +11,30 @@ const temperature = (what: string) =>
   z.number({ message: `${what} must be a number` }).min(0, `${what} must be at least 0 °C (32 °F)`).max(45, `${what} must be at most 45 °C (113 °F)`);
 const share = (what: string) =>
   z.number({ message: `${what} must be a number` }).min(0, `${what} cannot be negative`).max(0.9, `${what} must be at most 0.9 (90 % of the capacity)`);
+
+/**
+ * What a condition's design flow was taken from, filled in by Sagline when the scenario is
+ * saved (lib/services/scenarios.ts) from the gauge record as it is then; anything a client
+ * sends here is replaced. It travels with the scenario's inputs into runs and plans.
+ */
+export const gaugeFlowSourceSchema = z.object({
+  valueM3s: z.number().positive(),
+  gaugeName: z.string(),
+  stationCode: z.string().nullable(),
+  reachId: z.string(),
+  sha256: z.string(),
+  firstDay: z.string(),
+  lastDay: z.string(),
+  yearsUsed: z.number().int(),
+});
+export type GaugeFlowSource = z.infer<typeof gaugeFlowSourceSchema>;
+
+/** A condition's design flow from a gauge's statistic: every reach's network design flow scaled so the gauge's reach carries it. */
+export const gaugeFlowSchema = z.object({
+  gaugeId: z.uuid("Choose a gauge record"),
+  statistic: z.enum(DESIGN_FLOW_NAMES, { message: `The statistic must be one of ${DESIGN_FLOW_NAMES.join(", ")}` }),
+  source: gaugeFlowSourceSchema.optional(),
+});
 
 /** One critical (design) condition: flows and temperature the river is checked at. */
 export const conditionSchema = z.object({
@@ -28,6 +52,12 @@ export const conditionSchema = z.object({
     .max(100_000, `${L.outletFlow} must be at most 100 000 m³/s`)
     .nullable()
     .default(null),
+  /**
+   * Design flow from a gauge record's statistic (e.g. its 7Q10). When given it sets the scale
+   * instead of flowScale: every reach's network design flow times the statistic / the network's
+   * design flow at the gauge's reach. null = use flowScale (or outletFlowM3s).
+   */
+  gaugeFlow: gaugeFlowSchema.nullable().default(null),
   /** Design flow entered per reach (m³/s), overriding the network's value. */
   reachFlowsM3s: z
     .record(z.string(), z.number({ message: `${L.designFlow} must be a number` }).positive(`${L.designFlow} must be above zero`).max(100_000, `${L.designFlow} must be at most 100 000 m³/s`).nullable())
@@ -132,6 +162,13 @@ export const scenarioInputsSchema = z
   .refine((v) => new Set(v.conditions.map((c) => c.name)).size === v.conditions.length, {
     message: "Each critical condition needs its own name",
     path: ["conditions"],
+  })
+  .superRefine((v, ctx) => {
+    v.conditions.forEach((c, i) => {
+      if (c.gaugeFlow && c.outletFlowM3s !== null) {
+        ctx.addIssue({ code: "custom", path: ["conditions", i, "gaugeFlow"], message: "Take the design flow from a gauge or give it at the outlet, not both" });
+      }
+    });
   });
 export type ScenarioInputs = z.infer<typeof scenarioInputsSchema>;
 

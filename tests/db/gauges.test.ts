@@ -2,11 +2,16 @@ import { spawnSync } from "node:child_process";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as gaugeRoute from "@/app/api/basins/[basinId]/gauges/[gaugeId]/route";
 import * as gaugesRoute from "@/app/api/basins/[basinId]/gauges/route";
+import { buildConditionFiles } from "@/lib/scenarios/build-model-file";
+import { conditionFlowText } from "@/lib/results/condition-flow";
 import type { GaugeDto, GaugeSummaryDto } from "@/lib/services/gauges";
+import { getNetwork } from "@/lib/services/networks";
+import type { ScenarioDto } from "@/lib/services/scenarios";
 import { callRoute } from "../support/call-route";
 import { commitDemo } from "../support/demo-network";
 import { err } from "../support/errors";
 import { fileDb } from "../support/file-db";
+import { scoped } from "../support/scoped";
 import { DEMO_GAUGE_FILE, demoGaugeBytes, gaugeForm } from "../support/gauge-record";
 import { buildWorld, type World } from "../support/world";
 
@@ -117,5 +122,54 @@ describe("a gauge's daily flow record", () => {
     const g = res.json as GaugeDto;
     expect(g.statistics.years_used).toBe(3);
     expect(g.statistics.warnings.join("\n")).toMatch(/Only 3 complete climatic years/);
+  });
+});
+
+describe("a condition's design flow from a gauge's statistic", () => {
+  const scenarios = () => import("@/app/api/basins/[basinId]/scenarios/route");
+  const create = async (name: string, condition: Record<string, unknown>) =>
+    callRoute((await scenarios()).POST, "POST", { userId: w.users.planner.id, params: { basinId: w.basinId }, body: { name, inputs: { conditions: [{ name: "Gauged 7Q10", ...condition }] } } });
+  let placed: GaugeDto;
+  beforeAll(async () => {
+    placed = (await upload(gaugeForm({ name: "Quillford, placed", reachId: "TR-04" }))).json as GaugeDto;
+  });
+
+  it("is read from the record when the scenario is saved (anything sent as its source is replaced) and scales every reach so the gauge's reach carries it", async () => {
+    const res = await create("From the Quillford 7Q10", { gaugeFlow: { gaugeId: placed.id, statistic: "7Q10", source: { valueM3s: 99, gaugeName: "forged", stationCode: null, reachId: "TR-01", sha256: "x", firstDay: "", lastDay: "", yearsUsed: 1 } } });
+    expect(res.status, JSON.stringify(res.json)).toBe(201);
+    const scenario = res.json as ScenarioDto;
+    const q7 = placed.designFlows.find((d) => d.name === "7Q10")!.value!;
+    expect(scenario.inputs.conditions[0].gaugeFlow!.source).toEqual({
+      valueM3s: q7,
+      gaugeName: "Quillford, placed",
+      stationCode: null,
+      reachId: "TR-04",
+      sha256: placed.sha256,
+      firstDay: "1994-04-01",
+      lastDay: "2024-03-31",
+      yearsUsed: placed.statistics.years_used,
+    });
+    // the model files equal those of the same scenario scaled by hand by 7Q10 / TR-04's network design flow
+    const net = await scoped(getNetwork)(db, w.users.planner, w.basinId, scenario.networkId);
+    const forModel = { reaches: net.reaches.map((r) => ({ id: r.id, downstreamId: r.downstreamId, lengthKm: r.lengthKm, attributes: r.attributes })), outfalls: net.outfalls.map((o) => ({ permitId: o.permitId, reachId: o.reachId, chainageKm: o.chainageKm, attributes: o.attributes })) };
+    const own = net.reaches.find((r) => r.id === "TR-04")!.attributes.designFlowM3s as number;
+    const byGauge = buildConditionFiles(forModel, scenario.inputs, 5)[0].file;
+    const byHand = buildConditionFiles(forModel, { ...scenario.inputs, conditions: [{ ...scenario.inputs.conditions[0], gaugeFlow: null, flowScale: q7 / own }] }, 5)[0].file;
+    expect(byGauge).toEqual(byHand);
+    // and the words a plan prints say where it came from
+    expect(conditionFlowText(scenario.inputs.conditions[0], "SI")).toMatch(/^7Q10 of Quillford, placed: 0\.\d+ m³\/s at TR-04, 30 years of daily record 1994-04-01 to 2024-03-31/);
+  });
+
+  it("is refused naming the field: a record of another basin or none, a record on no reach, or a gauge beside an outlet flow", async () => {
+    const unknown = await create("No such gauge", { gaugeFlow: { gaugeId: "00000000-0000-4000-8000-000000000000", statistic: "7Q10" } });
+    expect(unknown.status).toBe(422);
+    expect(err(unknown.json).details?.[0]?.path).toBe("inputs.conditions.0.gaugeFlow.gaugeId");
+    const unplaced = (await upload(gaugeForm({ name: "Nowhere" }))).json as GaugeDto;
+    const nowhere = await create("Gauge on no reach", { gaugeFlow: { gaugeId: unplaced.id, statistic: "7Q10" } });
+    expect(nowhere.status).toBe(422);
+    expect(err(nowhere.json).message).toMatch(/not placed on a reach/);
+    const both = await create("Both", { gaugeFlow: { gaugeId: placed.id, statistic: "7Q10" }, outletFlowM3s: 2 });
+    expect(both.status).toBe(422);
+    expect(JSON.stringify(both.json)).toMatch(/gaugeFlow/);
   });
 });

@@ -79,6 +79,43 @@ describe("gauges and their low flows", () => {
     await page.context().close();
   });
 
+  it("a planner takes a condition's design flow from the gauge's 7Q10 in the scenario editor; it is saved with where it came from and a run uses it", async () => {
+    for (const width of [1440, 390]) {
+      const page = await signedIn("planner", width);
+      await page.goto(`${baseUrl}/basins/${basinId}/scenarios`);
+      await page.getByLabel("New scenario on the newest network").fill(`Gauged 7Q10 (${width})`);
+      await page.getByRole("button", { name: "Create scenario" }).click();
+      await page.waitForURL(/\/scenarios\/[0-9a-f-]{36}$/);
+      const scenarioId = page.url().split("/").at(-1)!;
+      const choice = page.getByLabel("or from a gauge").first();
+      await choice.waitFor();
+      await expect.poll(() => choice.locator("option").count()).toBeGreaterThan(1);
+      const label = (await choice.locator("option").allTextContents()).find((t) => t.startsWith("7Q10 at Tamsel River at Quillford"))!;
+      expect(label).toBeDefined();
+      await choice.selectOption({ label });
+      await expect.poll(() => page.getByTestId("effective-scale-0").textContent()).toMatch(/^× \d\.\d{3} \(from the gauge\)$/);
+      await page.getByRole("button", { name: "Save changes" }).click();
+      await page.getByText("Saved (version 2).").waitFor();
+      await page.screenshot({ path: `${SHOTS}/scenario-gauge-flow-${width}.png`, fullPage: width > 500 });
+      const saved = (await (await page.request.get(`${baseUrl}/api/basins/${basinId}/scenarios/${scenarioId}`)).json()) as {
+        inputs: { conditions: { gaugeFlow: { statistic: string; source: { gaugeName: string; reachId: string } } | null }[] };
+      };
+      expect(saved.inputs.conditions[0].gaugeFlow).toMatchObject({ statistic: "7Q10", source: { gaugeName: "Tamsel River at Quillford", reachId: "TR-04" } });
+      if (width === 1440) {
+        // a model run: every headwater carries its network design flow × 7Q10 / TR-04's network design flow
+        const run = (await (await page.request.post(`${baseUrl}/api/basins/${basinId}/scenarios/${scenarioId}/runs`, { data: { kind: "model" } })).json()) as { id: string };
+        const file = (await (await page.request.get(`${baseUrl}/api/basins/${basinId}/runs/${run.id}/model-file`)).json()) as { headwaters: { reach: string; flow_m3_s: number }[] };
+        const scenario = (await (await page.request.get(`${baseUrl}/api/basins/${basinId}/scenarios/${scenarioId}`)).json()) as { networkId: string; inputs: { conditions: { gaugeFlow: { source: { valueM3s: number } } }[] } };
+        const network = (await (await page.request.get(`${baseUrl}/api/basins/${basinId}/networks/${scenario.networkId}`)).json()) as { reaches: { id: string; attributes: { designFlowM3s?: number } }[] };
+        const design = (id: string) => network.reaches.find((r) => r.id === id)!.attributes.designFlowM3s!;
+        const scale = scenario.inputs.conditions[0].gaugeFlow.source.valueM3s / design("TR-04");
+        const tr01 = file.headwaters.find((h) => h.reach === "TR-01")!;
+        expect(tr01.flow_m3_s).toBeCloseTo(design("TR-01") * scale, 9);
+      }
+      await page.context().close();
+    }
+  });
+
   it("a stakeholder sees no Gauges tab and is refused the page", async () => {
     const page = await signedIn("stakeholder", 1440);
     await page.goto(`${baseUrl}/basins/${basinId}`);

@@ -87,7 +87,7 @@ describe("planReport", () => {
     expect(items["Reaeration method"]).toBe("Chosen per reach by depth and velocity");
     expect(items["Reaeration formulas used"]).toBe("Owens–Edwards–Gibbs (2 reaches); O'Connor–Dobbins (1 reach)");
     expect(items["Reserve capacity"]).toBe("5.0 %");
-    expect(items["Late summer low flow"]).toBe("design flow × 1; temperature 77.0 °F");
+    expect(items["Late summer low flow"]).toBe("network design low flow × 1; temperature 77.0 °F");
     expect(items["Model version"]).toBe("sagline-model-1");
     expect(items["Scenario"]).toBe("Basis, version 2");
   });
