@@ -16,6 +16,8 @@ const u = () => uniformFloat64(rng);
 /** A standard normal draw (Box–Muller). */
 const normal = () => Math.sqrt(-2 * Math.log(1 - u())) * Math.cos(2 * Math.PI * u());
 
+// sized so the gauge's 7Q10 sits near the demo network's design flow at TR-04 (0.44 m³/s), where the gauge stands
+const SCALE = 0.48;
 const start = Date.UTC(1994, 3, 1);
 const end = Date.UTC(2024, 3, 1);
 const rows = ["date,flow"];
@@ -35,7 +37,7 @@ for (let t = start; t < end; t += 86_400_000) {
   memory = 0.92 * memory + 0.08 * normal();
   if (u() < 0.035) storm += 4 + 10 * u();
   storm *= 0.8;
-  const flow = Math.max(0.05, (seasonal * wetness * Math.exp(0.25 * memory)) + storm);
+  const flow = Math.max(0.02, SCALE * (seasonal * wetness * Math.exp(0.25 * memory) + storm));
   rows.push(`${d.toISOString().slice(0, 10)},${flow.toFixed(3)}`);
 }
 writeFileSync("examples/tamsel-quillford-gauge-daily.csv", `${rows.join("\n")}\n`);

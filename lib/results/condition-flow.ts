@@ -7,7 +7,7 @@ import type { ConditionInputs } from "@/lib/validation/scenario";
  * a gauge's statistic (with the record it was read from) or the outlet flow entered — every
  * reach's network design flow is then scaled to match — or the network's design low flows
  * times the condition's scale.
- * Example: "7Q10 of Tamsel River at Quillford (TQ-0410): 0.919 m³/s at TR-04, 30 years of daily record 1994-04-01 to 2024-03-31".
+ * Example: "7Q10 of Tamsel River at Quillford (TQ-0410): 0.441 m³/s at TR-04, 30 years of daily record 1994-04-01 to 2024-03-31".
  */
 export function conditionFlowText(c: Pick<ConditionInputs, "flowScale" | "outletFlowM3s" | "gaugeFlow">, system: UnitSystem): string {
   const flow = (q: number) => `${formatIn("flow", q, system)} ${unitLabel("flow", system)}`;

@@ -64,20 +64,20 @@ export default async function GaugePage({ params }: { params: Promise<{ basinId:
             <thead>
               <tr>
                 <th>Statistic</th>
-                <th className="num">Days</th>
-                <th className="num">Return period (years)</th>
                 <th className="num">log-Pearson III ({flow})</th>
                 <th className="num">From the ranked years ({flow})</th>
+                <th className="num">Days</th>
+                <th className="num">Return period (years)</th>
               </tr>
             </thead>
             <tbody>
               {gauge.designFlows.map((d) => (
                 <tr key={d.name}>
                   <td>{d.name}</td>
-                  <td className="num">{d.days}</td>
-                  <td className="num">{d.return_period_years}</td>
                   <td className="num">{formatIn("flow", d.value, system)}</td>
                   <td className="num">{formatIn("flow", d.empirical, system)}</td>
+                  <td className="num">{d.days}</td>
+                  <td className="num">{d.return_period_years}</td>
                 </tr>
               ))}
             </tbody>
