@@ -12,6 +12,7 @@
  */
 import autocannon from "autocannon";
 import { DEMO_USERS } from "@/db/seed/demo-data";
+import { signInOverHttp } from "./sign-in";
 
 const base = process.argv[2] ?? "http://127.0.0.1:3000";
 const seconds = Number(process.argv[3] ?? 10);
@@ -21,18 +22,9 @@ if (!/^http:\/\/(127\.\d+\.\d+\.\d+|localhost|\[::1\])(:\d+)?$/.test(base)) {
 
 async function signIn(): Promise<string> {
   const planner = DEMO_USERS.find((u) => u.key === "planner")!;
-  const csrfRes = await fetch(`${base}/api/auth/csrf`);
-  const jar = (csrfRes.headers.getSetCookie?.() ?? []).map((c) => c.split(";")[0]);
-  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar.join("; ") },
-    body: new URLSearchParams({ csrfToken, email: planner.email, password: planner.password, json: "true" }),
+  return signInOverHttp(base, planner.email, planner.password).catch((e: Error) => {
+    throw new Error(`${e.message}: is the demo loaded (npm start)?`);
   });
-  const session = (res.headers.getSetCookie?.() ?? []).map((c) => c.split(";")[0]).find((c) => c.startsWith("next-auth.session-token="));
-  if (!session) throw new Error("sign-in failed: is the demo loaded (npm start)?");
-  return session;
 }
 
 async function api<T>(cookie: string, path: string, init?: RequestInit): Promise<T> {

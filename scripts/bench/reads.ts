@@ -37,6 +37,7 @@ import { hashPassword } from "../../lib/services/users";
 import { planAt } from "../../tests/support/plan-fixture";
 import { createThrowawayDatabase, dropDatabase, ensureTestCluster } from "../../tests/support/test-db";
 import type { World, WorldUserKey } from "../../tests/support/world";
+import { signInOverHttp } from "./sign-in";
 
 const ROOT = fileURLToPath(new URL("../..", import.meta.url));
 const GOAL = 1.5;
@@ -84,21 +85,6 @@ async function stop(child: ChildProcess): Promise<void> {
   }, 5000);
   await exited;
   clearTimeout(timer);
-}
-
-async function signIn(base: string, email: string, password: string): Promise<string> {
-  const csrfRes = await fetch(`${base}/api/auth/csrf`);
-  const jar = (csrfRes.headers.getSetCookie?.() ?? []).map((c) => c.split(";")[0]);
-  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar.join("; ") },
-    body: new URLSearchParams({ csrfToken, email, password, json: "true" }),
-  });
-  const session = (res.headers.getSetCookie?.() ?? []).map((c) => c.split(";")[0]).find((c) => c.startsWith("next-auth.session-token="));
-  if (!session) throw new Error(`sign-in as ${email} failed (${res.status})`);
-  return session;
 }
 
 /** node:http on its own event loop (a worker thread of this process), answering every request with `bytes`. */
@@ -195,7 +181,7 @@ export async function readsBench(seconds = 5): Promise<void> {
     await waitUntilLive(base, server, () => log);
 
     const planner = DEMO_USERS.find((u) => u.key === "planner")!;
-    const cookie = await signIn(base, planner.email, planner.password);
+    const cookie = await signInOverHttp(base, planner.email, planner.password);
     const runUrl = `${base}/api/basins/${basin.id}/runs/${runId}`;
     const runRes = await fetch(runUrl, { headers: { cookie } });
     if (!runRes.ok) throw new Error(`GET run: ${runRes.status}`);
