@@ -27,11 +27,19 @@ function contentSecurityPolicy() {
   ].join("; ");
 }
 
+import { fileURLToPath } from "node:url";
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // A second build folder lets a development server run beside a production build.
   distDir: process.env.SAGLINE_DIST_DIR || ".next",
   reactStrictMode: true,
+  // Stored pages (the published plans' public pages) are checked against the database
+  // before they are served (lib/cache/next-cache-handler.cjs).
+  cacheHandler: fileURLToPath(new URL("./lib/cache/next-cache-handler.cjs", import.meta.url)),
+  // A stored page is sent with `s-maxage` = its revalidate time and no stale-while-revalidate
+  // allowance, so a shared cache (a CDN) keeps a published page no longer than that.
+  expireTime: 300,
   poweredByHeader: false,
   // pg and bcryptjs run on the server only; keep them out of the bundler.
   serverExternalPackages: ["pg", "bcryptjs"],

@@ -1,18 +1,20 @@
 import type { Metadata } from "next";
-import { NotFoundNotice } from "@/components/layout/not-found-notice";
 import { PublicHeader } from "@/components/layout/public-header";
-import { currentActor } from "@/lib/auth/session";
+import { PublicNotFoundNotice } from "@/components/layout/public-not-found";
 
 export const metadata: Metadata = { title: "Not found" };
 
-/** An address outside every section: under the public header, with the ways back. */
-export default async function NotFound() {
-  const actor = await currentActor();
+/**
+ * An address outside every section: under the public header, with the ways back. It reads
+ * no cookie (the browser asks who is signed in), so a stored public page that turns out
+ * missing renders it too.
+ */
+export default function NotFound() {
   return (
     <div className="min-h-screen">
-      <PublicHeader actor={actor} />
+      <PublicHeader />
       <main className="mx-auto max-w-6xl px-4 sm:px-6">
-        <NotFoundNotice signedIn={actor !== null} />
+        <PublicNotFoundNotice />
       </main>
     </div>
   );

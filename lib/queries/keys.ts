@@ -22,6 +22,8 @@ export const queryKeys = {
     plan: (basinId: string, planId: string) => ["basins", basinId, "plans", planId] as const,
   },
   users: () => ["users"] as const,
+  /** Who is signed in, as the shared pages' header shows it. */
+  signedIn: () => ["me", "session"] as const,
 };
 
 /**

@@ -17,7 +17,7 @@ import { conditionRows, conditionsLine, runConditions } from "@/lib/results/run-
 import { AppError } from "@/lib/errors";
 import { reachFeature } from "./networks";
 import { getPlan, getPlanForReader, getPublishedPlan } from "./plans";
-import { cachedPublishedFile, cachedPublishedPage, publicationKey, publishedStamp } from "./published-cache";
+import { cachedPublishedFile, cachedPublishedPage, publicationKey, publicationTag, publishedStamp } from "./published-cache";
 
 export type PlanExportFormat = "pdf" | "csv" | "geojson";
 
@@ -201,15 +201,18 @@ async function makeGeoJson(db: Db, actor: Actor | null, basinId: string, planId:
  * on. The same for every reader, so kept in this process's cache under the plan's stamp
  * (its state, its basin's name, units and zone, and any later published version), which is
  * read on every request: a change made in any process is seen at once. The value is
- * shared between requests; callers must not change it.
+ * shared between requests; callers must not change it. `publication` is the stamp's tag
+ * (publicationTag), which the page writes into its HTML.
  */
 export async function getPublishedPlanWithMap(db: Db, basinId: string, planId: string) {
   const stamp = await publishedStamp(db, basinId, planId);
   if (!stamp) return null;
-  return cachedPublishedPage(publicationKey(stamp, "page"), async () => {
+  const data = await cachedPublishedPage(publicationKey(stamp, "page"), async () => {
     // a published plan reads the same to everyone: no caller is needed (nor kept with the value)
     const found = await getPublishedPlan(db, null, basinId, planId);
     if (!found) return null;
     return { ...found, network: await planNetwork(db, found.plan.id) };
   });
+  // the page carries the stamp it was drawn from, for the page cache's check
+  return data && { ...data, publication: publicationTag(stamp) };
 }

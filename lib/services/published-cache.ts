@@ -36,6 +36,21 @@ export function publicationKey(stamp: PublicationStamp, what: string): string {
   ]);
 }
 
+/**
+ * What a rendered public page records of the stamp it was drawn from (an attribute of its
+ * HTML), so that the page cache (lib/cache/next-cache-handler.cjs) can tell a stored page
+ * from a stale one by comparing it with the stamp read now.
+ */
+export function publicationTag(stamp: PublicationStamp): string {
+  return createHash("sha256").update(publicationKey(stamp, "page")).digest("base64url");
+}
+
+/** The tag a page of this plan must carry to be served from the page cache now; null when it is not published. */
+export async function currentPublicationTag(db: Db, basinId: string, planId: string): Promise<string | null> {
+  const stamp = await publishedStamp(db, basinId, planId);
+  return stamp ? publicationTag(stamp) : null;
+}
+
 /** A strong validator: the SHA-256 of the bytes sent. */
 export function strongEtag(body: Uint8Array | string): string {
   return `"${createHash("sha256").update(body).digest("base64url")}"`;

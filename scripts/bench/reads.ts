@@ -13,7 +13,8 @@
  *   live       GET /api/health/live, signed out (no database)
  *   run        the stored allocation run, signed in (GET /api/basins/:id/runs/:runId, 200)
  *   run 304    the same with If-None-Match (304)
- *   page       the published plan's public page, signed out
+ *   page       the published plan's public page, signed out (served from the page store
+ *              after the first request: lib/cache/next-cache-handler.cjs)
  *   csv, pdf   the published plan's allocation CSV and report, signed out
  *   bare       node:http in a worker thread of this process, the run's JSON bytes
  * Goal: the stored-run read costs at most 1.5× the trivial route (live req/s ÷ run req/s ≤ 1.5).
@@ -207,9 +208,12 @@ export async function readsBench(seconds = 5): Promise<void> {
     }
     const pdfHead = await fetch(targets[5].url, { method: "GET" });
     const pdfBytes = (await pdfHead.arrayBuffer()).byteLength;
+    const pageHead = await fetch(targets[3].url);
+    const pageBytes = (await pageHead.arrayBuffer()).byteLength;
     console.log(
       `reads on next start (production build) at ${base}, ${seconds} s per target and level; stored run ${(runBytes.length / 1024).toFixed(0)} KiB JSON, ` +
-        `published PDF ${(pdfBytes / 1024).toFixed(0)} KiB (Cache-Control ${pdfHead.headers.get("cache-control")}). ` +
+        `published PDF ${(pdfBytes / 1024).toFixed(0)} KiB (Cache-Control ${pdfHead.headers.get("cache-control")}); ` +
+        `published page ${(pageBytes / 1024).toFixed(0)} KiB HTML (stored page: ${pageHead.headers.get("x-nextjs-cache") ?? "not stored"}, Cache-Control ${pageHead.headers.get("cache-control")}). ` +
         `Server and load generator share this machine's cores with whatever else runs: figures, not pass/fail.`,
     );
     for (const connections of [20, 50]) {

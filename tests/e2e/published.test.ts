@@ -177,3 +177,67 @@ describe("a published plan", () => {
     await page.close();
   });
 });
+
+describe("a published plan's page is stored once and served to every reader", () => {
+  // its own basin, so that renaming it changes no other test's page
+  let mine: World;
+  let pageUrl: string;
+  let planId: string;
+  const get = async (cookie?: string) => {
+    const res = await fetch(pageUrl, { headers: cookie ? { cookie } : {} });
+    return { status: res.status, cache: res.headers.get("x-nextjs-cache"), control: res.headers.get("cache-control"), html: await res.text() };
+  };
+  const tag = (html: string) => /data-publication="([^"]+)"/.exec(html)?.[1];
+
+  beforeAll(async () => {
+    mine = await buildWorld(db);
+    ({ planId } = await planAt(db, mine, "published"));
+    pageUrl = `${baseUrl}/published/${mine.basinId}/${planId}`;
+  });
+
+  it("is rendered on its first request, then served from the store, the same HTML signed in or out, cacheable by a CDN", async () => {
+    const first = await get();
+    expect(first.status).toBe(200);
+    expect(first.cache).toBe("MISS");
+    const again = await get();
+    expect(again.cache).toBe("HIT");
+    expect(again.html).toBe(first.html);
+    // a shared cache may keep it five minutes and no longer (no stale-while-revalidate allowance)
+    expect(first.control).toBe("s-maxage=300");
+    // signed in, the reader gets the very same page: the header learns their name in the browser
+    const page = await browser.newPage();
+    await signInAs(page, baseUrl, mine.users.stakeholder.email, WORLD_PASSWORD);
+    const cookie = (await page.context().cookies()).map((c) => `${c.name}=${c.value}`).join("; ");
+    const signedIn = await get(cookie);
+    expect(signedIn.cache).toBe("HIT");
+    expect(signedIn.html).toBe(first.html);
+    expect(signedIn.html).not.toContain(mine.users.stakeholder.name);
+    await page.goto(pageUrl);
+    expect(await page.getByTestId("public-header").getByTestId("signed-in-as").textContent()).toBe(mine.users.stakeholder.name);
+    await page.close();
+  });
+
+  it("is drawn afresh as soon as what it shows changes — the basin renamed, a later version published — however the change was made", async () => {
+    await get();
+    const before = await get();
+    expect(before.cache).toBe("HIT");
+    // changed in the database by this test process, not through the server: the server's next
+    // request must see it all the same (as it would a change made by another server or the worker)
+    const renamed = `Renamed basin ${Date.now()}`;
+    await db.updateTable("basins").set({ name: renamed }).where("id", "=", mine.basinId).execute();
+    const after = await get();
+    expect(after.cache).not.toBe("HIT");
+    expect(after.html).toContain(renamed);
+    expect(tag(after.html)).not.toBe(tag(before.html));
+    expect((await get()).cache).toBe("HIT");
+
+    const later = await planAt(db, mine, "published", { revises: planId });
+    const superseded = await get();
+    expect(superseded.cache).not.toBe("HIT");
+    expect(superseded.html).toContain("Superseded");
+    expect(superseded.html).toContain(`/published/${mine.basinId}/${later.planId}`);
+    const stored = await get();
+    expect(stored.cache).toBe("HIT");
+    expect(stored.html).toContain("Superseded");
+  });
+});

@@ -50,6 +50,10 @@ const CORE: Record<string, Entry> = {
     load: () => import("@/app/api/health/live/route"),
     methods: { GET: { expect: all(200) } },
   },
+  "app/api/me/session/route.ts": {
+    load: () => import("@/app/api/me/session/route"),
+    methods: { GET: { expect: all(200) } },
+  },
   "app/api/me/route.ts": {
     load: () => import("@/app/api/me/route"),
     methods: { GET: { expect: signedIn(200) } },

@@ -12,11 +12,18 @@ import { acknowledgementSummary, responsivenessRows } from "@/lib/results/respon
 import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
 
 export const metadata: Metadata = { title: "Published plan" };
-// Rendered per request: the public layout's header names whoever is signed in (a session
-// cookie), so the HTML is not the same for everyone and must not be stored by shared
-// caches. The plan's data is cached instead (getPublishedPlanWithMap: one row read per
-// request checks the plan is still published and nothing it is drawn with has changed).
-export const dynamic = "force-dynamic";
+// The same for every reader (the header learns who is signed in in the browser), so the
+// rendered page is stored the first time it is asked for and served from the store while
+// it carries the plan's current publication tag (`data-publication` below; checked by one
+// row read per request in lib/cache/next-cache-handler.cjs): a plan withdrawn, superseded
+// or renamed is rendered afresh at once, in every process. Sent with `s-maxage=300`, so a
+// shared cache keeps it at most five minutes, like the downloads.
+export const revalidate = 300;
+export const dynamicParams = true;
+/** No page is rendered at build time (there is no database then); each on its first request. */
+export function generateStaticParams(): { basinId: string; planId: string }[] {
+  return [];
+}
 
 /** A published plan, readable without signing in. */
 export default async function PublishedPlanPage({ params }: { params: Promise<{ basinId: string; planId: string }> }) {
@@ -32,7 +39,7 @@ export default async function PublishedPlanPage({ params }: { params: Promise<{ 
   const timeZone = plan.review?.timeZone ?? "UTC";
   const ack = plan.publicationAcknowledgement;
   return (
-    <main className="mx-auto max-w-6xl px-6 py-10">
+    <main className="mx-auto max-w-6xl px-6 py-10" data-publication={found.publication}>
       <p className="text-sm text-ink-soft">
         <Link href="/published">Published plans</Link> · {basin.name}
       </p>
