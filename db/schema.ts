@@ -115,6 +115,29 @@ export interface GaugeRecordsTable {
   uploaded_at: CreatedAt;
 }
 
+export interface SurveysTable {
+  id: Generated<string>;
+  basin_id: string;
+  /** The network version the stations were placed on. */
+  network_id: string;
+  name: string;
+  /** The units the file was read in (temperature, flow, what a plain "bod" column held). */
+  units: Json<unknown>;
+  file_name: string;
+  size_bytes: number;
+  sha256: string;
+  content: Buffer;
+  /** The earliest and latest sample time as written (ISO 8601), when the file gives them. */
+  first_time: string | null;
+  last_time: string | null;
+  station_count: number;
+  sample_count: number;
+  /** Every sample as placed (lib/survey/place-stations.ts PlacedSample), in Sagline's units. */
+  samples: Json<unknown>;
+  uploaded_by: string | null;
+  uploaded_at: CreatedAt;
+}
+
 export interface FieldMappingsTable {
   id: Generated<string>;
   basin_id: string;
@@ -358,6 +381,7 @@ export interface Database {
   invitations: InvitationsTable;
   basin_follows: BasinFollowsTable;
   gauge_records: GaugeRecordsTable;
+  surveys: SurveysTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

@@ -13,6 +13,7 @@ import * as m2026120301 from "./2026120301_publication_acknowledgement";
 import * as m2026120302 from "./2026120302_plan_lineage";
 import * as m2026120303 from "./2026120303_basin_time_zone";
 import * as m2026120401 from "./2026120401_gauge_records";
+import * as m2026120501 from "./2026120501_surveys";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -34,6 +35,7 @@ export const migrations: Record<string, Migration> = {
   "2026120302_plan_lineage": m2026120302,
   "2026120303_basin_time_zone": m2026120303,
   "2026120401_gauge_records": m2026120401,
+  "2026120501_surveys": m2026120501,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -114,6 +114,11 @@ export const networkOutfalls = (db: Db, networkId: string) =>
     .orderBy("f.name")
     .execute();
 
+/** A network version's reach lines with their lengths, for placing survey stations (lib/survey/place-stations.ts). */
+export async function reachLines(db: Db, networkId: string) {
+  return db.selectFrom("reaches").select(["reach_key", "coordinates", "geometry_length_km", "length_km"]).where("network_id", "=", networkId).orderBy("reach_key").execute();
+}
+
 /** A network version's reach ids, in order (no geometry). */
 export async function reachKeys(db: Db, networkId: string): Promise<string[]> {
   return (await db.selectFrom("reaches").select("reach_key").where("network_id", "=", networkId).orderBy("reach_key").execute()).map((r) => r.reach_key);

@@ -1,4 +1,6 @@
 import type { LowFlowReport } from "../hydrology/low-flow";
+import type { NetworkReachLine, PlacedSample } from "../survey/place-stations";
+import type { SurveyReadOptions, SurveyRowProblem } from "../survey/read-survey";
 import type { FlowUnit } from "../hydrology/read-record";
 import type { CrsInfo, DischargerMapping, FieldInfo, ReachMapping, ReadOptions, SourceFormat, UploadLayer, ValidateOptions } from "../../geo";
 
@@ -16,6 +18,8 @@ export type ImportJob =
   | { kind: "read"; upload: UploadBytes; layer: UploadLayer }
   /** A gauge's daily flow record: read and its low-flow statistics computed (lib/hydrology). */
   | { kind: "gauge"; bytes: Uint8Array; fileName: string; unit: FlowUnit; climaticYearStart: string }
+  /** A synoptic survey: read (CSV, GeoJSON or shapefile points) and its samples placed on the network's reaches. */
+  | { kind: "survey"; format: SourceFormat; bytes: Uint8Array; fileName: string; options: SurveyReadOptions; maxSnapDistanceM?: number; reaches: NetworkReachLine[] }
   | {
       kind: "validate";
       reaches: UploadBytes;
@@ -31,6 +35,11 @@ export type ImportJob =
 export type GaugeReadResult =
   | { ok: true; report: LowFlowReport; sha256: string; dayCount: number; missingDays: number; firstDay: string; lastDay: string }
   | { ok: false; message: string };
+
+/** A survey read and placed in the worker: its samples, or every row problem (nothing is saved then). */
+export type SurveyReadResult =
+  | { ok: true; samples: PlacedSample[]; sha256: string; columns: Record<string, string> }
+  | { ok: false; problems: SurveyRowProblem[]; columns: Record<string, string> };
 
 export interface ReadResult {
   crs: CrsInfo;

@@ -10,7 +10,9 @@ import { validateImport, type ValidateProgress } from "../../geo/validate";
 import type { Problem } from "../../geo/problems";
 import { lowFlowStatistics } from "../hydrology/low-flow";
 import { readDailyRecord, RecordError } from "../hydrology/read-record";
-import { MAX_LISTED_PROBLEMS, type GaugeReadResult, type ImportJob, type ImportRequest, type ImportResponse, type ImportStage, type ReadResult, type UploadBytes, type ValidateResult } from "./import-protocol";
+import { placeSamples } from "../survey/place-stations";
+import { readSurvey } from "../survey/read-survey";
+import { MAX_LISTED_PROBLEMS, type GaugeReadResult, type SurveyReadResult, type ImportJob, type ImportRequest, type ImportResponse, type ImportStage, type ReadResult, type UploadBytes, type ValidateResult } from "./import-protocol";
 
 if (!parentPort) throw new Error("lib/compute/import-worker.ts must be started as a worker thread");
 const port = parentPort;
@@ -88,9 +90,27 @@ function readGauge(job: Extract<ImportJob, { kind: "gauge" }>): GaugeReadResult 
   }
 }
 
-async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateResult | GaugeReadResult> {
+/** A survey file read and its samples placed; a row that cannot be used is an answer (the problems), not a failure. */
+async function readAndPlaceSurvey(job: Extract<ImportJob, { kind: "survey" }>): Promise<SurveyReadResult> {
+  const bytes = own(job.bytes);
+  let read;
+  try {
+    read = await readSurvey(job.format, bytes, job.fileName, job.options);
+  } catch (e) {
+    if (e instanceof GeoError) throw new ReadFailure(e, "file");
+    throw e;
+  }
+  const columns = read.columns as Record<string, string>;
+  if (read.problems.length > 0) return { ok: false, problems: read.problems, columns };
+  const { placed, problems } = placeSamples(job.reaches, read.samples, { maxSnapDistanceM: job.maxSnapDistanceM });
+  if (problems.length > 0) return { ok: false, problems, columns };
+  return { ok: true, samples: placed, sha256: createHash("sha256").update(bytes).digest("hex"), columns };
+}
+
+async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateResult | GaugeReadResult | SurveyReadResult> {
   const progress = (stage: ImportStage, fraction: number) => port.postMessage({ id, type: "progress", stage, fraction } satisfies ImportResponse);
   if (job.kind === "gauge") return readGauge(job);
+  if (job.kind === "survey") return readAndPlaceSurvey(job);
   if (job.kind === "read") {
     const upload = { ...job.upload, bytes: own(job.upload.bytes) };
     const source = await read(upload, job.layer);

@@ -36,6 +36,7 @@ export const AUDIT_ACTION_NAMES: Record<string, string> = {
   "invitation.revoked": "revoked an invitation",
   "import.uploaded": "uploaded a GIS file",
   "gauge.uploaded": "uploaded a gauge's daily flow record",
+  "survey.uploaded": "uploaded a synoptic survey",
   "network.committed": "saved a new network version",
   "network.reach_edited": "edited a reach",
   "network.discharger_edited": "edited an outfall",

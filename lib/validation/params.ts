@@ -19,3 +19,4 @@ export const runParams = basinParams.extend({ runId: id("runId") });
 export const planParams = basinParams.extend({ planId: id("planId") });
 export const threadParams = basinParams.extend({ threadId: id("threadId") });
 export const gaugeParams = basinParams.extend({ gaugeId: id("gaugeId") });
+export const surveyParams = basinParams.extend({ surveyId: id("surveyId") });

@@ -3,6 +3,7 @@ import { join, relative } from "node:path";
 import { fileURLToPath } from "node:url";
 import { commitDemo, demoForm } from "../../support/demo-network";
 import { gaugeForm, uploadDemoGauge } from "../../support/gauge-record";
+import { surveyForm, uploadDemoSurvey } from "../../support/survey";
 import { DEMO_DISCHARGER_MAPPING } from "@/db/seed/demo-gis";
 import {
   SCENARIO,
@@ -156,6 +157,31 @@ const CORE: Record<string, Entry> = {
         expect: planners(200),
         prepare: async (w) => ({ gaugeId: (await uploadDemoGauge(matrix.db, w.users.planner, w.basinId)).id }),
         params: (w, p) => ({ basinId: w.basinId, gaugeId: p.gaugeId }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/surveys/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/surveys/route"),
+    methods: {
+      GET: { expect: planners(200), params: basin },
+      POST: {
+        expect: planners(201),
+        prepare: async (w) => ({ networkId: (await commitDemo(matrix.db, w.users.planner, w.basinId)).network.id }),
+        params: basin,
+        body: () => surveyForm(),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/surveys/[surveyId]/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/surveys/[surveyId]/route"),
+    methods: {
+      GET: {
+        expect: planners(200),
+        prepare: async (w) => {
+          await commitDemo(matrix.db, w.users.planner, w.basinId);
+          return { surveyId: (await uploadDemoSurvey(matrix.db, w.users.planner, w.basinId)).id };
+        },
+        params: (w, p) => ({ basinId: w.basinId, surveyId: p.surveyId }),
       },
     },
   },
