@@ -1,0 +1,36 @@
+"use client";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import type { SurveyDto, SurveySummaryDto } from "@/lib/services/surveys";
+import type { SurveyUpload } from "@/lib/validation/surveys";
+import { apiFetch } from "./fetcher";
+import { queryKeys } from "./keys";
+
+/** The basin's surveys, newest first (no samples). */
+export function useSurveysQuery(basinId: string) {
+  return useQuery({ queryKey: queryKeys.basins.surveys(basinId), queryFn: () => apiFetch<SurveySummaryDto[]>(`/api/basins/${basinId}/surveys`) });
+}
+
+/** One survey with every sample as placed; `surveyId` null asks nothing. */
+export function useSurveyQuery(basinId: string, surveyId: string | null) {
+  return useQuery({
+    queryKey: queryKeys.basins.survey(basinId, surveyId ?? "none"),
+    queryFn: () => apiFetch<SurveyDto>(`/api/basins/${basinId}/surveys/${surveyId}`),
+    enabled: surveyId !== null,
+    // a survey never changes once saved
+    staleTime: Number.POSITIVE_INFINITY,
+  });
+}
+
+/** Upload a synoptic survey (multipart: the file and the form's fields). */
+export function useUploadSurveyMutation(basinId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: ({ file, fields }: { file: File; fields: SurveyUpload }) => {
+      const form = new FormData();
+      for (const [k, v] of Object.entries(fields)) if (v !== undefined && v !== "") form.set(k, String(v));
+      form.set("file", file);
+      return apiFetch<SurveyDto>(`/api/basins/${basinId}/surveys`, { method: "POST", body: form });
+    },
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.basins.surveys(basinId) }),
+  });
+}
