@@ -12,7 +12,9 @@ import { scenarioCreateSchema } from "@/lib/validation/scenario";
 import { uploadImport } from "./imports";
 import { commitNetwork } from "./networks";
 import { gaugeUploadSchema } from "@/lib/validation/gauges";
+import { surveyUploadSchema } from "@/lib/validation/surveys";
 import { uploadGaugeRecord } from "./gauges";
+import { uploadSurvey } from "./surveys";
 import { createScenario } from "./scenarios";
 
 /**
@@ -39,10 +41,17 @@ export const DEMO_GAUGE = {
   fields: { name: "Tamsel River at Quillford", stationCode: "TQ-0410", reachId: "TR-04", unit: "m3/s", climaticYearStart: "04-01" },
 };
 
+/** The demo's invented synoptic survey of the main stem (examples/README.md; invented, for the demo only). */
+export const DEMO_SURVEY = {
+  file: "examples/tamsel-survey-2026-08.csv",
+  fields: { name: "August 2026 main-stem survey" },
+};
+
 /**
  * Load the demo basin's network from the demo GIS files through the same
  * upload → validate → commit path a planner uses, with one ready scenario
- * (DEMO_STRESS_SCENARIO) and the invented gauge's daily record (DEMO_GAUGE). Skipped when the basin already has a network.
+ * (DEMO_STRESS_SCENARIO), the invented gauge's daily record (DEMO_GAUGE) and the invented
+ * survey (DEMO_SURVEY). Skipped when the basin already has a network.
  * Returns the new version number, or null.
  */
 export async function loadDemoNetwork(db: Db, root: string): Promise<number | null> {
@@ -68,5 +77,6 @@ export async function loadDemoNetwork(db: Db, root: string): Promise<number | nu
   await createScenario(scope, scenarioCreateSchema.parse(DEMO_STRESS_SCENARIO));
   // the invented gauge at Quillford (examples/, made by scripts/make-demo-gauge.ts), with its low flows
   await uploadGaugeRecord(scope, read(DEMO_GAUGE.file), gaugeUploadSchema.parse(DEMO_GAUGE.fields));
+  await uploadSurvey(scope, read(DEMO_SURVEY.file), surveyUploadSchema.parse(DEMO_SURVEY.fields));
   return network.version;
 }

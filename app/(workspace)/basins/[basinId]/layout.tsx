@@ -25,6 +25,7 @@ export default async function BasinLayout({
     { href: `/basins/${basin.id}`, label: "Overview", show: true },
     { href: `/basins/${basin.id}/network`, label: "Network", show: access.can("scenario.read") },
     { href: `/basins/${basin.id}/gauges`, label: "Gauges", show: access.can("scenario.read") },
+    { href: `/basins/${basin.id}/surveys`, label: "Surveys", show: access.can("scenario.read") },
     { href: `/basins/${basin.id}/scenarios`, label: "Scenarios", show: access.can("scenario.read") },
     { href: `/basins/${basin.id}/plans`, label: "Plans", show: true },
     { href: `/basins/${basin.id}/my-facilities`, label: "My facilities", show: (await myFacilityIds(access.scope)).length > 0 },

@@ -1,0 +1,159 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import type { z } from "zod";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { applyApiError } from "@/components/ui/form-error";
+import { Notice } from "@/components/ui/notice";
+import { ApiError } from "@/lib/queries/fetcher";
+import { useUploadSurveyMutation } from "@/lib/queries/surveys";
+import { surveyUploadSchema, type SurveyUpload } from "@/lib/validation/surveys";
+
+const FIELDS = ["name", "temperatureUnit", "flowUnit", "bodKind", "epsg", "maxSnapDistanceM", "file"] as const;
+
+/** "file.row 3.do" → "Row 3, do"; "file.station" → "station". */
+const where = (path: string) =>
+  path
+    .replace(/^file\./, "")
+    .replace(/^row (\d+)\./, "Row $1, ")
+    .replace(/^row (\d+)$/, "Row $1");
+
+/**
+ * Upload a synoptic survey. The fields are checked by the upload route's own schema; a file
+ * with rows Sagline cannot use is refused whole, and every row at fault is listed here.
+ */
+export function SurveyUploadForm({ basinId }: { basinId: string }) {
+  const router = useRouter();
+  const upload = useUploadSurveyMutation(basinId);
+  const [file, setFile] = useState<File | null>(null);
+  const [failure, setFailure] = useState<{ message: string; rows: { path: string; message: string }[] } | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    clearErrors,
+    formState: { errors, isSubmitting },
+  } = useForm<z.input<typeof surveyUploadSchema>, unknown, SurveyUpload>({
+    resolver: zodResolver(surveyUploadSchema),
+    defaultValues: { name: "", temperatureUnit: "C", flowUnit: "m3/s", bodKind: "bod5", maxSnapDistanceM: 500 },
+  });
+  const submit = handleSubmit(async (fields) => {
+    setFailure(null);
+    if (!file) {
+      setError("file" as never, { type: "required", message: "Choose the survey's file" });
+      return;
+    }
+    try {
+      const survey = await upload.mutateAsync({ file, fields });
+      router.push(`/basins/${basinId}/surveys/${survey.id}`);
+    } catch (error) {
+      const message = applyApiError(error, setError as never, FIELDS);
+      const rows = error instanceof ApiError ? (error.details ?? []).filter((d) => d.path.startsWith("file.")) : [];
+      if (message || rows.length) setFailure({ message, rows });
+    }
+  });
+  const fileError = (errors as Record<string, { message?: string } | undefined>).file?.message;
+  return (
+    <form onSubmit={submit} className="card space-y-4" noValidate aria-label="Upload a synoptic survey">
+      <h2>Upload a synoptic survey</h2>
+      <p className="text-sm text-ink-soft">
+        One row (or point) per sample: a station, where it was taken — latitude and longitude (or a GeoJSON / zipped shapefile point), or a reach id
+        and the km from the reach&apos;s head — and when, with any of DO, water temperature, BOD5 or CBODu, NH3-N and flow. Columns are found by their
+        names (station, lat, lon, reach, km, date, time, do, temperature, bod5, cbodu, nh3n, flow, weight). Each station is placed on the basin&apos;s
+        newest network as outfalls are; the file is kept as uploaded.
+      </p>
+      <div>
+        <label htmlFor="survey-file" className="field-label">
+          Survey file
+        </label>
+        <input
+          id="survey-file"
+          type="file"
+          accept=".csv,.geojson,.json,.zip,text/csv,application/geo+json,application/zip"
+          className="field-input"
+          aria-invalid={fileError ? true : undefined}
+          onChange={(e) => {
+            setFile(e.target.files?.[0] ?? null);
+            clearErrors("file" as never);
+          }}
+        />
+        {fileError && <p className="field-error">{fileError}</p>}
+      </div>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <Field label="Survey name" error={errors.name?.message} {...register("name")} id="survey-name" />
+        <Field
+          label="Snapping limit (m)"
+          hint="A station farther than this from every reach is refused."
+          type="number"
+          inputMode="decimal"
+          error={errors.maxSnapDistanceM?.message}
+          {...register("maxSnapDistanceM")}
+          id="survey-snap"
+        />
+        <Field
+          label="EPSG code of the coordinates (optional)"
+          hint="Only for a file without its own CRS; latitude and longitude are WGS 84."
+          inputMode="numeric"
+          error={errors.epsg?.message}
+          {...register("epsg", { setValueAs: (v) => (v === "" || v === undefined ? undefined : v) })}
+          id="survey-epsg"
+        />
+      </div>
+      <div className="grid gap-4 sm:grid-cols-3">
+        <fieldset>
+          <legend className="field-label">Water temperature in</legend>
+          <div className="flex gap-6 text-sm">
+            <label className="flex items-center gap-2">
+              <input type="radio" value="C" {...register("temperatureUnit")} /> °C
+            </label>
+            <label className="flex items-center gap-2">
+              <input type="radio" value="F" {...register("temperatureUnit")} /> °F
+            </label>
+          </div>
+        </fieldset>
+        <fieldset>
+          <legend className="field-label">Flow in</legend>
+          <div className="flex gap-6 text-sm">
+            <label className="flex items-center gap-2">
+              <input type="radio" value="m3/s" {...register("flowUnit")} /> m³/s
+            </label>
+            <label className="flex items-center gap-2">
+              <input type="radio" value="cfs" {...register("flowUnit")} /> cfs
+            </label>
+          </div>
+        </fieldset>
+        <fieldset>
+          <legend className="field-label">A column named &ldquo;bod&rdquo; holds</legend>
+          <div className="flex gap-6 text-sm">
+            <label className="flex items-center gap-2">
+              <input type="radio" value="bod5" {...register("bodKind")} /> BOD5
+            </label>
+            <label className="flex items-center gap-2">
+              <input type="radio" value="cbodu" {...register("bodKind")} /> CBODu
+            </label>
+          </div>
+        </fieldset>
+      </div>
+      {failure && (
+        <Notice tone="error" title="The survey was not saved">
+          {failure.message && <p>{failure.message}</p>}
+          {failure.rows.length > 0 && (
+            <ul className="mt-2 list-disc pl-5" data-testid="survey-problems">
+              {failure.rows.map((r, i) => (
+                <li key={i}>
+                  <span className="font-medium">{where(r.path)}:</span> {r.message}
+                </li>
+              ))}
+            </ul>
+          )}
+        </Notice>
+      )}
+      <Button type="submit" disabled={isSubmitting}>
+        {isSubmitting ? "Reading and placing the stations…" : "Upload and place the stations"}
+      </Button>
+    </form>
+  );
+}
