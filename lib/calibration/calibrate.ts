@@ -147,7 +147,12 @@ export function jacobian(f: (values: number[]) => number[], values: readonly num
  * Fits `fit` to `observations` on `file` (its own conditions: the survey day's flows and
  * temperatures). Throws ModelInputError naming the field at fault.
  */
-export function calibrate(file: ModelFile, observations: readonly Observation[], fit: readonly FitEntry[], options: { maxIterations?: number } = {}): CalibrationResult {
+export function calibrate(
+  file: ModelFile,
+  observations: readonly Observation[],
+  fit: readonly FitEntry[],
+  options: { maxIterations?: number; onProgress?: (iterations: number, limit: number) => void } = {},
+): CalibrationResult {
   checkInput(file, observations, fit);
   const w = observations.map((o) => Math.sqrt(o.weight ?? 1));
   const obs = observations.map((o) => o.do_mg_l);
@@ -185,6 +190,7 @@ export function calibrate(file: ModelFile, observations: readonly Observation[],
       },
     );
     iterations += lm.iterations;
+    options.onProgress?.(iterations, limit);
     const moved = lm.parameterValues.some((v, j) => Math.abs(v - current[j]) > 1e-9 * (fit[j].max - fit[j].min));
     current = lm.parameterValues;
     const error = lm.parameterError;

@@ -1,11 +1,12 @@
 import type { AllocateOptions } from "../model/allocation/allocate";
 import type { ModelFile } from "../model/types";
+import type { CalibrationSpec } from "../calibration/payload";
 
 /** A job for the compute worker: one model run, one allocation, or everything a stored run computes. */
 export type ComputeJob =
   | { kind: "run"; file: ModelFile }
   | { kind: "allocate"; file: ModelFile; options?: Omit<AllocateOptions, "inspect_lp"> }
-  | { kind: "payload"; runKind: "model" | "allocation"; files: { name: string; file: ModelFile }[]; warnings: string[] };
+  | { kind: "payload"; runKind: "model" | "allocation" | "calibration"; files: { name: string; file: ModelFile }[]; warnings: string[]; calibration?: CalibrationSpec };
 
 /** An error as it crosses the thread boundary. */
 export interface SerializedError {

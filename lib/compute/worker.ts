@@ -1,5 +1,5 @@
 /**
- * Worker-thread entry: runs model and allocation jobs off the event loop of the process
+ * Worker-thread entry: runs model, allocation and calibration jobs off the event loop of the process
  * that asked (the web server or the background worker). Messages in: ComputeRequest; out:
  * ComputeResponse (progress messages first for a payload job). Pure computation, no I/O.
  */
@@ -7,14 +7,14 @@ import { parentPort } from "node:worker_threads";
 import { allocate } from "../model/allocation/allocate";
 import { ModelInputError } from "../model/errors";
 import { runModel } from "../model/network/run";
-import { computeRunPayload } from "../model/run-payload";
+import { storedRunPayload } from "./stored-run";
 import type { ComputeRequest, ComputeResponse } from "./protocol";
 
 function handle(req: ComputeRequest, progress: (done: number) => void): ComputeResponse {
   try {
     const job = req.job;
     const result =
-      job.kind === "run" ? runModel(job.file) : job.kind === "allocate" ? allocate(job.file, job.options) : computeRunPayload(job.runKind, job.files, job.warnings, progress);
+      job.kind === "run" ? runModel(job.file) : job.kind === "allocate" ? allocate(job.file, job.options) : storedRunPayload(job, progress);
     return { id: req.id, ok: true, result };
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));

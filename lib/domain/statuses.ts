@@ -1,5 +1,5 @@
 /** What a run computes (runs.kind). */
-export const RUN_KINDS = ["model", "allocation"] as const;
+export const RUN_KINDS = ["model", "allocation", "calibration"] as const;
 export type RunKind = (typeof RUN_KINDS)[number];
 
 /** Where a run is (runs.status). */
@@ -13,6 +13,7 @@ export type PlanStatus = (typeof PLAN_STATUSES)[number];
 export const RUN_KIND_NAMES: Readonly<Record<RunKind, string>> = {
   model: "Model run on today's loads",
   allocation: "Allocation run",
+  calibration: "Calibration to a survey",
 };
 
 export const RUN_STATUS_NAMES: Readonly<Record<RunStatus, string>> = {

@@ -2,6 +2,7 @@ import { allocate, type AllocationResult } from "./allocation/allocate";
 import { runsAfterAllocation } from "./allocation/after";
 import { runModel, type RunResult } from "./network/run";
 import type { ModelFile } from "./types";
+import type { CalibrationRecord } from "../calibration/payload";
 
 /** A stored run's result: DO under each design condition, and the allocation when there is one. */
 export interface RunPayload {
@@ -9,6 +10,8 @@ export interface RunPayload {
   /** Model runs: today's loads under each condition. Allocation runs: the allocated loads under each condition. */
   conditions: { name: string; run: RunResult }[];
   allocation?: AllocationResult;
+  /** Calibration runs: the fit to a survey (lib/calibration/payload.ts); `conditions` then holds the fitted model's run. */
+  calibration?: CalibrationRecord;
 }
 
 /**

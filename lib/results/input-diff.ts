@@ -1,4 +1,4 @@
-import type { UnitSystem } from "@/lib/domain";
+import type { RunKind, UnitSystem } from "@/lib/domain";
 import { conditionFlowText } from "./condition-flow";
 import { nameOf, OBJECTIVE_NAMES, REAERATION_NAMES } from "@/lib/format/labels";
 import { formatIn, formatPercent, unitLabel } from "@/lib/format/quantities";
@@ -8,7 +8,7 @@ import type { ScenarioInputs } from "@/lib/validation/scenario";
 
 /** What a compared run was computed from: the scenario as run (when known) and its model files. */
 export interface RunInputsForDiff {
-  kind: "model" | "allocation";
+  kind: RunKind;
   /** The scenario inputs the run used; null for a run stored before runs kept them. */
   inputs: ScenarioInputs | null;
   networkId?: string | null;

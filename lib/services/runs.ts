@@ -7,20 +7,26 @@ import { findDoneRunByHash, findRun, findRunJsonText, findScenario, insertRun, l
 import type { RunKind } from "@/db/schema";
 import { enqueueRun, findRunJob, runTimeLimitSeconds } from "@/lib/jobs/queue";
 import { ComputeTimeoutError } from "@/lib/compute/pool";
-import { computeRunPayload, ModelInputError, type ModelFile, type RunPayload, type RunResult } from "@/lib/model";
+import { ModelInputError, type ModelFile, type RunPayload, type RunResult } from "@/lib/model";
+import { storedRunPayload, type StoredRunJob } from "@/lib/compute/stored-run";
+import type { CalibrationSpec } from "@/lib/calibration/payload";
 import type { BasinScope } from "@/lib/auth/scope";
 import { AppError, notFound } from "@/lib/errors";
 import { buildConditionFiles, buildModelFile, ScenarioInputError } from "@/lib/scenarios/build-model-file";
 import { MODEL_VERSION, SATURATION_METHOD } from "@/lib/scenarios/model-version";
+import type { CalibrationRunRequest } from "@/lib/validation/calibration";
 import { scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
 import { loadNetworkForModel } from "./scenarios";
+import { getSurvey } from "./surveys";
 
 /** What a run computes: the model files it will use, as stored with it. */
 export interface RunInputs {
   kind: RunKind;
-  /** Model runs: one file per condition; allocation runs: one file (further conditions inside). */
+  /** Model runs: one file per condition; allocation runs: one file (further conditions inside); calibrations: the survey's condition. */
   files: { name: string; file: ModelFile }[];
   warnings: string[];
+  /** Calibration runs: the survey's observations and what is fitted (lib/calibration/payload.ts). */
+  calibration?: CalibrationSpec;
   /**
    * The scenario exactly as it was run (name, version, network and inputs),
    * so a plan proposed later records what this run used, not what the
@@ -49,8 +55,11 @@ function stableJson(value: unknown): string {
   return JSON.stringify(value);
 }
 
+/** What makes two runs the same computation (a calibration's survey and fit too; model and allocation hashes are as they always were). */
 export const inputsHash = (inputs: RunInputs) =>
-  createHash("sha256").update(stableJson({ model: MODEL_VERSION, kind: inputs.kind, files: inputs.files })).digest("hex");
+  createHash("sha256")
+    .update(stableJson({ model: MODEL_VERSION, kind: inputs.kind, files: inputs.files, ...(inputs.calibration ? { calibration: inputs.calibration } : {}) }))
+    .digest("hex");
 
 export interface RunSummaryDto {
   id: string;
@@ -100,28 +109,42 @@ const summary = (r: RunRow & { scenario_name: string }): RunSummaryDto => ({
  * files are built (and checked) here, stored with the run and hashed; a
  * finished run with the same inputs is returned instead of computing again.
  */
-export async function createRun(scope: BasinScope, scenarioId: string, kind: RunKind): Promise<RunSummaryDto & { reused: boolean }> {
+export async function createRun(scope: BasinScope, scenarioId: string, kind: "model" | "allocation"): Promise<RunSummaryDto & { reused: boolean }> {
   scope.require("scenario.run");
-  const { db, actor, basin } = scope;
+  const { db, basin } = scope;
   const scenario = await findScenario(db, basin.id, scenarioId);
   if (!scenario) throw notFound("Scenario");
   const inputs = scenarioInputsSchema.parse(scenario.inputs);
   const network = await loadNetworkForModel(db, scenario.network_id);
-  let runInputs: RunInputs;
-  try {
+  const runInputs = scenarioFiles(() => {
     if (kind === "model") {
       const files = buildConditionFiles(network, inputs, basin.do_criterion_mg_l);
-      runInputs = { kind, files: files.map(({ name, file }) => ({ name, file })), warnings: files.flatMap((f) => f.warnings) };
-    } else {
-      const built = buildModelFile(network, inputs, basin.do_criterion_mg_l, true);
-      runInputs = { kind, files: [{ name: inputs.conditions[0].name, file: built.file }], warnings: built.warnings };
+      return { kind, files: files.map(({ name, file }) => ({ name, file })), warnings: files.flatMap((f) => f.warnings) };
     }
+    const built = buildModelFile(network, inputs, basin.do_criterion_mg_l, true);
+    return { kind, files: [{ name: inputs.conditions[0].name, file: built.file }], warnings: built.warnings };
+  });
+  return queueRun(scope, scenario, inputs, runInputs, { kind });
+}
+
+/** The model files a scenario builds, its input problems as a 422 naming the field. */
+function scenarioFiles(build: () => RunInputs): RunInputs {
+  try {
+    return build();
   } catch (error) {
     if (error instanceof ScenarioInputError) {
       throw new AppError("invalid", error.message, [{ path: error.path, message: error.message }]);
     }
     throw error;
   }
+}
+
+type ScenarioRow = NonNullable<Awaited<ReturnType<typeof findScenario>>>;
+
+/** Store and queue a run (or return the finished run with the very same inputs), audited. */
+async function queueRun(scope: BasinScope, scenario: ScenarioRow, inputs: ScenarioInputs, runInputs: RunInputs, details: Record<string, unknown>): Promise<RunSummaryDto & { reused: boolean }> {
+  const { db, actor, basin } = scope;
+  const kind = runInputs.kind;
   runInputs.scenario = { id: scenario.id, name: scenario.name, version: scenario.version, networkId: scenario.network_id, inputs };
   const hash = inputsHash(runInputs);
   const done = await findDoneRunByHash(db, basin.id, kind, hash);
@@ -146,13 +169,71 @@ export async function createRun(scope: BasinScope, scenarioId: string, kind: Run
       action: "run.queued",
       targetType: "run",
       targetId: run.id,
-      details: { scenario: scenario.name, kind },
+      details: { scenario: scenario.name, ...details },
     });
     // the job is written in this transaction: no run row without its job, and no job without its run
     await enqueueRun(run.id, trx);
     return run;
   });
   return { ...summary((await findRun(db, basin.id, id, false))!), reused: false };
+}
+
+/**
+ * Queue a calibration: the coefficients `request.fit` names, fitted by bounded least squares
+ * to the DO of a survey's samples on the scenario's condition that stands for the survey's day
+ * (its flows, temperatures and today's loads), in the background worker like any run. Samples
+ * without DO are left out and listed; a sample on a reach the scenario's network lacks, a
+ * condition or reach the scenario does not have, or fewer samples than coefficients is a 422
+ * naming the field.
+ */
+export async function createCalibrationRun(scope: BasinScope, scenarioId: string, request: CalibrationRunRequest): Promise<RunSummaryDto & { reused: boolean }> {
+  scope.require("scenario.run");
+  const { db, basin } = scope;
+  const scenario = await findScenario(db, basin.id, scenarioId);
+  if (!scenario) throw notFound("Scenario");
+  const survey = await getSurvey(scope, request.surveyId).catch((e: unknown) => {
+    if (e instanceof AppError && e.code === "not_found") throw new AppError("invalid", "There is no such survey in this basin", [{ path: "surveyId", message: "Unknown survey" }]);
+    throw e;
+  });
+  const inputs = scenarioInputsSchema.parse(scenario.inputs);
+  const network = await loadNetworkForModel(db, scenario.network_id);
+  const files = scenarioFiles(() => {
+    const built = buildConditionFiles(network, inputs, basin.do_criterion_mg_l);
+    return { kind: "calibration", files: built.map(({ name, file }) => ({ name, file })), warnings: built.flatMap((f) => f.warnings) };
+  });
+  const chosen = files.files.find((f) => f.name === request.condition);
+  if (!chosen) {
+    throw new AppError("invalid", `The scenario has no condition "${request.condition}"`, [{ path: "condition", message: `One of ${files.files.map((f) => f.name).join(", ")}` }]);
+  }
+  const reaches = new Map(chosen.file.reaches.map((r) => [r.id, r]));
+  const allReaches = [...reaches.keys()];
+  const fit = request.fit.map((f, i) => {
+    const ids = f.reaches === "all" ? allReaches : f.reaches;
+    const unknown = ids.find((id) => !reaches.has(id));
+    if (unknown) throw new AppError("invalid", `Reach "${unknown}" is not in the scenario's network`, [{ path: `fit.${i}.reaches`, message: `Unknown reach ${unknown}` }]);
+    return { parameter: f.parameter, reaches: [...ids], min: f.min, max: f.max, start: f.start };
+  });
+  const observed = survey.samples.filter((s) => s.do_mg_l !== null);
+  const missing = observed.find((s) => !reaches.has(s.reach));
+  if (missing) {
+    throw new AppError("invalid", `Station ${missing.station} of the survey lies on reach ${missing.reach}, which the scenario's network does not have`, [
+      { path: "surveyId", message: `The survey was placed on network version ${survey.networkVersion}` },
+    ]);
+  }
+  if (observed.length <= fit.length) {
+    throw new AppError("invalid", `The survey has ${observed.length} DO value(s) for ${fit.length} coefficient(s): a fit needs more observations than coefficients`, [
+      { path: "fit", message: "Fit fewer coefficients, or use a survey with more DO values" },
+    ]);
+  }
+  const calibration: CalibrationSpec = {
+    survey: { id: survey.id, name: survey.name, fileName: survey.fileName, sha256: survey.sha256, networkVersion: survey.networkVersion, firstTime: survey.firstTime, lastTime: survey.lastTime },
+    condition: chosen.name,
+    observations: observed.map((s) => ({ station: s.station, reach: s.reach, km: Math.min(s.km, reaches.get(s.reach)!.length_km), do_mg_l: s.do_mg_l!, ...(s.weight !== null ? { weight: s.weight } : {}) })),
+    fit,
+    leftOut: survey.samples.filter((s) => s.do_mg_l === null).map((s) => ({ station: s.station, row: s.row, reason: "no DO value" })),
+  };
+  const runInputs: RunInputs = { kind: "calibration", files: [chosen], warnings: files.warnings, calibration };
+  return queueRun(scope, scenario, inputs, runInputs, { kind: "calibration", survey: survey.name, condition: chosen.name });
 }
 
 /** A readable reason for a failed run (never a stack trace). */
@@ -173,9 +254,9 @@ function methodsOf(runs: RunResult[]): Record<string, unknown> {
 }
 
 /** How a run's computation is done: in this thread (tests, CLI) or in a worker thread with a time limit (the background worker). */
-export type RunCompute = (job: { runKind: "model" | "allocation"; files: RunInputs["files"]; warnings: string[] }, onProgress: (done: number) => void) => Promise<RunPayload>;
+export type RunCompute = (job: StoredRunJob, onProgress: (done: number) => void) => Promise<RunPayload>;
 
-const computeInline: RunCompute = async (job, onProgress) => computeRunPayload(job.runKind, job.files, job.warnings, onProgress);
+const computeInline: RunCompute = async (job, onProgress) => storedRunPayload(job, onProgress);
 
 /**
  * The job: compute a queued run and store its result or its failure reason.
@@ -195,7 +276,7 @@ export async function processRun(db: Db, runId: string, compute: RunCompute = co
   };
   try {
     const inputs = run.model_file as unknown as RunInputs;
-    const payload = await compute({ runKind: run.kind, files: inputs.files, warnings: inputs.warnings }, onProgress);
+    const payload = await compute({ runKind: run.kind, files: inputs.files, warnings: inputs.warnings, ...(inputs.calibration ? { calibration: inputs.calibration } : {}) }, onProgress);
     await written;
     await setUnfinishedRunState(db, runId, {
       status: "done",

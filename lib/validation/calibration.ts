@@ -29,3 +29,33 @@ export const calibrationSchema = z.strictObject({
   observations: z.array(observationSchema).min(1, "observations must hold at least one observation").max(10_000),
   fit: z.array(fitEntrySchema).min(1, "fit must name at least one coefficient").max(50),
 });
+
+/**
+ * A calibration run asked from the app (POST …/scenarios/:scenarioId/calibrations): the survey
+ * whose DO is fitted, the scenario condition that stands for the survey's day, and each
+ * coefficient with the reaches it applies to ("all" for every reach), its bounds and start.
+ * Each sample's weight is the survey's own (its weight column; 1 when none).
+ */
+export const calibrationRunSchema = z.strictObject({
+  surveyId: z.string({ message: "choose the survey" }).uuid("choose the survey"),
+  condition: z.string({ message: "choose the condition" }).trim().min(1, "choose the condition"),
+  fit: z
+    .array(
+      z
+        .strictObject({
+          parameter: z.enum(FIT_PARAMETERS, { message: `parameter must be one of ${FIT_PARAMETERS.join(", ")}` }),
+          reaches: z.union([z.literal("all"), z.array(z.string().min(1)).min(1, "reaches must name at least one reach")]),
+          min: finite("min").refine((v) => v >= 0, "min cannot be negative"),
+          max: finite("max"),
+          start: finite("start"),
+        })
+        .superRefine((f, ctx) => {
+          if (!(f.min < f.max)) ctx.addIssue({ code: "custom", path: ["max"], message: "max must be above min" });
+          else if (!(f.start >= f.min && f.start <= f.max)) ctx.addIssue({ code: "custom", path: ["start"], message: "start must lie within min–max" });
+          if (f.parameter === "ka_multiplier" && f.min <= 0) ctx.addIssue({ code: "custom", path: ["min"], message: "min must be above 0 for a k_a multiplier" });
+        }),
+    )
+    .min(1, "choose at least one coefficient to fit")
+    .max(12, "fit at most 12 coefficients at once"),
+});
+export type CalibrationRunRequest = z.infer<typeof calibrationRunSchema>;

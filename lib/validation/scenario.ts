@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ALLOCATION_OBJECTIVES, DEFAULT_KA_METHOD, DESIGN_FLOW_NAMES, DEFAULT_OBJECTIVE, DEFAULT_THETA_RULE, KA_METHODS, RUN_KINDS, THETA_RULES } from "@/lib/domain";
+import { ALLOCATION_OBJECTIVES, DEFAULT_KA_METHOD, DESIGN_FLOW_NAMES, DEFAULT_OBJECTIVE, DEFAULT_THETA_RULE, KA_METHODS, THETA_RULES } from "@/lib/domain";
 import { SCENARIO_FIELD_LABELS as L } from "@/lib/format/labels";
 
 // Messages name the field by the label the editor shows (SCENARIO_FIELD_LABELS), with its unit.
@@ -190,6 +190,7 @@ export const scenarioUpdateSchema = z.object({
 });
 export type ScenarioUpdate = z.infer<typeof scenarioUpdateSchema>;
 
-export const runCreateSchema = z.object({ kind: z.enum(RUN_KINDS) });
+/** A run a scenario's Run buttons start (a calibration has its own request: lib/validation/calibration.ts). */
+export const runCreateSchema = z.object({ kind: z.enum(["model", "allocation"]) });
 
 export const scenarioDuplicateSchema = z.object({ name: z.string().trim().min(1).max(120) });

@@ -294,6 +294,17 @@ const CORE: Record<string, Entry> = {
       POST: { expect: planners(202), prepare: withScenario, params: scenarioOf, body: () => ({ kind: "model" }) },
     },
   },
+  "app/api/basins/[basinId]/scenarios/[scenarioId]/calibrations/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/scenarios/[scenarioId]/calibrations/route"),
+    methods: {
+      POST: {
+        expect: planners(202),
+        prepare: async (w) => ({ ...(await withScenario(w)), surveyId: (await uploadDemoSurvey(matrix.db, w.users.planner, w.basinId)).id }),
+        params: scenarioOf,
+        body: (_w, p) => ({ surveyId: p.surveyId, condition: "7Q10", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.05, max: 3, start: 0.3 }] }),
+      },
+    },
+  },
   "app/api/basins/[basinId]/runs/route.ts": {
     load: () => import("@/app/api/basins/[basinId]/runs/route"),
     methods: { GET: { expect: planners(200), params: basin } },

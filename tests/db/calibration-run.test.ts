@@ -1,0 +1,141 @@
+import { beforeAll, describe, expect, it } from "vitest";
+import { calibrate, modelledDo, withParameters } from "@/lib/calibration/calibrate";
+import type { CalibrationSpec } from "@/lib/calibration/payload";
+import { createComputePool } from "@/lib/compute/pool";
+import { AppError } from "@/lib/errors";
+import type { ModelFile } from "@/lib/model/types";
+import { runModel } from "@/lib/model/network/run";
+import { createCalibrationRun, getRun, processRun } from "@/lib/services/runs";
+import { createScenario } from "@/lib/services/scenarios";
+import { uploadSurvey } from "@/lib/services/surveys";
+import { calibrationRunSchema } from "@/lib/validation/calibration";
+import { scenarioCreateSchema } from "@/lib/validation/scenario";
+import { surveyUploadSchema } from "@/lib/validation/surveys";
+import { commitDemo } from "../support/demo-network";
+import { fileDb } from "../support/file-db";
+import { scoped } from "../support/scoped";
+import { uploadDemoSurvey } from "../support/survey";
+import { buildWorld, type World } from "../support/world";
+
+const db = fileDb();
+let w: World;
+let scenarioId: string;
+let demoSurvey: Awaited<ReturnType<typeof uploadDemoSurvey>>;
+
+beforeAll(async () => {
+  w = await buildWorld(db);
+  await commitDemo(db, w.users.planner, w.basinId);
+  demoSurvey = await uploadDemoSurvey(db, w.users.planner, w.basinId);
+  const scenario = await scoped(createScenario)(
+    db,
+    w.users.planner,
+    w.basinId,
+    scenarioCreateSchema.parse({ name: "Survey day", inputs: { conditions: [{ name: "7Q10" }, { name: "12 August 2026", flowScale: 1.4, temperatureC: 24.5 }] } }),
+  );
+  scenarioId = scenario.id;
+});
+
+const ask = (body: unknown) => scoped(createCalibrationRun)(db, w.users.planner, w.basinId, scenarioId, calibrationRunSchema.parse(body));
+const inputsOf = async (runId: string) =>
+  (await db.selectFrom("runs").select("model_file").where("id", "=", runId).executeTakeFirstOrThrow()).model_file as unknown as { files: { name: string; file: ModelFile }[]; calibration: CalibrationSpec };
+
+async function refused(p: Promise<unknown>): Promise<AppError> {
+  const e = await p.then(
+    () => null,
+    (x: unknown) => x,
+  );
+  expect(e).toBeInstanceOf(AppError);
+  return e as AppError;
+}
+
+describe("calibration runs", () => {
+  it("recovers a known k_d from DO the model itself produced at the survey's stations (an exact case)", async () => {
+    // first a calibration run, to get the survey-day condition's model file as the app builds it
+    const probe = await ask({ surveyId: demoSurvey.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.01, max: 2, start: 0.3 }] });
+    const { files } = await inputsOf(probe.id);
+    expect(files.map((f) => f.name)).toEqual(["12 August 2026"]);
+    const file = files[0].file;
+    // "observations" made by the model with k_d = 0.45 /d on every reach, at the demo stations' places
+    const truth = [{ parameter: "kd20_per_day" as const, reaches: file.reaches.map((r) => r.id), min: 0.01, max: 2, start: 0.45 }];
+    const places = demoSurvey.samples.map((s) => ({ station: s.station, reach: s.reach, km: s.km, do_mg_l: 0 }));
+    const made = modelledDo(withParameters(file, truth, [0.45]), places);
+    const csv = ["station,reach,km,do", ...places.map((p, i) => `${p.station},${p.reach},${p.km},${made[i]}`)].join("\n");
+    const synthetic = await scoped(uploadSurvey)(db, w.users.planner, w.basinId, { name: "made.csv", bytes: Buffer.from(csv) }, surveyUploadSchema.parse({ name: "Made by the model" }));
+
+    const queued = await ask({ surveyId: synthetic.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.01, max: 2, start: 0.2 }] });
+    expect(queued).toMatchObject({ kind: "calibration", status: "queued", reused: false });
+    await processRun(db, queued.id);
+    const run = await scoped(getRun)(db, w.users.planner, w.basinId, queued.id);
+    expect(run.status).toBe("done");
+    const cal = run.result!.calibration!;
+    expect(cal.parameters[0].value).toBeCloseTo(0.45, 6);
+    expect(cal.rmse_mg_l).toBeLessThan(1e-6);
+    expect(cal.survey).toMatchObject({ id: synthetic.id, name: "Made by the model", sha256: synthetic.sha256, networkVersion: 1 });
+    expect(cal.condition).toBe("12 August 2026");
+    // the run's DO is the model with the fitted value
+    const stored = await inputsOf(queued.id);
+    const fitted = runModel(withParameters(stored.files[0].file, stored.calibration.fit, [cal.parameters[0].value]));
+    expect(run.result!.conditions[0].run.minimum).toEqual(fitted.minimum);
+    expect(run.result!.conditions[0].run.reaches).toEqual(fitted.reaches);
+    // and the fit is calibrate() on exactly the inputs the run stored
+    const again = calibrate(stored.files[0].file, stored.calibration.observations, stored.calibration.fit);
+    expect(cal.parameters).toEqual(again.parameters);
+    // the same request again returns the finished run
+    expect(await ask({ surveyId: synthetic.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.01, max: 2, start: 0.2 }] })).toMatchObject({
+      id: queued.id,
+      reused: true,
+    });
+  });
+
+  it("fits the demo survey with standard errors and statistics, listing the samples it used", async () => {
+    const queued = await ask({
+      surveyId: demoSurvey.id,
+      condition: "12 August 2026",
+      fit: [
+        { parameter: "kd20_per_day", reaches: "all", min: 0.05, max: 3, start: 0.3 },
+        { parameter: "sod20_g_m2_day", reaches: ["TR-03", "TR-04", "TR-05", "TR-06"], min: 0, max: 5, start: 0.5 },
+      ],
+    });
+    // computed as the background worker computes it: in a worker thread, with its progress
+    const pool = createComputePool({ size: 1, timeoutMs: 60_000 });
+    const progress: number[] = [];
+    try {
+      await processRun(db, queued.id, (job, onProgress) =>
+        pool.payload(job, (d) => {
+          progress.push(d);
+          onProgress(d);
+        }),
+      );
+    } finally {
+      await pool.close();
+    }
+    expect(progress.length).toBeGreaterThan(1);
+    expect(progress.at(-1)).toBe(1);
+    const run = await scoped(getRun)(db, w.users.planner, w.basinId, queued.id);
+    expect(run.status).toBe("done");
+    const cal = run.result!.calibration!;
+    expect(cal.residuals.length).toBe(16);
+    expect(cal.leftOut).toEqual([]);
+    expect(cal.parameters.map((p) => p.parameter)).toEqual(["kd20_per_day", "sod20_g_m2_day"]);
+    expect(cal.fit[1].reaches).toEqual(["TR-03", "TR-04", "TR-05", "TR-06"]);
+    for (const r of cal.residuals) expect(r.residual_mg_l).toBeCloseTo(r.observed_mg_l - r.modelled_mg_l, 12);
+    expect(Number.isFinite(cal.rmse_mg_l)).toBe(true);
+  });
+
+  it("names the field at fault: a condition, a reach or a survey the scenario cannot use", async () => {
+    const base = { surveyId: demoSurvey.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.05, max: 3, start: 0.3 }] };
+    expect((await refused(ask({ ...base, condition: "Spring" }))).details).toEqual([{ path: "condition", message: "One of 7Q10, 12 August 2026" }]);
+    expect((await refused(ask({ ...base, fit: [{ ...base.fit[0], reaches: ["XX-9"] }] }))).details).toEqual([{ path: "fit.0.reaches", message: "Unknown reach XX-9" }]);
+    expect((await refused(ask({ ...base, surveyId: "00000000-0000-4000-8000-000000000000" }))).details).toEqual([{ path: "surveyId", message: "Unknown survey" }]);
+    const small = await scoped(uploadSurvey)(db, w.users.planner, w.basinId, { name: "one.csv", bytes: Buffer.from("station,reach,km,do\nA,TR-03,1,6\n") }, surveyUploadSchema.parse({ name: "One sample" }));
+    expect((await refused(ask({ ...base, surveyId: small.id }))).message).toMatch(/has 1 DO value\(s\) for 1 coefficient\(s\)/);
+    expect(() => calibrationRunSchema.parse({ ...base, fit: [{ ...base.fit[0], start: 9 }] })).toThrow(/start must lie within min–max/);
+  });
+
+  it("a stakeholder may not start one", async () => {
+    const e = await refused(
+      scoped(createCalibrationRun)(db, w.users.stakeholder, w.basinId, scenarioId, calibrationRunSchema.parse({ surveyId: demoSurvey.id, condition: "7Q10", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.05, max: 3, start: 0.3 }] })),
+    );
+    expect(e.code).toBe("forbidden");
+  });
+});
