@@ -15,8 +15,9 @@ import type { ModelFile, ReachInput } from "@/lib/model/types";
  * differences), the correlation of the estimates, and fit statistics. Pure.
  */
 
-export const FIT_PARAMETERS = ["kd20_per_day", "ka_multiplier", "sod20_g_m2_day", "ks20_per_day"] as const;
-export type FitParameter = (typeof FIT_PARAMETERS)[number];
+import { FIT_PARAMETERS, type FitParameter } from "@/lib/domain/calibration";
+
+export { FIT_PARAMETERS, type FitParameter };
 
 export interface Observation {
   /** Station id, when the survey names one. */

@@ -16,3 +16,4 @@ export * from "./statuses";
 export * from "./imports";
 export * from "./hydraulics";
 export * from "./hydrology";
+export * from "./calibration";

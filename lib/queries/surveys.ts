@@ -1,6 +1,8 @@
 "use client";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import type { RunSummaryDto } from "@/lib/services/runs";
 import type { SurveyDto, SurveySummaryDto } from "@/lib/services/surveys";
+import type { CalibrationRunRequest } from "@/lib/validation/calibration";
 import type { SurveyUpload } from "@/lib/validation/surveys";
 import { apiFetch } from "./fetcher";
 import { queryKeys } from "./keys";
@@ -32,5 +34,15 @@ export function useUploadSurveyMutation(basinId: string) {
       return apiFetch<SurveyDto>(`/api/basins/${basinId}/surveys`, { method: "POST", body: form });
     },
     onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.basins.surveys(basinId) }),
+  });
+}
+
+/** Queue a calibration of a scenario to a survey (a run of kind "calibration"). */
+export function useStartCalibrationMutation(basinId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: ({ scenarioId, request }: { scenarioId: string; request: CalibrationRunRequest }) =>
+      apiFetch<RunSummaryDto & { reused: boolean }>(`/api/basins/${basinId}/scenarios/${scenarioId}/calibrations`, { method: "POST", json: request }),
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.basins.runs(basinId) }),
   });
 }

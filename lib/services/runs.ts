@@ -17,7 +17,7 @@ import { MODEL_VERSION, SATURATION_METHOD } from "@/lib/scenarios/model-version"
 import type { CalibrationRunRequest } from "@/lib/validation/calibration";
 import { scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
 import { loadNetworkForModel } from "./scenarios";
-import { getSurvey } from "./surveys";
+import { getSurvey, type SurveyDto } from "./surveys";
 
 /** What a run computes: the model files it will use, as stored with it. */
 export interface RunInputs {
@@ -191,10 +191,16 @@ export async function createCalibrationRun(scope: BasinScope, scenarioId: string
   const { db, basin } = scope;
   const scenario = await findScenario(db, basin.id, scenarioId);
   if (!scenario) throw notFound("Scenario");
-  const survey = await getSurvey(scope, request.surveyId).catch((e: unknown) => {
-    if (e instanceof AppError && e.code === "not_found") throw new AppError("invalid", "There is no such survey in this basin", [{ path: "surveyId", message: "Unknown survey" }]);
-    throw e;
-  });
+  const surveyFor = (id: string, path: string) =>
+    getSurvey(scope, id).catch((e: unknown) => {
+      if (e instanceof AppError && e.code === "not_found") throw new AppError("invalid", "There is no such survey in this basin", [{ path, message: "Unknown survey" }]);
+      throw e;
+    });
+  const survey = await surveyFor(request.surveyId, "surveyId");
+  if (request.validationSurveyId === request.surveyId) {
+    throw new AppError("invalid", "Check the fit against another survey than the one it is fitted to", [{ path: "validationSurveyId", message: "The same survey as surveyId" }]);
+  }
+  const second = request.validationSurveyId ? await surveyFor(request.validationSurveyId, "validationSurveyId") : null;
   const inputs = scenarioInputsSchema.parse(scenario.inputs);
   const network = await loadNetworkForModel(db, scenario.network_id);
   const files = scenarioFiles(() => {
@@ -213,27 +219,34 @@ export async function createCalibrationRun(scope: BasinScope, scenarioId: string
     if (unknown) throw new AppError("invalid", `Reach "${unknown}" is not in the scenario's network`, [{ path: `fit.${i}.reaches`, message: `Unknown reach ${unknown}` }]);
     return { parameter: f.parameter, reaches: [...ids], min: f.min, max: f.max, start: f.start };
   });
-  const observed = survey.samples.filter((s) => s.do_mg_l !== null);
-  const missing = observed.find((s) => !reaches.has(s.reach));
-  if (missing) {
-    throw new AppError("invalid", `Station ${missing.station} of the survey lies on reach ${missing.reach}, which the scenario's network does not have`, [
-      { path: "surveyId", message: `The survey was placed on network version ${survey.networkVersion}` },
-    ]);
+  const observationsOf = (s: SurveyDto, path: string) => {
+    const observed = s.samples.filter((x) => x.do_mg_l !== null);
+    const missing = observed.find((x) => !reaches.has(x.reach));
+    if (missing) {
+      throw new AppError("invalid", `Station ${missing.station} of the survey ${s.name} lies on reach ${missing.reach}, which the scenario's network does not have`, [
+        { path, message: `The survey was placed on network version ${s.networkVersion}` },
+      ]);
+    }
+    return {
+      survey: { id: s.id, name: s.name, fileName: s.fileName, sha256: s.sha256, networkVersion: s.networkVersion, firstTime: s.firstTime, lastTime: s.lastTime },
+      observations: observed.map((x) => ({ station: x.station, reach: x.reach, km: Math.min(x.km, reaches.get(x.reach)!.length_km), do_mg_l: x.do_mg_l!, ...(x.weight !== null ? { weight: x.weight } : {}) })),
+      leftOut: s.samples.filter((x) => x.do_mg_l === null).map((x) => ({ station: x.station, row: x.row, reason: "no DO value" })),
+    };
+  };
+  const fitted = observationsOf(survey, "surveyId");
+  const observed = fitted.observations;
+  const validation = second ? observationsOf(second, "validationSurveyId") : undefined;
+  if (validation && validation.observations.length === 0) {
+    throw new AppError("invalid", `The survey ${second!.name} has no DO values to check the fit against`, [{ path: "validationSurveyId", message: "No DO values" }]);
   }
   if (observed.length <= fit.length) {
     throw new AppError("invalid", `The survey has ${observed.length} DO value(s) for ${fit.length} coefficient(s): a fit needs more observations than coefficients`, [
       { path: "fit", message: "Fit fewer coefficients, or use a survey with more DO values" },
     ]);
   }
-  const calibration: CalibrationSpec = {
-    survey: { id: survey.id, name: survey.name, fileName: survey.fileName, sha256: survey.sha256, networkVersion: survey.networkVersion, firstTime: survey.firstTime, lastTime: survey.lastTime },
-    condition: chosen.name,
-    observations: observed.map((s) => ({ station: s.station, reach: s.reach, km: Math.min(s.km, reaches.get(s.reach)!.length_km), do_mg_l: s.do_mg_l!, ...(s.weight !== null ? { weight: s.weight } : {}) })),
-    fit,
-    leftOut: survey.samples.filter((s) => s.do_mg_l === null).map((s) => ({ station: s.station, row: s.row, reason: "no DO value" })),
-  };
+  const calibration: CalibrationSpec = { survey: fitted.survey, condition: chosen.name, observations: observed, fit, leftOut: fitted.leftOut, ...(validation ? { validation } : {}) };
   const runInputs: RunInputs = { kind: "calibration", files: [chosen], warnings: files.warnings, calibration };
-  return queueRun(scope, scenario, inputs, runInputs, { kind: "calibration", survey: survey.name, condition: chosen.name });
+  return queueRun(scope, scenario, inputs, runInputs, { kind: "calibration", survey: survey.name, condition: chosen.name, ...(second ? { validationSurvey: second.name } : {}) });
 }
 
 /** A readable reason for a failed run (never a stack trace). */

@@ -38,6 +38,8 @@ export const calibrationSchema = z.strictObject({
  */
 export const calibrationRunSchema = z.strictObject({
   surveyId: z.string({ message: "choose the survey" }).uuid("choose the survey"),
+  /** A second survey to check the fitted model against, without refitting. */
+  validationSurveyId: z.string().uuid("choose the second survey").optional(),
   condition: z.string({ message: "choose the condition" }).trim().min(1, "choose the condition"),
   fit: z
     .array(

@@ -62,7 +62,18 @@ describe("calibration runs", () => {
     const csv = ["station,reach,km,do", ...places.map((p, i) => `${p.station},${p.reach},${p.km},${made[i]}`)].join("\n");
     const synthetic = await scoped(uploadSurvey)(db, w.users.planner, w.basinId, { name: "made.csv", bytes: Buffer.from(csv) }, surveyUploadSchema.parse({ name: "Made by the model" }));
 
-    const queued = await ask({ surveyId: synthetic.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.01, max: 2, start: 0.2 }] });
+    // a second survey made the same way at other places (half-way to each station), to check the fit against
+    const elsewhere = places.map((p) => ({ ...p, km: p.km / 2 }));
+    const madeElsewhere = modelledDo(withParameters(file, truth, [0.45]), elsewhere);
+    const csv2 = ["station,reach,km,do", ...elsewhere.map((p, i) => `${p.station}b,${p.reach},${p.km},${madeElsewhere[i]}`)].join("\n");
+    const second = await scoped(uploadSurvey)(db, w.users.planner, w.basinId, { name: "made2.csv", bytes: Buffer.from(csv2) }, surveyUploadSchema.parse({ name: "Made elsewhere" }));
+
+    const queued = await ask({
+      surveyId: synthetic.id,
+      validationSurveyId: second.id,
+      condition: "12 August 2026",
+      fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.01, max: 2, start: 0.2 }],
+    });
     expect(queued).toMatchObject({ kind: "calibration", status: "queued", reused: false });
     await processRun(db, queued.id);
     const run = await scoped(getRun)(db, w.users.planner, w.basinId, queued.id);
@@ -72,6 +83,10 @@ describe("calibration runs", () => {
     expect(cal.rmse_mg_l).toBeLessThan(1e-6);
     expect(cal.survey).toMatchObject({ id: synthetic.id, name: "Made by the model", sha256: synthetic.sha256, networkVersion: 1 });
     expect(cal.condition).toBe("12 August 2026");
+    // checked against the second survey without refitting: its DO was made with the value the fit found
+    expect(cal.validation!.survey).toMatchObject({ id: second.id, name: "Made elsewhere" });
+    expect(cal.validation!.residuals.length).toBe(16);
+    expect(cal.validation!.rmse_mg_l).toBeLessThan(1e-5);
     // the run's DO is the model with the fitted value
     const stored = await inputsOf(queued.id);
     const fitted = runModel(withParameters(stored.files[0].file, stored.calibration.fit, [cal.parameters[0].value]));
@@ -81,10 +96,11 @@ describe("calibration runs", () => {
     const again = calibrate(stored.files[0].file, stored.calibration.observations, stored.calibration.fit);
     expect(cal.parameters).toEqual(again.parameters);
     // the same request again returns the finished run
-    expect(await ask({ surveyId: synthetic.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.01, max: 2, start: 0.2 }] })).toMatchObject({
-      id: queued.id,
-      reused: true,
-    });
+    const same = { surveyId: synthetic.id, validationSurveyId: second.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.01, max: 2, start: 0.2 }] };
+    expect(await ask(same)).toMatchObject({ id: queued.id, reused: true });
+    // without the check against the second survey it is another computation
+    expect(await ask({ ...same, validationSurveyId: undefined })).toMatchObject({ reused: false });
+    expect((await refused(ask({ ...same, validationSurveyId: synthetic.id }))).details).toEqual([{ path: "validationSurveyId", message: "The same survey as surveyId" }]);
   });
 
   it("fits the demo survey with standard errors and statistics, listing the samples it used", async () => {

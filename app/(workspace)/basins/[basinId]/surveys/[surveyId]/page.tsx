@@ -8,7 +8,9 @@ import { AppError } from "@/lib/errors";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { surveyPeriod } from "@/lib/format/survey";
 import { formatWhen } from "@/lib/format/zoned-time";
-import { getSurvey } from "@/lib/services/surveys";
+import { listScenarios } from "@/lib/services/scenarios";
+import { getSurvey, listSurveys } from "@/lib/services/surveys";
+import { CalibrationForm } from "@/components/surveys/calibration-form";
 
 export const metadata: Metadata = { title: "Survey" };
 
@@ -24,6 +26,11 @@ export default async function SurveyPage({ params }: { params: Promise<{ basinId
     throw e;
   });
   if (!survey) notFound();
+  const canCalibrate = access.can("scenario.run");
+  const scenarios = canCalibrate
+    ? (await listScenarios(access.scope)).map((s) => ({ id: s.id, name: s.name, networkVersion: s.networkVersion, conditions: s.inputs.conditions.map((c) => c.name) }))
+    : [];
+  const otherSurveys = canCalibrate ? (await listSurveys(access.scope)).filter((s) => s.id !== survey.id).map((s) => ({ id: s.id, name: s.name })) : [];
   const system = access.basin.unitSystem;
   const zone = access.basin.timeZone ?? "UTC";
   const snapped = survey.samples.filter((s) => s.placement === "snapped");
@@ -89,6 +96,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ basinId
           </table>
         </div>
       </section>
+      {canCalibrate && <CalibrationForm basinId={access.basin.id} surveyId={survey.id} surveyNetworkVersion={survey.networkVersion} scenarios={scenarios} otherSurveys={otherSurveys} />}
       <PlanningCaution />
     </div>
   );
