@@ -15,10 +15,19 @@ import {
 import { DO_BAND_COLOURS, doBand, formatDo } from "@/lib/results/do-scale";
 import { clearestBox, staggerLabels, textWidthPx } from "@/lib/results/chart-labels";
 import { anoxicStretches, type ProfileSeries, type SeriesPoint } from "@/lib/results/profile-series";
+import type { ObservedPoint } from "@/lib/results/survey-residuals";
 
 const INK = "#1d2a33";
 const FAINT = "#6f7d86";
 const RULE = "#d9d6cc";
+/** Observed samples: filled dots, apart from the hollow diamonds of the critical points. */
+const OBSERVED = "#1d2a33";
+
+/** Observed DO of a survey, drawn beside the modelled line: the points on this chart's path, and the legend's name. */
+export interface ObservedOnChart {
+  label: string;
+  points: ObservedPoint[];
+}
 
 type Critical = ProfileSeries["criticals"][number];
 
@@ -30,9 +39,28 @@ function CriticalMark({ cx, cy, payload, criterion }: { cx?: number; cy?: number
   return <path d={`M${cx},${cy - r} L${cx + r},${cy} L${cx},${cy + r} L${cx - r},${cy} Z`} fill="#ffffff" stroke={colour} strokeWidth={2.5} />;
 }
 
+function ObservedMark({ cx, cy, payload }: { cx?: number; cy?: number; payload?: ObservedPoint }) {
+  if (cx === undefined || cy === undefined || !payload) return null;
+  return <circle cx={cx} cy={cy} r={4.5} fill={OBSERVED} stroke="#ffffff" strokeWidth={1.5} data-testid="observed-point" data-station={payload.station} />;
+}
+
 function ProfileTooltip({ active, payload, unit }: { active?: boolean; payload?: ReadonlyArray<{ payload?: unknown }>; unit: string }) {
-  const p = active ? (payload?.[0]?.payload as (SeriesPoint & Partial<Critical>) | undefined) : undefined;
+  const p = active ? (payload?.[0]?.payload as (SeriesPoint & Partial<Critical>) | ObservedPoint | undefined) : undefined;
   if (!p) return null;
+  if ("station" in p) {
+    return (
+      <div className="rounded-md border border-rule bg-paper-raised px-3 py-2 text-xs shadow">
+        <p className="font-semibold">
+          Station {p.station} ({p.reach})
+        </p>
+        <p>
+          {p.distance.toFixed(2)} {unit} along the path{p.time ? `, ${p.time.replace("T", " ")}` : ""}
+        </p>
+        <p>Observed DO {formatDo(p.do_mg_l)} mg/L</p>
+        <p>Modelled {p.modelled_mg_l < 0 ? "anoxic" : `${formatDo(p.modelled_mg_l)} mg/L`}</p>
+      </div>
+    );
+  }
   const isCritical = "below" in p;
   return (
     <div className="rounded-md border border-rule bg-paper-raised px-3 py-2 text-xs shadow">
@@ -87,7 +115,7 @@ interface Layout {
  * (thinned when even two rows have no room), reach ids in one row (thinned), and the
  * criterion label in the first spot along its line that no DO point or critical mark is in.
  */
-function layoutLabels(series: ProfileSeries, top: number, width: number, height: number): Layout {
+function layoutLabels(series: ProfileSeries, top: number, width: number, height: number, observed: readonly ObservedPoint[] = []): Layout {
   const plotW = Math.max(1, width - MARGIN.left - Y_AXIS_WIDTH - MARGIN.right);
   const plotH = Math.max(1, height - MARGIN.top - MARGIN.bottom - X_AXIS_HEIGHT);
   const length = series.length > 0 ? series.length : 1;
@@ -113,6 +141,7 @@ function layoutLabels(series: ProfileSeries, top: number, width: number, height:
       { x: px(p.distance), y: py(p.do_sat_mg_l) },
     ]),
     ...series.criticals.map((c) => ({ x: px(c.distance), y: py(c.do_shown_mg_l) })),
+    ...observed.map((o) => ({ x: px(o.distance), y: py(o.do_mg_l) })),
   ];
   const spots = [plotW - w - 4, 4, plotW * 0.75 - w / 2, plotW * 0.5 - w / 2, plotW * 0.25 - w / 2].flatMap((left) =>
     [3, -ROW_PX - 3].map((dy) => ({ left, top: y + dy, width: w, height: ROW_PX, dy })),
@@ -136,13 +165,15 @@ interface LineLabelProps {
  * and drawn at zero), saturation, the criterion, dischargers as labelled verticals,
  * reach boundaries, and each reach's exact critical point as a diamond. Labels are laid
  * out for the width drawn (staggered, thinned, the criterion's kept off the data); the
- * key sits under the chart, clear of the plot.
+ * key sits under the chart, clear of the plot. With `observed`, a survey's samples on the
+ * path are dots beside the line, named in the key.
  */
-export function ProfileChart({ series, height = 360 }: { series: ProfileSeries; height?: number }) {
+export function ProfileChart({ series, height = 360, observed }: { series: ProfileSeries; height?: number; observed?: ObservedOnChart }) {
   const criterion = series.criterion_mg_l;
-  const top = Math.ceil(Math.max(criterion + 1, ...series.points.map((p) => p.do_sat_mg_l)) + 0.5);
+  const observedPoints = observed?.points;
+  const top = Math.ceil(Math.max(criterion + 1, ...series.points.map((p) => p.do_sat_mg_l), ...(observedPoints ?? []).map((o) => o.do_mg_l)) + 0.5);
   const [ref, width] = useWidth();
-  const layout = useMemo(() => layoutLabels(series, top, width, height), [series, top, width, height]);
+  const layout = useMemo(() => layoutLabels(series, top, width, height, observedPoints), [series, top, width, height, observedPoints]);
   return (
     <div data-testid="profile-chart" className="w-full" role="img" aria-label={`DO profile from ${series.origin ?? series.path[0]} to the outlet`}>
       <div ref={ref} className="w-full" style={{ height }}>
@@ -228,17 +259,27 @@ export function ProfileChart({ series, height = 360 }: { series: ProfileSeries; 
               isAnimationActive={false}
               shape={(props: unknown) => <CriticalMark {...(props as { cx?: number; cy?: number; payload?: Critical })} criterion={criterion} />}
             />
+            {observed && (
+              <Scatter
+                name={`Observed (${observed.label})`}
+                data={observed.points}
+                dataKey="do_mg_l"
+                fill={OBSERVED}
+                isAnimationActive={false}
+                shape={(props: unknown) => <ObservedMark {...(props as { cx?: number; cy?: number; payload?: ObservedPoint })} />}
+              />
+            )}
             <Tooltip content={({ active, payload }) => <ProfileTooltip active={active} payload={payload} unit={series.unit} />} />
           </ComposedChart>
         </ResponsiveContainer>
       </div>
-      <ProfileKey criterion={criterion} thinned={[...layout.dischargerRows.values()].some((r) => r === null)} />
+      <ProfileKey criterion={criterion} thinned={[...layout.dischargerRows.values()].some((r) => r === null)} observed={observed?.label} />
     </div>
   );
 }
 
 /** The chart's key, under it so it never covers a label or the data. */
-function ProfileKey({ criterion, thinned }: { criterion: number; thinned: boolean }) {
+function ProfileKey({ criterion, thinned, observed }: { criterion: number; thinned: boolean; observed?: string }) {
   const line = (stroke: string, dash?: string, w = 2) => (
     <svg width="26" height="10" aria-hidden>
       <line x1="1" y1="5" x2="25" y2="5" stroke={stroke} strokeWidth={w} strokeDasharray={dash} />
@@ -256,6 +297,14 @@ function ProfileKey({ criterion, thinned }: { criterion: number; thinned: boolea
         critical point of a reach
       </li>
       <li className="flex items-center gap-1.5">{line(INK, "4 3", 1)}discharger{thinned ? " (ids left out where they would overlap; a wider window shows them)" : ""}</li>
+      {observed !== undefined && (
+        <li className="flex items-center gap-1.5" data-testid="observed-key">
+          <svg width="14" height="14" aria-hidden>
+            <circle cx="7" cy="7" r="4.5" fill={OBSERVED} stroke="#ffffff" strokeWidth={1.5} />
+          </svg>
+          Observed ({observed})
+        </li>
+      )}
     </ul>
   );
 }

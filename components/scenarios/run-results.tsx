@@ -16,6 +16,8 @@ import { PlanningCaution } from "@/components/results/planning-caution";
 import { ProfileSection } from "@/components/results/profile-section";
 import { ReachResultsTable } from "@/components/results/reach-results-table";
 import { ResultsGeoJsonButton } from "@/components/results/results-geojson-button";
+import { SurveyComparison } from "@/components/results/survey-comparison";
+import { CalibrationReport } from "@/components/calibration/calibration-report";
 import { TmdlSummary } from "@/components/results/tmdl-table";
 import { Notice } from "@/components/ui/notice";
 import { DEFAULT_THETA_RULE, type UnitSystem } from "@/lib/domain";
@@ -35,6 +37,8 @@ export function RunResults({
   network,
   unitSystem,
   canPropose = false,
+  runNetwork,
+  canReadSurveys = false,
 }: {
   basinId: string;
   basinName: string;
@@ -42,6 +46,10 @@ export function RunResults({
   network: FeatureCollection;
   unitSystem: UnitSystem;
   canPropose?: boolean;
+  /** The network version the run used (a survey placed on another one is flagged). */
+  runNetwork: { id: string; version: number };
+  /** May read the basin's surveys: only then is the survey comparison shown (and the surveys asked for). */
+  canReadSurveys?: boolean;
 }) {
   const query = useRunQuery(basinId, initial.id);
   const run = query.data ?? initial;
@@ -95,11 +103,22 @@ export function RunResults({
   const rows = conditionRows(result);
   const sag = sagBelowOutlet(r, model.reaches);
   const fileStem = (name: string) => `${stem}-${name.replace(/[^\w-]+/g, "-").toLowerCase()}`;
+  const profile = {
+    run: r,
+    model,
+    unitSystem,
+    from,
+    onFrom: setStartReach,
+    title: several ? `DO along the river under ${quoted(condition.name)}` : undefined,
+    csv: { fileStem: several ? fileStem(condition.name) : stem, about, condition: condition.name },
+  };
+  const profileHint = <p className="text-sm text-ink-soft">Click a reach on the map, or choose one, to follow its water to the outlet.</p>;
   return (
     <div className="space-y-6" data-testid="run-results">
       <PlanningCaution />
+      {result.calibration && <CalibrationReport calibration={result.calibration} unitSystem={unitSystem} />}
       <section className="card space-y-3">
-        <p className="text-xs text-ink-faint">{run.kind !== "allocation" ? "Model run on today's loads" : allocation?.feasible ? "Allocation: DO with the allocated loads" : "Allocation: no allocation meets the criterion; DO with today's loads"}</p>
+        <p className="text-xs text-ink-faint">{run.kind === "calibration" ? "The calibrated model: DO with the fitted coefficients, on today's loads" : run.kind !== "allocation" ? "Model run on today's loads" : allocation?.feasible ? "Allocation: DO with the allocated loads" : "Allocation: no allocation meets the criterion; DO with today's loads"}</p>
         <p className="text-xl font-semibold" data-testid="run-headline">
           {governingHeadline(result)}
         </p>
@@ -162,17 +181,11 @@ export function RunResults({
         <DoLegend criterionMgL={r.criterion_do_mg_l} />
       </section>
 
-      <ProfileSection
-        run={r}
-        model={model}
-        unitSystem={unitSystem}
-        from={from}
-        onFrom={setStartReach}
-        title={several ? `DO along the river under ${quoted(condition.name)}` : undefined}
-        csv={{ fileStem: several ? fileStem(condition.name) : stem, about, condition: condition.name }}
-      >
-        <p className="text-sm text-ink-soft">Click a reach on the map, or choose one, to follow its water to the outlet.</p>
-      </ProfileSection>
+      {canReadSurveys ? (
+        <SurveyComparison basinId={basinId} runNetwork={runNetwork} condition={condition.name} profile={{ ...profile, children: profileHint }} />
+      ) : (
+        <ProfileSection {...profile}>{profileHint}</ProfileSection>
+      )}
 
       <section className="card">
         <h2 className="mb-3">Reaches{several ? ` under ${quoted(condition.name)}` : ""}</h2>

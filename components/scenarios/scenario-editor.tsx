@@ -15,7 +15,11 @@ import { DEFAULT_HEADWATER_DO_TEXT, defaultHeadwaterDoMgL, networkOutletFlowM3s 
 import { fromFormKeys, toFormKeys } from "@/lib/scenarios/form-keys";
 import { useNetworksQuery } from "@/lib/queries/networks";
 import { useScenarioQuery, useStartRunMutation, useUpdateScenarioMutation } from "@/lib/queries/scenarios";
+import type { CalibrationChoice } from "@/lib/services/runs";
 import type { ScenarioDto } from "@/lib/services/scenarios";
+import { fittedKineticsText } from "@/lib/results/fitted-kinetics";
+import { formatDay } from "@/lib/format/zoned-time";
+import { useBasinZone } from "@/components/layout/basin-zone";
 import { scenarioInputsSchema, type ScenarioInputs } from "@/lib/validation/scenario";
 import { DischargerInputs, type OutfallRow } from "./discharger-inputs";
 import { INFLOW_OVERRIDE_FIELDS, REACH_OVERRIDE_FIELDS, ReachInputs, type ReachRow } from "./reach-inputs";
@@ -99,6 +103,7 @@ export function ScenarioEditor({
   outfalls,
   reaches,
   gauges = [],
+  calibrations = [],
 }: {
   basinId: string;
   scenario: ScenarioDto;
@@ -109,6 +114,8 @@ export function ScenarioEditor({
   reaches: ReachRow[];
   /** Gauge records placed on a reach, whose statistics a condition may take. */
   gauges?: GaugeChoice[];
+  /** Finished calibrations whose fitted coefficients the scenario may use. */
+  calibrations?: CalibrationChoice[];
 }) {
   const query = useScenarioQuery(basinId, initial.id);
   const scenario = query.data ?? initial;
@@ -127,6 +134,8 @@ export function ScenarioEditor({
   const criterionOverride = useWatch({ control, name: "inputs.criterionDoMgL" });
   const watchedConditions = useWatch({ control, name: "inputs.conditions" });
   const headwaterTemperature = useWatch({ control, name: "inputs.headwater.temperatureC" });
+  const fittedKinetics = useWatch({ control, name: "inputs.fittedKinetics" });
+  const zone = useBasinZone();
   const outletFlow = networkOutletFlowM3s(reaches);
   const gaugeOptions = gauges.flatMap((g) =>
     g.reachId === null
@@ -341,6 +350,33 @@ export function ScenarioEditor({
           {num(LABELS.ks, "inputs.kinetics.ks20PerDay", "1/d")}
           {num(LABELS.sod, "inputs.kinetics.sod20GPerM2Day", "g O₂/m²/d")}
           {num(LABELS.kn, "inputs.kinetics.kn20PerDay", "1/d")}
+          <div className="md:col-span-3">
+            <label htmlFor="fitted-kinetics" className="field-label">
+              Coefficients fitted to a survey
+            </label>
+            <select
+              id="fitted-kinetics"
+              className="field-input"
+              disabled={!canEdit}
+              value={fittedKinetics?.runId ?? ""}
+              onChange={(e) => setValue("inputs.fittedKinetics", e.target.value ? { runId: e.target.value } : null, { shouldDirty: true })}
+            >
+              <option value="">{calibrations.length ? "None: the values above and the network's" : "None (no finished calibration in this basin)"}</option>
+              {calibrations.map((c) => (
+                <option key={c.runId} value={c.runId}>
+                  {c.surveyName} on “{c.condition}” ({c.scenarioName}; RMSE {c.rmseMgL.toFixed(2)} mg/L; {formatDay(new Date(c.finishedAt), zone)})
+                </option>
+              ))}
+            </select>
+            <p className="mt-1 text-xs text-ink-faint" data-testid="fitted-kinetics-source">
+              {fittedKinetics?.source && fittedKinetics.runId === scenario.inputs.fittedKinetics?.runId
+                ? `In use: ${fittedKineticsText(fittedKinetics.source)}.`
+                : fittedKinetics
+                  ? "The fitted values replace these coefficients on the reaches they were fitted over; saved with where they came from."
+                  : "A calibration's fitted values replace these coefficients on the reaches they were fitted over."}
+            </p>
+            {errors.inputs?.fittedKinetics?.runId?.message && <p className="field-error">{errors.inputs.fittedKinetics.runId.message}</p>}
+          </div>
         </section>
 
         <section className="card grid gap-4 md:grid-cols-4">

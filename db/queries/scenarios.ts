@@ -1,3 +1,4 @@
+import { sql } from "kysely";
 import type { Db } from "../client";
 import type { RunKind } from "../schema";
 import { isUuid } from "./users";
@@ -166,4 +167,23 @@ export async function findRunJsonText(db: Db, basinId: string, id: string) {
     ])
     .where("r.id", "=", id)
     .executeTakeFirst();
+}
+
+/** A basin's finished calibration runs with what a choice list names them by (no result bodies). */
+export async function listDoneCalibrations(db: Db, basinId: string) {
+  return db
+    .selectFrom("runs as r")
+    .innerJoin("scenarios as s", "s.id", "r.scenario_id")
+    .select(["r.id", "r.finished_at", "s.name as scenario_name"])
+    .select([
+      sql<string>`r.result -> 'calibration' -> 'survey' ->> 'name'`.as("survey_json_name"),
+      sql<string>`r.result -> 'calibration' ->> 'condition'`.as("condition_json"),
+      sql<string>`r.result -> 'calibration' ->> 'rmse_mg_l'`.as("rmse"),
+    ])
+    .where("r.basin_id", "=", basinId)
+    .where("r.kind", "=", "calibration")
+    .where("r.status", "=", "done")
+    .orderBy("r.finished_at", "desc")
+    .limit(100)
+    .execute();
 }

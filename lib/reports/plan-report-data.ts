@@ -5,6 +5,7 @@ import type { AllocationResult } from "@/lib/model/allocation/types";
 import type { RunResult } from "@/lib/model/network/run";
 import type { ModelFile } from "@/lib/model/types";
 import { PLANNING_CAUTION } from "@/lib/results/caution";
+import { fittedKineticsText } from "@/lib/results/fitted-kinetics";
 import { conditionFlowText } from "@/lib/results/condition-flow";
 import { formatDo } from "@/lib/results/do-scale";
 import { conditionRows, quoted, runConditions } from "@/lib/results/run-conditions";
@@ -239,6 +240,10 @@ function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, 
         { label: "Nitrogenous k_n", value: `${formatNumber("rate", k.kn20PerDay)} 1/d` },
         { label: "Temperature correction", value: nameOf(THETA_RULE_NAMES, k.thetaRule) },
         { label: "Reaches with their own kinetics", value: String(Object.keys(i.reachOverrides ?? {}).length) },
+        {
+          label: "Fitted to a survey",
+          value: i.fittedKinetics?.source ? fittedKineticsText(i.fittedKinetics.source) : "No: the coefficients are as entered, not calibrated in Sagline",
+        },
       ],
     },
     {

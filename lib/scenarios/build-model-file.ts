@@ -134,7 +134,7 @@ function reachInput(r: NetworkForModel["reaches"][number], inputs: ScenarioInput
     throw new ScenarioInputError(`inputs.reachOverrides.${r.id}.ka20PerDay`, `Reach ${r.id}: reaeration is "given" but no k_a value is entered`);
   }
   const temperature = condition.temperatureC ?? num(a.temperatureC);
-  return {
+  return withFitted(inputs, r.id, {
     id: r.id,
     downstream: r.downstreamId,
     length_km: r.lengthKm,
@@ -149,7 +149,21 @@ function reachInput(r: NetworkForModel["reaches"][number], inputs: ScenarioInput
     sod20_g_m2_day: o.sod20GPerM2Day ?? num(a.sodGPerM2PerDay) ?? k.sod20GPerM2Day,
     ...(temperature !== undefined ? { temperature_c: temperature } : {}),
     ...(num(a.elevationM) !== undefined ? { elevation_m: num(a.elevationM) } : {}),
-  };
+  });
+}
+
+/**
+ * The reach with the coefficients a calibration fitted over it (inputs.fittedKinetics, its
+ * values as recorded when the scenario was saved): they replace the network's, the
+ * scenario's defaults and its reach overrides for those coefficients.
+ */
+function withFitted(inputs: ScenarioInputs, reachId: string, reach: ReachInput): ReachInput {
+  if (!inputs.fittedKinetics) return reach;
+  const fitted = inputs.fittedKinetics.source?.parameters;
+  if (!fitted) throw new ScenarioInputError("inputs.fittedKinetics", "The fitted coefficients have no record of their calibration: save the scenario again");
+  const out = { ...reach };
+  for (const p of fitted) if (p.reaches.includes(reachId)) out[p.parameter] = p.value;
+  return out;
 }
 
 function dischargerInput(o: NetworkForModel["outfalls"][number], inputs: ScenarioInputs, warnings: string[]): DischargerInput {

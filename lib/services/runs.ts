@@ -3,7 +3,7 @@ import { createHash } from "node:crypto";
 import { insertAuditEvent } from "@/db/queries/audit";
 import { isDatabaseUnavailable, type Db } from "@/db/client";
 import { listUnfinishedRuns, setUnfinishedRunState } from "@/db/queries/run-faults";
-import { findDoneRunByHash, findRun, findRunJsonText, findScenario, insertRun, listRuns as listRunRows, runForWork } from "@/db/queries/scenarios";
+import { findDoneRunByHash, findRun, findRunJsonText, findScenario, insertRun, listDoneCalibrations, listRuns as listRunRows, runForWork } from "@/db/queries/scenarios";
 import type { RunKind } from "@/db/schema";
 import { enqueueRun, findRunJob, runTimeLimitSeconds } from "@/lib/jobs/queue";
 import { ComputeTimeoutError } from "@/lib/compute/pool";
@@ -247,6 +247,28 @@ export async function createCalibrationRun(scope: BasinScope, scenarioId: string
   const calibration: CalibrationSpec = { survey: fitted.survey, condition: chosen.name, observations: observed, fit, leftOut: fitted.leftOut, ...(validation ? { validation } : {}) };
   const runInputs: RunInputs = { kind: "calibration", files: [chosen], warnings: files.warnings, calibration };
   return queueRun(scope, scenario, inputs, runInputs, { kind: "calibration", survey: survey.name, condition: chosen.name, ...(second ? { validationSurvey: second.name } : {}) });
+}
+
+/** A finished calibration as a scenario may choose it (its fitted values then replace the reaches' coefficients). */
+export interface CalibrationChoice {
+  runId: string;
+  scenarioName: string;
+  surveyName: string;
+  condition: string;
+  rmseMgL: number;
+  finishedAt: string;
+}
+
+export async function listCalibrationChoices(scope: BasinScope): Promise<CalibrationChoice[]> {
+  scope.require("scenario.read");
+  return (await listDoneCalibrations(scope.db, scope.basin.id)).map((r) => ({
+    runId: r.id,
+    scenarioName: r.scenario_name,
+    surveyName: r.survey_json_name,
+    condition: r.condition_json,
+    rmseMgL: Number(r.rmse),
+    finishedAt: r.finished_at!.toISOString(),
+  }));
 }
 
 /** A readable reason for a failed run (never a stack trace). */

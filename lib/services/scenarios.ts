@@ -1,9 +1,10 @@
 import type { Db } from "@/db/client";
 import { insertAuditEvent } from "@/db/queries/audit";
-import { findNetwork, latestNetworkId, networkOutfalls, networkReaches } from "@/db/queries/networks";
+import { findNetwork, latestNetworkId, networkOutfalls, networkReaches, reachKeys as networkReachKeys } from "@/db/queries/networks";
 import {
   countRuns,
   deleteScenario as deleteScenarioRow,
+  findRun,
   findScenario,
   findScenarioByName,
   insertScenario,
@@ -13,7 +14,8 @@ import {
 import type { BasinScope } from "@/lib/auth/scope";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { NetworkForModel } from "@/lib/scenarios/build-model-file";
-import { scenarioInputsSchema, type GaugeFlowSource, type ScenarioCreate, type ScenarioInputs, type ScenarioUpdate } from "@/lib/validation/scenario";
+import type { RunPayload } from "@/lib/model/run-payload";
+import { scenarioInputsSchema, type FittedKineticsSource, type GaugeFlowSource, type ScenarioCreate, type ScenarioInputs, type ScenarioUpdate } from "@/lib/validation/scenario";
 import { findGaugeRecord } from "@/db/queries/gauges";
 import type { LowFlowReport } from "@/lib/hydrology/low-flow";
 
@@ -102,6 +104,50 @@ async function withGaugeSources(db: Db, basinId: string, inputs: ScenarioInputs)
   return { ...inputs, conditions };
 }
 
+/**
+ * The scenario's fitted coefficients with their source read from the calibration run as it is
+ * now (what a client sent as the source is replaced): the run must be a finished calibration
+ * of this basin, fitted over reaches the scenario's network has.
+ */
+async function withFittedKinetics(db: Db, basinId: string, networkId: string, inputs: ScenarioInputs): Promise<ScenarioInputs> {
+  if (!inputs.fittedKinetics) return inputs;
+  const path = "inputs.fittedKinetics.runId";
+  const refuse = (message: string) => new AppError("invalid", message, [{ path, message }]);
+  const run = await findRun(db, basinId, inputs.fittedKinetics.runId, true);
+  if (!run || run.kind !== "calibration") throw refuse("There is no such calibration in this basin");
+  const calibration = ((run as { result?: unknown }).result as RunPayload | null)?.calibration;
+  if (run.status !== "done" || !calibration || !run.finished_at) throw refuse("The calibration has not finished: use it once it has");
+  const have = new Set(await networkReachKeys(db, networkId));
+  const missing = calibration.parameters.flatMap((p) => p.reaches).find((id) => !have.has(id));
+  if (missing) throw refuse(`The calibration fitted reach ${missing}, which this scenario's network does not have`);
+  const source: FittedKineticsSource = {
+    surveyName: calibration.survey.name,
+    surveySha256: calibration.survey.sha256,
+    surveyFirstTime: calibration.survey.firstTime,
+    condition: calibration.condition,
+    finishedAt: run.finished_at.toISOString(),
+    rmseMgL: calibration.rmse_mg_l,
+    biasMgL: calibration.bias_mg_l,
+    nse: calibration.nse,
+    samples: calibration.residuals.length,
+    parameters: calibration.parameters.map((p) => ({ parameter: p.parameter, reaches: p.reaches, value: p.value, stdError: p.std_error })),
+    validation: calibration.validation
+      ? {
+          surveyName: calibration.validation.survey.name,
+          rmseMgL: calibration.validation.rmse_mg_l,
+          biasMgL: calibration.validation.bias_mg_l,
+          nse: calibration.validation.nse,
+          samples: calibration.validation.residuals.length,
+        }
+      : null,
+  };
+  return { ...inputs, fittedKinetics: { runId: run.id, source } };
+}
+
+/** What a scenario's inputs carry from outside themselves (gauge statistics, fitted coefficients), resolved as they are now. */
+const resolveSources = async (db: Db, basinId: string, networkId: string, inputs: ScenarioInputs) =>
+  withFittedKinetics(db, basinId, networkId, await withGaugeSources(db, basinId, inputs));
+
 export async function createScenario(scope: BasinScope, input: ScenarioCreate): Promise<ScenarioDto> {
   scope.require("scenario.edit");
   const { db, actor, basin } = scope;
@@ -118,7 +164,7 @@ export async function createScenario(scope: BasinScope, input: ScenarioCreate): 
       networkId,
       name: input.name,
       description: input.description,
-      inputs: await withGaugeSources(trx, basin.id, input.inputs),
+      inputs: await resolveSources(trx, basin.id, networkId, input.inputs),
       userId: actor.id,
     });
     await insertAuditEvent(trx, { basinId: basin.id, actorId: actor.id, action: "scenario.created", targetType: "scenario", targetId: id, details: { name: input.name } });
@@ -137,7 +183,7 @@ export async function updateScenario(scope: BasinScope,
     const current = await findScenario(trx, basin.id, scenarioId);
     if (!current) throw notFound("Scenario");
     if (input.name && input.name !== current.name && (await findScenarioByName(trx, basin.id, input.name))) throw nameTaken(input.name);
-    const patch = input.inputs ? { ...input, inputs: await withGaugeSources(trx, basin.id, input.inputs) } : input;
+    const patch = input.inputs ? { ...input, inputs: await resolveSources(trx, basin.id, current.network_id, input.inputs) } : input;
     const ok = await updateScenarioIfVersion(trx, current.id, input.version, patch, actor.id);
     if (!ok) {
       throw conflict(

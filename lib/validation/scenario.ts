@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { FIT_PARAMETERS } from "@/lib/domain/calibration";
 import { ALLOCATION_OBJECTIVES, DEFAULT_KA_METHOD, DESIGN_FLOW_NAMES, DEFAULT_OBJECTIVE, DEFAULT_THETA_RULE, KA_METHODS, THETA_RULES } from "@/lib/domain";
 import { SCENARIO_FIELD_LABELS as L } from "@/lib/format/labels";
 
@@ -34,6 +35,33 @@ export const gaugeFlowSchema = z.object({
   gaugeId: z.uuid("Choose a gauge record"),
   statistic: z.enum(DESIGN_FLOW_NAMES, { message: `The statistic must be one of ${DESIGN_FLOW_NAMES.join(", ")}` }),
   source: gaugeFlowSourceSchema.optional(),
+});
+
+/**
+ * Where a scenario's fitted coefficients came from: a finished calibration run, filled in by
+ * Sagline when the scenario is saved (lib/services/scenarios.ts); anything a client sends here
+ * is replaced. It travels with the scenario's inputs into runs and plans.
+ */
+export const fittedKineticsSourceSchema = z.object({
+  surveyName: z.string(),
+  surveySha256: z.string(),
+  surveyFirstTime: z.string().nullable(),
+  condition: z.string(),
+  finishedAt: z.string(),
+  rmseMgL: z.number(),
+  biasMgL: z.number(),
+  nse: z.number().nullable(),
+  samples: z.number().int(),
+  parameters: z.array(z.object({ parameter: z.enum(FIT_PARAMETERS), reaches: z.array(z.string()), value: z.number(), stdError: z.number().nullable() })),
+  /** The fitted model against a second survey, when the calibration was checked against one. */
+  validation: z.object({ surveyName: z.string(), rmseMgL: z.number(), biasMgL: z.number(), nse: z.number().nullable(), samples: z.number().int() }).nullable(),
+});
+export type FittedKineticsSource = z.infer<typeof fittedKineticsSourceSchema>;
+
+/** Coefficients fitted in a calibration run, used by the scenario on the reaches they were fitted over. */
+export const fittedKineticsSchema = z.object({
+  runId: z.uuid("Choose a finished calibration"),
+  source: fittedKineticsSourceSchema.optional(),
 });
 
 /** One critical (design) condition: flows and temperature the river is checked at. */
@@ -153,6 +181,8 @@ export const scenarioInputsSchema = z
       .default(0.5),
     conditions: z.array(conditionSchema).min(1, "Give at least one critical condition").max(6, "A scenario holds at most 6 critical conditions"),
     kinetics: kineticsSchema.default(kineticsSchema.parse({})),
+    /** Coefficients fitted to a survey (a calibration run); they replace the reach values above on the reaches they were fitted over. */
+    fittedKinetics: fittedKineticsSchema.nullable().default(null),
     reachOverrides: z.record(z.string(), reachOverrideSchema).default({}),
     headwater: waterQualitySchema.default(waterQualitySchema.parse({})),
     inflowOverrides: z.record(z.string(), inflowOverrideSchema).default({}),

@@ -5,7 +5,7 @@ import { createComputePool } from "@/lib/compute/pool";
 import { AppError } from "@/lib/errors";
 import type { ModelFile } from "@/lib/model/types";
 import { runModel } from "@/lib/model/network/run";
-import { createCalibrationRun, getRun, processRun } from "@/lib/services/runs";
+import { createCalibrationRun, createRun, getRun, processRun } from "@/lib/services/runs";
 import { createScenario } from "@/lib/services/scenarios";
 import { uploadSurvey } from "@/lib/services/surveys";
 import { calibrationRunSchema } from "@/lib/validation/calibration";
@@ -136,6 +136,45 @@ describe("calibration runs", () => {
     expect(cal.fit[1].reaches).toEqual(["TR-03", "TR-04", "TR-05", "TR-06"]);
     for (const r of cal.residuals) expect(r.residual_mg_l).toBeCloseTo(r.observed_mg_l - r.modelled_mg_l, 12);
     expect(Number.isFinite(cal.rmse_mg_l)).toBe(true);
+  });
+
+  it("a scenario uses a finished calibration's fitted values on the reaches it fitted, recording where they came from", async () => {
+    const queued = await ask({ surveyId: demoSurvey.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: ["TR-03", "TR-04"], min: 0.05, max: 3, start: 0.3 }] });
+    const early = await refused(
+      scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Too early", inputs: { conditions: [{ name: "7Q10" }], fittedKinetics: { runId: queued.id } } })),
+    );
+    expect(early.details).toEqual([{ path: "inputs.fittedKinetics.runId", message: "The calibration has not finished: use it once it has" }]);
+    await processRun(db, queued.id);
+    const fit = (await scoped(getRun)(db, w.users.planner, w.basinId, queued.id)).result!.calibration!;
+    const kd = fit.parameters[0].value;
+    const forged = { surveyName: "forged", surveySha256: "0", surveyFirstTime: null, condition: "x", finishedAt: "x", rmseMgL: 0, biasMgL: 0, nse: 1, samples: 99, parameters: [], validation: null };
+    const scenario = await scoped(createScenario)(
+      db,
+      w.users.planner,
+      w.basinId,
+      // a source sent by the client is replaced by the calibration's own record
+      scenarioCreateSchema.parse({ name: "Calibrated 7Q10", inputs: { conditions: [{ name: "7Q10" }], fittedKinetics: { runId: queued.id, source: forged } } }),
+    );
+    expect(scenario.inputs.fittedKinetics!.source).toMatchObject({
+      surveyName: demoSurvey.name,
+      surveySha256: demoSurvey.sha256,
+      condition: "12 August 2026",
+      rmseMgL: fit.rmse_mg_l,
+      samples: 16,
+      parameters: [{ parameter: "kd20_per_day", reaches: ["TR-03", "TR-04"], value: kd, stdError: fit.parameters[0].std_error }],
+      validation: null,
+    });
+    const run = await scoped(createRun)(db, w.users.planner, w.basinId, scenario.id, "model");
+    const { files } = await inputsOf(run.id);
+    const byId = new Map(files[0].file.reaches.map((r) => [r.id, r]));
+    expect(byId.get("TR-03")!.kd20_per_day).toBe(kd);
+    expect(byId.get("TR-04")!.kd20_per_day).toBe(kd);
+    // other reaches keep the scenario's value (the default 0.3 /d)
+    expect(byId.get("TR-01")!.kd20_per_day).toBe(0.3);
+    const notCalibration = await refused(
+      scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Wrong run", inputs: { conditions: [{ name: "7Q10" }], fittedKinetics: { runId: run.id } } })),
+    );
+    expect(notCalibration.details).toEqual([{ path: "inputs.fittedKinetics.runId", message: "There is no such calibration in this basin" }]);
   });
 
   it("names the field at fault: a condition, a reach or a survey the scenario cannot use", async () => {

@@ -28,9 +28,19 @@ export default async function RunPage({ params }: { params: Promise<{ basinId: s
   return (
     <div>
       <h2 className="mb-4">
-        {used?.name ?? run.scenarioName} — {run.kind === "allocation" ? "allocation" : "model"} run
+        {used?.name ?? run.scenarioName} — {run.kind === "allocation" ? "allocation run" : run.kind === "calibration" ? "calibration to a survey" : "model run"}
       </h2>
-      <RunResults basinId={access.basin.id} basinName={access.basin.name} initial={run} network={network.geojson} unitSystem={access.basin.unitSystem} canPropose={access.can("plan.propose")} />
+      <RunResults
+        basinId={access.basin.id}
+        basinName={access.basin.name}
+        initial={run}
+        network={network.geojson}
+        unitSystem={access.basin.unitSystem}
+        canPropose={access.can("plan.propose")}
+        runNetwork={{ id: network.id, version: network.version }}
+        // surveys need scenario.read, as this page does; passed on so the comparison never asks for them without it
+        canReadSurveys={access.can("scenario.read")}
+      />
     </div>
   );
 }

@@ -6,6 +6,7 @@ import { basinPageAccess } from "@/lib/auth/page-access";
 import { AppError } from "@/lib/errors";
 import { getNetwork } from "@/lib/services/networks";
 import { listGaugeRecords } from "@/lib/services/gauges";
+import { listCalibrationChoices } from "@/lib/services/runs";
 import { getScenario } from "@/lib/services/scenarios";
 
 export const metadata: Metadata = { title: "Scenario" };
@@ -19,7 +20,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ basin
     throw e;
   });
   if (!scenario) notFound();
-  const [network, gauges] = await Promise.all([getNetwork(access.scope, scenario.networkId), listGaugeRecords(access.scope)]);
+  const [network, gauges, calibrations] = await Promise.all([getNetwork(access.scope, scenario.networkId), listGaugeRecords(access.scope), listCalibrationChoices(access.scope)]);
   return (
     <div>
       <h2 className="mb-4">{scenario.name}</h2>
@@ -31,6 +32,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ basin
         canEdit={access.can("scenario.edit")}
         reaches={network.reaches.map((r) => ({ id: r.id, name: r.name, downstreamId: r.downstreamId, attributes: r.attributes }))}
         outfalls={network.outfalls.map((o) => ({ permitId: o.permitId, facilityName: o.facilityName, reachId: o.reachId, attributes: o.attributes }))}
+        calibrations={calibrations}
         gauges={gauges.map((g) => ({ id: g.id, name: g.name, reachId: g.reachId, designFlows: g.designFlows.map((d) => ({ name: d.name, value: d.value })) }))}
       />
     </div>
