@@ -6,6 +6,9 @@ import { valueNumber, valueText } from "./fields";
 import { error, warning, type Problem } from "./problems";
 import type { SourceFeature, SourceLayer } from "./types";
 import {
+  AREA_UNITS,
+  areaToKm2,
+  type AreaUnit,
   DEPTH_UNITS,
   DISTANCE_UNITS,
   FLOW_UNITS,
@@ -43,6 +46,7 @@ export const reachMappingSchema = z.object({
   bottomWidth: withUnit(DEPTH_UNITS).optional(),
   sideSlope: plain.optional(),
   designFlow: withUnit(FLOW_UNITS).optional(),
+  drainageArea: withUnit(AREA_UNITS).optional(),
   temperature: withUnit(TEMPERATURE_UNITS).optional(),
   elevation: withUnit(DEPTH_UNITS).optional(),
   deoxygenationRate: plain.optional(),
@@ -81,6 +85,8 @@ export interface ReachAttributes {
   /** Bank slope, horizontal per vertical (0 = rectangular). */
   sideSlope?: number;
   designFlowM3s?: number;
+  /** Area draining to the reach (km²); a headwater's carries a gauge's flow by drainage-area ratio. */
+  drainageAreaKm2?: number;
   temperatureC?: number;
   elevationM?: number;
   deoxygenationRatePerDay?: number;
@@ -127,6 +133,7 @@ const REACH_NUMBERS: NumericRule<ReachMapping, ReachAttributes>[] = [
   { target: "bottomWidthM", key: "bottomWidth", label: "bottom width", convert: (v, b) => depthToM(v, b.unit as DepthUnit) },
   { target: "sideSlope", key: "sideSlope", label: "side slope", convert: same },
   { target: "designFlowM3s", key: "designFlow", label: "design flow", convert: (v, b) => flowToM3s(v, b.unit as FlowUnit) },
+  { target: "drainageAreaKm2", key: "drainageArea", label: "drainage area", convert: (v, b) => areaToKm2(v, b.unit as AreaUnit) },
   { target: "temperatureC", key: "temperature", label: "temperature", convert: (v, b) => temperatureToC(v, b.unit as TemperatureUnit), signed: true },
   { target: "elevationM", key: "elevation", label: "elevation", convert: (v, b) => depthToM(v, b.unit as DepthUnit), signed: true },
   { target: "deoxygenationRatePerDay", key: "deoxygenationRate", label: "deoxygenation rate", convert: same },

@@ -1,4 +1,4 @@
-import { DEPTH_UNITS, DISTANCE_UNITS, FLOW_UNITS, TEMPERATURE_UNITS, VELOCITY_UNITS } from "./units";
+import { AREA_UNITS, DEPTH_UNITS, DISTANCE_UNITS, FLOW_UNITS, TEMPERATURE_UNITS, VELOCITY_UNITS } from "./units";
 import type { FieldInfo } from "./types";
 import type { DischargerMapping, ReachMapping } from "./field-mapping";
 
@@ -34,6 +34,9 @@ const UNIT_LABELS: Record<string, string> = {
   "ft/s": "ft/s",
   degC: "°C",
   degF: "°F",
+  km2: "km²",
+  mi2: "mi²",
+  ha: "ha",
 };
 export const unitText = (u: string) => UNIT_LABELS[u] ?? u;
 
@@ -49,6 +52,7 @@ export const REACH_FIELDS: ModelField[] = [
   { key: "bottomWidth", label: "Bottom width", units: DEPTH_UNITS, guess: /^(bottom_?width|bot_?w|b_?width)/i },
   { key: "sideSlope", label: "Bank side slope (horizontal per vertical)", guess: /^side_?slope/i },
   { key: "designFlow", label: "Design flow", units: FLOW_UNITS, guess: /(design_?)?flow|7q10|^q_/i },
+  { key: "drainageArea", label: "Drainage area", units: AREA_UNITS, guess: /^(drain(age)?_?area|da_|catch(ment)?_?area|basin_?area)/i },
   { key: "temperature", label: "Temperature", units: TEMPERATURE_UNITS, guess: /^temp/i },
   { key: "elevation", label: "Elevation", units: DEPTH_UNITS, guess: /^elev/i },
   { key: "deoxygenationRate", label: "Deoxygenation rate k_d at 20 °C (1/d)", guess: /^(kd|k_d|deox)/i },

@@ -5,7 +5,7 @@
  * importer's; the numbers are that table's.
  */
 import { withoutFloatNoise } from "@/lib/format/quantities";
-import { FT3_TO_M3, FT_TO_M, MGD_TO_M3_S, MI_TO_KM, SECONDS_PER_DAY as DAY_S } from "@/lib/model/units";
+import { FT3_TO_M3, FT_TO_M, MGD_TO_M3_S, MI2_TO_KM2, MI_TO_KM, SECONDS_PER_DAY as DAY_S } from "@/lib/model/units";
 
 export const METRES_PER_FOOT = FT_TO_M;
 export const KILOMETRES_PER_MILE = MI_TO_KM;
@@ -20,12 +20,14 @@ export const DEPTH_UNITS = ["m", "ft"] as const;
 export const DISTANCE_UNITS = ["km", "mi", "m", "ft"] as const;
 export const VELOCITY_UNITS = ["m/s", "ft/s"] as const;
 export const TEMPERATURE_UNITS = ["degC", "degF"] as const;
+export const AREA_UNITS = ["km2", "mi2", "ha"] as const;
 
 export type FlowUnit = (typeof FLOW_UNITS)[number];
 export type DepthUnit = (typeof DEPTH_UNITS)[number];
 export type DistanceUnit = (typeof DISTANCE_UNITS)[number];
 export type VelocityUnit = (typeof VELOCITY_UNITS)[number];
 export type TemperatureUnit = (typeof TEMPERATURE_UNITS)[number];
+export type AreaUnit = (typeof AREA_UNITS)[number];
 
 const FLOW_TO_M3S: Record<FlowUnit, number> = {
   "m3/s": 1,
@@ -40,6 +42,7 @@ const DISTANCE_TO_KM: Record<DistanceUnit, number> = {
   ft: METRES_PER_FOOT / 1000,
 };
 const VELOCITY_TO_MPS: Record<VelocityUnit, number> = { "m/s": 1, "ft/s": METRES_PER_FOOT };
+const AREA_TO_KM2: Record<AreaUnit, number> = { km2: 1, mi2: MI2_TO_KM2, ha: 0.01 };
 
 /**
  * An imported value times its exact factor, kept to 12 significant digits so the stored SI
@@ -58,6 +61,9 @@ export const distanceToKm = (value: number, unit: DistanceUnit): number => conve
 
 /** Velocity to m/s. Example: `velocityToMps(1, "ft/s")` → 0.3048. */
 export const velocityToMps = (value: number, unit: VelocityUnit): number => convert(value, VELOCITY_TO_MPS[unit]);
+
+/** Area to km². Example: `areaToKm2(1, "mi2")` → 2.589988110336. */
+export const areaToKm2 = (value: number, unit: AreaUnit): number => convert(value, AREA_TO_KM2[unit]);
 
 /** Temperature to °C. Example: `temperatureToC(68, "degF")` → 20. */
 export const temperatureToC = (value: number, unit: TemperatureUnit): number =>

@@ -93,6 +93,7 @@ export function reachColumns(system: UnitSystem, save?: SaveField) {
     { id: "downstream", header: "Flows into", value: (r) => r.downstreamId ?? "outlet", text: true, mono: true },
     { id: "length", header: `Length (${unitLabel("length", system)})`, value: (r) => r.lengthKm, kind: "length", edit: "lengthKm" },
     { id: "flow", header: `Design flow (${unitLabel("flow", system)})`, value: (r) => attr(r, "designFlowM3s"), kind: "flow", edit: "designFlowM3s" },
+    { id: "area", header: `Drainage area (${unitLabel("area", system)})`, value: (r) => attr(r, "drainageAreaKm2"), kind: "area", edit: "drainageAreaKm2" },
     { id: "velocity", header: `Velocity (${unitLabel("velocity", system)})`, value: (r) => attr(r, "velocityMps"), kind: "velocity", edit: "velocityMps" },
     { id: "depth", header: `Depth (${unitLabel("depth", system)})`, value: (r) => attr(r, "depthM"), kind: "depth", edit: "depthM" },
     { id: "slope", header: "Slope (m/m)", value: (r) => attr(r, "slope"), digits: 5, edit: "slope" },

@@ -288,7 +288,12 @@ export function ScenarioEditor({
                   value={watchedConditions?.[i]?.gaugeFlow ? `${watchedConditions[i].gaugeFlow!.gaugeId}|${watchedConditions[i].gaugeFlow!.statistic}` : ""}
                   onChange={(e) => {
                     const option = gaugeOptions.find((o) => o.key === e.target.value);
-                    setValue(`inputs.conditions.${i}.gaugeFlow`, option ? { gaugeId: option.gaugeId, statistic: option.statistic as GaugeStatistic } : null, { shouldDirty: true });
+                    const was = watchedConditions?.[i]?.gaugeFlow;
+                    setValue(
+                      `inputs.conditions.${i}.gaugeFlow`,
+                      option ? { gaugeId: option.gaugeId, statistic: option.statistic as GaugeStatistic, headwaters: was?.headwaters ?? "scaled", areaExponent: was?.areaExponent ?? 1 } : null,
+                      { shouldDirty: true },
+                    );
                     if (option) setValue(`inputs.conditions.${i}.outletFlowM3s`, null, { shouldDirty: true });
                   }}
                 >
@@ -300,6 +305,28 @@ export function ScenarioEditor({
                   ))}
                 </select>
                 {errors.inputs?.conditions?.[i]?.gaugeFlow?.message && <p className="field-error">{errors.inputs.conditions[i].gaugeFlow.message}</p>}
+                {watchedConditions?.[i]?.gaugeFlow && (
+                  <div className="mt-2 space-y-2">
+                    <label htmlFor={`gauge-headwaters-${i}`} className="field-label">
+                      Headwaters get
+                    </label>
+                    <select id={`gauge-headwaters-${i}`} className="field-input" disabled={!canEdit} {...register(`inputs.conditions.${i}.gaugeFlow.headwaters`)}>
+                      <option value="scaled">their design flow, scaled like every reach</option>
+                      <option value="drainage-area">the gauge&apos;s value by drainage-area ratio</option>
+                    </select>
+                    {watchedConditions[i].gaugeFlow!.headwaters === "drainage-area" && (
+                      <Field
+                        label="Drainage-area exponent"
+                        hint="Q = Q_gauge × (A / A_gauge)^exponent; 1 is common practice without a regional study. Headwaters without a drainage area are scaled."
+                        inputMode="decimal"
+                        disabled={!canEdit}
+                        error={errors.inputs?.conditions?.[i]?.gaugeFlow?.areaExponent?.message}
+                        {...register(`inputs.conditions.${i}.gaugeFlow.areaExponent`, { valueAsNumber: true })}
+                        id={`gauge-exponent-${i}`}
+                      />
+                    )}
+                  </div>
+                )}
               </div>
               <UnitField
                 control={control}

@@ -1,5 +1,5 @@
 import type { UnitSystem } from "@/lib/domain";
-import { cfsToM3s, cToF, fToC, ftPerSToMPerS, ftToM, kgToLb, kmToMi, lbToKg, m3sToCfs, miToKm, mPerSToFtPerS, mToFt } from "@/lib/model/units";
+import { cfsToM3s, cToF, fToC, ftPerSToMPerS, ftToM, kgToLb, km2ToMi2, kmToMi, lbToKg, m3sToCfs, mi2ToKm2, miToKm, mPerSToFtPerS, mToFt } from "@/lib/model/units";
 
 /**
  * Display of SI quantities in the basin's unit system (SI or US customary).
@@ -10,7 +10,7 @@ export interface Quantity {
   unit: string;
 }
 
-export type QuantityKind = "length" | "flow" | "depth" | "velocity" | "temperature" | "load" | "distance";
+export type QuantityKind = "length" | "flow" | "depth" | "velocity" | "temperature" | "load" | "distance" | "area";
 type Kind = QuantityKind;
 
 interface Rule {
@@ -30,6 +30,7 @@ const TABLE: Record<Kind, Record<UnitSystem, Rule>> = {
   velocity: { SI: si("m/s", 3), US: { unit: "ft/s", convert: mPerSToFtPerS, back: ftPerSToMPerS, digits: 2 } },
   temperature: { SI: si("°C", 1), US: { unit: "°F", convert: cToF, back: fToC, digits: 1 } },
   load: { SI: si("kg/d", 1), US: { unit: "lb/d", convert: kgToLb, back: lbToKg, digits: 1 } },
+  area: { SI: si("km²", 2), US: { unit: "mi²", convert: km2ToMi2, back: mi2ToKm2, digits: 2 } },
 };
 
 /**
@@ -105,7 +106,7 @@ const SCREEN_PRECISION: Record<Exclude<Measure, Kind>, Precision> = {
  * noise of a computation: DO 0.001 mg/L, concentration 0.01 mg/L, rate 4 significant
  * figures, percent 0.01, dual 4 significant figures, time 0.0001 d, ratio 0.0001;
  * km or mi 0.001, m or ft 0.1, flow 4 significant figures, depth 0.001, velocity 0.001,
- * temperature 0.01, load 0.01 (kg/d or lb/d); longitude and latitude 7 decimals (about 1 cm).
+ * temperature 0.01, load 0.01 (kg/d or lb/d), drainage area 4 significant figures; longitude and latitude 7 decimals (about 1 cm).
  * docs/exports.md lists the same table.
  */
 export const EXPORT_PRECISION: Record<Measure, Precision> = {
@@ -124,6 +125,7 @@ export const EXPORT_PRECISION: Record<Measure, Precision> = {
   velocity: dec(3),
   temperature: dec(2),
   load: dec(2),
+  area: sig(4),
 };
 
 const noNegativeZero = (x: number) => (x === 0 ? 0 : x);

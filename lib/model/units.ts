@@ -10,6 +10,8 @@ export const LB_TO_KG = 0.45359237;
 export const SECONDS_PER_DAY = 86_400;
 /** 1 ft³ in m³ (exact: 0.3048³). */
 export const FT3_TO_M3 = FT_TO_M ** 3;
+/** 1 mi² in km² (exact: 1.609344²). */
+export const MI2_TO_KM2 = MI_TO_KM ** 2;
 /** 1 MGD (million US gallons per day) in m³/s (exact). */
 export const MGD_TO_M3_S = (1e6 * US_GAL_TO_L) / 1000 / SECONDS_PER_DAY;
 /** load (kg/d) = LOAD_FACTOR × Q (m³/s) × C (mg/L): 1 mg/L = 1 g/m³, 86 400 s/d, 1000 g/kg. */
@@ -19,6 +21,10 @@ export const LOAD_FACTOR = SECONDS_PER_DAY / 1000;
 export const ftToM = (ft: number): number => ft * FT_TO_M;
 /** Metres → feet. Example: `mToFt(0.3048)` → 1. */
 export const mToFt = (m: number): number => m / FT_TO_M;
+/** mi² → km². Example: `mi2ToKm2(1)` → 2.589988110336. */
+export const mi2ToKm2 = (mi2: number): number => mi2 * MI2_TO_KM2;
+/** km² → mi². */
+export const km2ToMi2 = (km2: number): number => km2 / MI2_TO_KM2;
 /** Miles → km. Example: `miToKm(1)` → 1.609344. */
 export const miToKm = (mi: number): number => mi * MI_TO_KM;
 /** km → miles. */

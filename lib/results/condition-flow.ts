@@ -13,7 +13,15 @@ export function conditionFlowText(c: Pick<ConditionInputs, "flowScale" | "outlet
   const flow = (q: number) => `${formatIn("flow", q, system)} ${unitLabel("flow", system)}`;
   const source = c.gaugeFlow?.source;
   if (c.gaugeFlow && source) {
-    return `${c.gaugeFlow.statistic} of ${source.gaugeName}${source.stationCode ? ` (${source.stationCode})` : ""}: ${flow(source.valueM3s)} at ${source.reachId}, ${source.yearsUsed} years of daily record ${source.firstDay} to ${source.lastDay}`;
+    const gauged = `${c.gaugeFlow.statistic} of ${source.gaugeName}${source.stationCode ? ` (${source.stationCode})` : ""}: ${flow(source.valueM3s)} at ${source.reachId}, ${source.yearsUsed} years of daily record ${source.firstDay} to ${source.lastDay}`;
+    const t = source.transfers;
+    if (!t) return gauged;
+    const area = (a: number) => `${formatIn("area", a, system)} ${unitLabel("area", system)}`;
+    const heads = t.headwaters.map((h) => `${h.reach} ${flow(h.flowM3s)} (${area(h.areaKm2)})`).join(", ");
+    return (
+      `${gauged}; carried to headwaters by drainage-area ratio, Q × (A / ${area(t.gaugeAreaKm2)})${t.exponent === 1 ? "" : `^${t.exponent}`}: ${heads || "none had a drainage area"}` +
+      (t.scaled.length ? `; scaled with every reach (no drainage area): ${t.scaled.join(", ")}` : "")
+    );
   }
   if (c.outletFlowM3s != null) return `design flow at the outlet ${flow(c.outletFlowM3s)}`;
   return `network design low flow × ${c.flowScale}`;

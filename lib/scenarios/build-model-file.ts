@@ -63,7 +63,9 @@ export function conditionFlowScale(network: NetworkForModel, condition: Conditio
 /**
  * The natural (upstream of effluents) design flow added at the head of each
  * reach under one condition: the reach's design flow minus that of the reaches
- * flowing into it. Returns m³/s per reach id; warnings for negative increments.
+ * flowing into it; a headwater the condition's gauge statistic is carried to by
+ * drainage-area ratio gets that flow instead. Returns m³/s per reach id; warnings
+ * for negative increments.
  */
 export function flowIncrements(network: NetworkForModel, condition: ConditionInputs, conditionPath: string, warnings: string[]): Map<string, number> {
   const natural = new Map<string, number>();
@@ -91,6 +93,17 @@ export function flowIncrements(network: NetworkForModel, condition: ConditionInp
       );
     }
     out.set(r.id, Math.max(0, inc));
+  }
+  // a gauge's statistic carried to headwaters by drainage-area ratio (recorded when the scenario was saved)
+  const transfers = condition.gaugeFlow?.headwaters === "drainage-area" ? condition.gaugeFlow.source?.transfers : undefined;
+  if (condition.gaugeFlow?.headwaters === "drainage-area" && !transfers) {
+    throw new ScenarioInputError(`${conditionPath}.gaugeFlow`, `Condition "${condition.name}": save the scenario again so the drainage-area transfer is worked out`);
+  }
+  for (const t of transfers?.headwaters ?? []) {
+    if (!out.has(t.reach)) {
+      throw new ScenarioInputError(`${conditionPath}.gaugeFlow`, `Condition "${condition.name}": headwater ${t.reach} is not in this network version; save the scenario again`);
+    }
+    if (condition.reachFlowsM3s[t.reach] === undefined) out.set(t.reach, t.flowM3s);
   }
   return out;
 }

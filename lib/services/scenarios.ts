@@ -18,6 +18,7 @@ import type { RunPayload } from "@/lib/model/run-payload";
 import { scenarioInputsSchema, type FittedKineticsSource, type GaugeFlowSource, type ScenarioCreate, type ScenarioInputs, type ScenarioUpdate } from "@/lib/validation/scenario";
 import { findGaugeRecord } from "@/db/queries/gauges";
 import type { LowFlowReport } from "@/lib/hydrology/low-flow";
+import { transferByDrainageArea } from "@/lib/hydrology/transfer";
 
 export interface ScenarioDto {
   id: string;
@@ -75,7 +76,7 @@ export async function getScenario(scope: BasinScope, scenarioId: string): Promis
  * say its design flow came from. 422 naming the condition's field when the record is not
  * this basin's, stands on no reach, or gives no value for the statistic.
  */
-async function withGaugeSources(db: Db, basinId: string, inputs: ScenarioInputs): Promise<ScenarioInputs> {
+async function withGaugeSources(db: Db, basinId: string, networkId: string, inputs: ScenarioInputs): Promise<ScenarioInputs> {
   if (!inputs.conditions.some((c) => c.gaugeFlow)) return inputs;
   const conditions = await Promise.all(
     inputs.conditions.map(async (c, i) => {
@@ -98,7 +99,28 @@ async function withGaugeSources(db: Db, basinId: string, inputs: ScenarioInputs)
         lastDay: g.last_day,
         yearsUsed: report.years_used,
       };
-      return { ...c, gaugeFlow: { gaugeId: c.gaugeFlow.gaugeId, statistic: c.gaugeFlow.statistic, source } };
+      if (c.gaugeFlow.headwaters === "drainage-area") {
+        const reaches = await networkReaches(db, networkId);
+        const area = (r: (typeof reaches)[number] | undefined) => {
+          const a = (r?.attributes as Record<string, unknown> | undefined)?.drainageAreaKm2;
+          return typeof a === "number" && a > 0 ? a : undefined;
+        };
+        const gaugeArea = area(reaches.find((r) => r.reach_key === g.reach_key));
+        if (gaugeArea === undefined) throw refuse("headwaters", `the gauge's reach ${g.reach_key} has no drainage area; enter it in the network table, or scale every reach instead`);
+        const fed = new Set(reaches.map((r) => r.downstream_key).filter(Boolean));
+        const heads = reaches.filter((r) => !fed.has(r.reach_key));
+        const withArea = heads.filter((r) => area(r) !== undefined && c.reachFlowsM3s[r.reach_key] === undefined);
+        source.transfers = {
+          gaugeAreaKm2: gaugeArea,
+          exponent: c.gaugeFlow.areaExponent,
+          headwaters: withArea.map((r) => {
+            const t = transferByDrainageArea(value, gaugeArea, area(r)!, c.gaugeFlow!.areaExponent, g.name);
+            return { reach: r.reach_key, areaKm2: area(r)!, ratio: t.ratio, flowM3s: t.flow, rule: t.rule };
+          }),
+          scaled: heads.filter((r) => !withArea.includes(r)).map((r) => r.reach_key),
+        };
+      }
+      return { ...c, gaugeFlow: { ...c.gaugeFlow, source } };
     }),
   );
   return { ...inputs, conditions };
@@ -146,7 +168,7 @@ async function withFittedKinetics(db: Db, basinId: string, networkId: string, in
 
 /** What a scenario's inputs carry from outside themselves (gauge statistics, fitted coefficients), resolved as they are now. */
 const resolveSources = async (db: Db, basinId: string, networkId: string, inputs: ScenarioInputs) =>
-  withFittedKinetics(db, basinId, networkId, await withGaugeSources(db, basinId, inputs));
+  withFittedKinetics(db, basinId, networkId, await withGaugeSources(db, basinId, networkId, inputs));
 
 export async function createScenario(scope: BasinScope, input: ScenarioCreate): Promise<ScenarioDto> {
   scope.require("scenario.edit");

@@ -74,6 +74,7 @@ export const reachEditSchema = z
     name: z.string().trim().max(200).nullable(),
     lengthKm: positive("Length (km)", 1000),
     designFlowM3s: positive("Design flow (m³/s)", 100_000).nullable(),
+    drainageAreaKm2: positive("Drainage area (km²)", 10_000_000).nullable(),
     velocityMps: positive("Velocity (m/s)", 10).nullable(),
     depthM: positive("Depth (m)", 100).nullable(),
     slope: nonNegative("Slope (m/m)", 1).nullable(),

@@ -27,6 +27,19 @@ export const gaugeFlowSourceSchema = z.object({
   firstDay: z.string(),
   lastDay: z.string(),
   yearsUsed: z.number().int(),
+  /**
+   * With `headwaters: "drainage-area"`: each headwater's inflow, the statistic carried by the
+   * drainage-area ratio (lib/hydrology/transfer.ts), and the headwaters that had no area and
+   * were scaled instead.
+   */
+  transfers: z
+    .object({
+      gaugeAreaKm2: z.number().positive(),
+      exponent: z.number().positive(),
+      headwaters: z.array(z.object({ reach: z.string(), areaKm2: z.number().positive(), ratio: z.number().positive(), flowM3s: z.number().nonnegative(), rule: z.string() })),
+      scaled: z.array(z.string()),
+    })
+    .optional(),
 });
 export type GaugeFlowSource = z.infer<typeof gaugeFlowSourceSchema>;
 
@@ -34,6 +47,14 @@ export type GaugeFlowSource = z.infer<typeof gaugeFlowSourceSchema>;
 export const gaugeFlowSchema = z.object({
   gaugeId: z.uuid("Choose a gauge record"),
   statistic: z.enum(DESIGN_FLOW_NAMES, { message: `The statistic must be one of ${DESIGN_FLOW_NAMES.join(", ")}` }),
+  /**
+   * How the statistic reaches the headwaters: every reach's network design flow scaled so the
+   * gauge's reach carries it ("scaled"), or each headwater with a drainage area given the
+   * statistic × (its area / the gauge reach's area)^exponent ("drainage-area"; the other
+   * inflows scaled as before).
+   */
+  headwaters: z.enum(["scaled", "drainage-area"], { message: 'headwaters must be "scaled" or "drainage-area"' }).default("scaled"),
+  areaExponent: z.number({ message: "The drainage-area exponent must be a number" }).gt(0, "The drainage-area exponent must be above 0").max(2, "The drainage-area exponent must be at most 2").default(1),
   source: gaugeFlowSourceSchema.optional(),
 });
 

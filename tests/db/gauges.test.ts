@@ -160,6 +160,46 @@ describe("a condition's design flow from a gauge's statistic", () => {
     expect(conditionFlowText(scenario.inputs.conditions[0], "SI")).toMatch(/^7Q10 of Quillford, placed: 0\.\d+ m³\/s at TR-04, 30 years of daily record 1994-04-01 to 2024-03-31/);
   });
 
+  it("carries the statistic to headwaters by drainage-area ratio when asked, scaling those without an area, each value recorded with its rule", async () => {
+    const networkId = (await db.selectFrom("networks").select("id").where("basin_id", "=", w.basinId).orderBy("version", "desc").executeTakeFirstOrThrow()).id;
+    // drainage areas (km²) on the gauge's reach and four of the five headwaters; HC-01 has none
+    const areas: Record<string, number> = { "TR-04": 120, "TR-01": 30, "OC-01": 12, "BB-01": 18, "SR-01": 9 };
+    for (const [id, a] of Object.entries(areas)) {
+      const r = await db.selectFrom("reaches").select("attributes").where("network_id", "=", networkId).where("reach_key", "=", id).executeTakeFirstOrThrow();
+      await db.updateTable("reaches").set({ attributes: JSON.stringify({ ...(r.attributes as object), drainageAreaKm2: a }) }).where("network_id", "=", networkId).where("reach_key", "=", id).execute();
+    }
+    const q7 = placed.designFlows.find((d) => d.name === "7Q10")!.value!;
+    for (const exponent of [1, 0.8]) {
+      const res = await create(`By drainage area ^${exponent}`, { gaugeFlow: { gaugeId: placed.id, statistic: "7Q10", headwaters: "drainage-area", areaExponent: exponent } });
+      expect(res.status, JSON.stringify(res.json)).toBe(201);
+      const scenario = res.json as ScenarioDto;
+      const t = scenario.inputs.conditions[0].gaugeFlow!.source!.transfers!;
+      expect(t.gaugeAreaKm2).toBe(120);
+      expect(t.scaled).toEqual(["HC-01"]);
+      const net = await scoped(getNetwork)(db, w.users.planner, w.basinId, scenario.networkId);
+      const forModel = { reaches: net.reaches.map((r) => ({ id: r.id, downstreamId: r.downstreamId, lengthKm: r.lengthKm, attributes: r.attributes })), outfalls: net.outfalls.map((o) => ({ permitId: o.permitId, reachId: o.reachId, chainageKm: o.chainageKm, attributes: o.attributes })) };
+      const file = buildConditionFiles(forModel, scenario.inputs, 5)[0].file;
+      const scaledByHand = buildConditionFiles(forModel, { ...scenario.inputs, conditions: [{ ...scenario.inputs.conditions[0], gaugeFlow: null, flowScale: q7 / (net.reaches.find((r) => r.id === "TR-04")!.attributes.designFlowM3s as number) }] }, 5)[0].file;
+      const flowAt = (f: typeof file, id: string) => f.headwaters.find((h) => h.reach === id)!.flow_m3_s;
+      // exact arithmetic: Q = 7Q10 × (A / 120 km²)^exponent
+      for (const id of ["TR-01", "OC-01", "BB-01", "SR-01"]) expect(flowAt(file, id)).toBeCloseTo(q7 * Math.pow(areas[id] / 120, exponent), 12);
+      // HC-01 (no area) and every lateral inflow are scaled as before
+      expect(flowAt(file, "HC-01")).toBeCloseTo(flowAt(scaledByHand, "HC-01"), 12);
+      for (const h of file.headwaters.filter((x) => !(x.reach in areas))) expect(h.flow_m3_s).toBeCloseTo(flowAt(scaledByHand, h.reach), 12);
+      expect(conditionFlowText(scenario.inputs.conditions[0], "SI")).toMatch(
+        new RegExp(`carried to headwaters by drainage-area ratio, Q × \\(A / 120\\.00 km²\\)${exponent === 1 ? "" : "\\^0\\.8"}: BB-01 .*, TR-01 .*; scaled with every reach \\(no drainage area\\): HC-01$`),
+      );
+    }
+    // the gauge's reach without an area is refused, naming the field
+    const r4 = await db.selectFrom("reaches").select("attributes").where("network_id", "=", networkId).where("reach_key", "=", "TR-04").executeTakeFirstOrThrow();
+    const { drainageAreaKm2: _gone, ...rest } = r4.attributes as Record<string, unknown>;
+    await db.updateTable("reaches").set({ attributes: JSON.stringify(rest) }).where("network_id", "=", networkId).where("reach_key", "=", "TR-04").execute();
+    const refused = await create("No gauge area", { gaugeFlow: { gaugeId: placed.id, statistic: "7Q10", headwaters: "drainage-area" } });
+    expect(refused.status).toBe(422);
+    expect(err(refused.json).details?.[0]?.path).toBe("inputs.conditions.0.gaugeFlow.headwaters");
+    expect(err(refused.json).message).toMatch(/TR-04 has no drainage area/);
+  });
+
   it("is refused naming the field: a record of another basin or none, a record on no reach, or a gauge beside an outlet flow", async () => {
     const unknown = await create("No such gauge", { gaugeFlow: { gaugeId: "00000000-0000-4000-8000-000000000000", statistic: "7Q10" } });
     expect(unknown.status).toBe(422);

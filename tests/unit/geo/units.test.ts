@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
+import { formatIn, unitLabel } from "@/lib/format/quantities";
 import {
+  areaToKm2,
   CUBIC_METRES_PER_SECOND_PER_CFS,
   CUBIC_METRES_PER_SECOND_PER_MGD,
   depthToM,
@@ -34,5 +36,16 @@ describe("unit conversions to SI", () => {
     expect(temperatureToC(32, "degF")).toBe(0);
     expect(temperatureToC(-40, "degF")).toBeCloseTo(-40, 12);
     expect(temperatureToC(25, "degC")).toBe(25);
+  });
+
+  it("converts drainage areas", () => {
+    // 1 mi² = 1.609344² km² = 2.589988110336 km² (exact); 1 ha = 100 m × 100 m = 0.01 km²
+    expect(areaToKm2(1, "mi2")).toBeCloseTo(2.589988110336, 10);
+    expect(areaToKm2(250, "ha")).toBe(2.5);
+    expect(areaToKm2(12.5, "km2")).toBe(12.5);
+    // shown in a US basin in mi²: 2.589988110336 km² is 1.00 mi²
+    expect(formatIn("area", 2.589988110336, "US")).toBe("1.00");
+    expect(unitLabel("area", "US")).toBe("mi²");
+    expect(unitLabel("area", "SI")).toBe("km²");
   });
 });
