@@ -115,6 +115,27 @@ export interface GaugeRecordsTable {
   uploaded_at: CreatedAt;
 }
 
+export interface TemperatureRecordsTable {
+  id: Generated<string>;
+  basin_id: string;
+  name: string;
+  station_code: string | null;
+  reach_key: string | null;
+  unit: "C" | "F";
+  file_name: string;
+  size_bytes: number;
+  sha256: string;
+  content: Buffer;
+  first_day: ColumnType<string, string, string>;
+  last_day: ColumnType<string, string, string>;
+  day_count: number;
+  missing_days: number;
+  /** Daily means in °C (lib/hydrology/design-temperature.ts DailyValue[]). */
+  days: Json<unknown>;
+  uploaded_by: string | null;
+  uploaded_at: CreatedAt;
+}
+
 export interface SurveysTable {
   id: Generated<string>;
   basin_id: string;
@@ -382,6 +403,7 @@ export interface Database {
   basin_follows: BasinFollowsTable;
   gauge_records: GaugeRecordsTable;
   surveys: SurveysTable;
+  temperature_records: TemperatureRecordsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

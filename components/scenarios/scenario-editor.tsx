@@ -104,6 +104,7 @@ export function ScenarioEditor({
   reaches,
   gauges = [],
   calibrations = [],
+  temperatureRecords = [],
 }: {
   basinId: string;
   scenario: ScenarioDto;
@@ -116,6 +117,8 @@ export function ScenarioEditor({
   gauges?: GaugeChoice[];
   /** Finished calibrations whose fitted coefficients the scenario may use. */
   calibrations?: CalibrationChoice[];
+  /** Water-temperature records a condition's design temperature may come from, with their default-rule value (°C). */
+  temperatureRecords?: { id: string; name: string; summerC: number | null }[];
 }) {
   const query = useScenarioQuery(basinId, initial.id);
   const scenario = query.data ?? initial;
@@ -237,6 +240,7 @@ export function ScenarioEditor({
                   gaugeFlow: null,
                   reachFlowsM3s: toFormKeys(Object.fromEntries(reaches.map((r) => [r.id, null]))),
                   temperatureC: null,
+                  temperatureFrom: null,
                 })
               }
               disabled={conditions.fields.length >= 6}
@@ -328,14 +332,57 @@ export function ScenarioEditor({
                   </div>
                 )}
               </div>
-              <UnitField
-                control={control}
-                name={`inputs.conditions.${i}.temperatureC`}
-                label={LABELS.designTemperature}
-                kind="temperature"
-                system={unitSystem}
-                nullable
-              />
+              <div>
+                <UnitField
+                  control={control}
+                  name={`inputs.conditions.${i}.temperatureC`}
+                  label={LABELS.designTemperature}
+                  kind="temperature"
+                  system={unitSystem}
+                  nullable
+                />
+                <label htmlFor={`temperature-from-${i}`} className="field-label mt-2">
+                  or from a temperature record
+                </label>
+                <select
+                  id={`temperature-from-${i}`}
+                  className="field-input"
+                  disabled={!canEdit}
+                  value={watchedConditions?.[i]?.temperatureFrom?.recordId ?? ""}
+                  onChange={(e) => {
+                    const was = watchedConditions?.[i]?.temperatureFrom;
+                    setValue(
+                      `inputs.conditions.${i}.temperatureFrom`,
+                      e.target.value ? { recordId: e.target.value, percentile: was?.percentile ?? 90, months: was?.months ?? [6, 7, 8, 9] } : null,
+                      { shouldDirty: true },
+                    );
+                  }}
+                >
+                  <option value="">{temperatureRecords.length ? "No record" : "No temperature record in this basin"}</option>
+                  {temperatureRecords.map((t) => (
+                    <option key={t.id} value={t.id}>
+                      {t.name}
+                      {t.summerC !== null ? ` (June–September 90th percentile ${formatIn("temperature", t.summerC, unitSystem)} ${unitLabel("temperature", unitSystem)})` : ""}
+                    </option>
+                  ))}
+                </select>
+                {watchedConditions?.[i]?.temperatureFrom && (
+                  <Field
+                    label="Percentile of the daily means (June–September)"
+                    hint="The condition's temperature is worked out from the record by this rule when the scenario is saved."
+                    inputMode="decimal"
+                    disabled={!canEdit}
+                    error={errors.inputs?.conditions?.[i]?.temperatureFrom?.percentile?.message}
+                    {...register(`inputs.conditions.${i}.temperatureFrom.percentile`, { valueAsNumber: true })}
+                    id={`temperature-percentile-${i}`}
+                  />
+                )}
+                {watchedConditions?.[i]?.temperatureFrom?.source && (
+                  <p className="mt-1 text-xs text-ink-faint" data-testid={`temperature-source-${i}`}>
+                    From {watchedConditions[i].temperatureFrom!.source!.recordName}: {watchedConditions[i].temperatureFrom!.source!.rule}
+                  </p>
+                )}
+              </div>
               <Button variant="quiet" disabled={conditions.fields.length === 1} onClick={() => conditions.remove(i)}>
                 Remove
               </Button>

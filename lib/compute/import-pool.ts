@@ -1,6 +1,6 @@
 import { join } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
-import type { GaugeReadResult, SurveyReadResult, ImportErrorData, ImportJob, ImportResponse, ImportStage, ReadResult, ValidateResult } from "./import-protocol";
+import type { GaugeReadResult, SurveyReadResult, TemperatureReadResult, ImportErrorData, ImportJob, ImportResponse, ImportStage, ReadResult, ValidateResult } from "./import-protocol";
 import { createWorkerPool } from "./worker-pool";
 
 /** An import job failed in the worker; `data` carries a GeoError's code and details. */
@@ -18,6 +18,8 @@ export interface ImportPool {
   validate(job: Extract<ImportJob, { kind: "validate" }>, onProgress?: ProgressListener): Promise<ValidateResult>;
   /** Read a gauge's daily record and compute its low flows (40–90 ms for 30 years; longer records scale with their length). */
   gauge(job: Omit<Extract<ImportJob, { kind: "gauge" }>, "kind">): Promise<GaugeReadResult>;
+  /** Read a daily water-temperature record (°C). */
+  temperature(job: Omit<Extract<ImportJob, { kind: "temperature" }>, "kind">): Promise<TemperatureReadResult>;
   /** Read a synoptic survey and place its samples on the network's reaches. */
   survey(job: Omit<Extract<ImportJob, { kind: "survey" }>, "kind">): Promise<SurveyReadResult>;
   close(): Promise<void>;
@@ -67,6 +69,7 @@ export function createImportPool(options: { size?: number; timeoutMs?: number } 
     validate: (job, onProgress) => pool.submit(job, progress(onProgress)) as Promise<ValidateResult>,
     gauge: (job) => pool.submit({ kind: "gauge", ...job }) as Promise<GaugeReadResult>,
     survey: (job) => pool.submit({ kind: "survey", ...job }) as Promise<SurveyReadResult>,
+    temperature: (job) => pool.submit({ kind: "temperature", ...job }) as Promise<TemperatureReadResult>,
     close: pool.close,
   };
 }

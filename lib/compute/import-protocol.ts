@@ -1,7 +1,8 @@
 import type { LowFlowReport } from "../hydrology/low-flow";
 import type { NetworkReachLine, PlacedSample } from "../survey/place-stations";
 import type { SurveyReadOptions, SurveyRowProblem } from "../survey/read-survey";
-import type { FlowUnit } from "../hydrology/read-record";
+import type { FlowUnit, TemperatureRecordUnit } from "../hydrology/read-record";
+import type { DailyValue } from "../hydrology/design-temperature";
 import type { CrsInfo, DischargerMapping, FieldInfo, ReachMapping, ReadOptions, SourceFormat, UploadLayer, ValidateOptions } from "../../geo";
 
 /** One kept upload as the import worker reads it. */
@@ -18,6 +19,8 @@ export type ImportJob =
   | { kind: "read"; upload: UploadBytes; layer: UploadLayer }
   /** A gauge's daily flow record: read and its low-flow statistics computed (lib/hydrology). */
   | { kind: "gauge"; bytes: Uint8Array; fileName: string; unit: FlowUnit; climaticYearStart: string }
+  /** A daily water-temperature record: read, in °C. */
+  | { kind: "temperature"; bytes: Uint8Array; fileName: string; unit: TemperatureRecordUnit }
   /** A synoptic survey: read (CSV, GeoJSON or shapefile points) and its samples placed on the network's reaches. */
   | { kind: "survey"; format: SourceFormat; bytes: Uint8Array; fileName: string; options: SurveyReadOptions; maxSnapDistanceM?: number; reaches: NetworkReachLine[] }
   | {
@@ -34,6 +37,11 @@ export type ImportJob =
 /** A gauge record read in the worker, or the reason it could not be (naming the line). */
 export type GaugeReadResult =
   | { ok: true; report: LowFlowReport; sha256: string; dayCount: number; missingDays: number; firstDay: string; lastDay: string }
+  | { ok: false; message: string };
+
+/** A temperature record read in the worker, or the reason it could not be (naming the line). */
+export type TemperatureReadResult =
+  | { ok: true; days: DailyValue[]; sha256: string; dayCount: number; missingDays: number; firstDay: string; lastDay: string }
   | { ok: false; message: string };
 
 /** A survey read and placed in the worker: its samples, or every row problem (nothing is saved then). */

@@ -9,10 +9,10 @@ import { readUploadLayer } from "../../geo/read-upload";
 import { validateImport, type ValidateProgress } from "../../geo/validate";
 import type { Problem } from "../../geo/problems";
 import { lowFlowStatistics } from "../hydrology/low-flow";
-import { readDailyRecord, RecordError } from "../hydrology/read-record";
+import { readDailyRecord, readDailyTemperature, RecordError } from "../hydrology/read-record";
 import { placeSamples } from "../survey/place-stations";
 import { readSurvey } from "../survey/read-survey";
-import { MAX_LISTED_PROBLEMS, type GaugeReadResult, type SurveyReadResult, type ImportJob, type ImportRequest, type ImportResponse, type ImportStage, type ReadResult, type UploadBytes, type ValidateResult } from "./import-protocol";
+import { MAX_LISTED_PROBLEMS, type GaugeReadResult, type SurveyReadResult, type TemperatureReadResult, type ImportJob, type ImportRequest, type ImportResponse, type ImportStage, type ReadResult, type UploadBytes, type ValidateResult } from "./import-protocol";
 
 if (!parentPort) throw new Error("lib/compute/import-worker.ts must be started as a worker thread");
 const port = parentPort;
@@ -90,6 +90,33 @@ function readGauge(job: Extract<ImportJob, { kind: "gauge" }>): GaugeReadResult 
   }
 }
 
+/** A daily water-temperature record: UTF-8 text read in its unit; a bad line is an answer, not a failure. */
+function readTemperature(job: Extract<ImportJob, { kind: "temperature" }>): TemperatureReadResult {
+  const bytes = own(job.bytes);
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    return { ok: false, message: `${job.fileName} is not UTF-8 text: upload the record as CSV (date,temperature) or rdb text` };
+  }
+  try {
+    const days = readDailyTemperature(text, job.unit);
+    if (days.length === 0) return { ok: false, message: `${job.fileName}: the record has no days` };
+    return {
+      ok: true,
+      days,
+      sha256: createHash("sha256").update(bytes).digest("hex"),
+      dayCount: days.length,
+      missingDays: days.filter((d) => d.value === null).length,
+      firstDay: days[0].date,
+      lastDay: days[days.length - 1].date,
+    };
+  } catch (e) {
+    if (e instanceof RecordError) return { ok: false, message: `${job.fileName}: ${e.message}` };
+    throw e;
+  }
+}
+
 /** A survey file read and its samples placed; a row that cannot be used is an answer (the problems), not a failure. */
 async function readAndPlaceSurvey(job: Extract<ImportJob, { kind: "survey" }>): Promise<SurveyReadResult> {
   const bytes = own(job.bytes);
@@ -107,10 +134,11 @@ async function readAndPlaceSurvey(job: Extract<ImportJob, { kind: "survey" }>): 
   return { ok: true, samples: placed, sha256: createHash("sha256").update(bytes).digest("hex"), columns };
 }
 
-async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateResult | GaugeReadResult | SurveyReadResult> {
+async function run(id: number, job: ImportJob): Promise<ReadResult | ValidateResult | GaugeReadResult | SurveyReadResult | TemperatureReadResult> {
   const progress = (stage: ImportStage, fraction: number) => port.postMessage({ id, type: "progress", stage, fraction } satisfies ImportResponse);
   if (job.kind === "gauge") return readGauge(job);
   if (job.kind === "survey") return readAndPlaceSurvey(job);
+  if (job.kind === "temperature") return readTemperature(job);
   if (job.kind === "read") {
     const upload = { ...job.upload, bytes: own(job.upload.bytes) };
     const source = await read(upload, job.layer);

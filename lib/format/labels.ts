@@ -37,6 +37,7 @@ export const AUDIT_ACTION_NAMES: Record<string, string> = {
   "import.uploaded": "uploaded a GIS file",
   "gauge.uploaded": "uploaded a gauge's daily flow record",
   "survey.uploaded": "uploaded a synoptic survey",
+  "temperature_record.uploaded": "uploaded a daily water-temperature record",
   "network.committed": "saved a new network version",
   "network.reach_edited": "edited a reach",
   "network.discharger_edited": "edited an outfall",

@@ -225,7 +225,9 @@ function methods(s: PlanSnapshot, run: RunResult, allocation: AllocationResult, 
       heading: "Critical conditions",
       items: i.conditions.map((c) => ({
         label: c.name,
-        value: `${conditionFlowText(c, system)}${Object.keys(c.reachFlowsM3s ?? {}).length ? `, ${Object.keys(c.reachFlowsM3s).length} reach flow(s) set by hand` : ""}; temperature ${t(c.temperatureC)}`,
+        value: `${conditionFlowText(c, system)}${Object.keys(c.reachFlowsM3s ?? {}).length ? `, ${Object.keys(c.reachFlowsM3s).length} reach flow(s) set by hand` : ""}; temperature ${t(c.temperatureC)}${
+          c.temperatureFrom?.source ? ` (${c.temperatureFrom.source.rule}, record ${c.temperatureFrom.source.recordName}, SHA-256 ${c.temperatureFrom.source.sha256.slice(0, 16)}…)` : ""
+        }`,
       })),
     },
     {

@@ -15,10 +15,12 @@ import type { BasinScope } from "@/lib/auth/scope";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { NetworkForModel } from "@/lib/scenarios/build-model-file";
 import type { RunPayload } from "@/lib/model/run-payload";
-import { scenarioInputsSchema, type FittedKineticsSource, type GaugeFlowSource, type ScenarioCreate, type ScenarioInputs, type ScenarioUpdate } from "@/lib/validation/scenario";
+import { scenarioInputsSchema, type FittedKineticsSource, type GaugeFlowSource, type TemperatureFromSource, type ScenarioCreate, type ScenarioInputs, type ScenarioUpdate } from "@/lib/validation/scenario";
 import { findGaugeRecord } from "@/db/queries/gauges";
 import type { LowFlowReport } from "@/lib/hydrology/low-flow";
 import { transferByDrainageArea } from "@/lib/hydrology/transfer";
+import { designTemperature, type DailyValue } from "@/lib/hydrology/design-temperature";
+import { findTemperatureRecord } from "@/db/queries/temperature-records";
 
 export interface ScenarioDto {
   id: string;
@@ -166,9 +168,45 @@ async function withFittedKinetics(db: Db, basinId: string, networkId: string, in
   return { ...inputs, fittedKinetics: { runId: run.id, source } };
 }
 
-/** What a scenario's inputs carry from outside themselves (gauge statistics, fitted coefficients), resolved as they are now. */
+/**
+ * Each condition's design temperature worked out from its temperature record by its rule (the
+ * record as it is now; what a client sent as the value or the source is replaced).
+ */
+async function withTemperatureSources(db: Db, basinId: string, inputs: ScenarioInputs): Promise<ScenarioInputs> {
+  if (!inputs.conditions.some((c) => c.temperatureFrom)) return inputs;
+  const conditions = await Promise.all(
+    inputs.conditions.map(async (c, i) => {
+      if (!c.temperatureFrom) return c;
+      const path = `inputs.conditions.${i}.temperatureFrom`;
+      const refuse = (field: string, message: string) => new AppError("invalid", `Condition "${c.name}": ${message}`, [{ path: `${path}.${field}`, message }]);
+      const record = await findTemperatureRecord(db, basinId, c.temperatureFrom.recordId);
+      if (!record) throw refuse("recordId", "no such temperature record in this basin");
+      let t;
+      try {
+        t = designTemperature(record.days as DailyValue[], { months: c.temperatureFrom.months, percentile: c.temperatureFrom.percentile });
+      } catch (e) {
+        if (e instanceof RangeError) throw refuse("months", `the record "${record.name}": ${e.message}`);
+        throw e;
+      }
+      const valueC = Math.round(t.value_c * 100) / 100;
+      const source: TemperatureFromSource = {
+        valueC,
+        recordName: record.name,
+        stationCode: record.station_code,
+        sha256: record.sha256,
+        rule: t.rule,
+        daysUsed: t.days_used,
+        daysMissing: t.days_missing,
+      };
+      return { ...c, temperatureC: valueC, temperatureFrom: { recordId: record.id, percentile: c.temperatureFrom.percentile, months: c.temperatureFrom.months, source } };
+    }),
+  );
+  return { ...inputs, conditions };
+}
+
+/** What a scenario's inputs carry from outside themselves (gauge statistics, temperature records, fitted coefficients), resolved as they are now. */
 const resolveSources = async (db: Db, basinId: string, networkId: string, inputs: ScenarioInputs) =>
-  withFittedKinetics(db, basinId, networkId, await withGaugeSources(db, basinId, networkId, inputs));
+  withFittedKinetics(db, basinId, networkId, await withTemperatureSources(db, basinId, await withGaugeSources(db, basinId, networkId, inputs)));
 
 export async function createScenario(scope: BasinScope, input: ScenarioCreate): Promise<ScenarioDto> {
   scope.require("scenario.edit");

@@ -85,6 +85,32 @@ export const fittedKineticsSchema = z.object({
   source: fittedKineticsSourceSchema.optional(),
 });
 
+/** What a condition's design temperature was worked out from, filled in by Sagline at save (anything a client sends here is replaced). */
+export const temperatureFromSourceSchema = z.object({
+  valueC: z.number(),
+  recordName: z.string(),
+  stationCode: z.string().nullable(),
+  sha256: z.string(),
+  /** The rule in words, with the days used (lib/hydrology/design-temperature.ts). */
+  rule: z.string(),
+  daysUsed: z.number().int(),
+  daysMissing: z.number().int(),
+});
+export type TemperatureFromSource = z.infer<typeof temperatureFromSourceSchema>;
+
+/** A condition's design temperature from a daily water-temperature record. */
+export const temperatureFromSchema = z.object({
+  recordId: z.uuid("Choose a temperature record"),
+  percentile: z.number({ message: "The percentile must be a number" }).min(50, "The percentile must be at least 50").max(100, "The percentile must be at most 100").default(90),
+  months: z
+    .array(z.number().int().min(1).max(12), { message: "Months are numbers 1–12" })
+    .min(1, "Choose at least one month")
+    .max(12)
+    .refine((m) => new Set(m).size === m.length, "Each month once")
+    .default([6, 7, 8, 9]),
+  source: temperatureFromSourceSchema.optional(),
+});
+
 /** One critical (design) condition: flows and temperature the river is checked at. */
 export const conditionSchema = z.object({
   name: z.string().trim().min(1, "Give the condition a name").max(80, `${L.conditionName} must be at most 80 characters`),
@@ -113,6 +139,12 @@ export const conditionSchema = z.object({
     .default({}),
   /** One design temperature for every reach (°C); null keeps each reach's own. */
   temperatureC: temperature(L.designTemperature).nullable().default(null),
+  /**
+   * The design temperature from a water-temperature record by a stated rule (a percentile of
+   * the daily means in chosen months). When given, temperatureC is set from it when the
+   * scenario is saved. null = temperatureC as entered.
+   */
+  temperatureFrom: temperatureFromSchema.nullable().default(null),
 });
 export type ConditionInputs = z.infer<typeof conditionSchema>;
 

@@ -160,6 +160,22 @@ const CORE: Record<string, Entry> = {
       },
     },
   },
+  "app/api/basins/[basinId]/temperature-records/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/temperature-records/route"),
+    methods: {
+      GET: { expect: planners(200), params: basin },
+      POST: {
+        expect: planners(201),
+        params: basin,
+        body: () => {
+          const f = new FormData();
+          f.set("name", "Matrix temperatures");
+          f.set("file", new File(["date,temperature\n2025-07-01,21.5\n2025-07-02,22\n"], "t.csv"));
+          return f;
+        },
+      },
+    },
+  },
   "app/api/basins/[basinId]/surveys/route.ts": {
     load: () => import("@/app/api/basins/[basinId]/surveys/route"),
     methods: {

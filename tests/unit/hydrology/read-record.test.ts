@@ -4,7 +4,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { annualMinima, lowFlowStatistics } from "@/lib/hydrology/low-flow";
-import { CFS_TO_M3S, readDailyRecord } from "@/lib/hydrology/read-record";
+import { CFS_TO_M3S, readDailyRecord, readDailyTemperature } from "@/lib/hydrology/read-record";
 
 /** A tab-separated record in the layout national water-data services publish (invented site and values). */
 const RDB = [
@@ -90,4 +90,32 @@ describe("npm run design-flow", () => {
     expect(refused.err).toMatch(/bad\.csv: line 2: flow "x" is not a number/);
     expect(refused.err).not.toMatch(/at .*\.ts:\d+/);
   }, 60_000);
+});
+
+describe("reading a daily water-temperature record", () => {
+  it("reads CSV date,temperature in °C or °F (exact: 77 °F = 25 °C, 68 °F = 20 °C), a blank as a missing day, sorted by date", () => {
+    const r = readDailyTemperature("date,temperature\n2021-07-02,77\n2021-07-01,68\n2021-07-03,\n", "F");
+    expect(r.map((d) => d.date)).toEqual(["2021-07-01", "2021-07-02", "2021-07-03"]);
+    expect(r[0].value).toBeCloseTo(20, 12);
+    expect(r[1].value).toBeCloseTo(25, 12);
+    expect(r[2].value).toBeNull();
+    expect(readDailyTemperature("date,temperature\n2021-07-01,-1.5\n", "C")[0].value).toBe(-1.5);
+  });
+
+  it("reads rdb text: the first value column after datetime, qualifier words as missing days", () => {
+    const rdb = "# a comment\nagency_cd\tsite_no\tdatetime\t00010_mean\t00010_mean_cd\n5s\t15s\t20d\t14n\t10s\nXX\t01\t2021-08-01\t24.5\tA\nXX\t01\t2021-08-02\tEqp\tA\n";
+    const r = readDailyTemperature(rdb, "C");
+    expect(r).toEqual([
+      { date: "2021-08-01", value: 24.5 },
+      { date: "2021-08-02", value: null },
+    ]);
+  });
+
+  it("names the line of a value it cannot use", () => {
+    expect(() => readDailyTemperature("date,temperature\n2021-07-01,warm\n", "C")).toThrow(/^line 2: temperature "warm" is not a number$/);
+    // 120 °F is 48.9 °C: no river's daily mean; most likely the wrong unit
+    expect(() => readDailyTemperature("date,temperature\n2021-07-01,75\n2021-07-02,120\n", "F")).toThrow(/^line 3: temperature 120 °F lies outside -2–45 °C for water/);
+    expect(() => readDailyTemperature("date,flow\n2021-07-01,1\n", "C")).toThrow(/the header must name the columns date and temperature/);
+    expect(() => readDailyTemperature("date,temperature\n2021-07-01,20\n2021-07-01,21\n", "C")).toThrow(/line 3: date 2021-07-01 appears twice/);
+  });
 });

@@ -7,6 +7,8 @@ import { basinPageAccess } from "@/lib/auth/page-access";
 import { formatIn, unitLabel } from "@/lib/format/quantities";
 import { formatDay } from "@/lib/format/zoned-time";
 import { gaugeReachChoices, listGaugeRecords } from "@/lib/services/gauges";
+import { listTemperatureRecords } from "@/lib/services/temperature-records";
+import { TemperatureUploadForm } from "@/components/gauges/temperature-upload-form";
 
 export const metadata: Metadata = { title: "Gauges" };
 
@@ -18,10 +20,15 @@ export default async function GaugesPage({ params }: { params: Promise<{ basinId
   const access = await basinPageAccess(basinId, "scenario.read");
   if (!access.ok) return <Denied message={access.message} />;
   const canUpload = access.can("network.import");
-  const [gauges, reaches] = await Promise.all([listGaugeRecords(access.scope), canUpload ? gaugeReachChoices(access.scope) : Promise.resolve([])]);
+  const [gauges, reaches, temperatures] = await Promise.all([
+    listGaugeRecords(access.scope),
+    canUpload ? gaugeReachChoices(access.scope) : Promise.resolve([]),
+    listTemperatureRecords(access.scope),
+  ]);
   const system = access.basin.unitSystem;
   const zone = access.basin.timeZone ?? "UTC";
   const flow = unitLabel("flow", system);
+  const temperatureUnit = unitLabel("temperature", system);
   return (
     <div className="space-y-6">
       <section className="card space-y-3">
@@ -76,6 +83,51 @@ export default async function GaugesPage({ params }: { params: Promise<{ basinId
         )}
       </section>
       {canUpload && <GaugeUploadForm basinId={access.basin.id} reachIds={reaches} />}
+      <section className="card space-y-3">
+        <h2>Water-temperature records</h2>
+        <p className="text-sm text-ink-soft">
+          Daily mean water temperatures. A condition&apos;s design temperature can come from one of them by a stated rule; shown here by the usual
+          one, the 90th percentile of June–September daily means (common practice).
+        </p>
+        {temperatures.length === 0 ? (
+          <p className="text-sm">No temperature records yet.{canUpload ? " Upload one below." : ""}</p>
+        ) : (
+          <div className="overflow-x-auto">
+            <table className="data-table" data-testid="temperature-table">
+              <thead>
+                <tr>
+                  <th>Record</th>
+                  <th>Reach</th>
+                  <th>Days</th>
+                  <th className="num">June–September 90th percentile ({temperatureUnit})</th>
+                  <th>Uploaded</th>
+                </tr>
+              </thead>
+              <tbody>
+                {temperatures.map((t) => (
+                  <tr key={t.id}>
+                    <td>
+                      {t.name}
+                      {t.stationCode && <span className="block font-mono text-xs text-ink-faint">{t.stationCode}</span>}
+                      <span className="block font-mono text-xs text-ink-faint">{t.fileName}</span>
+                    </td>
+                    <td className="font-mono text-xs">{t.reachId ?? "—"}</td>
+                    <td className="whitespace-nowrap text-sm">
+                      {t.firstDay} to {t.lastDay} ({t.dayCount.toLocaleString("en")}, {t.missingDays.toLocaleString("en")} missing)
+                    </td>
+                    <td className="num">{formatIn("temperature", t.summer?.value_c, system)}</td>
+                    <td className="whitespace-nowrap text-sm">
+                      {formatDay(new Date(t.uploadedAt), zone)}
+                      {t.uploadedBy ? `, ${t.uploadedBy}` : ""}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </section>
+      {canUpload && <TemperatureUploadForm basinId={access.basin.id} reachIds={reaches} />}
       <PlanningCaution />
     </div>
   );

@@ -7,6 +7,7 @@ import { AppError } from "@/lib/errors";
 import { getNetwork } from "@/lib/services/networks";
 import { listGaugeRecords } from "@/lib/services/gauges";
 import { listCalibrationChoices } from "@/lib/services/runs";
+import { listTemperatureRecords } from "@/lib/services/temperature-records";
 import { getScenario } from "@/lib/services/scenarios";
 
 export const metadata: Metadata = { title: "Scenario" };
@@ -20,7 +21,12 @@ export default async function ScenarioPage({ params }: { params: Promise<{ basin
     throw e;
   });
   if (!scenario) notFound();
-  const [network, gauges, calibrations] = await Promise.all([getNetwork(access.scope, scenario.networkId), listGaugeRecords(access.scope), listCalibrationChoices(access.scope)]);
+  const [network, gauges, calibrations, temperatures] = await Promise.all([
+    getNetwork(access.scope, scenario.networkId),
+    listGaugeRecords(access.scope),
+    listCalibrationChoices(access.scope),
+    listTemperatureRecords(access.scope),
+  ]);
   return (
     <div>
       <h2 className="mb-4">{scenario.name}</h2>
@@ -33,6 +39,7 @@ export default async function ScenarioPage({ params }: { params: Promise<{ basin
         reaches={network.reaches.map((r) => ({ id: r.id, name: r.name, downstreamId: r.downstreamId, attributes: r.attributes }))}
         outfalls={network.outfalls.map((o) => ({ permitId: o.permitId, facilityName: o.facilityName, reachId: o.reachId, attributes: o.attributes }))}
         calibrations={calibrations}
+        temperatureRecords={temperatures.map((t) => ({ id: t.id, name: t.name, summerC: t.summer?.value_c ?? null }))}
         gauges={gauges.map((g) => ({ id: g.id, name: g.name, reachId: g.reachId, designFlows: g.designFlows.map((d) => ({ name: d.name, value: d.value })) }))}
       />
     </div>
