@@ -45,6 +45,10 @@ export const reachMappingSchema = z.object({
   manningN: plain.optional(),
   bottomWidth: withUnit(DEPTH_UNITS).optional(),
   sideSlope: plain.optional(),
+  hgVelocityCoef: plain.optional(),
+  hgVelocityExp: plain.optional(),
+  hgDepthCoef: plain.optional(),
+  hgDepthExp: plain.optional(),
   designFlow: withUnit(FLOW_UNITS).optional(),
   drainageArea: withUnit(AREA_UNITS).optional(),
   temperature: withUnit(TEMPERATURE_UNITS).optional(),
@@ -84,6 +88,11 @@ export interface ReachAttributes {
   bottomWidthM?: number;
   /** Bank slope, horizontal per vertical (0 = rectangular). */
   sideSlope?: number;
+  /** Hydraulic geometry in SI: U = hgVelocityCoef·Q^hgVelocityExp (m/s), H = hgDepthCoef·Q^hgDepthExp (m), Q in m³/s. */
+  hgVelocityCoef?: number;
+  hgVelocityExp?: number;
+  hgDepthCoef?: number;
+  hgDepthExp?: number;
   designFlowM3s?: number;
   /** Area draining to the reach (km²); a headwater's carries a gauge's flow by drainage-area ratio. */
   drainageAreaKm2?: number;
@@ -132,6 +141,10 @@ const REACH_NUMBERS: NumericRule<ReachMapping, ReachAttributes>[] = [
   { target: "manningN", key: "manningN", label: "Manning's n", convert: same },
   { target: "bottomWidthM", key: "bottomWidth", label: "bottom width", convert: (v, b) => depthToM(v, b.unit as DepthUnit) },
   { target: "sideSlope", key: "sideSlope", label: "side slope", convert: same },
+  { target: "hgVelocityCoef", key: "hgVelocityCoef", label: "velocity coefficient a", convert: same },
+  { target: "hgVelocityExp", key: "hgVelocityExp", label: "velocity exponent b", convert: same },
+  { target: "hgDepthCoef", key: "hgDepthCoef", label: "depth coefficient c", convert: same },
+  { target: "hgDepthExp", key: "hgDepthExp", label: "depth exponent f", convert: same },
   { target: "designFlowM3s", key: "designFlow", label: "design flow", convert: (v, b) => flowToM3s(v, b.unit as FlowUnit) },
   { target: "drainageAreaKm2", key: "drainageArea", label: "drainage area", convert: (v, b) => areaToKm2(v, b.unit as AreaUnit) },
   { target: "temperatureC", key: "temperature", label: "temperature", convert: (v, b) => temperatureToC(v, b.unit as TemperatureUnit), signed: true },

@@ -100,6 +100,10 @@ export function reachColumns(system: UnitSystem, save?: SaveField) {
     { id: "manning", header: "Manning's n", value: (r) => attr(r, "manningN"), digits: 3, edit: "manningN" },
     { id: "width", header: `Bottom width (${unitLabel("depth", system)})`, value: (r) => attr(r, "bottomWidthM"), kind: "depth", edit: "bottomWidthM" },
     { id: "side", header: "Side slope (H:V)", value: (r) => attr(r, "sideSlope"), digits: 2, edit: "sideSlope" },
+    { id: "hga", header: "U = a·Q^b: a (SI)", value: (r) => attr(r, "hgVelocityCoef"), digits: 4, edit: "hgVelocityCoef" },
+    { id: "hgb", header: "b", value: (r) => attr(r, "hgVelocityExp"), digits: 3, edit: "hgVelocityExp" },
+    { id: "hgc", header: "H = c·Q^f: c (SI)", value: (r) => attr(r, "hgDepthCoef"), digits: 4, edit: "hgDepthCoef" },
+    { id: "hgf", header: "f", value: (r) => attr(r, "hgDepthExp"), digits: 3, edit: "hgDepthExp" },
     {
       id: "temperature",
       header: `Temperature (${unitLabel("temperature", system)})`,

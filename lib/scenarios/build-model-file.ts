@@ -109,12 +109,25 @@ export function flowIncrements(network: NetworkForModel, condition: ConditionInp
 }
 
 /**
- * Where a reach's velocity and depth come from: a Manning channel (n, bottom width, the
- * reach's slope; side slope optional) makes them follow each condition's flow (MODEL.md §5);
- * otherwise the velocity and depth entered at design flow are used at every flow.
+ * Where a reach's velocity and depth come from: hydraulic-geometry coefficients (U = a·Q^b,
+ * H = c·Q^f, all four) or a Manning channel (n, bottom width, the reach's slope; side slope
+ * optional) make them follow each condition's flow (MODEL.md §5) — one or the other, not
+ * both; otherwise the velocity and depth entered at design flow are used at every flow.
  */
-function reachHydraulics(r: NetworkForModel["reaches"][number]): Pick<ReachInput, "velocity_m_s" | "depth_m" | "manning"> {
+function reachHydraulics(r: NetworkForModel["reaches"][number]): Pick<ReachInput, "velocity_m_s" | "depth_m" | "manning" | "hydraulic_geometry"> {
   const a = r.attributes;
+  const hg = [num(a.hgVelocityCoef), num(a.hgVelocityExp), num(a.hgDepthCoef), num(a.hgDepthExp)];
+  if (hg.some((v) => v !== undefined)) {
+    const names = ["the velocity coefficient a", "the velocity exponent b", "the depth coefficient c", "the depth exponent f"];
+    const missing = names.filter((_, i) => hg[i] === undefined);
+    if (missing.length) {
+      throw new ScenarioInputError(`network.reaches.${r.id}`, `Reach ${r.id} has part of a hydraulic geometry: add ${missing.join(", ")} in the network table, or clear it`);
+    }
+    if (num(a.manningN) !== undefined || num(a.bottomWidthM) !== undefined) {
+      throw new ScenarioInputError(`network.reaches.${r.id}`, `Reach ${r.id} has both a hydraulic geometry and a Manning channel: keep one in the network table`);
+    }
+    return { hydraulic_geometry: { a: hg[0]!, b: hg[1]!, c: hg[2]!, f: hg[3]! } };
+  }
   const n = num(a.manningN);
   const width = num(a.bottomWidthM);
   if (n !== undefined || width !== undefined) {

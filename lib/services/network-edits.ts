@@ -85,3 +85,52 @@ export async function editOutfall(scope: BasinScope,
     });
   });
 }
+
+/** Where fitted hydraulic-geometry coefficients came from, kept on the reach beside them. */
+export interface HydraulicGeometrySource {
+  surveys: { id: string; name: string; sha256: string }[];
+  measurements: number;
+  r2Velocity: number;
+  r2Depth: number;
+  fittedAt: string;
+}
+
+/**
+ * Hydraulic-geometry coefficients fitted from measurements (lib/services/hydraulic-fit.ts),
+ * written on a reach of the newest network with where they came from, audited. A Manning
+ * channel on the reach is cleared (a reach follows one rule or the other).
+ */
+export async function setReachHydraulicGeometry(
+  scope: BasinScope,
+  networkId: string,
+  reachId: string,
+  geometry: { a: number; b: number; c: number; f: number },
+  source: HydraulicGeometrySource,
+): Promise<void> {
+  scope.require("network.import");
+  const { db, actor, basin } = scope;
+  await db.transaction().execute(async (trx) => {
+    const network = await editableNetwork(trx, basin.id, networkId);
+    const reach = await findReach(trx, network.id, reachId);
+    if (!reach) throw notFound(`Reach ${reachId}`);
+    const patch = {
+      hgVelocityCoef: geometry.a,
+      hgVelocityExp: geometry.b,
+      hgDepthCoef: geometry.c,
+      hgDepthExp: geometry.f,
+      hydraulicGeometrySource: source,
+      manningN: null,
+      bottomWidthM: null,
+      sideSlope: null,
+    };
+    await updateReach(trx, network.id, reachId, { attributes: merge(reach.attributes, patch) });
+    await insertAuditEvent(trx, {
+      basinId: basin.id,
+      actorId: actor.id,
+      action: "network.reach_edited",
+      targetType: "reach",
+      targetId: `${network.id}/${reachId}`,
+      details: { version: network.version, reach: reachId, before: reach.attributes, change: patch },
+    });
+  });
+}

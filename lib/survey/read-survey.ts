@@ -3,7 +3,7 @@ import { GeoError } from "@/geo/errors";
 import { valueNumber } from "@/geo/fields";
 import { readUploadLayer } from "@/geo/read-upload";
 import type { LngLat, SourceFormat } from "@/geo/types";
-import { cfsToM3s, fToC } from "@/lib/model/units";
+import { cfsToM3s, fToC, ftPerSToMPerS, ftToM } from "@/lib/model/units";
 
 /**
  * A synoptic survey file read into rows (docs/surveys.md): one row per sample — a station,
@@ -44,6 +44,9 @@ export interface SurveySample {
   cbodu_mg_l: number | null;
   nh3n_mg_l: number | null;
   flow_m3s: number | null;
+  /** Mean velocity (m/s) and depth (m) measured with the flow, for hydraulic geometry; read in ft/s and ft when the flow is in cfs. */
+  velocity_m_s: number | null;
+  depth_m: number | null;
   /** Relative weight in a calibration (default 1). */
   weight: number | null;
 }
@@ -78,6 +81,8 @@ export const SURVEY_COLUMNS = {
   bod: ["bod", "bodmgl"],
   nh3n: ["nh3n", "nh3", "ammonia", "ammonian", "nh3nmgl"],
   flow: ["flow", "discharge", "q", "flowrate"],
+  velocity: ["velocity", "velocityms", "velocityfts", "meanvelocity", "vel"],
+  depth: ["depth", "depthm", "depthft", "meandepth"],
   weight: ["weight"],
 } as const;
 export type SurveyColumn = keyof typeof SURVEY_COLUMNS;
@@ -113,6 +118,8 @@ const RANGES = {
   cbodu: { min: 0, max: 2000, unit: "mg/L" },
   nh3n: { min: 0, max: 500, unit: "mg/L" },
   flow: { min: 0, max: 1e6, unit: "m³/s" },
+  velocity: { min: 0, max: 10, unit: "m/s" },
+  depth: { min: 0, max: 100, unit: "m" },
 } as const;
 
 interface RawRow {
@@ -162,7 +169,7 @@ export async function readSurvey(format: SourceFormat, bytes: Uint8Array, fileNa
   if (!columns.station) {
     problems.push({ row: null, field: "station", message: `No station column (looked for ${SURVEY_COLUMNS.station.join(", ")}); the columns are ${fileColumns.join(", ")}` });
   }
-  const measured = (["do", "temperature", "bod5", "cbodu", "bod", "nh3n", "flow"] as const).filter((k) => columns[k]);
+  const measured = (["do", "temperature", "bod5", "cbodu", "bod", "nh3n", "flow", "velocity", "depth"] as const).filter((k) => columns[k]);
   if (measured.length === 0) {
     problems.push({ row: null, field: "do", message: `No measured values: a survey needs at least one of DO, temperature, BOD5 or CBODu, NH3-N or flow (the columns are ${fileColumns.join(", ")})` });
   }
@@ -220,6 +227,10 @@ export async function readSurvey(format: SourceFormat, bytes: Uint8Array, fileNa
     const flowRaw = number("flow");
     const flow = flowRaw === null ? null : options.flowUnit === "cfs" ? cfsToM3s(flowRaw) : flowRaw;
     const plainBod = number("bod");
+    // velocity and depth are read in the flow's unit system: m/s and m with m³/s, ft/s and ft with cfs
+    const us = options.flowUnit === "cfs";
+    const velocityRaw = number("velocity");
+    const depthRaw = number("depth");
     const weight = number("weight");
     if (weight !== null && !(weight > 0)) bad("weight", `weight ${weight} must be above 0`);
     const sample: SurveySample = {
@@ -235,9 +246,11 @@ export async function readSurvey(format: SourceFormat, bytes: Uint8Array, fileNa
       cbodu_mg_l: inRange("cbodu", number("cbodu") ?? (options.bodKind === "cbodu" ? plainBod : null), "CBODu"),
       nh3n_mg_l: inRange("nh3n", number("nh3n"), "NH3-N"),
       flow_m3s: inRange("flow", flow, "Flow"),
+      velocity_m_s: inRange("velocity", velocityRaw === null ? null : us ? ftPerSToMPerS(velocityRaw) : velocityRaw, "Velocity"),
+      depth_m: inRange("depth", depthRaw === null ? null : us ? ftToM(depthRaw) : depthRaw, "Depth"),
       weight: weight !== null && weight > 0 ? weight : null,
     };
-    const values = [sample.do_mg_l, sample.temperature_c, sample.bod5_mg_l, sample.cbodu_mg_l, sample.nh3n_mg_l, sample.flow_m3s];
+    const values = [sample.do_mg_l, sample.temperature_c, sample.bod5_mg_l, sample.cbodu_mg_l, sample.nh3n_mg_l, sample.flow_m3s, sample.velocity_m_s, sample.depth_m];
     if (values.every((v) => v === null) && !problems.some((p) => p.row === r.row)) bad(measured[0], "The row has no measured value");
     samples.push(sample);
   }

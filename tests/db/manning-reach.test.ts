@@ -86,3 +86,39 @@ describe("a Manning channel typed into the network table", () => {
     expect(JSON.stringify(negative.json)).toMatch(/sideSlope/);
   });
 });
+
+describe("hydraulic-geometry coefficients typed into the network table", () => {
+  it("make that reach's velocity and depth U = a·Q^b, H = c·Q^f at each condition's flow (exact), recorded per segment", async () => {
+    // the half channel left on TR-05 above is cleared; TR-07's coefficients are invented for the test only
+    expect((await editReach("TR-05", { manningN: null })).status).toBe(204);
+    const edit = await editReach("TR-07", { hgVelocityCoef: 0.3, hgVelocityExp: 0.4, hgDepthCoef: 0.5, hgDepthExp: 0.35 });
+    expect(edit.status, JSON.stringify(edit.json)).toBe(204);
+    const s = await scenario("Hydraulic geometry on TR-07");
+    const queued = await queueModel(s.id);
+    expect(queued.status, JSON.stringify(queued.json)).toBe(202);
+    const id = (queued.json as RunSummaryDto).id;
+    await processRun(db, id);
+    const run = (await callRoute(runRoute.GET, "GET", { userId: planner(), params: { basinId: w.basinId, runId: id } })).json as RunDto;
+    expect(run.status).toBe("done");
+    for (const c of run.result!.conditions) {
+      for (const seg of c.run.reaches.find((r) => r.id === "TR-07")!.segments) {
+        expect(seg.hydraulics).toBe("hydraulic-geometry");
+        // exact: the power laws at the segment's own flow
+        expect(seg.velocity_m_s).toBeCloseTo(0.3 * seg.flow_m3_s ** 0.4, 12);
+        expect(seg.depth_m).toBeCloseTo(0.5 * seg.flow_m3_s ** 0.35, 12);
+      }
+    }
+    expect(run.modelFiles[0].file.reaches.find((r) => r.id === "TR-07")!.hydraulic_geometry).toEqual({ a: 0.3, b: 0.4, c: 0.5, f: 0.35 });
+  });
+
+  it("a geometry with a part missing, or beside a Manning channel, is refused naming the reach", async () => {
+    expect((await editReach("TR-08", { hgVelocityCoef: 0.3, hgVelocityExp: 0.4 })).status).toBe(204);
+    const s = await scenario("Half a geometry on TR-08");
+    const res = await queueModel(s.id);
+    expect(err(res.json).message).toMatch(/Reach TR-08 has part of a hydraulic geometry: add the depth coefficient c, the depth exponent f/);
+    expect((await editReach("TR-08", { hgVelocityCoef: null, hgVelocityExp: null })).status).toBe(204);
+    expect((await editReach("TR-03", { hgVelocityCoef: 0.3, hgVelocityExp: 0.4, hgDepthCoef: 0.5, hgDepthExp: 0.35 })).status).toBe(204);
+    const both = await queueModel((await scenario("Both on TR-03")).id);
+    expect(err(both.json).message).toMatch(/Reach TR-03 has both a hydraulic geometry and a Manning channel/);
+  });
+});

@@ -8,12 +8,14 @@ import { fileDb } from "../support/file-db";
 import { scoped } from "../support/scoped";
 import { demoSurveyBytes, uploadDemoSurvey } from "../support/survey";
 import { buildWorld, type World } from "../support/world";
+import { callRoute } from "../support/call-route";
 
 const db = fileDb();
 let w: World;
+let networkId: string;
 beforeAll(async () => {
   w = await buildWorld(db);
-  await commitDemo(db, w.users.planner, w.basinId);
+  networkId = (await commitDemo(db, w.users.planner, w.basinId)).network.id;
 });
 
 const upload = (text: string, name = "s.csv", fields: Record<string, unknown> = {}) =>
@@ -85,5 +87,36 @@ describe("synoptic surveys", () => {
       "conflict",
     );
     await expectAppError(upload("not a survey at all", "notes.txt"), "invalid");
+  });
+
+  it("fits a reach's hydraulic geometry to measured flow, velocity and depth (an exact power law recovered) and writes it on the reach", async () => {
+    // U = 0.3·Q^0.4 and H = 0.5·Q^0.35 exactly at Q = 1, 2 and 4 m³/s (values to 12 digits): the log–log fit must return them
+    const rows = [1, 2, 4].map((q, i) => `V${i},TR-05,${0.5 * i},${q},${(0.3 * q ** 0.4).toPrecision(12)},${(0.5 * q ** 0.35).toPrecision(12)}`);
+    const measured = await upload(["station,reach,km,flow,velocity,depth", ...rows].join("\n"), "hg.csv");
+    expect(measured.samples[0]).toMatchObject({ flow_m3s: 1, velocity_m_s: 0.3, depth_m: 0.5 });
+    const { POST } = await import("@/app/api/basins/[basinId]/networks/[networkId]/reaches/[reachId]/hydraulic-geometry/route");
+    const res = await callRoute(POST, "POST", { userId: w.users.planner.id, params: { basinId: w.basinId, networkId, reachId: "TR-05" }, body: { surveyIds: [measured.id] } });
+    expect(res.status, JSON.stringify(res.json)).toBe(200);
+    const fit = res.json as { geometry: { a: number; b: number; c: number; f: number }; velocity: { r2: number; n: number } };
+    expect(fit.geometry.a).toBeCloseTo(0.3, 9);
+    expect(fit.geometry.b).toBeCloseTo(0.4, 9);
+    expect(fit.geometry.c).toBeCloseTo(0.5, 9);
+    expect(fit.geometry.f).toBeCloseTo(0.35, 9);
+    expect(fit.velocity).toMatchObject({ n: 3 });
+    expect(fit.velocity.r2).toBeCloseTo(1, 12);
+    const reach = await db.selectFrom("reaches").select("attributes").where("network_id", "=", networkId).where("reach_key", "=", "TR-05").executeTakeFirstOrThrow();
+    expect(reach.attributes).toMatchObject({ hgVelocityCoef: fit.geometry.a, hgDepthExp: fit.geometry.f, hydraulicGeometrySource: { surveys: [{ id: measured.id, name: "Test survey" }], measurements: 3 } });
+    // a survey without velocity and depth on the reach cannot fit it, and says so naming the field
+    const none = await callRoute(POST, "POST", { userId: w.users.planner.id, params: { basinId: w.basinId, networkId, reachId: "TR-02" }, body: { surveyIds: [measured.id] } });
+    expect(none.status).toBe(422);
+    expect((none.json as { error: { details: { path: string }[] } }).error.details[0].path).toBe("surveyIds");
+    // a stakeholder may not
+    expect((await callRoute(POST, "POST", { userId: w.users.stakeholder.id, params: { basinId: w.basinId, networkId, reachId: "TR-05" }, body: { surveyIds: [measured.id] } })).status).toBe(403);
+  });
+
+  it("reads velocity and depth in ft/s and ft when the flow is in cfs (1 ft = 0.3048 m)", async () => {
+    const s = await upload("station,reach,km,flow,velocity,depth\nA,TR-03,1,10,1,2\n", "us.csv", { flowUnit: "cfs" });
+    expect(s.samples[0].velocity_m_s).toBeCloseTo(0.3048, 12);
+    expect(s.samples[0].depth_m).toBeCloseTo(0.6096, 12);
   });
 });

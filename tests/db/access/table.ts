@@ -3,7 +3,10 @@ import { join, relative } from "node:path";
 import { fileURLToPath } from "node:url";
 import { commitDemo, demoForm } from "../../support/demo-network";
 import { gaugeForm, uploadDemoGauge } from "../../support/gauge-record";
+import { scoped } from "../../support/scoped";
 import { surveyForm, uploadDemoSurvey } from "../../support/survey";
+import { uploadSurvey } from "@/lib/services/surveys";
+import { surveyUploadSchema } from "@/lib/validation/surveys";
 import { DEMO_DISCHARGER_MAPPING } from "@/db/seed/demo-gis";
 import {
   SCENARIO,
@@ -250,6 +253,22 @@ const CORE: Record<string, Entry> = {
         prepare: async (w) => ({ networkId: (await commitDemo(matrix.db, w.users.planner, w.basinId)).network.id }),
         params: (w, p) => ({ basinId: w.basinId, networkId: p.networkId, reachId: "TR-03" }),
         body: () => ({ depthM: 0.5 }),
+      },
+    },
+  },
+  "app/api/basins/[basinId]/networks/[networkId]/reaches/[reachId]/hydraulic-geometry/route.ts": {
+    load: () => import("@/app/api/basins/[basinId]/networks/[networkId]/reaches/[reachId]/hydraulic-geometry/route"),
+    methods: {
+      POST: {
+        expect: planners(200),
+        prepare: async (w) => {
+          const networkId = (await commitDemo(matrix.db, w.users.planner, w.basinId)).network.id;
+          const csv = "station,reach,km,flow,velocity,depth\nA,TR-03,0.5,1,0.3,0.5\nB,TR-03,1,2,0.4,0.6\n";
+          const survey = await scoped(uploadSurvey)(matrix.db, w.users.planner, w.basinId, { name: "hg.csv", bytes: Buffer.from(csv) }, surveyUploadSchema.parse({ name: "Matrix measurements" }));
+          return { networkId, surveyId: survey.id };
+        },
+        params: (w, p) => ({ basinId: w.basinId, networkId: p.networkId, reachId: "TR-03" }),
+        body: (_w, p) => ({ surveyIds: [p.surveyId] }),
       },
     },
   },

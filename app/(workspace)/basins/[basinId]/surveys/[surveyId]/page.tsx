@@ -11,6 +11,8 @@ import { formatWhen } from "@/lib/format/zoned-time";
 import { listScenarios } from "@/lib/services/scenarios";
 import { getSurvey, listSurveys } from "@/lib/services/surveys";
 import { CalibrationForm } from "@/components/surveys/calibration-form";
+import { HydraulicFit } from "@/components/surveys/hydraulic-fit";
+import { listNetworks } from "@/lib/services/networks";
 
 export const metadata: Metadata = { title: "Survey" };
 
@@ -30,12 +32,21 @@ export default async function SurveyPage({ params }: { params: Promise<{ basinId
   const scenarios = canCalibrate
     ? (await listScenarios(access.scope)).map((s) => ({ id: s.id, name: s.name, networkVersion: s.networkVersion, conditions: s.inputs.conditions.map((c) => c.name) }))
     : [];
+  const canFit = access.can("network.import");
+  const measuredReaches = [
+    ...survey.samples
+      .filter((x) => x.flow_m3s !== null && (x.velocity_m_s ?? null) !== null && (x.depth_m ?? null) !== null)
+      .reduce((m, x) => m.set(x.reach, (m.get(x.reach) ?? 0) + 1), new Map<string, number>()),
+  ]
+    .filter(([, n]) => n >= 2)
+    .map(([id, count]) => ({ id, count }));
+  const newest = canFit && measuredReaches.length ? (await listNetworks(access.scope)).reduce<{ id: string; version: number } | null>((a, n) => (!a || n.version > a.version ? { id: n.id, version: n.version } : a), null) : null;
   const otherSurveys = canCalibrate ? (await listSurveys(access.scope)).filter((s) => s.id !== survey.id).map((s) => ({ id: s.id, name: s.name })) : [];
   const system = access.basin.unitSystem;
   const zone = access.basin.timeZone ?? "UTC";
   const snapped = survey.samples.filter((s) => s.placement === "snapped");
   const farthest = snapped.reduce((m, s) => Math.max(m, s.distance_m ?? 0), 0);
-  const has = (k: "temperature_c" | "bod5_mg_l" | "cbodu_mg_l" | "nh3n_mg_l" | "flow_m3s" | "do_mg_l") => survey.samples.some((s) => s[k] !== null);
+  const has = (k: "temperature_c" | "bod5_mg_l" | "cbodu_mg_l" | "nh3n_mg_l" | "flow_m3s" | "do_mg_l" | "velocity_m_s" | "depth_m") => survey.samples.some((s) => (s[k] ?? null) !== null);
   const u = survey.units;
   return (
     <div className="space-y-6">
@@ -74,6 +85,8 @@ export default async function SurveyPage({ params }: { params: Promise<{ basinId
                 {has("cbodu_mg_l") && <th className="num">CBODu (mg/L)</th>}
                 {has("nh3n_mg_l") && <th className="num">NH3-N (mg/L)</th>}
                 {has("flow_m3s") && <th className="num">Flow ({unitLabel("flow", system)})</th>}
+                {has("velocity_m_s") && <th className="num">Velocity ({unitLabel("velocity", system)})</th>}
+                {has("depth_m") && <th className="num">Depth ({unitLabel("depth", system)})</th>}
               </tr>
             </thead>
             <tbody>
@@ -90,12 +103,15 @@ export default async function SurveyPage({ params }: { params: Promise<{ basinId
                   {has("cbodu_mg_l") && <td className="num">{mgl(s.cbodu_mg_l)}</td>}
                   {has("nh3n_mg_l") && <td className="num">{mgl(s.nh3n_mg_l)}</td>}
                   {has("flow_m3s") && <td className="num">{formatIn("flow", s.flow_m3s, system)}</td>}
+                  {has("velocity_m_s") && <td className="num">{formatIn("velocity", s.velocity_m_s, system)}</td>}
+                  {has("depth_m") && <td className="num">{formatIn("depth", s.depth_m, system)}</td>}
                 </tr>
               ))}
             </tbody>
           </table>
         </div>
       </section>
+      {newest && <HydraulicFit basinId={access.basin.id} surveyId={survey.id} network={newest} reaches={measuredReaches} />}
       {canCalibrate && <CalibrationForm basinId={access.basin.id} surveyId={survey.id} surveyNetworkVersion={survey.networkVersion} scenarios={scenarios} otherSurveys={otherSurveys} />}
       <PlanningCaution />
     </div>
