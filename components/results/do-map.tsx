@@ -13,6 +13,9 @@ import type { ModelFile } from "@/lib/model/types";
 import { DO_BAND_COLOURS, formatDo, type DoScaleOptions } from "@/lib/results/do-scale";
 import { resultsGeoJson } from "@/lib/results/results-geojson";
 
+/** Observed survey values, on the map as on the charts. */
+export const OBSERVED_COLOUR = "#c08a2e";
+
 const EMPTY: FeatureCollection = { type: "FeatureCollection", features: [] };
 const NONE = "\u0000";
 
@@ -46,6 +49,10 @@ const BAND_COLOUR = ["match", ["get", "band"], ...Object.entries(DO_BAND_COLOURS
 function describe(p: Record<string, unknown>, system: UnitSystem): string {
   const where = (km: unknown) => `${formatIn("length", Number(km), system)} ${unitLabel("length", system)}`;
   const dO = (v: unknown) => (Number(v) < 0 ? "anoxic" : `${formatDo(Number(v))} mg/L`);
+  if (p.kind === "observed") {
+    const residual = p.residual === null || p.residual === undefined ? "not on this run's network" : `${Number(p.residual) > 0 ? "+" : ""}${Number(p.residual).toFixed(2)} mg/L`;
+    return `<strong>Station ${esc(p.station)}</strong> (survey)<br>Reach ${esc(p.reach)} at ${where(p.km)}<br>Observed DO ${dO(p.observed)}<br>Modelled ${p.modelled === null || p.modelled === undefined ? "—" : dO(p.modelled)}<br>Residual ${residual}`;
+  }
   if (p.kind === "reach-piece") {
     return `<strong>Reach ${esc(p.reach)}</strong><br>${where(p.km_start)} – ${where(p.km_end)} from its head<br>DO ${dO(p.do_start_mg_l)} → ${dO(p.do_end_mg_l)}`;
   }
@@ -71,6 +78,7 @@ export function DoMap({
   onSelectReach,
   scale,
   height = 480,
+  observed,
 }: {
   run: RunResult;
   model: ModelFile;
@@ -81,6 +89,8 @@ export function DoMap({
   onSelectReach?: (reachId: string) => void;
   scale?: DoScaleOptions;
   height?: number;
+  /** A survey's samples to draw beside the modelled DO: Point features with kind "observed", station, reach, km, observed, modelled, residual. */
+  observed?: FeatureCollection | null;
 }) {
   const onSelectRef = useRef(onSelectReach);
   const systemRef = useRef(unitSystem);
@@ -145,10 +155,18 @@ export function DoMap({
         "circle-stroke-width": 3,
       },
     });
+    // a survey's samples, when one is compared: amber dots (the colour the charts give observed values)
+    map.addSource("observed", { type: "geojson", data: EMPTY });
+    map.addLayer({
+      id: "observed",
+      type: "circle",
+      source: "observed",
+      paint: { "circle-radius": 5.5, "circle-color": OBSERVED_COLOUR, "circle-stroke-color": "#ffffff", "circle-stroke-width": 1.5 },
+    });
     addLabelLayers(map, "network", { reaches: isKind("reach"), outfalls: isKind("outfall") });
     return wireLayerEvents(
       map,
-      ["do-pieces", "criticals", "dischargers"],
+      ["do-pieces", "criticals", "dischargers", "observed"],
       (p) => describe(p, systemRef.current),
       (p) => {
         const reach = p.kind === "discharger" || p.kind === "critical" || p.kind === "reach-piece" ? p.reach : undefined;
@@ -171,6 +189,12 @@ export function DoMap({
     if (!map) return;
     map.setFilter("selected-reach", reachWhere(selectedReach ?? NONE));
   }, [selectedReach, loaded]);
+
+  useEffect(() => {
+    const map = loaded;
+    if (!map) return;
+    (map.getSource("observed") as maplibregl.GeoJSONSource).setData(observed ?? EMPTY);
+  }, [observed, loaded]);
 
   return <MapFrame ref={container} height={height} label="Dissolved-oxygen map" testId="do-map" ready={loaded !== null} />;
 }

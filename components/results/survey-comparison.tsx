@@ -1,5 +1,6 @@
 "use client";
-import { useId, useMemo, useState, type ComponentProps } from "react";
+import type { FeatureCollection } from "geojson";
+import { useEffect, useId, useMemo, useState, type ComponentProps } from "react";
 import { SortableTable } from "@/components/tables/sortable-table";
 import { Notice } from "@/components/ui/notice";
 import type { UnitSystem } from "@/lib/domain";
@@ -53,6 +54,7 @@ export function SurveyComparison({
   runNetwork,
   condition,
   profile,
+  onObserved,
 }: {
   basinId: string;
   /** The network version the run used. */
@@ -60,6 +62,8 @@ export function SurveyComparison({
   /** The condition whose DO the profile shows. */
   condition: string;
   profile: ProfileProps;
+  /** Hears the chosen survey's samples as map points (null when none is chosen), for the DO map. */
+  onObserved?: (points: FeatureCollection | null) => void;
 }) {
   const selectId = useId();
   const [surveyId, setSurveyId] = useState<string | null>(null);
@@ -69,6 +73,27 @@ export function SurveyComparison({
   const compared = useMemo(() => (chosen ? surveyResiduals(profile.run, chosen.samples) : null), [chosen, profile.run]);
   const observed = useMemo(() => (chosen && compared ? { label: chosen.name, rows: compared.rows } : undefined), [chosen, compared]);
   const list = surveys.data ?? [];
+  // the samples with DO, in the order surveyResiduals lists them, placed where they were snapped (or given by coordinates)
+  const points = useMemo<FeatureCollection | null>(() => {
+    if (!chosen || !compared) return null;
+    const withDo = chosen.samples.filter((x) => x.do_mg_l !== null && Number.isFinite(x.do_mg_l));
+    return {
+      type: "FeatureCollection",
+      features: withDo.flatMap((x, i) => {
+        const at = x.snapped ?? x.position;
+        const row = compared.rows[i];
+        if (!at || !row) return [];
+        return [
+          {
+            type: "Feature" as const,
+            geometry: { type: "Point" as const, coordinates: at },
+            properties: { kind: "observed", station: x.station, reach: x.reach, km: x.km, observed: row.observed_mg_l, modelled: row.modelled_mg_l, residual: row.residual_mg_l },
+          },
+        ];
+      }),
+    };
+  }, [chosen, compared]);
+  useEffect(() => onObserved?.(points), [points, onObserved]);
 
   return (
     <>

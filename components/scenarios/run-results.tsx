@@ -57,6 +57,7 @@ export function RunResults({
   // null: the governing condition, until the planner picks another
   const [picked, setPicked] = useState<number | null>(null);
   const [startReach, setStartReach] = useState<string | null>(null);
+  const [observedOnMap, setObservedOnMap] = useState<FeatureCollection | null>(null);
 
   const result = run.result;
   const read = useMemo(() => (result?.conditions.length ? runConditions(result) : null), [result]);
@@ -177,12 +178,17 @@ export function RunResults({
       )}
 
       <section className="grid gap-4 lg:grid-cols-[3fr_1fr]">
-        <DoMapLazy run={r} model={model} network={network} unitSystem={unitSystem} selectedReach={from} onSelectReach={setStartReach} />
+        <DoMapLazy run={r} model={model} network={network} unitSystem={unitSystem} selectedReach={from} onSelectReach={setStartReach} observed={observedOnMap} />
         <DoLegend criterionMgL={r.criterion_do_mg_l} />
+        {observedOnMap && (
+          <p className="text-xs text-ink-soft" data-testid="map-observed-note">
+            Amber dots: the compared survey&apos;s {observedOnMap.features.length} samples with coordinates, where they were placed; hover one for its observed and modelled DO.
+          </p>
+        )}
       </section>
 
       {canReadSurveys ? (
-        <SurveyComparison basinId={basinId} runNetwork={runNetwork} condition={condition.name} profile={{ ...profile, children: profileHint }} />
+        <SurveyComparison basinId={basinId} runNetwork={runNetwork} condition={condition.name} profile={{ ...profile, children: profileHint }} onObserved={setObservedOnMap} />
       ) : (
         <ProfileSection {...profile}>{profileHint}</ProfileSection>
       )}

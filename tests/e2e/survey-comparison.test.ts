@@ -120,6 +120,8 @@ describe("a run's DO against a synoptic survey", () => {
       const table = page.getByTestId("survey-residuals-table");
       await table.waitFor();
       expect(asked).toContain(`/api/basins/${w.basinId}/surveys/${survey.id}`);
+      // the map shows the survey's samples too: all 16 demo stations were placed by their coordinates
+      await expect.poll(() => page.getByTestId("map-observed-note").textContent()).toMatch(/the compared survey's 16 samples with coordinates/);
 
       // the chart from the page's own start reach draws the samples on its path
       const { condition, model } = await shownCondition(page);
