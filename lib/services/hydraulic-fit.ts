@@ -1,5 +1,6 @@
 import type { BasinScope } from "@/lib/auth/scope";
-import { AppError } from "@/lib/errors";
+import { findNetwork, findReach } from "@/db/queries/networks";
+import { AppError, notFound } from "@/lib/errors";
 import { fitHydraulicGeometry, type PowerLawFit } from "@/lib/model/hydraulics";
 import { setReachHydraulicGeometry } from "./network-edits";
 import { getSurvey } from "./surveys";
@@ -21,6 +22,10 @@ export interface HydraulicFitDto {
  */
 export async function fitReachHydraulicGeometry(scope: BasinScope, networkId: string, reachId: string, surveyIds: string[]): Promise<HydraulicFitDto> {
   scope.require("network.import");
+  // the reach first: an id of another basin's network, or no such reach, is a 404 before anything is read
+  const network = await findNetwork(scope.db, scope.basin.id, networkId);
+  if (!network) throw notFound("Network");
+  if (!(await findReach(scope.db, network.id, reachId))) throw notFound(`Reach ${reachId}`);
   const surveys = await Promise.all(
     surveyIds.map((id, i) =>
       getSurvey(scope, id).catch((e: unknown) => {

@@ -207,12 +207,11 @@ async function makeGeoJson(db: Db, actor: Actor | null, basinId: string, planId:
 export async function getPublishedPlanWithMap(db: Db, basinId: string, planId: string) {
   const stamp = await publishedStamp(db, basinId, planId);
   if (!stamp) return null;
-  const data = await cachedPublishedPage(publicationKey(stamp, "page"), async () => {
+  return cachedPublishedPage(publicationKey(stamp, "page"), async () => {
     // a published plan reads the same to everyone: no caller is needed (nor kept with the value)
     const found = await getPublishedPlan(db, null, basinId, planId);
     if (!found) return null;
-    return { ...found, network: await planNetwork(db, found.plan.id) };
+    // the page carries the stamp it was drawn from (the key's), for the page cache's check
+    return { ...found, network: await planNetwork(db, found.plan.id), publication: publicationTag(stamp) };
   });
-  // the page carries the stamp it was drawn from, for the page cache's check
-  return data && { ...data, publication: publicationTag(stamp) };
 }
