@@ -33,7 +33,7 @@ function ObservedModelledChart({ residuals }: { residuals: CalibrationRecord["re
             <XAxis dataKey="modelled" type="number" domain={[lo, hi]} allowDataOverflow label={{ value: "Modelled DO (mg/L)", position: "insideBottom", offset: -12 }} />
             <YAxis dataKey="observed" type="number" domain={[lo, hi]} allowDataOverflow width={48} label={{ value: "Observed (mg/L)", angle: -90, position: "insideLeft" }} />
             <Tooltip formatter={(v) => `${Number(v).toFixed(2)} mg/L`} />
-            <Line data={[{ modelled: lo, observed: lo }, { modelled: hi, observed: hi }]} dataKey="observed" name="equal" stroke={LINE} strokeDasharray="4 4" dot={false} isAnimationActive={false} />
+            <Line data={[{ modelled: lo, observed: lo }, { modelled: hi, observed: hi }]} dataKey="observed" name="equal" stroke={LINE} strokeDasharray="4 4" dot={false} isAnimationActive={false} tooltipType="none" />
             <Scatter data={points} dataKey="observed" name="sample" fill={POINT} isAnimationActive={false} />
           </ComposedChart>
         </ResponsiveContainer>

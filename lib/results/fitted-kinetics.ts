@@ -7,7 +7,7 @@ const reachList = (ids: string[]) => (ids.length > 6 ? `${ids.length} reaches` :
 
 /**
  * Where a scenario's fitted coefficients came from, in one line for methods sections (plan
- * page, PDF, run page): each value with its standard error and reaches, the survey and
+ * page, PDF) and the scenario editor: each value with its standard error and reaches, the survey and
  * condition it was fitted on, the fit's statistics, and the check against a second survey.
  * Example: "Deoxygenation rate k_d at 20 °C (1/d) 0.412 ± 0.031 on TR-03, TR-04; fitted to
  * the survey “August 2026” (16 samples, SHA-256 077abc04d529031a…) on the condition

@@ -219,6 +219,18 @@ export async function createCalibrationRun(scope: BasinScope, scenarioId: string
     if (unknown) throw new AppError("invalid", `Reach "${unknown}" is not in the scenario's network`, [{ path: `fit.${i}.reaches`, message: `Unknown reach ${unknown}` }]);
     return { parameter: f.parameter, reaches: [...ids], min: f.min, max: f.max, start: f.start };
   });
+  // one value per coefficient per reach: the same coefficient twice on a reach cannot be fitted
+  const seen = new Map<string, number>();
+  fit.forEach((f, i) => {
+    for (const id of f.reaches) {
+      const key = `${f.parameter} ${id}`;
+      const first = seen.get(key);
+      if (first !== undefined) {
+        throw new AppError("invalid", `${f.parameter} of reach ${id} is fitted twice (entries ${first + 1} and ${i + 1})`, [{ path: `fit.${i}.reaches`, message: `${f.parameter} of ${id} is already fitted by entry ${first + 1}` }]);
+      }
+      seen.set(key, i);
+    }
+  });
   const observationsOf = (s: SurveyDto, path: string) => {
     const observed = s.samples.filter((x) => x.do_mg_l !== null);
     const missing = observed.find((x) => !reaches.has(x.reach));

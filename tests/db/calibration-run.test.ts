@@ -182,6 +182,8 @@ describe("calibration runs", () => {
     expect((await refused(ask({ ...base, condition: "Spring" }))).details).toEqual([{ path: "condition", message: "One of 7Q10, 12 August 2026" }]);
     expect((await refused(ask({ ...base, fit: [{ ...base.fit[0], reaches: ["XX-9"] }] }))).details).toEqual([{ path: "fit.0.reaches", message: "Unknown reach XX-9" }]);
     expect((await refused(ask({ ...base, surveyId: "00000000-0000-4000-8000-000000000000" }))).details).toEqual([{ path: "surveyId", message: "Unknown survey" }]);
+    const twice = await refused(ask({ ...base, fit: [base.fit[0], { ...base.fit[0], reaches: ["TR-03"] }] }));
+    expect(twice.details).toEqual([{ path: "fit.1.reaches", message: "kd20_per_day of TR-03 is already fitted by entry 1" }]);
     const small = await scoped(uploadSurvey)(db, w.users.planner, w.basinId, { name: "one.csv", bytes: Buffer.from("station,reach,km,do\nA,TR-03,1,6\n") }, surveyUploadSchema.parse({ name: "One sample" }));
     expect((await refused(ask({ ...base, surveyId: small.id }))).message).toMatch(/has 1 DO value\(s\) for 1 coefficient\(s\)/);
     expect(() => calibrationRunSchema.parse({ ...base, fit: [{ ...base.fit[0], start: 9 }] })).toThrow(/start must lie within min–max/);
