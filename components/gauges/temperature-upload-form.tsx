@@ -56,7 +56,7 @@ export function TemperatureUploadForm({ basinId, reachIds }: { basinId: string; 
       </p>
       <div>
         <label htmlFor="temperature-file" className="field-label">
-          Temperature record file
+          Water-temperature file
         </label>
         <input
           id="temperature-file"

@@ -72,7 +72,7 @@ describe("each demo role sees what its role allows", () => {
     const page = await pageAs("lead");
     await page.screenshot({ path: `${SHOTS}/basins-lead.png` });
     await openBasin(page, "Tamsel River basin");
-    expect(await tabNames(page)).toEqual(["Overview", "Network", "Gauges", "Scenarios", "Plans", "Members & facilities", "Audit trail", "Settings"]);
+    expect(await tabNames(page)).toEqual(["Overview", "Network", "Gauges", "Surveys", "Scenarios", "Plans", "Members & facilities", "Audit trail", "Settings"]);
     await page.screenshot({ path: `${SHOTS}/basin-overview-lead.png`, fullPage: true });
 
     await page.getByRole("link", { name: "Members & facilities" }).click();
@@ -98,7 +98,7 @@ describe("each demo role sees what its role allows", () => {
   it("planner: sees members read-only and no settings", async () => {
     const page = await pageAs("planner");
     await openBasin(page, "Tamsel River basin");
-    expect(await tabNames(page)).toEqual(["Overview", "Network", "Gauges", "Scenarios", "Plans", "Members & facilities"]);
+    expect(await tabNames(page)).toEqual(["Overview", "Network", "Gauges", "Surveys", "Scenarios", "Plans", "Members & facilities"]);
     await page.getByRole("link", { name: "Members & facilities" }).click();
     await page.getByTestId("members-table").waitFor();
     expect(await page.getByRole("button", { name: "Add member" }).count()).toBe(0);

@@ -63,9 +63,9 @@ export default async function SurveyPage({ params }: { params: Promise<{ basinId
           {survey.uploadedBy ? ` by ${survey.uploadedBy}` : ""}
         </p>
         <p className="text-sm text-ink-soft" data-testid="survey-placement">
-          Placed on network version {survey.networkVersion}: {snapped.length} by their coordinates (nearest reach, within {u.maxSnapDistanceM} m; the
-          farthest {formatIn("distance", farthest, system)} {unitLabel("distance", system)} off its reach), {survey.samples.length - snapped.length} at the
-          reach and km the file gives.
+          Placed on network version {survey.networkVersion}: {snapped.length} by their coordinates
+          {snapped.length > 0 ? ` (nearest reach, within ${u.maxSnapDistanceM} m; the farthest ${formatIn("distance", farthest, system)} ${unitLabel("distance", system)} off its reach)` : ""},{" "}
+          {survey.samples.length - snapped.length} at the reach and km the file gives.
         </p>
       </section>
       <section className="card space-y-3">
