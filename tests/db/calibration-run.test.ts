@@ -6,6 +6,12 @@ import { AppError } from "@/lib/errors";
 import type { ModelFile } from "@/lib/model/types";
 import { runModel } from "@/lib/model/network/run";
 import { createCalibrationRun, createRun, getRun, processRun } from "@/lib/services/runs";
+import { closeDueReviews, openReview, proposePlan, publishPlan } from "@/lib/services/plans";
+import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
+import { planReport } from "@/lib/reports/plan-report-data";
+import { uploadGaugeRecord } from "@/lib/services/gauges";
+import { gaugeUploadSchema } from "@/lib/validation/gauges";
+import { demoGaugeBytes } from "../support/gauge-record";
 import { createScenario } from "@/lib/services/scenarios";
 import { uploadSurvey } from "@/lib/services/surveys";
 import { calibrationRunSchema } from "@/lib/validation/calibration";
@@ -175,6 +181,32 @@ describe("calibration runs", () => {
       scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Wrong run", inputs: { conditions: [{ name: "7Q10" }], fittedKinetics: { runId: run.id } } })),
     );
     expect(notCalibration.details).toEqual([{ path: "inputs.fittedKinetics.runId", message: "There is no such calibration in this basin" }]);
+  });
+
+  it("a published plan records the fitted coefficients and the gauge's 7Q10 it was computed with, in the methods its page and PDF print", async () => {
+    const queued = await ask({ surveyId: demoSurvey.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: "all", min: 0.05, max: 3, start: 0.35 }] });
+    await processRun(db, queued.id);
+    const gauge = await scoped(uploadGaugeRecord)(db, w.users.planner, w.basinId, { name: "q.csv", bytes: demoGaugeBytes() }, gaugeUploadSchema.parse({ name: "Quillford gauge", reachId: "TR-04" }));
+    const scenario = await scoped(createScenario)(
+      db,
+      w.users.planner,
+      w.basinId,
+      scenarioCreateSchema.parse({ name: "Calibrated, gauged 7Q10", inputs: { conditions: [{ name: "7Q10", gaugeFlow: { gaugeId: gauge.id, statistic: "7Q10" } }], fittedKinetics: { runId: queued.id } } }),
+    );
+    const run = await scoped(createRun)(db, w.users.planner, w.basinId, scenario.id, "allocation");
+    await processRun(db, run.id);
+    const plan = await scoped(proposePlan)(db, w.users.planner, w.basinId, { runId: run.id, title: "Calibrated plan" });
+    const now = Date.now();
+    await scoped(openReview)(db, w.users.lead, w.basinId, plan.id, { startsAt: new Date(now - 60_000).toISOString(), endsAt: new Date(now + 31 * 86_400_000).toISOString(), timeZone: "UTC" });
+    await closeDueReviews(db, new Date(now + 32 * 86_400_000));
+    await scoped(publishPlan)(db, w.users.lead, w.basinId, plan.id, { acknowledgedThreadIds: [], statement: "" });
+    const published = (await getPublishedPlanWithMap(db, w.basinId, plan.id))!;
+    const methods = planReport(published.plan, { name: published.basin.name, unitSystem: published.basin.unitSystem }, null).methods.flatMap((g) => g.items);
+    const fitted = methods.find((m) => m.label === "Fitted to a survey")!.value;
+    const kd = (await scoped(getRun)(db, w.users.planner, w.basinId, queued.id)).result!.calibration!.parameters[0].value;
+    expect(fitted).toContain(`fitted to the survey “${demoSurvey.name}” (16 samples, SHA-256 ${demoSurvey.sha256.slice(0, 16)}…) on the condition “12 August 2026”`);
+    expect(fitted).toContain(kd.toPrecision(3));
+    expect(methods.find((m) => m.label === "7Q10")!.value).toMatch(/^7Q10 of Quillford gauge: 0\.\d+ m³\/s at TR-04, 30 years of daily record 1994-04-01 to 2024-03-31/);
   });
 
   it("names the field at fault: a condition, a reach or a survey the scenario cannot use", async () => {
