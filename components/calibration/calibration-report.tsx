@@ -128,7 +128,7 @@ export function CalibrationReport({ calibration: c, unitSystem }: { calibration:
   const multi = c.parameters.length > 1;
   return (
     <section className="card space-y-4" data-testid="calibration-report">
-      <h2>Calibration to {c.survey.name}</h2>
+      <h2>{c.name ? `${c.name}: calibration` : "Calibration"} to {c.survey.name}</h2>
       <p className="text-sm text-ink-soft" data-testid="calibration-provenance">
         Fitted to the DO of {c.residuals.length} samples of the survey {c.survey.name} (taken {surveyPeriod(c.survey.firstTime, c.survey.lastTime)}; {c.survey.fileName}, SHA-256{" "}
         <span className="font-mono text-xs">{c.survey.sha256.slice(0, 16)}…</span>; placed on network version {c.survey.networkVersion}) on the condition &ldquo;{c.condition}&rdquo;, by

@@ -438,6 +438,7 @@ export function ScenarioEditor({
               <option value="">{calibrations.length ? "None: the values above and the network's" : "None (no finished calibration in this basin)"}</option>
               {calibrations.map((c) => (
                 <option key={c.runId} value={c.runId}>
+                  {c.name ? `${c.name}: ` : ""}
                   {c.surveyName} on “{c.condition}” ({c.scenarioName}; RMSE {c.rmseMgL.toFixed(2)} mg/L; {formatDay(new Date(c.finishedAt), zone)})
                 </option>
               ))}

@@ -56,6 +56,7 @@ export function CalibrationForm({
   const [condition, setCondition] = useState(scenarios[0]?.conditions[0] ?? "");
   const [rows, setRows] = useState(initialRows);
   const [validationSurveyId, setValidationSurveyId] = useState("");
+  const [setName, setSetName] = useState("");
   const [problems, setProblems] = useState<string[]>([]);
   const set = (p: FitParameter, patch: Partial<Row>) => setRows((r) => ({ ...r, [p]: { ...r[p], ...patch } }));
 
@@ -66,6 +67,7 @@ export function CalibrationForm({
     setProblems([]);
     const chosen = FIT_PARAMETERS.filter((p) => rows[p].on);
     const request = {
+      ...(setName.trim() ? { name: setName.trim() } : {}),
       surveyId,
       ...(validationSurveyId ? { validationSurveyId } : {}),
       condition,
@@ -131,6 +133,13 @@ export function CalibrationForm({
             ))}
           </select>
         </div>
+      </div>
+      <div>
+        <label htmlFor="cal-name" className="field-label">
+          Name of the fitted set (optional)
+        </label>
+        <input id="cal-name" className="field-input" value={setName} maxLength={120} placeholder="e.g. August 2026 fit, main stem" onChange={(e) => setSetName(e.target.value)} />
+        <p className="mt-1 text-xs text-ink-faint">What a scenario chooses it by and a plan records it as; without one it is named by its survey and condition.</p>
       </div>
       <div>
         <label htmlFor="cal-validation" className="field-label">

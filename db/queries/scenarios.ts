@@ -177,6 +177,7 @@ export async function listDoneCalibrations(db: Db, basinId: string) {
     .select(["r.id", "r.finished_at", "s.name as scenario_name"])
     .select([
       sql<string>`r.result -> 'calibration' -> 'survey' ->> 'name'`.as("survey_json_name"),
+      sql<string | null>`r.result -> 'calibration' ->> 'name'`.as("set_name"),
       sql<string>`r.result -> 'calibration' ->> 'condition'`.as("condition_json"),
       sql<string>`r.result -> 'calibration' ->> 'rmse_mg_l'`.as("rmse"),
     ])

@@ -17,6 +17,8 @@ export interface CalibrationSurveyRecord {
 
 /** What a calibration run is asked (stored in the run's inputs). */
 export interface CalibrationSpec {
+  /** The fitted set's name, as the planner gave it (else the survey's name on the condition). */
+  name?: string;
   survey: CalibrationSurveyRecord;
   /** The scenario condition whose flows and temperatures stand for the survey's day. */
   condition: string;
@@ -33,6 +35,7 @@ export type ValidationRecord = ReturnType<typeof validate> & { survey: Calibrati
 
 /** A calibration run's result beside the fitted model's DO (RunPayload.calibration). */
 export interface CalibrationRecord extends CalibrationResult {
+  name?: string;
   survey: CalibrationSurveyRecord;
   condition: string;
   fit: FitEntry[];
@@ -59,6 +62,6 @@ export function computeCalibrationPayload(file: { name: string; file: ModelFile 
   return {
     warnings: [...warnings, ...result.warnings],
     conditions: [{ name: file.name, run }],
-    calibration: { ...result, survey: spec.survey, condition: spec.condition, fit: spec.fit, leftOut: spec.leftOut, ...(validation ? { validation } : {}) },
+    calibration: { ...result, ...(spec.name ? { name: spec.name } : {}), survey: spec.survey, condition: spec.condition, fit: spec.fit, leftOut: spec.leftOut, ...(validation ? { validation } : {}) },
   };
 }

@@ -21,5 +21,5 @@ export function fittedKineticsText(source: FittedKineticsSource): string {
   const check = source.validation
     ? `checked against “${source.validation.surveyName}” (${source.validation.samples} samples): RMSE ${n(source.validation.rmseMgL, 2)} mg/L, mean error ${n(source.validation.biasMgL, 2)} mg/L, NSE ${n(source.validation.nse, 2)}`
     : "not checked against a second survey";
-  return `${values}; ${fit}; ${check}`;
+  return `${source.name ? `“${source.name}”: ` : ""}${values}; ${fit}; ${check}`;
 }

@@ -256,7 +256,7 @@ export async function createCalibrationRun(scope: BasinScope, scenarioId: string
       { path: "fit", message: "Fit fewer coefficients, or use a survey with more DO values" },
     ]);
   }
-  const calibration: CalibrationSpec = { survey: fitted.survey, condition: chosen.name, observations: observed, fit, leftOut: fitted.leftOut, ...(validation ? { validation } : {}) };
+  const calibration: CalibrationSpec = { ...(request.name ? { name: request.name } : {}), survey: fitted.survey, condition: chosen.name, observations: observed, fit, leftOut: fitted.leftOut, ...(validation ? { validation } : {}) };
   const runInputs: RunInputs = { kind: "calibration", files: [chosen], warnings: files.warnings, calibration };
   return queueRun(scope, scenario, inputs, runInputs, { kind: "calibration", survey: survey.name, condition: chosen.name, ...(second ? { validationSurvey: second.name } : {}) });
 }
@@ -264,6 +264,8 @@ export async function createCalibrationRun(scope: BasinScope, scenarioId: string
 /** A finished calibration as a scenario may choose it (its fitted values then replace the reaches' coefficients). */
 export interface CalibrationChoice {
   runId: string;
+  /** The planner's name for the fitted set, or null. */
+  name: string | null;
   scenarioName: string;
   surveyName: string;
   condition: string;
@@ -275,6 +277,7 @@ export async function listCalibrationChoices(scope: BasinScope): Promise<Calibra
   scope.require("scenario.read");
   return (await listDoneCalibrations(scope.db, scope.basin.id)).map((r) => ({
     runId: r.id,
+    name: r.set_name,
     scenarioName: r.scenario_name,
     surveyName: r.survey_json_name,
     condition: r.condition_json,

@@ -145,6 +145,7 @@ async function withFittedKinetics(db: Db, basinId: string, networkId: string, in
   const missing = calibration.parameters.flatMap((p) => p.reaches).find((id) => !have.has(id));
   if (missing) throw refuse(`The calibration fitted reach ${missing}, which this scenario's network does not have`);
   const source: FittedKineticsSource = {
+    name: calibration.name ?? null,
     surveyName: calibration.survey.name,
     surveySha256: calibration.survey.sha256,
     surveyFirstTime: calibration.survey.firstTime,

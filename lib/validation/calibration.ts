@@ -37,6 +37,8 @@ export const calibrationSchema = z.strictObject({
  * Each sample's weight is the survey's own (its weight column; 1 when none).
  */
 export const calibrationRunSchema = z.strictObject({
+  /** What the fitted set is called where a scenario chooses it and a plan records it (default: the survey's name and the condition). */
+  name: z.string().trim().max(120, "the name must be at most 120 characters").optional().transform((v) => (v ? v : undefined)),
   surveyId: z.string({ message: "choose the survey" }).uuid("choose the survey"),
   /** A second survey to check the fitted model against, without refitting. */
   validationSurveyId: z.string().uuid("choose the second survey").optional(),

@@ -64,6 +64,8 @@ export const gaugeFlowSchema = z.object({
  * is replaced. It travels with the scenario's inputs into runs and plans.
  */
 export const fittedKineticsSourceSchema = z.object({
+  /** The planner's name for the fitted set, when the calibration was given one. */
+  name: z.string().nullable().default(null),
   surveyName: z.string(),
   surveySha256: z.string(),
   surveyFirstTime: z.string().nullable(),

@@ -5,7 +5,8 @@ import { createComputePool } from "@/lib/compute/pool";
 import { AppError } from "@/lib/errors";
 import type { ModelFile } from "@/lib/model/types";
 import { runModel } from "@/lib/model/network/run";
-import { createCalibrationRun, createRun, getRun, processRun } from "@/lib/services/runs";
+import { createCalibrationRun, createRun, getRun, listCalibrationChoices, processRun } from "@/lib/services/runs";
+import { fittedKineticsText } from "@/lib/results/fitted-kinetics";
 import { closeDueReviews, openReview, proposePlan, publishPlan } from "@/lib/services/plans";
 import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
 import { planReport } from "@/lib/reports/plan-report-data";
@@ -145,7 +146,7 @@ describe("calibration runs", () => {
   });
 
   it("a scenario uses a finished calibration's fitted values on the reaches it fitted, recording where they came from", async () => {
-    const queued = await ask({ surveyId: demoSurvey.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: ["TR-03", "TR-04"], min: 0.05, max: 3, start: 0.3 }] });
+    const queued = await ask({ name: "Main-stem August fit", surveyId: demoSurvey.id, condition: "12 August 2026", fit: [{ parameter: "kd20_per_day", reaches: ["TR-03", "TR-04"], min: 0.05, max: 3, start: 0.3 }] });
     const early = await refused(
       scoped(createScenario)(db, w.users.planner, w.basinId, scenarioCreateSchema.parse({ name: "Too early", inputs: { conditions: [{ name: "7Q10" }], fittedKinetics: { runId: queued.id } } })),
     );
@@ -162,6 +163,7 @@ describe("calibration runs", () => {
       scenarioCreateSchema.parse({ name: "Calibrated 7Q10", inputs: { conditions: [{ name: "7Q10" }], fittedKinetics: { runId: queued.id, source: forged } } }),
     );
     expect(scenario.inputs.fittedKinetics!.source).toMatchObject({
+      name: "Main-stem August fit",
       surveyName: demoSurvey.name,
       surveySha256: demoSurvey.sha256,
       condition: "12 August 2026",
@@ -170,6 +172,8 @@ describe("calibration runs", () => {
       parameters: [{ parameter: "kd20_per_day", reaches: ["TR-03", "TR-04"], value: kd, stdError: fit.parameters[0].std_error }],
       validation: null,
     });
+    expect(fittedKineticsText(scenario.inputs.fittedKinetics!.source!)).toMatch(/^“Main-stem August fit”: Deoxygenation rate k_d at 20 °C \(1\/d\) /);
+    expect((await scoped(listCalibrationChoices)(db, w.users.planner, w.basinId)).find((c) => c.runId === queued.id)).toMatchObject({ name: "Main-stem August fit", surveyName: demoSurvey.name });
     const run = await scoped(createRun)(db, w.users.planner, w.basinId, scenario.id, "model");
     const { files } = await inputsOf(run.id);
     const byId = new Map(files[0].file.reaches.map((r) => [r.id, r]));
