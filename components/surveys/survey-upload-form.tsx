@@ -12,7 +12,25 @@ import { ApiError } from "@/lib/queries/fetcher";
 import { useUploadSurveyMutation } from "@/lib/queries/surveys";
 import { surveyUploadSchema, type SurveyUpload } from "@/lib/validation/surveys";
 
-const FIELDS = ["name", "temperatureUnit", "flowUnit", "bodKind", "epsg", "maxSnapDistanceM", "file"] as const;
+const FIELDS = ["name", "temperatureUnit", "flowUnit", "bodKind", "epsg", "maxSnapDistanceM", "columns", "file"] as const;
+
+/** The columns a planner most often needs to name by hand, with what Sagline calls them. */
+const MAPPED: { key: string; label: string }[] = [
+  { key: "station", label: "Station" },
+  { key: "latitude", label: "Latitude (CSV)" },
+  { key: "longitude", label: "Longitude (CSV)" },
+  { key: "reach", label: "Reach id" },
+  { key: "km", label: "km from the reach's head" },
+  { key: "time", label: "Date and time" },
+  { key: "do", label: "DO" },
+  { key: "temperature", label: "Water temperature" },
+  { key: "bod5", label: "BOD5" },
+  { key: "cbodu", label: "CBODu" },
+  { key: "nh3n", label: "NH3-N" },
+  { key: "flow", label: "Flow" },
+  { key: "velocity", label: "Velocity" },
+  { key: "depth", label: "Depth" },
+];
 
 /** "file.row 3.do" → "Row 3, do"; "file.station" → "station". */
 const where = (path: string) =>
@@ -29,6 +47,7 @@ export function SurveyUploadForm({ basinId }: { basinId: string }) {
   const router = useRouter();
   const upload = useUploadSurveyMutation(basinId);
   const [file, setFile] = useState<File | null>(null);
+  const [mapping, setMapping] = useState<Record<string, string>>({});
   const [failure, setFailure] = useState<{ message: string; rows: { path: string; message: string }[] } | null>(null);
   const {
     register,
@@ -47,7 +66,8 @@ export function SurveyUploadForm({ basinId }: { basinId: string }) {
       return;
     }
     try {
-      const survey = await upload.mutateAsync({ file, fields });
+      const columns = Object.fromEntries(Object.entries(mapping).filter(([, v]) => v.trim() !== ""));
+      const survey = await upload.mutateAsync({ file, fields: Object.keys(columns).length ? { ...fields, columns } : fields });
       router.push(`/basins/${basinId}/surveys/${survey.id}`);
     } catch (error) {
       const message = applyApiError(error, setError as never, FIELDS);
@@ -137,6 +157,26 @@ export function SurveyUploadForm({ basinId }: { basinId: string }) {
           </div>
         </fieldset>
       </div>
+      <details className="rounded-md border border-rule p-3">
+        <summary className="cursor-pointer text-sm font-medium">Column names in the file (only where Sagline does not recognise them)</summary>
+        <p className="mt-2 text-xs text-ink-faint">Type the file&apos;s own column name beside what it holds; a name given here wins over the names Sagline looks for.</p>
+        <div className="mt-3 grid gap-3 sm:grid-cols-3">
+          {MAPPED.map((m) => (
+            <div key={m.key}>
+              <label htmlFor={`survey-col-${m.key}`} className="field-label">
+                {m.label}
+              </label>
+              <input
+                id={`survey-col-${m.key}`}
+                className="field-input"
+                value={mapping[m.key] ?? ""}
+                onChange={(e) => setMapping((c) => ({ ...c, [m.key]: e.target.value }))}
+              />
+            </div>
+          ))}
+        </div>
+        {(errors as Record<string, { message?: string } | undefined>).columns?.message && <p className="field-error">{(errors as Record<string, { message?: string }>).columns.message}</p>}
+      </details>
       {failure && (
         <Notice tone="error" title="The survey was not saved">
           {failure.message && <p>{failure.message}</p>}

@@ -17,3 +17,4 @@ export * from "./imports";
 export * from "./hydraulics";
 export * from "./hydrology";
 export * from "./calibration";
+export * from "./surveys";

@@ -29,7 +29,8 @@ export function useUploadSurveyMutation(basinId: string) {
   return useMutation({
     mutationFn: ({ file, fields }: { file: File; fields: SurveyUpload }) => {
       const form = new FormData();
-      for (const [k, v] of Object.entries(fields)) if (v !== undefined && v !== "") form.set(k, String(v));
+      // the column mapping travels as JSON text, as the upload route reads it
+      for (const [k, v] of Object.entries(fields)) if (v !== undefined && v !== "") form.set(k, typeof v === "object" ? JSON.stringify(v) : String(v));
       form.set("file", file);
       return apiFetch<SurveyDto>(`/api/basins/${basinId}/surveys`, { method: "POST", body: form });
     },

@@ -78,7 +78,13 @@ export async function uploadSurvey(scope: BasinScope, file: { name: string; byte
   const networkId = await latestNetworkId(db, basin.id);
   if (!networkId) throw new AppError("conflict", "The basin has no network yet: import one before a survey, so its stations can be placed on it");
   const reaches = (await reachLines(db, networkId)).map((r) => ({ ...r, coordinates: r.coordinates as LngLat[] }));
-  const options: SurveyReadOptions = { temperatureUnit: fields.temperatureUnit, flowUnit: fields.flowUnit, bodKind: fields.bodKind, ...(fields.epsg ? { epsg: fields.epsg } : {}) };
+  const options: SurveyReadOptions = {
+    temperatureUnit: fields.temperatureUnit,
+    flowUnit: fields.flowUnit,
+    bodKind: fields.bodKind,
+    ...(fields.epsg ? { epsg: fields.epsg } : {}),
+    ...(fields.columns && Object.keys(fields.columns).length ? { columns: fields.columns } : {}),
+  };
   const read = await importPool()
     .survey({ format, bytes: file.bytes, fileName: file.name, options, maxSnapDistanceM: fields.maxSnapDistanceM, reaches })
     .catch((e: unknown) => {

@@ -3,6 +3,7 @@ import { GeoError } from "@/geo/errors";
 import { valueNumber } from "@/geo/fields";
 import { readUploadLayer } from "@/geo/read-upload";
 import type { LngLat, SourceFormat } from "@/geo/types";
+import type { SurveyColumnKey } from "@/lib/domain/surveys";
 import { cfsToM3s, fToC, ftPerSToMPerS, ftToM } from "@/lib/model/units";
 
 /**
@@ -26,6 +27,11 @@ export interface SurveyReadOptions {
   bodKind: SurveyBodKind;
   /** The CRS of a GeoJSON or shapefile without one, or of CSV x/y columns (not needed for lat/lon). */
   epsg?: number;
+  /**
+   * The planner's own mapping, Sagline's column → the file's (it wins over the names
+   * recognised); `latitude` and `longitude` name a CSV's coordinate columns.
+   */
+  columns?: Partial<Record<SurveyColumn | "latitude" | "longitude", string>>;
 }
 
 export interface SurveySample {
@@ -84,16 +90,28 @@ export const SURVEY_COLUMNS = {
   velocity: ["velocity", "velocityms", "velocityfts", "meanvelocity", "vel"],
   depth: ["depth", "depthm", "depthft", "meandepth"],
   weight: ["weight"],
-} as const;
+} as const satisfies Record<SurveyColumnKey, readonly string[]>;
 export type SurveyColumn = keyof typeof SURVEY_COLUMNS;
 
 const squash = (name: string) => name.toLowerCase().replace(/[\s._\-/()]/g, "");
 
-/** Which of the file's columns holds each of Sagline's (the first name that matches, in SURVEY_COLUMNS order). */
-export function findSurveyColumns(columns: readonly string[]): Partial<Record<SurveyColumn, string>> {
+/**
+ * Which of the file's columns holds each of Sagline's: the planner's mapping first, then the
+ * first recognised name (in SURVEY_COLUMNS order) among the columns not yet taken.
+ */
+export function findSurveyColumns(columns: readonly string[], mapped: Partial<Record<string, string>> = {}): Partial<Record<SurveyColumn, string>> {
   const found: Partial<Record<SurveyColumn, string>> = {};
   const taken = new Set<string>();
+  for (const key of Object.keys(SURVEY_COLUMNS) as SurveyColumn[]) {
+    const own = mapped[key];
+    if (own && columns.includes(own)) {
+      found[key] = own;
+      taken.add(own);
+    }
+  }
+  for (const own of [mapped.latitude, mapped.longitude]) if (own) taken.add(own);
   for (const [key, names] of Object.entries(SURVEY_COLUMNS) as [SurveyColumn, readonly string[]][]) {
+    if (found[key]) continue;
     for (const n of names) {
       const hit = columns.find((c) => !taken.has(c) && squash(c) === n);
       if (hit) {
@@ -142,11 +160,13 @@ async function rawRows(format: SourceFormat, bytes: Uint8Array, fileName: string
   if (format === "csv") {
     const text = new TextDecoder().decode(bytes);
     const plain = csvRows(text);
-    const cols = findSurveyColumns(plain.columns);
+    const cols = findSurveyColumns(plain.columns, options.columns);
+    const coordinates = options.columns?.latitude && options.columns?.longitude;
     // placed by reach and km (no coordinates needed), or by coordinates read as for outfalls
-    if (cols.reach && cols.km && !plain.columns.some((c) => /^(lat|latitude|lon|lng|longitude|x|y)$/i.test(c))) return plain;
+    if (!coordinates && cols.reach && cols.km && !plain.columns.some((c) => /^(lat|latitude|lon|lng|longitude|x|y)$/i.test(c))) return plain;
   }
-  const layer = await readUploadLayer(format, bytes, { epsg: options.epsg }, "dischargers", fileName);
+  const csv = options.columns?.latitude && options.columns?.longitude ? { kind: "latlon" as const, latitude: options.columns.latitude, longitude: options.columns.longitude } : undefined;
+  const layer = await readUploadLayer(format, bytes, { epsg: options.epsg, ...(csv ? { csv } : {}) }, "dischargers", fileName);
   const columns = [...new Set(layer.features.flatMap((f) => Object.keys(f.properties)))];
   return {
     columns,
@@ -164,8 +184,13 @@ const text = (v: unknown) => (v === undefined || v === null ? "" : String(v).tri
 export async function readSurvey(format: SourceFormat, bytes: Uint8Array, fileName: string, options: SurveyReadOptions): Promise<SurveyRead> {
   const { rows, columns: fileColumns } = await rawRows(format, bytes, fileName, options);
   if (rows.length === 0) throw new GeoError("empty_layer", `${fileName} has no rows`);
-  const columns = findSurveyColumns(fileColumns);
+  const columns = findSurveyColumns(fileColumns, options.columns);
   const problems: SurveyRowProblem[] = [];
+  for (const [key, own] of Object.entries(options.columns ?? {})) {
+    if (own && !fileColumns.includes(own) && key !== "latitude" && key !== "longitude") {
+      problems.push({ row: null, field: key, message: `The mapping names a column "${own}" for ${key}, which the file does not have; its columns are ${fileColumns.join(", ")}` });
+    }
+  }
   if (!columns.station) {
     problems.push({ row: null, field: "station", message: `No station column (looked for ${SURVEY_COLUMNS.station.join(", ")}); the columns are ${fileColumns.join(", ")}` });
   }

@@ -1,5 +1,28 @@
 import { z } from "zod";
-import { IMPORT_DEFAULTS } from "@/lib/domain";
+import { IMPORT_DEFAULTS, SURVEY_MAPPABLE_COLUMNS as MAPPABLE } from "@/lib/domain";
+
+/**
+ * The planner's column mapping (JSON text in the multipart form): Sagline's column → the
+ * file's column name. Empty names are dropped.
+ */
+const columnsSchema = z
+  .string()
+  .optional()
+  .transform((text, ctx) => {
+    if (!text) return undefined;
+    try {
+      return JSON.parse(text) as unknown;
+    } catch {
+      ctx.addIssue({ code: "custom", message: "the column mapping must be JSON: {\"do\": \"DO_MGL\", …}" });
+      return z.NEVER;
+    }
+  })
+  .pipe(
+    z
+      .partialRecord(z.enum(MAPPABLE, { message: `a mapped column must be one of ${MAPPABLE.join(", ")}` }), z.string().trim().max(200, "a column name must be at most 200 characters"))
+      .optional()
+      .transform((m) => (m ? Object.fromEntries(Object.entries(m).filter(([, v]) => v !== "")) : undefined)),
+  );
 
 /** The form fields of a synoptic survey's upload (multipart, beside the file). */
 export const surveyUploadSchema = z.object({
@@ -13,5 +36,6 @@ export const surveyUploadSchema = z.object({
     .positive("the snapping limit must be above 0 m")
     .max(50_000, "the snapping limit must be at most 50 000 m")
     .default(IMPORT_DEFAULTS.maxSnapDistanceM),
+  columns: columnsSchema,
 });
 export type SurveyUpload = z.infer<typeof surveyUploadSchema>;

@@ -119,4 +119,23 @@ describe("synoptic surveys", () => {
     expect(s.samples[0].velocity_m_s).toBeCloseTo(0.3048, 12);
     expect(s.samples[0].depth_m).toBeCloseTo(0.6096, 12);
   });
+
+  it("takes a column mapping sent with the upload (JSON in the form), and names a mapping it cannot read", async () => {
+    const { POST } = await import("@/app/api/basins/[basinId]/surveys/route");
+    const form = (columns: string) => {
+      const f = new FormData();
+      f.set("name", "Mapped survey");
+      f.set("columns", columns);
+      f.set("file", new File(["Site,Seg,Chain,O2\nM1,TR-03,1.25,6.6\n"], "mapped.csv"));
+      return f;
+    };
+    const ok = await callRoute(POST, "POST", { userId: w.users.planner.id, params: { basinId: w.basinId }, body: form(JSON.stringify({ station: "Site", reach: "Seg", km: "Chain", do: "O2" })) });
+    expect(ok.status, JSON.stringify(ok.json)).toBe(201);
+    expect((ok.json as { samples: { station: string; reach: string; km: number; do_mg_l: number }[] }).samples[0]).toMatchObject({ station: "M1", reach: "TR-03", km: 1.25, do_mg_l: 6.6 });
+    const bad = await callRoute(POST, "POST", { userId: w.users.planner.id, params: { basinId: w.basinId }, body: form("{not json") });
+    expect(bad.status).toBe(422);
+    expect(JSON.stringify(bad.json)).toMatch(/columns/);
+    const unknownKey = await callRoute(POST, "POST", { userId: w.users.planner.id, params: { basinId: w.basinId }, body: form(JSON.stringify({ oxygen: "O2" })) });
+    expect(unknownKey.status).toBe(422);
+  });
 });

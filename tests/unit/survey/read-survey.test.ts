@@ -58,6 +58,18 @@ describe("reading a survey file", () => {
     expect(r.samples[0]).toMatchObject({ station: "G1", position: [0.75, -0.001], time: "2026-08-14T10:00:00Z", do_mg_l: 4.4, temperature_c: 24.5 });
   });
 
+  it("takes the planner's column mapping over the names it recognises, coordinates included", async () => {
+    const csv = "Site Code,N,E,Oxygen reading,DO\nQ1,0.001,0.25,6.4,99\n";
+    const r = await readSurvey("csv", bytes(csv), "s.csv", { ...SI, columns: { station: "Site Code", latitude: "N", longitude: "E", do: "Oxygen reading" } });
+    expect(r.problems).toEqual([]);
+    // "DO" would be recognised, but the mapping names another column for DO
+    expect(r.columns).toMatchObject({ station: "Site Code", do: "Oxygen reading" });
+    expect(r.samples[0]).toMatchObject({ station: "Q1", position: [0.25, 0.001], do_mg_l: 6.4 });
+    const wrong = await readSurvey("csv", bytes("station,lat,lon,do\nA,0,0,5\n"), "s.csv", { ...SI, columns: { do: "Dissolved" } });
+    expect(wrong.problems[0]).toMatchObject({ row: null, field: "do" });
+    expect(wrong.problems[0].message).toMatch(/^The mapping names a column "Dissolved" for do, which the file does not have; its columns are station, lat, lon, do$/);
+  });
+
   it("matches column names without case, spaces or punctuation, each file column used once", () => {
     expect(findSurveyColumns(["SITE_ID", "Dissolved Oxygen", "Water.Temperature", "Q"])).toEqual({ station: "SITE_ID", do: "Dissolved Oxygen", temperature: "Water.Temperature", flow: "Q" });
   });
