@@ -47,6 +47,8 @@ export async function editReach(scope: BasinScope,
     if (!reach) throw notFound(`Reach ${reachId}`);
     const { name, lengthKm, ...rest } = edit;
     const attributes = merge(reach.attributes, { ...rest, ...(name !== undefined ? { name } : {}), ...(lengthKm !== undefined ? { lengthKm } : {}) });
+    // a fitted geometry's record of where it came from no longer holds once a coefficient is typed over or cleared
+    if (["hgVelocityCoef", "hgVelocityExp", "hgDepthCoef", "hgDepthExp"].some((k) => k in edit)) delete attributes.hydraulicGeometrySource;
     await updateReach(trx, network.id, reachId, {
       ...(name !== undefined ? { name } : {}),
       ...(lengthKm !== undefined ? { length_km: lengthKm } : {}),

@@ -106,6 +106,13 @@ describe("synoptic surveys", () => {
     expect(fit.velocity.r2).toBeCloseTo(1, 12);
     const reach = await db.selectFrom("reaches").select("attributes").where("network_id", "=", networkId).where("reach_key", "=", "TR-05").executeTakeFirstOrThrow();
     expect(reach.attributes).toMatchObject({ hgVelocityCoef: fit.geometry.a, hgDepthExp: fit.geometry.f, hydraulicGeometrySource: { surveys: [{ id: measured.id, name: "Test survey" }], measurements: 3 } });
+    // typed over in the network table, the coefficients lose their record of where they came from
+    const { PATCH } = await import("@/app/api/basins/[basinId]/networks/[networkId]/reaches/[reachId]/route");
+    const patch = (body: unknown) => callRoute(PATCH, "PATCH", { userId: w.users.planner.id, params: { basinId: w.basinId, networkId, reachId: "TR-05" }, body });
+    expect((await patch({ hgVelocityCoef: null, hgVelocityExp: null, hgDepthCoef: null, hgDepthExp: null })).status).toBe(204);
+    const cleared = await db.selectFrom("reaches").select("attributes").where("network_id", "=", networkId).where("reach_key", "=", "TR-05").executeTakeFirstOrThrow();
+    expect(cleared.attributes).not.toHaveProperty("hydraulicGeometrySource");
+    expect(cleared.attributes).not.toHaveProperty("hgVelocityCoef");
     // a survey without velocity and depth on the reach cannot fit it, and says so naming the field
     const none = await callRoute(POST, "POST", { userId: w.users.planner.id, params: { basinId: w.basinId, networkId, reachId: "TR-02" }, body: { surveyIds: [measured.id] } });
     expect(none.status).toBe(422);
