@@ -9,7 +9,9 @@ import { Field } from "@/components/ui/field";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { ApiError } from "@/lib/queries/fetcher";
+import Papa from "papaparse";
 import { useUploadSurveyMutation } from "@/lib/queries/surveys";
+import { findSurveyColumns } from "@/lib/survey/columns";
 import { surveyUploadSchema, type SurveyUpload } from "@/lib/validation/surveys";
 
 const FIELDS = ["name", "temperatureUnit", "flowUnit", "bodKind", "epsg", "maxSnapDistanceM", "columns", "file"] as const;
@@ -39,6 +41,26 @@ const where = (path: string) =>
     .replace(/^row (\d+)\./, "Row $1, ")
     .replace(/^row (\d+)$/, "Row $1");
 
+/** The columns of a CSV (its header and first rows) or GeoJSON (its first features' properties), read in the browser; null for other files. */
+async function previewColumns(file: File): Promise<{ name: string; sample: string }[] | null> {
+  const name = file.name.toLowerCase();
+  try {
+    if (name.endsWith(".csv") || name.endsWith(".txt")) {
+      const parsed = Papa.parse<Record<string, string>>((await file.slice(0, 65_536).text()).replace(/^\uFEFF/, ""), { header: true, preview: 5, skipEmptyLines: true, transformHeader: (h) => h.trim() });
+      return (parsed.meta.fields ?? []).filter(Boolean).map((f) => ({ name: f, sample: parsed.data.find((r) => (r[f] ?? "").trim() !== "")?.[f]?.trim().slice(0, 24) ?? "" }));
+    }
+    if ((name.endsWith(".geojson") || name.endsWith(".json")) && file.size <= 5 * 1024 * 1024) {
+      const json = JSON.parse(await file.text()) as { features?: { properties?: Record<string, unknown> | null }[] };
+      const first = (json.features ?? []).slice(0, 5).map((f) => f.properties ?? {});
+      const names = [...new Set(first.flatMap((p) => Object.keys(p)))];
+      return names.map((n) => ({ name: n, sample: String(first.find((p) => p[n] !== undefined && p[n] !== null && p[n] !== "")?.[n] ?? "").slice(0, 24) }));
+    }
+  } catch {
+    // the server reads the file and says what is wrong with it
+  }
+  return null;
+}
+
 /**
  * Upload a synoptic survey. The fields are checked by the upload route's own schema; a file
  * with rows Sagline cannot use is refused whole, and every row at fault is listed here.
@@ -48,6 +70,8 @@ export function SurveyUploadForm({ basinId }: { basinId: string }) {
   const upload = useUploadSurveyMutation(basinId);
   const [file, setFile] = useState<File | null>(null);
   const [mapping, setMapping] = useState<Record<string, string>>({});
+  // the file's own columns with a sample value each, read in the browser from a CSV's first rows or a GeoJSON's first features
+  const [fileColumns, setFileColumns] = useState<{ name: string; sample: string }[] | null>(null);
   const [failure, setFailure] = useState<{ message: string; rows: { path: string; message: string }[] } | null>(null);
   const {
     register,
@@ -76,6 +100,14 @@ export function SurveyUploadForm({ basinId }: { basinId: string }) {
     }
   });
   const fileError = (errors as Record<string, { message?: string } | undefined>).file?.message;
+  const guessed = fileColumns ? findSurveyColumns(fileColumns.map((c) => c.name)) : null;
+  // a CSV's coordinates are found by the outfall reader's names (lat/latitude, lon/lng/longitude)
+  const guessOf = (key: string): string | undefined =>
+    key === "latitude"
+      ? fileColumns?.find((c) => /^(lat|latitude)$/i.test(c.name))?.name
+      : key === "longitude"
+        ? fileColumns?.find((c) => /^(lon|long|lng|longitude)$/i.test(c.name))?.name
+        : (guessed as Record<string, string | undefined> | null)?.[key];
   return (
     <form onSubmit={submit} className="card space-y-4" noValidate aria-label="Upload a synoptic survey">
       <h2>Upload a synoptic survey</h2>
@@ -96,8 +128,12 @@ export function SurveyUploadForm({ basinId }: { basinId: string }) {
           className="field-input"
           aria-invalid={fileError ? true : undefined}
           onChange={(e) => {
-            setFile(e.target.files?.[0] ?? null);
+            const chosen = e.target.files?.[0] ?? null;
+            setFile(chosen);
             clearErrors("file" as never);
+            setFileColumns(null);
+            setMapping({});
+            if (chosen) void previewColumns(chosen).then(setFileColumns);
           }}
         />
         {fileError && <p className="field-error">{fileError}</p>}
@@ -157,21 +193,42 @@ export function SurveyUploadForm({ basinId }: { basinId: string }) {
           </div>
         </fieldset>
       </div>
-      <details className="rounded-md border border-rule p-3">
-        <summary className="cursor-pointer text-sm font-medium">Column names in the file (only where Sagline does not recognise them)</summary>
-        <p className="mt-2 text-xs text-ink-faint">Type the file&apos;s own column name beside what it holds; a name given here wins over the names Sagline looks for.</p>
+      <details className="rounded-md border border-rule p-3" open={fileColumns !== null && guessed !== null && !guessed.station}>
+        <summary className="cursor-pointer text-sm font-medium">Columns of the file{fileColumns ? ` (${fileColumns.length} found)` : ""}: what each holds</summary>
+        <p className="mt-2 text-xs text-ink-faint">
+          {fileColumns
+            ? "Sagline's guess from the column names is shown; choose another column where it is wrong or found nothing."
+            : "Type the file's own column name beside what it holds; a name given here wins over the names Sagline looks for."}
+        </p>
         <div className="mt-3 grid gap-3 sm:grid-cols-3">
           {MAPPED.map((m) => (
             <div key={m.key}>
               <label htmlFor={`survey-col-${m.key}`} className="field-label">
                 {m.label}
               </label>
-              <input
-                id={`survey-col-${m.key}`}
-                className="field-input"
-                value={mapping[m.key] ?? ""}
-                onChange={(e) => setMapping((c) => ({ ...c, [m.key]: e.target.value }))}
-              />
+              {fileColumns ? (
+                <select
+                  id={`survey-col-${m.key}`}
+                  className="field-input"
+                  value={mapping[m.key] ?? ""}
+                  onChange={(e) => setMapping((c) => ({ ...c, [m.key]: e.target.value }))}
+                >
+                  <option value="">{guessOf(m.key) ? `as recognised: ${guessOf(m.key)}` : "none"}</option>
+                  {fileColumns.map((c) => (
+                    <option key={c.name} value={c.name}>
+                      {c.name}
+                      {c.sample ? ` (e.g. ${c.sample})` : ""}
+                    </option>
+                  ))}
+                </select>
+              ) : (
+                <input
+                  id={`survey-col-${m.key}`}
+                  className="field-input"
+                  value={mapping[m.key] ?? ""}
+                  onChange={(e) => setMapping((c) => ({ ...c, [m.key]: e.target.value }))}
+                />
+              )}
             </div>
           ))}
         </div>

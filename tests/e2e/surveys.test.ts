@@ -86,6 +86,29 @@ describe("synoptic surveys", () => {
     await page.context().close();
   });
 
+  it("a planner picks a file whose station column Sagline does not know: the form shows the file's columns with samples and takes the choice", async () => {
+    const page = await signedIn("planner", 1440);
+    await page.goto(`${baseUrl}/basins/${basinId}/surveys`);
+    const dir = join(tmpdir(), `sagline-e2e-survey-map-${process.pid}`);
+    mkdirSync(dir, { recursive: true });
+    const file = join(dir, "site-codes.csv");
+    writeFileSync(file, "Site Code,reach,km,do\nQX-1,TR-04,0.8,5.9\nQX-2,TR-05,1.1,5.6\n");
+    await page.getByLabel("Survey file").setInputFiles(file);
+    const station = page.getByLabel("Station", { exact: true });
+    // the guesses the server would make are shown, and no station column was recognised
+    await expect.poll(() => station.locator("option").allTextContents()).toEqual(["none", "Site Code (e.g. QX-1)", "reach (e.g. TR-04)", "km (e.g. 0.8)", "do (e.g. 5.9)"]);
+    expect(await page.getByLabel("DO", { exact: true }).locator("option").first().textContent()).toBe("as recognised: do");
+    await page.screenshot({ path: `${SHOTS}/survey-columns-1440.png`, fullPage: true });
+    await station.selectOption("Site Code");
+    await page.getByLabel("Survey name").fill("Site codes (test)");
+    await page.getByRole("button", { name: "Upload and place the stations" }).click();
+    await page.waitForURL(/\/surveys\/[0-9a-f-]{36}$/, { timeout: 30_000 });
+    const rows = page.getByTestId("survey-samples").locator("tbody tr");
+    await expect.poll(() => rows.count()).toBe(2);
+    expect(await rows.first().textContent()).toContain("QX-1");
+    await page.context().close();
+  });
+
   it("a stakeholder sees no Surveys tab and is refused the page", async () => {
     const page = await signedIn("stakeholder", 1440);
     await page.goto(`${baseUrl}/basins/${basinId}`);
