@@ -23,3 +23,8 @@ export function fittedKineticsText(source: FittedKineticsSource): string {
     : "not checked against a second survey";
   return `${source.name ? `“${source.name}”: ` : ""}${values}; ${fit}; ${check}`;
 }
+
+/** The line exports carry about the plan's coefficients: fitted to a survey (with the source), or as entered. */
+export function kineticsLine(source: FittedKineticsSource | null | undefined): string {
+  return source ? `Kinetics fitted to a survey: ${fittedKineticsText(source)}` : "Kinetics as entered (not calibrated in Sagline)";
+}

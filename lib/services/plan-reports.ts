@@ -14,6 +14,7 @@ import { PLANNING_CAUTION } from "@/lib/results/caution";
 import { allocationCsv } from "@/lib/results/csv-rows";
 import { exportLayer, type ExportLayer } from "@/lib/results/results-geojson";
 import { conditionRows, conditionsLine, runConditions } from "@/lib/results/run-conditions";
+import { kineticsLine } from "@/lib/results/fitted-kinetics";
 import { AppError } from "@/lib/errors";
 import { reachFeature } from "./networks";
 import { getPlan, getPlanForReader, getPublishedPlan } from "./plans";
@@ -120,7 +121,7 @@ async function makeCsv(db: Db, actor: Actor | null, basinId: string, planId: str
   const s = readSnapshot(plan.snapshot);
   const names = Object.fromEntries(plan.allocations.map((a) => [a.permitId, a.facilityName]));
   const text = csvText(
-    allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unitSystem, [...about(basin, plan), conditionsLine({ conditions: s.run.result.conditions, allocation: s.allocation })], names),
+    allocationCsv(s.allocation, s.run.modelFiles[0].file, basin.unitSystem, [...about(basin, plan), conditionsLine({ conditions: s.run.result.conditions, allocation: s.allocation }), kineticsLine(s.scenario.inputs.fittedKinetics?.source)], names),
   );
   await recordExport(db, actor, basin.id, plan, "csv");
   return { download: { body: text, contentType: "text/csv; charset=utf-8", fileName: `${stem}-allocations.csv` }, published: plan.status === "published" };
@@ -177,6 +178,7 @@ async function makeGeoJson(db: Db, actor: Actor | null, basinId: string, planId:
       publishedAt: plan.publishedAt,
       condition: shown.name,
       governing: index === read.governing,
+      kinetics: kineticsLine(s.scenario.inputs.fittedKinetics?.source),
       conditions: conditionRows({ conditions: s.run.result.conditions, allocation: read.allocation }).map((r) => ({
         name: r.name,
         governing: r.governing,

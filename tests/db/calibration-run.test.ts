@@ -8,7 +8,7 @@ import { runModel } from "@/lib/model/network/run";
 import { createCalibrationRun, createRun, getRun, listCalibrationChoices, processRun } from "@/lib/services/runs";
 import { fittedKineticsText } from "@/lib/results/fitted-kinetics";
 import { closeDueReviews, openReview, proposePlan, publishPlan } from "@/lib/services/plans";
-import { getPublishedPlanWithMap } from "@/lib/services/plan-reports";
+import { getPublishedPlanWithMap, planAllocationsCsv, planReachesGeoJson } from "@/lib/services/plan-reports";
 import { planReport } from "@/lib/reports/plan-report-data";
 import { uploadGaugeRecord } from "@/lib/services/gauges";
 import { gaugeUploadSchema } from "@/lib/validation/gauges";
@@ -210,6 +210,11 @@ describe("calibration runs", () => {
     const kd = (await scoped(getRun)(db, w.users.planner, w.basinId, queued.id)).result!.calibration!.parameters[0].value;
     expect(fitted).toContain(`fitted to the survey “${demoSurvey.name}” (16 samples, SHA-256 ${demoSurvey.sha256.slice(0, 16)}…) on the condition “12 August 2026”`);
     expect(fitted).toContain(kd.toPrecision(3));
+    // the exports say so too: the CSV's notes and the GeoJSON's plan member
+    const csv = await planAllocationsCsv(db, null, w.basinId, plan.id);
+    expect(String(csv.body)).toContain(`Kinetics fitted to a survey: Deoxygenation rate k_d at 20 °C (1/d) ${kd.toPrecision(3)}`);
+    const geojson = JSON.parse(String((await planReachesGeoJson(db, null, w.basinId, plan.id)).body)) as { plan: { kinetics: string } };
+    expect(geojson.plan.kinetics).toMatch(/^Kinetics fitted to a survey: .*fitted to the survey “August 2026 main-stem survey”/);
     expect(methods.find((m) => m.label === "7Q10")!.value).toMatch(/^7Q10 of Quillford gauge: 0\.\d+ m³\/s at TR-04, 30 years of daily record 1994-04-01 to 2024-03-31/);
   });
 
