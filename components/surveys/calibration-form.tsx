@@ -41,6 +41,7 @@ export function CalibrationForm({
   surveyNetworkVersion,
   scenarios,
   otherSurveys,
+  stations = [],
 }: {
   basinId: string;
   surveyId: string;
@@ -48,6 +49,8 @@ export function CalibrationForm({
   scenarios: CalibrationScenarioChoice[];
   /** Surveys the fit may be checked against (not this one). */
   otherSurveys: { id: string; name: string }[];
+  /** The survey's stations with DO, and the weight the file gives each (1 when none). */
+  stations?: { station: string; weight: number }[];
 }) {
   const router = useRouter();
   const start = useStartCalibrationMutation(basinId);
@@ -57,6 +60,7 @@ export function CalibrationForm({
   const [rows, setRows] = useState(initialRows);
   const [validationSurveyId, setValidationSurveyId] = useState("");
   const [setName, setSetName] = useState("");
+  const [weights, setWeights] = useState<Record<string, string>>({});
   const [problems, setProblems] = useState<string[]>([]);
   const set = (p: FitParameter, patch: Partial<Row>) => setRows((r) => ({ ...r, [p]: { ...r[p], ...patch } }));
 
@@ -70,6 +74,7 @@ export function CalibrationForm({
       ...(setName.trim() ? { name: setName.trim() } : {}),
       surveyId,
       ...(validationSurveyId ? { validationSurveyId } : {}),
+      ...(Object.keys(weights).length ? { weights: Object.fromEntries(Object.entries(weights).map(([k, v]) => [k, Number(v)])) } : {}),
       condition,
       fit: chosen.map((p) => ({
         parameter: p,
@@ -197,6 +202,30 @@ export function CalibrationForm({
           );
         })}
       </fieldset>
+      {stations.length > 0 && (
+        <details className="rounded-md border border-rule p-3">
+          <summary className="cursor-pointer text-sm font-medium">Weights of the stations ({stations.length})</summary>
+          <p className="mt-2 text-xs text-ink-faint">
+            Each station&apos;s squared residual counts this many times in the fit (the file&apos;s weight column, else 1). Give a less trusted reading less weight.
+          </p>
+          <div className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-4">
+            {stations.map((st) => (
+              <div key={st.station}>
+                <label htmlFor={`cal-weight-${st.station}`} className="field-label">
+                  {st.station}
+                </label>
+                <input
+                  id={`cal-weight-${st.station}`}
+                  className="field-input"
+                  inputMode="decimal"
+                  value={weights[st.station] ?? String(st.weight)}
+                  onChange={(e) => setWeights((w) => ({ ...w, [st.station]: e.target.value }))}
+                />
+              </div>
+            ))}
+          </div>
+        </details>
+      )}
       {problems.length > 0 && (
         <Notice tone="error" title="The calibration was not started">
           <ul className="list-disc pl-5" data-testid="calibration-problems">

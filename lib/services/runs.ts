@@ -241,11 +241,16 @@ export async function createCalibrationRun(scope: BasinScope, scenarioId: string
     }
     return {
       survey: { id: s.id, name: s.name, fileName: s.fileName, sha256: s.sha256, networkVersion: s.networkVersion, firstTime: s.firstTime, lastTime: s.lastTime },
-      observations: observed.map((x) => ({ station: x.station, reach: x.reach, km: Math.min(x.km, reaches.get(x.reach)!.length_km), do_mg_l: x.do_mg_l!, ...(x.weight !== null ? { weight: x.weight } : {}) })),
+      observations: observed.map((x) => {
+        const weight = (path === "surveyId" ? request.weights?.[x.station] : undefined) ?? x.weight;
+        return { station: x.station, reach: x.reach, km: Math.min(x.km, reaches.get(x.reach)!.length_km), do_mg_l: x.do_mg_l!, ...(weight !== null && weight !== undefined ? { weight } : {}) };
+      }),
       leftOut: s.samples.filter((x) => x.do_mg_l === null).map((x) => ({ station: x.station, row: x.row, reason: "no DO value" })),
     };
   };
   const fitted = observationsOf(survey, "surveyId");
+  const unknownStation = Object.keys(request.weights ?? {}).find((st) => !survey.samples.some((x) => x.station === st));
+  if (unknownStation) throw new AppError("invalid", `The survey has no station "${unknownStation}" to weight`, [{ path: `weights.${unknownStation}`, message: "No such station in the survey" }]);
   const observed = fitted.observations;
   const validation = second ? observationsOf(second, "validationSurveyId") : undefined;
   if (validation && validation.observations.length === 0) {

@@ -43,6 +43,8 @@ export const calibrationRunSchema = z.strictObject({
   /** A second survey to check the fitted model against, without refitting. */
   validationSurveyId: z.string().uuid("choose the second survey").optional(),
   condition: z.string({ message: "choose the condition" }).trim().min(1, "choose the condition"),
+  /** Weights by station name (> 0), over the survey's own weight column; a station left out keeps the survey's (1 when none). */
+  weights: z.record(z.string().min(1), finite("weight").refine((w) => w > 0 && w <= 1000, "a weight must be above 0 and at most 1000")).optional(),
   fit: z
     .array(
       z

@@ -223,6 +223,14 @@ describe("calibration runs", () => {
     expect((await refused(ask({ ...base, condition: "Spring" }))).details).toEqual([{ path: "condition", message: "One of 7Q10, 12 August 2026" }]);
     expect((await refused(ask({ ...base, fit: [{ ...base.fit[0], reaches: ["XX-9"] }] }))).details).toEqual([{ path: "fit.0.reaches", message: "Unknown reach XX-9" }]);
     expect((await refused(ask({ ...base, surveyId: "00000000-0000-4000-8000-000000000000" }))).details).toEqual([{ path: "surveyId", message: "Unknown survey" }]);
+    expect((await refused(ask({ ...base, weights: { "TS-99": 2 } }))).details).toEqual([{ path: "weights.TS-99", message: "No such station in the survey" }]);
+    expect(() => calibrationRunSchema.parse({ ...base, weights: { "TS-01": 0 } })).toThrow(/a weight must be above 0/);
+    // weights given with the request go to the stations named; the others keep the survey's (1)
+    const weighted = await ask({ ...base, weights: { "TS-07": 4, "TS-08": 0.5 } });
+    const obs = (await inputsOf(weighted.id)).calibration.observations;
+    expect(obs.find((o) => o.station === "TS-07")!.weight).toBe(4);
+    expect(obs.find((o) => o.station === "TS-08")!.weight).toBe(0.5);
+    expect(obs.find((o) => o.station === "TS-01")!.weight).toBeUndefined();
     const twice = await refused(ask({ ...base, fit: [base.fit[0], { ...base.fit[0], reaches: ["TR-03"] }] }));
     expect(twice.details).toEqual([{ path: "fit.1.reaches", message: "kd20_per_day of TR-03 is already fitted by entry 1" }]);
     const small = await scoped(uploadSurvey)(db, w.users.planner, w.basinId, { name: "one.csv", bytes: Buffer.from("station,reach,km,do\nA,TR-03,1,6\n") }, surveyUploadSchema.parse({ name: "One sample" }));

@@ -112,7 +112,15 @@ export default async function SurveyPage({ params }: { params: Promise<{ basinId
         </div>
       </section>
       {newest && <HydraulicFit basinId={access.basin.id} surveyId={survey.id} network={newest} reaches={measuredReaches} />}
-      {canCalibrate && <CalibrationForm basinId={access.basin.id} surveyId={survey.id} surveyNetworkVersion={survey.networkVersion} scenarios={scenarios} otherSurveys={otherSurveys} />}
+      {canCalibrate && (
+        <CalibrationForm
+          basinId={access.basin.id}
+          surveyId={survey.id}
+          surveyNetworkVersion={survey.networkVersion} scenarios={scenarios}
+          otherSurveys={otherSurveys}
+          stations={[...new Map(survey.samples.filter((x) => x.do_mg_l !== null).map((x) => [x.station, { station: x.station, weight: x.weight ?? 1 }])).values()]}
+        />
+      )}
       <PlanningCaution />
     </div>
   );
