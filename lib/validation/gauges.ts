@@ -10,7 +10,8 @@ export const climaticYearStartSchema = z
   .refine((s) => s !== "02-29", "climatic year start cannot be 29 February")
   .default(DEFAULT_CLIMATIC_YEAR_START);
 
-const optionalText = (max: number, what: string) =>
+/** An optional trimmed text field of a multipart form: empty is absent. */
+export const optionalText = (max: number, what: string) =>
   z
     .string()
     .trim()

@@ -1,13 +1,6 @@
 import { z } from "zod";
 import { temperatureUnitSchema } from "@/lib/hydrology/read-record";
-
-const optionalText = (max: number, what: string) =>
-  z
-    .string()
-    .trim()
-    .max(max, `${what} must be at most ${max} characters`)
-    .optional()
-    .transform((s) => (s ? s : undefined));
+import { optionalText } from "./gauges";
 
 /** The form fields of a daily water-temperature record's upload (multipart, beside the file). */
 export const temperatureRecordUploadSchema = z.object({

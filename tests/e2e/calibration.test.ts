@@ -1,11 +1,10 @@
 import { mkdirSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DEMO_USERS } from "@/db/seed/demo-data";
 import type { CalibrationRecord } from "@/lib/calibration/payload";
 import type { ModelFile } from "@/lib/model/types";
 import { DEMO_STRESS_SCENARIO, DEMO_SURVEY } from "@/lib/services/demo";
-import { launchBrowser, signInAs } from "./support/browser";
+import { demoUserPage, launchBrowser, noSidewaysScroll } from "./support/browser";
 
 /**
  * Calibration to a synoptic survey in the browser: the planner fits k_d (every reach) and SOD
@@ -23,14 +22,7 @@ let surveyId: string;
 /** The finished calibration of the first test, used by the scenario test. */
 let calibrationRunId: string | undefined;
 
-const user = (key: string) => DEMO_USERS.find((u) => u.key === key)!;
-async function signedIn(key: string, width: number): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width, height: width > 500 ? 900 : 844 } });
-  const page = await context.newPage();
-  await signInAs(page, baseUrl, user(key).email, user(key).password);
-  return page;
-}
-const noSidewaysScroll = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth);
+const signedIn = (key: string, width: number): Promise<Page> => demoUserPage(browser, baseUrl, key, width);
 
 /** The survey's page with the calibration form set to the demo scenario, its condition, k_d everywhere and SOD over SOD_REACHES. */
 async function fillCalibrationForm(page: Page, sodReaches: string) {

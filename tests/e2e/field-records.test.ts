@@ -3,8 +3,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DEMO_USERS } from "@/db/seed/demo-data";
-import { launchBrowser, signInAs } from "./support/browser";
+import { demoUserPage, launchBrowser, noSidewaysScroll } from "./support/browser";
 
 /**
  * Field records beyond flows and surveys, in the browser: a daily water-temperature record on
@@ -17,14 +16,7 @@ let browser: Browser;
 let basinId: string;
 const dir = join(tmpdir(), `sagline-e2e-field-${process.pid}`);
 
-const user = (key: string) => DEMO_USERS.find((u) => u.key === key)!;
-async function signedIn(key: string, width: number): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width, height: width > 500 ? 900 : 844 } });
-  const page = await context.newPage();
-  await signInAs(page, baseUrl, user(key).email, user(key).password);
-  return page;
-}
-const noSidewaysScroll = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth);
+const signedIn = (key: string, width: number): Promise<Page> => demoUserPage(browser, baseUrl, key, width);
 
 beforeAll(async () => {
   mkdirSync(SHOTS, { recursive: true });

@@ -1,9 +1,8 @@
 import { mkdirSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DEMO_USERS } from "@/db/seed/demo-data";
 import { DEMO_STRESS_SCENARIO } from "@/lib/services/demo";
-import { launchBrowser, signInAs } from "./support/browser";
+import { demoUserPage, launchBrowser } from "./support/browser";
 
 const baseUrl = inject("baseUrl");
 const SHOTS = "test-results/screens";
@@ -16,15 +15,9 @@ let reachNames: string[] = [];
 let planId: string;
 const PLAN_TITLE = "Hub test plan (draft)";
 
-const user = (key: string) => DEMO_USERS.find((u) => u.key === key)!;
 const SCENARIO_NAME = "Slow reaeration, sag past the outlet";
 
-async function signedInPage(key: string, width: number): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width, height: width > 500 ? 900 : 844 } });
-  const page = await context.newPage();
-  await signInAs(page, baseUrl, user(key).email, user(key).password);
-  return page;
-}
+const signedInPage = (key: string, width: number): Promise<Page> => demoUserPage(browser, baseUrl, key, width);
 
 async function runToEnd(page: Page, id: string, kind: "model" | "allocation"): Promise<string> {
   const res = await page.request.post(`${baseUrl}/api/basins/${basinId}/scenarios/${id}/runs`, { data: { kind } });

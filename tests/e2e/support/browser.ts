@@ -1,4 +1,5 @@
 import { chromium, type Browser, type Page } from "playwright-core";
+import { DEMO_USERS } from "@/db/seed/demo-data";
 
 /** Debian's Chromium, headless, with nothing reaching outside the machine. */
 export async function launchBrowser(): Promise<Browser> {
@@ -28,3 +29,16 @@ export async function signInAs(page: Page, baseUrl: string, email: string, passw
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL(`${baseUrl}/basins`);
 }
+
+/** A fresh browser context at `width` (a phone's 844 px height below 500 px wide), signed in as the demo user `key`. */
+export async function demoUserPage(browser: Browser, baseUrl: string, key: string, width: number): Promise<Page> {
+  const user = DEMO_USERS.find((u) => u.key === key);
+  if (!user) throw new Error(`no demo user "${key}"`);
+  const context = await browser.newContext({ viewport: { width, height: width > 500 ? 900 : 844 } });
+  const page = await context.newPage();
+  await signInAs(page, baseUrl, user.email, user.password);
+  return page;
+}
+
+/** Nothing on the page is wider than the window (no sideways scrolling). */
+export const noSidewaysScroll = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth);
