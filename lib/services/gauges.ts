@@ -1,11 +1,12 @@
 import { insertAuditEvent } from "@/db/queries/audit";
 import { findGaugeRecord, insertGaugeRecord, listGaugeRecords as listGaugeRows } from "@/db/queries/gauges";
-import { findReach, latestNetworkId, reachKeys } from "@/db/queries/networks";
+import { latestNetworkId, reachKeys } from "@/db/queries/networks";
 import type { BasinScope } from "@/lib/auth/scope";
-import { AppError, notFound } from "@/lib/errors";
+import { notFound } from "@/lib/errors";
 import { importPool } from "@/lib/compute/import-pool";
 import type { DesignFlowResult, LowFlowReport } from "@/lib/hydrology/low-flow";
 import type { GaugeUpload } from "@/lib/validation/gauges";
+import { checkReachOnNewestNetwork, checkRecordFile, fileProblem } from "./field-records";
 import { importFailure } from "./imports";
 
 /** The most bytes a daily record may have: 200 years of daily rdb text is under 10 MB. */
@@ -59,7 +60,6 @@ function summaryDto(r: Omit<SummaryRow, "design_flows">, designFlows: DesignFlow
   };
 }
 
-const fileProblem = (message: string) => new AppError("invalid", message, [{ path: "file", message }]);
 
 /**
  * A gauge's daily flow record: the file is read (CSV `date,flow` or rdb text, in the unit the
@@ -70,10 +70,7 @@ const fileProblem = (message: string) => new AppError("invalid", message, [{ pat
 export async function uploadGaugeRecord(scope: BasinScope, file: { name: string; bytes: Buffer }, fields: GaugeUpload): Promise<GaugeDto> {
   scope.require("network.import");
   const { db, actor, basin } = scope;
-  if (file.bytes.byteLength > GAUGE_RECORD_MAX_BYTES) {
-    throw new AppError("too_large", `${file.name} is larger than the ${GAUGE_RECORD_MAX_BYTES / 1048576} MB limit for a daily record`, [{ path: "file", message: "File too large" }]);
-  }
-  if (file.bytes.byteLength === 0) throw fileProblem(`${file.name} is empty`);
+  checkRecordFile(file, GAUGE_RECORD_MAX_BYTES, "a daily record");
   // reading and the statistics run in the import worker thread: a century of daily rdb text takes a second
   const read = await importPool()
     .gauge({ bytes: file.bytes, fileName: file.name, unit: fields.unit, climaticYearStart: fields.climaticYearStart })
@@ -82,12 +79,7 @@ export async function uploadGaugeRecord(scope: BasinScope, file: { name: string;
     });
   if (!read.ok) throw fileProblem(read.message);
   const { report, sha256 } = read;
-  if (fields.reachId !== undefined) {
-    const networkId = await latestNetworkId(db, basin.id);
-    if (!networkId || !(await findReach(db, networkId, fields.reachId))) {
-      throw new AppError("invalid", `There is no reach "${fields.reachId}" in the basin's newest network`, [{ path: "reachId", message: "Unknown reach" }]);
-    }
-  }
+  if (fields.reachId !== undefined) await checkReachOnNewestNetwork(db, basin.id, fields.reachId);
   return db.transaction().execute(async (trx) => {
     const { id } = await insertGaugeRecord(trx, {
       basin_id: basin.id,

@@ -8,6 +8,7 @@ import { AppError, notFound } from "@/lib/errors";
 import type { PlacedSample } from "@/lib/survey/place-stations";
 import type { SurveyReadOptions } from "@/lib/survey/read-survey";
 import type { SurveyUpload } from "@/lib/validation/surveys";
+import { checkRecordFile } from "./field-records";
 import { detectFormat, importFailure } from "./imports";
 
 /** The most bytes a survey file may have: a few thousand samples are well under 5 MB in any of its formats. */
@@ -58,7 +59,6 @@ function summaryDto(r: SummaryRow): SurveySummaryDto {
   };
 }
 
-const fileProblem = (message: string) => new AppError("invalid", message, [{ path: "file", message }]);
 
 /**
  * A synoptic survey: the file is read (CSV, GeoJSON or zipped shapefile points; columns found by
@@ -70,10 +70,7 @@ const fileProblem = (message: string) => new AppError("invalid", message, [{ pat
 export async function uploadSurvey(scope: BasinScope, file: { name: string; bytes: Buffer }, fields: SurveyUpload): Promise<SurveyDto> {
   scope.require("network.import");
   const { db, actor, basin } = scope;
-  if (file.bytes.byteLength > SURVEY_MAX_BYTES) {
-    throw new AppError("too_large", `${file.name} is larger than the ${SURVEY_MAX_BYTES / 1048576} MB limit for a survey`, [{ path: "file", message: "File too large" }]);
-  }
-  if (file.bytes.byteLength === 0) throw fileProblem(`${file.name} is empty`);
+  checkRecordFile(file, SURVEY_MAX_BYTES, "a survey");
   const format = detectFormat(file.name, file.bytes);
   const networkId = await latestNetworkId(db, basin.id);
   if (!networkId) throw new AppError("conflict", "The basin has no network yet: import one before a survey, so its stations can be placed on it");

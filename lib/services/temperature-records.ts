@@ -1,11 +1,10 @@
 import { insertAuditEvent } from "@/db/queries/audit";
-import { findReach, latestNetworkId } from "@/db/queries/networks";
 import { findTemperatureRecord, insertTemperatureRecord, listTemperatureRecords as listRows } from "@/db/queries/temperature-records";
 import type { BasinScope } from "@/lib/auth/scope";
 import { importPool } from "@/lib/compute/import-pool";
-import { AppError } from "@/lib/errors";
 import { DEFAULT_DESIGN_TEMPERATURE_RULE, designTemperature, type DesignTemperature } from "@/lib/hydrology/design-temperature";
 import type { TemperatureRecordUpload } from "@/lib/validation/temperature-records";
+import { checkReachOnNewestNetwork, checkRecordFile, fileProblem } from "./field-records";
 import { importFailure } from "./imports";
 
 /** The most bytes a daily temperature record may have: two centuries of daily CSV are under 5 MB. */
@@ -52,7 +51,6 @@ function dto(r: Row, summer: DesignTemperature | null): TemperatureRecordDto {
   };
 }
 
-const fileProblem = (message: string) => new AppError("invalid", message, [{ path: "file", message }]);
 const summerOf = (days: unknown): DesignTemperature | null => {
   try {
     return designTemperature(days as Parameters<typeof designTemperature>[0], DEFAULT_DESIGN_TEMPERATURE_RULE);
@@ -69,22 +67,14 @@ const summerOf = (days: unknown): DesignTemperature | null => {
 export async function uploadTemperatureRecord(scope: BasinScope, file: { name: string; bytes: Buffer }, fields: TemperatureRecordUpload): Promise<TemperatureRecordDto> {
   scope.require("network.import");
   const { db, actor, basin } = scope;
-  if (file.bytes.byteLength > TEMPERATURE_RECORD_MAX_BYTES) {
-    throw new AppError("too_large", `${file.name} is larger than the ${TEMPERATURE_RECORD_MAX_BYTES / 1048576} MB limit for a daily record`, [{ path: "file", message: "File too large" }]);
-  }
-  if (file.bytes.byteLength === 0) throw fileProblem(`${file.name} is empty`);
+  checkRecordFile(file, TEMPERATURE_RECORD_MAX_BYTES, "a daily record");
   const read = await importPool()
     .temperature({ bytes: file.bytes, fileName: file.name, unit: fields.unit })
     .catch((e: unknown) => {
       throw importFailure(e);
     });
   if (!read.ok) throw fileProblem(read.message);
-  if (fields.reachId !== undefined) {
-    const networkId = await latestNetworkId(db, basin.id);
-    if (!networkId || !(await findReach(db, networkId, fields.reachId))) {
-      throw new AppError("invalid", `There is no reach "${fields.reachId}" in the basin's newest network`, [{ path: "reachId", message: "Unknown reach" }]);
-    }
-  }
+  if (fields.reachId !== undefined) await checkReachOnNewestNetwork(db, basin.id, fields.reachId);
   return db.transaction().execute(async (trx) => {
     const { id } = await insertTemperatureRecord(trx, {
       basin_id: basin.id,
