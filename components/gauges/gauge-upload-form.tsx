@@ -6,6 +6,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { FileField } from "@/components/ui/file-field";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { useUploadGaugeMutation } from "@/lib/queries/gauges";
@@ -51,23 +52,16 @@ export function GaugeUploadForm({ basinId, reachIds }: { basinId: string; reachI
         A CSV file with the header <code>date,flow</code> (ISO dates, one row a day; a blank flow is a missing day), or the tab-separated rdb text a
         water-data service publishes. Sagline computes the low flows from it and keeps the file as uploaded.
       </p>
-      <div>
-        <label htmlFor="gauge-file" className="field-label">
-          Record file
-        </label>
-        <input
-          id="gauge-file"
-          type="file"
-          accept=".csv,.txt,.rdb,.tsv,text/csv,text/plain"
-          className="field-input"
-          aria-invalid={fileError ? true : undefined}
-          onChange={(e) => {
-            setFile(e.target.files?.[0] ?? null);
-            clearErrors("file" as never);
-          }}
-        />
-        {fileError && <p className="field-error">{fileError}</p>}
-      </div>
+      <FileField
+        id="gauge-file"
+        label="Record file"
+        accept=".csv,.txt,.rdb,.tsv,text/csv,text/plain"
+        error={fileError}
+        onFile={(f) => {
+          setFile(f);
+          clearErrors("file" as never);
+        }}
+      />
       <div className="grid gap-4 sm:grid-cols-2">
         <Field label="Gauge name" error={errors.name?.message} {...register("name")} id="gauge-name" />
         <Field label="Station code (optional)" error={errors.stationCode?.message} {...register("stationCode")} id="gauge-station" />

@@ -6,6 +6,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { FileField } from "@/components/ui/file-field";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { useUploadTemperatureRecordMutation } from "@/lib/queries/gauges";
@@ -54,23 +55,16 @@ export function TemperatureUploadForm({ basinId, reachIds }: { basinId: string; 
         A CSV file with the header <code>date,temperature</code> (ISO dates, one row a day of daily mean water temperature; a blank is a missing day), or
         rdb text. A condition&apos;s design temperature can then come from it by a stated rule (a high percentile of the summer daily means).
       </p>
-      <div>
-        <label htmlFor="temperature-file" className="field-label">
-          Water-temperature file
-        </label>
-        <input
-          id="temperature-file"
-          type="file"
-          accept=".csv,.txt,.rdb,.tsv,text/csv,text/plain"
-          className="field-input"
-          aria-invalid={fileError ? true : undefined}
-          onChange={(e) => {
-            setFile(e.target.files?.[0] ?? null);
-            clearErrors("file" as never);
-          }}
-        />
-        {fileError && <p className="field-error">{fileError}</p>}
-      </div>
+      <FileField
+        id="temperature-file"
+        label="Water-temperature file"
+        accept=".csv,.txt,.rdb,.tsv,text/csv,text/plain"
+        error={fileError}
+        onFile={(f) => {
+          setFile(f);
+          clearErrors("file" as never);
+        }}
+      />
       <div className="grid gap-4 sm:grid-cols-2">
         <Field label="Record name" error={errors.name?.message} {...register("name")} id="temperature-name" />
         <Field label="Station code (optional)" error={errors.stationCode?.message} {...register("stationCode")} id="temperature-station" />

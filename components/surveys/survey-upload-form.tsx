@@ -6,6 +6,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { FileField } from "@/components/ui/file-field";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { ApiError } from "@/lib/queries/fetcher";
@@ -117,27 +118,19 @@ export function SurveyUploadForm({ basinId }: { basinId: string }) {
         names (station, lat, lon, reach, km, date, time, do, temperature, bod5, cbodu, nh3n, flow, weight). Each station is placed on the basin&apos;s
         newest network as outfalls are; the file is kept as uploaded.
       </p>
-      <div>
-        <label htmlFor="survey-file" className="field-label">
-          Survey file
-        </label>
-        <input
-          id="survey-file"
-          type="file"
-          accept=".csv,.geojson,.json,.zip,text/csv,application/geo+json,application/zip"
-          className="field-input"
-          aria-invalid={fileError ? true : undefined}
-          onChange={(e) => {
-            const chosen = e.target.files?.[0] ?? null;
-            setFile(chosen);
-            clearErrors("file" as never);
-            setFileColumns(null);
-            setMapping({});
-            if (chosen) void previewColumns(chosen).then(setFileColumns);
-          }}
-        />
-        {fileError && <p className="field-error">{fileError}</p>}
-      </div>
+      <FileField
+        id="survey-file"
+        label="Survey file"
+        accept=".csv,.geojson,.json,.zip,text/csv,application/geo+json,application/zip"
+        error={fileError}
+        onFile={(chosen) => {
+          setFile(chosen);
+          clearErrors("file" as never);
+          setFileColumns(null);
+          setMapping({});
+          if (chosen) void previewColumns(chosen).then(setFileColumns);
+        }}
+      />
       <div className="grid gap-4 sm:grid-cols-2">
         <Field label="Survey name" error={errors.name?.message} {...register("name")} id="survey-name" />
         <Field
