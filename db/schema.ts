@@ -132,6 +132,8 @@ export interface TemperatureRecordsTable {
   missing_days: number;
   /** Daily means in °C (lib/hydrology/design-temperature.ts DailyValue[]). */
   days: Json<unknown>;
+  /** The design temperature by the default rule, worked out at upload (null: no June–September values, or kept before it was). */
+  summer: Json<unknown> | null;
   uploaded_by: string | null;
   uploaded_at: CreatedAt;
 }

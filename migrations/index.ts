@@ -16,6 +16,7 @@ import * as m2026120401 from "./2026120401_gauge_records";
 import * as m2026120501 from "./2026120501_surveys";
 import * as m2026120502 from "./2026120502_calibration_runs";
 import * as m2026120503 from "./2026120503_temperature_records";
+import * as m2026120504 from "./2026120504_temperature_summer";
 
 /**
  * Every migration, listed explicitly (Kysely's FileMigrationProvider does a
@@ -40,6 +41,7 @@ export const migrations: Record<string, Migration> = {
   "2026120501_surveys": m2026120501,
   "2026120502_calibration_runs": m2026120502,
   "2026120503_temperature_records": m2026120503,
+  "2026120504_temperature_summer": m2026120504,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -2,7 +2,7 @@ import type { LowFlowReport } from "../hydrology/low-flow";
 import type { NetworkReachLine, PlacedSample } from "../survey/place-stations";
 import type { SurveyReadOptions, SurveyRowProblem } from "../survey/read-survey";
 import type { FlowUnit, TemperatureRecordUnit } from "../hydrology/read-record";
-import type { DailyValue } from "../hydrology/design-temperature";
+import type { DesignTemperature } from "../hydrology/design-temperature";
 import type { CrsInfo, DischargerMapping, FieldInfo, ReachMapping, ReadOptions, SourceFormat, UploadLayer, ValidateOptions } from "../../geo";
 
 /** One kept upload as the import worker reads it. */
@@ -41,7 +41,8 @@ export type GaugeReadResult =
 
 /** A temperature record read in the worker, or the reason it could not be (naming the line). */
 export type TemperatureReadResult =
-  | { ok: true; days: DailyValue[]; sha256: string; dayCount: number; missingDays: number; firstDay: string; lastDay: string }
+  /** The days as JSON text (written as is), and the default rule's design temperature. */
+  | { ok: true; daysJson: string; summer: DesignTemperature | null; sha256: string; dayCount: number; missingDays: number; firstDay: string; lastDay: string }
   | { ok: false; message: string };
 
 /** A survey read and placed in the worker: its samples, or every row problem (nothing is saved then). */

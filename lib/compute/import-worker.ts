@@ -8,6 +8,7 @@ import { GeoError } from "../../geo/errors";
 import { readUploadLayer } from "../../geo/read-upload";
 import { validateImport, type ValidateProgress } from "../../geo/validate";
 import type { Problem } from "../../geo/problems";
+import { DEFAULT_DESIGN_TEMPERATURE_RULE, designTemperature } from "../hydrology/design-temperature";
 import { lowFlowStatistics } from "../hydrology/low-flow";
 import { readDailyRecord, readDailyTemperature, RecordError } from "../hydrology/read-record";
 import { placeSamples } from "../survey/place-stations";
@@ -102,9 +103,16 @@ function readTemperature(job: Extract<ImportJob, { kind: "temperature" }>): Temp
   try {
     const days = readDailyTemperature(text, job.unit);
     if (days.length === 0) return { ok: false, message: `${job.fileName}: the record has no days` };
+    let summer = null;
+    try {
+      summer = designTemperature(days, DEFAULT_DESIGN_TEMPERATURE_RULE);
+    } catch (e) {
+      if (!(e instanceof RangeError)) throw e;
+    }
     return {
       ok: true,
-      days,
+      daysJson: JSON.stringify(days),
+      summer,
       sha256: createHash("sha256").update(bytes).digest("hex"),
       dayCount: days.length,
       missingDays: days.filter((d) => d.value === null).length,

@@ -1,8 +1,8 @@
 import { insertAuditEvent } from "@/db/queries/audit";
-import { findTemperatureRecord, insertTemperatureRecord, listTemperatureRecords as listRows } from "@/db/queries/temperature-records";
+import { findTemperatureRecordSummary, insertTemperatureRecord, listTemperatureRecords as listRows } from "@/db/queries/temperature-records";
 import type { BasinScope } from "@/lib/auth/scope";
 import { importPool } from "@/lib/compute/import-pool";
-import { DEFAULT_DESIGN_TEMPERATURE_RULE, designTemperature, type DesignTemperature } from "@/lib/hydrology/design-temperature";
+import type { DesignTemperature } from "@/lib/hydrology/design-temperature";
 import type { TemperatureRecordUpload } from "@/lib/validation/temperature-records";
 import { checkReachOnNewestNetwork, checkRecordFile, fileProblem } from "./field-records";
 import { importFailure } from "./imports";
@@ -29,9 +29,9 @@ export interface TemperatureRecordDto {
   summer: DesignTemperature | null;
 }
 
-type Row = Omit<Awaited<ReturnType<typeof listRows>>[number], "days">;
+type Row = Awaited<ReturnType<typeof listRows>>[number];
 
-function dto(r: Row, summer: DesignTemperature | null): TemperatureRecordDto {
+function dto(r: Row): TemperatureRecordDto {
   return {
     id: r.id,
     name: r.name,
@@ -47,17 +47,10 @@ function dto(r: Row, summer: DesignTemperature | null): TemperatureRecordDto {
     missingDays: r.missing_days,
     uploadedAt: r.uploaded_at.toISOString(),
     uploadedBy: r.uploaded_by_name,
-    summer,
+    summer: (r.summer as DesignTemperature | null) ?? null,
   };
 }
 
-const summerOf = (days: unknown): DesignTemperature | null => {
-  try {
-    return designTemperature(days as Parameters<typeof designTemperature>[0], DEFAULT_DESIGN_TEMPERATURE_RULE);
-  } catch {
-    return null;
-  }
-};
 
 /**
  * A daily water-temperature record (CSV date,temperature or rdb text, in °C or °F), read in the
@@ -90,7 +83,8 @@ export async function uploadTemperatureRecord(scope: BasinScope, file: { name: s
       last_day: read.lastDay,
       day_count: read.dayCount,
       missing_days: read.missingDays,
-      days: JSON.stringify(read.days),
+      days: read.daysJson,
+      summer: read.summer ? JSON.stringify(read.summer) : null,
       uploaded_by: actor.id,
     });
     await insertAuditEvent(trx, {
@@ -101,13 +95,12 @@ export async function uploadTemperatureRecord(scope: BasinScope, file: { name: s
       targetId: id,
       details: { name: fields.name, fileName: file.name, sha256: read.sha256, days: read.dayCount },
     });
-    const { days, ...row } = (await findTemperatureRecord(trx, basin.id, id))!;
-    return dto(row, summerOf(days));
+    return dto((await findTemperatureRecordSummary(trx, basin.id, id))!);
   });
 }
 
 /** The basin's temperature records with the default rule's design temperature of each. */
 export async function listTemperatureRecords(scope: BasinScope): Promise<TemperatureRecordDto[]> {
   scope.require("scenario.read");
-  return (await listRows(scope.db, scope.basin.id)).map(({ days, ...r }) => dto(r, summerOf(days)));
+  return (await listRows(scope.db, scope.basin.id)).map(dto);
 }
