@@ -122,3 +122,8 @@ export const validationProgressParams = z.object({
   basinId: z.uuid("basinId is not a valid id"),
   progressId: z.uuid("progressId is not a valid id"),
 });
+
+/** A reach's hydraulic geometry fitted to surveys' measurements (POST …/reaches/:reachId/hydraulic-geometry). */
+export const hydraulicFitSchema = z.strictObject({
+  surveyIds: z.array(z.uuid("a survey id")).min(1, "name at least one survey").max(20, "at most 20 surveys"),
+});
