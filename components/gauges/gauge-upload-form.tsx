@@ -7,6 +7,7 @@ import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { FileField } from "@/components/ui/file-field";
+import { ReachChoice } from "./reach-choice";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { useUploadGaugeMutation } from "@/lib/queries/gauges";
@@ -65,20 +66,7 @@ export function GaugeUploadForm({ basinId, reachIds }: { basinId: string; reachI
       <div className="grid gap-4 sm:grid-cols-2">
         <Field label="Gauge name" error={errors.name?.message} {...register("name")} id="gauge-name" />
         <Field label="Station code (optional)" error={errors.stationCode?.message} {...register("stationCode")} id="gauge-station" />
-        <div>
-          <label htmlFor="gauge-reach" className="field-label">
-            Reach it stands on (optional)
-          </label>
-          <select id="gauge-reach" className="field-input" {...register("reachId")}>
-            <option value="">Not placed</option>
-            {reachIds.map((id) => (
-              <option key={id} value={id}>
-                {id}
-              </option>
-            ))}
-          </select>
-          {errors.reachId && <p className="field-error">{errors.reachId.message}</p>}
-        </div>
+        <ReachChoice id="gauge-reach" label="Reach it stands on (optional)" reachIds={reachIds} error={errors.reachId?.message} {...register("reachId")} />
         <Field
           label="Climatic year starts (MM-DD)"
           hint="1 April (04-01) is the usual start for low flows, so each year's dry season falls inside one year."

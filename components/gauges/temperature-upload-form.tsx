@@ -7,6 +7,7 @@ import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { FileField } from "@/components/ui/file-field";
+import { ReachChoice } from "./reach-choice";
 import { applyApiError } from "@/components/ui/form-error";
 import { Notice } from "@/components/ui/notice";
 import { useUploadTemperatureRecordMutation } from "@/lib/queries/gauges";
@@ -68,20 +69,7 @@ export function TemperatureUploadForm({ basinId, reachIds }: { basinId: string; 
       <div className="grid gap-4 sm:grid-cols-2">
         <Field label="Record name" error={errors.name?.message} {...register("name")} id="temperature-name" />
         <Field label="Station code (optional)" error={errors.stationCode?.message} {...register("stationCode")} id="temperature-station" />
-        <div>
-          <label htmlFor="temperature-reach" className="field-label">
-            Reach it was measured on (optional)
-          </label>
-          <select id="temperature-reach" className="field-input" {...register("reachId")}>
-            <option value="">Not placed</option>
-            {reachIds.map((id) => (
-              <option key={id} value={id}>
-                {id}
-              </option>
-            ))}
-          </select>
-          {errors.reachId && <p className="field-error">{errors.reachId.message}</p>}
-        </div>
+        <ReachChoice id="temperature-reach" label="Reach it was measured on (optional)" reachIds={reachIds} error={errors.reachId?.message} {...register("reachId")} />
         <fieldset>
           <legend className="field-label">Temperature unit in the file</legend>
           <div className="flex gap-6 text-sm">
